@@ -30,8 +30,8 @@
  * half-width as `errorBound` (rigorous for the sampling; the Magnus tables, erfc and quadrature add < 1e-7,
  * checked by convergence tests). `uncertainty` is 0: nothing here is random.
  */
-import { convexHull, polarPolygon, transformRows } from './transmissionHull';
-import { gaussLegendre, meanNormalCdf, normalCdf } from './transmissionMath';
+import { ConvexIndex, convexHull, insertIntoHull, polarPolygon, transformRows } from './transmissionHull';
+import { gaussLegendre, meanNormalCdf, normalCdf, psiExcess } from './transmissionMath';
 import { fundamentalAt, monodromy, multiply2, periodTable, power2, type PeriodTable } from './trajectoryMathieu';
 import { flightModel, requireInteger, type FlightModel, type TransmissionParams } from './peakInput';
 
@@ -46,15 +46,15 @@ export interface TransmissionResult {
 export interface FastTransmissionOptions {
   /** Samples per RF period S (a multiple of `phases`); default 128. */
   samplesPerPeriod?: number;
-  /** Entry phases averaged; default 32. */
+  /** Entry phases to start with (doubled while the error estimate is too large); default 16. */
   phases?: number;
-  /** Gauss–Legendre order per panel; default 8. */
+  /** Gauss–Legendre order per panel; default 4. */
   quadratureOrder?: number;
   /** Magnus steps between samples; default 2. */
   substeps?: number;
 }
 
-export const FAST_DEFAULTS = { samplesPerPeriod: 128, phases: 32, quadratureOrder: 8, substeps: 2 } as const;
+export const FAST_DEFAULTS = { samplesPerPeriod: 128, phases: 16, quadratureOrder: 4, substeps: 2 } as const;
 
 /** A c-space hull beyond this size means the acceptance is thinner than 1e-80 of the beam: T = 0 (documented). */
 const COLLAPSE_LIMIT = 1e80;
@@ -66,11 +66,18 @@ export interface AxisFlight {
   cycles: number;
   /** Hull (r-space, phase-0 frame) of whole periods 1..coreEnd, or null if none. */
   core: Float64Array | null;
+  /** Fast inside test for the core hull (points inside it cannot be vertices of a window's hull). */
+  coreIndex: ConvexIndex | null;
   coreEnd: number;
   /** The motion grows so fast that nothing survives (see COLLAPSE_LIMIT). */
   collapsed: boolean;
   /** Relative overshoot bound ε = h²G/8 between samples. */
   epsilon: number;
+  /**
+   * Samples outside the core that some window may include: period 0 and the periods after the core, as
+   * (ξ, u, w) rows in the phase-0 frame, ascending ξ. Samples inside the core hull are dropped once, here.
+   */
+  candidates: { xi: Float64Array; u: Float64Array; w: Float64Array; count: number };
 }
 
 export function prepareAxis(A: number, Q: number, cycles: number, samples: number, substeps: number): AxisFlight {
@@ -110,7 +117,48 @@ export function prepareAxis(A: number, Q: number, cycles: number, samples: numbe
       core = convexHull(shifted, shifted.length / 2);
     }
   }
-  return { table, monodromy: m, cycles, core, coreEnd, collapsed, epsilon };
+  const coreIndex = core && core.length >= 6 ? new ConvexIndex(core) : null;
+  const candidates = windowCandidates(table, m, coreEnd, cycles, coreIndex);
+  return { table, monodromy: m, cycles, core, coreIndex, coreEnd, collapsed, epsilon, candidates };
+}
+
+function windowCandidates(
+  table: PeriodTable,
+  m: Float64Array,
+  coreEnd: number,
+  cycles: number,
+  index: ConvexIndex | null,
+): AxisFlight['candidates'] {
+  const S = table.samples;
+  const spacing = Math.PI / S;
+  const firstExtra = Math.max(1, coreEnd + 1);
+  // The latest window ends before π + nπ.
+  const lastPeriod = Math.floor(cycles + 1);
+  const capacity = S + 1 + Math.max(0, lastPeriod - firstExtra + 1) * S;
+  const xi = new Float64Array(capacity);
+  const u = new Float64Array(capacity);
+  const w = new Float64Array(capacity);
+  let count = 0;
+  const add = (at: number, a: number, b: number): void => {
+    if (index && index.contains(a, b)) return; // −(a, b) is then inside too: the core is centrally symmetric
+    xi[count] = at;
+    u[count] = a;
+    w[count] = b;
+    count++;
+  };
+  for (let j = 1; j <= S; j++) add(j * spacing, table.u[j], table.w[j]);
+  if (lastPeriod >= firstExtra && lastPeriod - firstExtra < 4) {
+    let mp = power2(m, firstExtra);
+    for (let p = firstExtra; p <= lastPeriod; p++) {
+      for (let j = 0; j < S; j++) {
+        const a = table.u[j];
+        const b = table.w[j];
+        add(p * Math.PI + j * spacing, a * mp[0] + b * mp[2], a * mp[1] + b * mp[3]);
+      }
+      mp = multiply2(mp, m);
+    }
+  }
+  return { xi, u, w, count };
 }
 
 function mergeHull(d: Float64Array, e: Float64Array, b: Float64Array): Float64Array {
@@ -143,22 +191,19 @@ export function acceptancePolygon(axis: AxisFlight, entryPhase: number): Float64
  */
 export function constraintHull(axis: AxisFlight, entryPhase: number): Float64Array | null {
   if (axis.collapsed) return null;
-  const { table, cycles } = axis;
-  const S = table.samples;
-  const spacing = Math.PI / S;
+  const { table, cycles, candidates } = axis;
   const end = entryPhase + cycles * Math.PI;
   const lastPeriod = Math.floor(end / Math.PI);
-  const firstExtra = Math.max(1, axis.coreEnd + 1);
-  const extraPeriods = Math.max(0, lastPeriod - firstExtra + 1);
   const coreCount = axis.core ? axis.core.length / 2 : 0;
-  const capacity = coreCount + 2 * ((S + 2) * (1 + extraPeriods) + 2);
-  const pts = new Float64Array(2 * capacity);
+  const pts = new Float64Array(2 * (coreCount + 2 * (candidates.count + 2)));
   let count = 0;
   if (axis.core) {
     pts.set(axis.core);
     count = coreCount;
   }
+  const index = axis.coreIndex;
   const push = (x: number, y: number): void => {
+    if (index && index.contains(x, y)) return;
     pts[2 * count] = x;
     pts[2 * count + 1] = y;
     pts[2 * count + 2] = -x;
@@ -168,35 +213,29 @@ export function constraintHull(axis: AxisFlight, entryPhase: number): Float64Arr
   const entry = new Float64Array(4);
   fundamentalAt(table, entryPhase, entry);
   push(entry[0], entry[1]);
-  // Period 0: samples after the entry, up to the exit if the flight ends in this period.
-  const j0 = Math.floor(entryPhase / spacing) + 1;
-  for (let j = j0; j <= S; j++) {
-    if (j * spacing > end) break;
-    push(table.u[j], table.w[j]);
-  }
-  // Periods after the core, up to the exit.
-  let mp = power2(axis.monodromy, firstExtra);
-  for (let p = firstExtra; p <= lastPeriod; p++) {
-    const m0 = mp[0];
-    const m1 = mp[1];
-    const m2 = mp[2];
-    const m3 = mp[3];
-    for (let j = 0; j < S; j++) {
-      if (p * Math.PI + j * spacing > end) break;
-      const u = table.u[j];
-      const w = table.w[j];
-      push(u * m0 + w * m2, u * m1 + w * m3);
-    }
-    if (p < lastPeriod) mp = multiply2(mp, axis.monodromy);
+  // Samples strictly after the entry and not after the exit (period 0 and the periods after the core).
+  for (let i = 0; i < candidates.count; i++) {
+    const at = candidates.xi[i];
+    if (at <= entryPhase) continue;
+    if (at > end) break;
+    pts[2 * count] = candidates.u[i];
+    pts[2 * count + 1] = candidates.w[i];
+    pts[2 * count + 2] = -candidates.u[i];
+    pts[2 * count + 3] = -candidates.w[i];
+    count += 2;
   }
   // Exit point.
   const exit = new Float64Array(4);
-  const lastStart = lastPeriod * Math.PI;
   const mEnd = power2(axis.monodromy, lastPeriod);
-  fundamentalAt(table, end - lastStart, exit);
+  fundamentalAt(table, end - lastPeriod * Math.PI, exit);
   push(exit[0] * mEnd[0] + exit[1] * mEnd[2], exit[0] * mEnd[1] + exit[1] * mEnd[3]);
 
-  const hull = convexHull(pts, count);
+  // Few points outside the core: insert them; many (growing motion): one full hull.
+  const extraCount = count - coreCount;
+  const hull =
+    axis.core && extraCount <= 24
+      ? insertIntoHull(axis.core, pts.subarray(2 * coreCount), extraCount)
+      : convexHull(pts, count);
   if (maxAbs(hull) > COLLAPSE_LIMIT) return null;
   // c = r·Φ(ξ0)⁻¹, Φ⁻¹ = [[w', −w], [−u', u]] (det Φ = 1).
   const inverse = Float64Array.of(entry[3], -entry[1], -entry[2], entry[0]);
@@ -248,6 +287,26 @@ export function upperChain(polygon: Float64Array, scale = 1): UpperChain {
   return { xs, hs, extent: scale * polygon[2 * right] };
 }
 
+/** The part of a chain over [−limit, limit] (limit ≤ extent), ends interpolated; `extent` is kept. */
+export function clipChain(chain: UpperChain, limit: number): UpperChain {
+  const { xs, hs } = chain;
+  if (limit >= chain.extent || xs.length < 2) return chain;
+  const k0 = segmentOf(xs, -limit);
+  const k1 = segmentOf(xs, limit);
+  const n = k1 - k0 + 2;
+  const cx = new Float64Array(n);
+  const ch = new Float64Array(n);
+  cx[0] = -limit;
+  ch[0] = heightAt(chain, -limit);
+  for (let k = k0 + 1; k <= k1; k++) {
+    cx[k - k0] = xs[k];
+    ch[k - k0] = hs[k];
+  }
+  cx[n - 1] = limit;
+  ch[n - 1] = heightAt(chain, limit);
+  return { xs: cx, hs: ch, extent: chain.extent };
+}
+
 /** Index k with xs[k] ≤ x ≤ xs[k+1] (clamped). */
 function segmentOf(xs: Float64Array, x: number): number {
   let lo = 0;
@@ -293,45 +352,82 @@ export function survivalAt(chain: UpperChain, x: number, s: number): number {
   return value > 0 ? value : 0;
 }
 
-/** Cumulative F(y) = ∫_{−extent}^{y} Φ(hi(t)/s) dt at the chain vertices (closed form per linear piece). */
-function cumulative(chain: UpperChain, s: number): Float64Array {
-  const { xs, hs } = chain;
-  const f = new Float64Array(xs.length);
-  for (let k = 0; k + 1 < xs.length; k++) f[k + 1] = f[k] + (xs[k + 1] - xs[k]) * segmentMean(hs[k], hs[k + 1], s);
-  return f;
+/**
+ * F(y) = ∫_{−Y0}^{y} Φ(hi(t)/s) dt along a (clipped) chain, in closed form per linear piece:
+ * ∫Φ(τ)dt = (Ψ(τ1) − Ψ(τ0))·Δt/Δτ with Ψ cached at the vertices (Ψ = max(τ, 0) + excess, see transmissionMath).
+ */
+interface ChainIntegral {
+  chain: UpperChain;
+  s: number;
+  /** F at the vertices. */
+  f: Float64Array;
+  /** τ = h/s and the Ψ excess at the vertices (s > 0 only). */
+  tau: Float64Array;
+  psi: Float64Array;
 }
 
-function cumulativeAt(chain: UpperChain, f: Float64Array, s: number, y: number): number {
+function chainIntegral(chain: UpperChain, s: number): ChainIntegral {
   const { xs, hs } = chain;
+  const n = xs.length;
+  const f = new Float64Array(n);
+  const tau = new Float64Array(n);
+  const psi = new Float64Array(n);
+  if (s > 0) for (let k = 0; k < n; k++) {
+    tau[k] = hs[k] / s;
+    psi[k] = psiExcess(tau[k]);
+  }
+  const integral: ChainIntegral = { chain, s, f, tau, psi };
+  for (let k = 0; k + 1 < n; k++) f[k + 1] = f[k] + pieceIntegral(integral, k, xs[k + 1] - xs[k], hs[k + 1], tau[k + 1], psi[k + 1]);
+  return integral;
+}
+
+/** ∫ from vertex k over a length dy to a point of height h (τ, Ψ excess given when known, else NaN). */
+function pieceIntegral(g: ChainIntegral, k: number, dy: number, h: number, tauEnd: number, psiEnd: number): number {
+  if (dy <= 0) return 0;
+  const s = g.s;
+  const h0 = g.chain.hs[k];
+  if (!(s > 0)) return dy * segmentMean(h0, h, 0);
+  const t0 = g.tau[k];
+  const t1 = Number.isNaN(tauEnd) ? h / s : tauEnd;
+  if (Math.abs(t1 - t0) < 0.1) return dy * meanNormalCdf(t0, t1);
+  const p1 = Number.isNaN(psiEnd) ? psiExcess(t1) : psiEnd;
+  return (dy * (Math.max(t1, 0) - Math.max(t0, 0) + p1 - g.psi[k])) / (t1 - t0);
+}
+
+function cumulativeAt(g: ChainIntegral, y: number): number {
+  const { xs } = g.chain;
   if (xs.length === 1) return 0;
   const k = segmentOf(xs, y);
   const dy = y - xs[k];
-  if (dy <= 0) return f[k];
-  return f[k] + dy * segmentMean(hs[k], heightAt(chain, y), s);
+  if (dy <= 0) return g.f[k];
+  return g.f[k] + pieceIntegral(g, k, dy, heightAt(g.chain, y), Number.NaN, Number.NaN);
 }
 
 /** C(Y) = ∫_0^Y P(y) dy = F(Y) − F(−Y) − Y for Y inside the polygon's extent, constant beyond. */
-function chordIntegral(chain: UpperChain, f: Float64Array, s: number, Y: number): number {
-  const y = Math.min(Y, chain.extent);
+function chordIntegral(g: ChainIntegral, Y: number): number {
+  const y = Math.min(Y, g.chain.extent);
   if (y <= 0) return 0;
-  const value = cumulativeAt(chain, f, s, y) - cumulativeAt(chain, f, s, -y) - y;
+  const value = cumulativeAt(g, y) - cumulativeAt(g, -y) - y;
   return value > 0 ? value : 0;
 }
 
-/** Zero crossings of the chain height (features of P where Φ(hi/s) switches) with the local |slope|. */
-function chainFeatures(chain: UpperChain, s: number, out: number[]): void {
+/**
+ * Where P changes character: the chain ends, and every x at which hi(x) (or hi(−x)) crosses one of the levels
+ * 0, ±k·s (k in `levels`) — the Gaussian velocity weight switches over there, so panels are cut at those x.
+ * Level crossings adapt to the local steepness of the chain, however curved it is.
+ */
+function chainFeatures(chain: UpperChain, s: number, out: number[], levels: readonly number[]): void {
   const { xs, hs } = chain;
   out.push(chain.extent);
-  for (let k = 0; k + 1 < xs.length; k++) {
-    if ((hs[k] > 0) !== (hs[k + 1] > 0)) {
-      const dx = xs[k + 1] - xs[k];
-      const slope = (hs[k + 1] - hs[k]) / dx;
-      const x = xs[k] - hs[k] / slope;
-      const width = s / Math.abs(slope);
-      for (const sign of [1, -1]) {
-        const at = sign * x;
-        out.push(at);
-        if (s > 0) out.push(at - width, at + width, at - 3 * width, at + 3 * width);
+  const targets = [0];
+  if (s > 0) for (const k of levels) targets.push(k * s, -k * s);
+  for (const level of targets) {
+    for (let k = 0; k + 1 < xs.length; k++) {
+      const h0 = hs[k] - level;
+      const h1 = hs[k + 1] - level;
+      if ((h0 > 0) !== (h1 > 0)) {
+        const x = xs[k] + (h0 / (h0 - h1)) * (xs[k + 1] - xs[k]);
+        out.push(x, -x);
       }
     }
   }
@@ -351,16 +447,27 @@ function rule(order: number): { nodes: Float64Array; weights: Float64Array } {
  * Transmission at one entry phase: (1/πb²)∫∫_disc P_x(x) P_y(y) dx dy
  *   = (4/πb) ∫_0^Θ P_x(b sin θ) C_y(b cos θ) cos θ dθ, using evenness of P_x and P_y.
  */
-export function phaseTransmission(chainX: UpperChain, chainY: UpperChain, beamRadius: number, s: number, order: number): number {
+export function phaseTransmission(
+  fullX: UpperChain,
+  fullY: UpperChain,
+  beamRadius: number,
+  s: number,
+  order: number,
+  maxPanel = Math.PI / 8,
+  levels: readonly number[] = [0.5, 1, 2, 4],
+): number {
   const b = beamRadius;
-  const fy = cumulative(chainY, s);
-  const limit = Math.min(b, chainX.extent);
-  if (limit <= 0 || chainY.extent <= 0) return 0;
+  const limit = Math.min(b, fullX.extent);
+  if (limit <= 0 || fullY.extent <= 0) return 0;
+  // Only the parts of the chains inside the beam matter.
+  const chainX = clipChain(fullX, limit);
+  const chainY = clipChain(fullY, Math.min(b, fullY.extent));
+  const fy = chainIntegral(chainY, s);
   const thetaMax = Math.asin(Math.min(1, limit / b));
   const xFeatures: number[] = [];
-  chainFeatures(chainX, s, xFeatures);
+  chainFeatures(chainX, s, xFeatures, levels);
   const yFeatures: number[] = [];
-  chainFeatures(chainY, s, yFeatures);
+  chainFeatures(chainY, s, yFeatures, levels);
   const cuts: number[] = [0, thetaMax];
   for (const x of xFeatures) if (x > 0 && x < limit) cuts.push(Math.asin(x / b));
   for (const y of yFeatures) if (y > 0 && y < b) {
@@ -369,7 +476,6 @@ export function phaseTransmission(chainX: UpperChain, chainY: UpperChain, beamRa
   }
   cuts.sort((p, q) => p - q);
   const { nodes, weights } = rule(order);
-  const maxPanel = Math.PI / 16;
   let sum = 0;
   for (let i = 0; i + 1 < cuts.length; i++) {
     const t0 = cuts[i];
@@ -387,7 +493,7 @@ export function phaseTransmission(chainX: UpperChain, chainY: UpperChain, beamRa
         const c = Math.cos(theta);
         const px = survivalAt(chainX, b * Math.sin(theta), s);
         if (px === 0) continue;
-        panel += weights[k] * px * chordIntegral(chainY, fy, s, b * c) * c;
+        panel += weights[k] * px * chordIntegral(fy, b * c) * c;
       }
       sum += panel * half;
     }
@@ -433,28 +539,119 @@ export function phaseBracket(ctx: FastContext, entryPhase: number): { outer: num
   return { outer, inner };
 }
 
-/** Phase-averaged bracket for a prepared flight. */
-export function flightTransmission(ctx: FastContext): TransmissionResult {
-  if (ctx.x.collapsed || ctx.y.collapsed) return { transmission: 0, uncertainty: 0, errorBound: 0 };
-  const P = ctx.options.phases;
-  let outer = 0;
-  let inner = 0;
-  for (let k = 0; k < P; k++) {
-    const r = phaseBracket(ctx, (k * Math.PI) / P);
-    outer += r.outer;
-    inner += r.inner;
-  }
-  outer /= P;
-  inner /= P;
-  return { transmission: 0.5 * (outer + inner), uncertainty: 0, errorBound: 0.5 * Math.abs(outer - inner) };
+/**
+ * Entry-phase values on the grid ξ0 = kπ/P. Outer (sampled polygon) at every phase; inner ((1 − ε)-scaled)
+ * at the even phases only, since the sampling bracket varies slowly with phase.
+ */
+export interface PhaseValues {
+  phases: number;
+  outer: Float64Array;
+  inner: Float64Array;
 }
+
+/** Evaluate (or refine to) P phases, reusing the P/2 values of `previous`. */
+export function evaluatePhases(ctx: FastContext, phases: number, previous: PhaseValues | null = null): PhaseValues {
+  const outer = new Float64Array(phases);
+  const inner = new Float64Array(phases).fill(Number.NaN);
+  const collapsed = ctx.x.collapsed || ctx.y.collapsed;
+  const reuse = previous && previous.phases * 2 === phases ? previous : null;
+  for (let k = 0; k < phases; k++) {
+    if (collapsed) {
+      outer[k] = 0;
+      inner[k] = 0;
+      continue;
+    }
+    if (reuse && k % 2 === 0) {
+      outer[k] = reuse.outer[k / 2];
+      if (k % 4 === 0) inner[k] = reuse.inner[k / 2];
+      continue;
+    }
+    const entry = (k * Math.PI) / phases;
+    const px = acceptancePolygon(ctx.x, entry);
+    const py = px ? acceptancePolygon(ctx.y, entry) : null;
+    if (!px || !py) {
+      outer[k] = 0;
+      inner[k] = 0;
+      continue;
+    }
+    const { beamRadius, slopeSigma } = ctx.model;
+    const order = ctx.options.quadratureOrder;
+    outer[k] = phaseTransmission(upperChain(px), upperChain(py), beamRadius, slopeSigma, order);
+    if (k % 2 === 0 && Number.isNaN(inner[k])) {
+      inner[k] = phaseTransmission(upperChain(px, 1 - ctx.x.epsilon), upperChain(py, 1 - ctx.y.epsilon), beamRadius, slopeSigma, order);
+    }
+  }
+  // Inner values of the even phases that were reused from a coarser grid where they were odd: fill them now.
+  for (let k = 0; k < phases; k += 2) {
+    if (Number.isNaN(inner[k])) {
+      const entry = (k * Math.PI) / phases;
+      const px = acceptancePolygon(ctx.x, entry);
+      const py = px ? acceptancePolygon(ctx.y, entry) : null;
+      inner[k] = px && py
+        ? phaseTransmission(upperChain(px, 1 - ctx.x.epsilon), upperChain(py, 1 - ctx.y.epsilon), ctx.model.beamRadius, ctx.model.slopeSigma, ctx.options.quadratureOrder)
+        : 0;
+    }
+  }
+  return { phases, outer, inner };
+}
+
+/**
+ * Result from phase values. T_out(P) = mean of the outer values (trapezoid rule, periodic); the sampling bracket
+ * T_out − T_in is taken from the even phases; the phase-rule error is estimated by |T_out(P) − T_out(P/2)|
+ * (the P/2 rule is the even subset; for a smooth periodic integrand the P rule's error is far below this).
+ * transmission = T_out(P) − bracket/2; errorBound = bracket/2 + phase-rule estimate.
+ */
+export function summarisePhases(values: PhaseValues): TransmissionResult & { phaseError: number; samplingError: number } {
+  const P = values.phases;
+  let outer = 0;
+  let outerEven = 0;
+  let innerEven = 0;
+  for (let k = 0; k < P; k++) {
+    outer += values.outer[k];
+    if (k % 2 === 0) {
+      outerEven += values.outer[k];
+      innerEven += values.inner[k];
+    }
+  }
+  const half = Math.max(1, Math.ceil(P / 2));
+  outer /= P;
+  outerEven /= half;
+  innerEven /= half;
+  const samplingError = 0.5 * Math.max(0, outerEven - innerEven);
+  const phaseError = P >= 2 ? Math.abs(outer - outerEven) : outer;
+  const transmission = Math.min(1, Math.max(0, outer - samplingError));
+  return { transmission, uncertainty: 0, errorBound: samplingError + phaseError, phaseError, samplingError };
+}
+
+/** Phase-averaged transmission, doubling the phases from 16 until the error estimate meets `tolerance`. */
+export function flightTransmission(ctx: FastContext, tolerance: number = Number.POSITIVE_INFINITY): TransmissionResult {
+  let values = evaluatePhases(ctx, ctx.options.phases);
+  let result = summarisePhases(values);
+  while (result.errorBound > tolerance && values.phases < MAX_PHASES) {
+    values = evaluatePhases(ctx, values.phases * 2, values);
+    result = summarisePhases(values);
+  }
+  return { transmission: result.transmission, uncertainty: 0, errorBound: result.errorBound };
+}
+
+/** Upper limit of entry phases for the adaptive rule. */
+export const MAX_PHASES = 512;
 
 /**
  * Transmitted fraction of the ion ensemble (see the model and method above). SI inputs; m/z in u per e.
  * Throws PeakInputError naming the field and accepted range on bad input.
  */
-export function transmission(p: TransmissionParams, options: FastTransmissionOptions = {}): TransmissionResult {
+export function transmission(p: TransmissionParams, options: FastTransmissionOptions & { relativeTolerance?: number } = {}): TransmissionResult {
   const model = flightModel(p);
   const resolved = resolveOptions(options);
-  return flightTransmission(prepareFlight(model, resolved));
+  const relative = options.relativeTolerance ?? 1e-3;
+  const ctx = prepareFlight(model, resolved);
+  // Refine until the bound is below relativeTolerance·T (with a floor of 1e-6 absolute for T near 0).
+  let values = evaluatePhases(ctx, resolved.phases);
+  let result = summarisePhases(values);
+  while (result.errorBound > relative * Math.max(result.transmission, 1e-3) && values.phases < MAX_PHASES) {
+    values = evaluatePhases(ctx, values.phases * 2, values);
+    result = summarisePhases(values);
+  }
+  return { transmission: result.transmission, uncertainty: 0, errorBound: result.errorBound };
 }

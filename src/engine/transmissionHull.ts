@@ -38,6 +38,58 @@ export function convexHull(points: Float64Array, count: number): Float64Array {
     out[2 * i] = points[2 * hull[i]];
     out[2 * i + 1] = points[2 * hull[i] + 1];
   }
+  return cleanHull(out);
+}
+
+/**
+ * Remove vertices that rounding left nearly coincident with, or nearly on the line through, their neighbours
+ * (relative 1e-10): they would make the polar vertex 0/0 or ∞ and change the polygon by nothing measurable.
+ */
+function cleanHull(hull: Float64Array): Float64Array {
+  let m = hull.length / 2;
+  if (m < 3) return hull;
+  let clean = true;
+  for (let i = 0; i < m && clean; i++) {
+    const p = (i + m - 1) % m;
+    const n = (i + 1) % m;
+    const ax = hull[2 * i] - hull[2 * p];
+    const ay = hull[2 * i + 1] - hull[2 * p + 1];
+    const bx = hull[2 * n] - hull[2 * i];
+    const by = hull[2 * n + 1] - hull[2 * i + 1];
+    const lengthA = Math.sqrt(ax * ax + ay * ay);
+    const size = Math.max(Math.sqrt(hull[2 * i] * hull[2 * i] + hull[2 * i + 1] * hull[2 * i + 1]), 1e-300);
+    if (lengthA <= 1e-10 * size || ax * by - ay * bx <= 1e-10 * lengthA * Math.sqrt(bx * bx + by * by)) clean = false;
+  }
+  if (clean) return hull;
+  const xs = Array.from({ length: m }, (_, i) => hull[2 * i]);
+  const ys = Array.from({ length: m }, (_, i) => hull[2 * i + 1]);
+  let changed = true;
+  while (changed && m > 3) {
+    changed = false;
+    for (let i = 0; i < m && m > 3; i++) {
+      const p = (i + m - 1) % m;
+      const n = (i + 1) % m;
+      const ax = xs[i] - xs[p];
+      const ay = ys[i] - ys[p];
+      const bx = xs[n] - xs[i];
+      const by = ys[n] - ys[i];
+      const lengthA = Math.sqrt(ax * ax + ay * ay);
+      const lengthB = Math.sqrt(bx * bx + by * by);
+      const size = Math.max(Math.sqrt(xs[i] * xs[i] + ys[i] * ys[i]), 1e-300);
+      if (lengthA <= 1e-10 * size || ax * by - ay * bx <= 1e-10 * lengthA * lengthB) {
+        xs.splice(i, 1);
+        ys.splice(i, 1);
+        m--;
+        changed = true;
+        i--;
+      }
+    }
+  }
+  const out = new Float64Array(2 * m);
+  for (let i = 0; i < m; i++) {
+    out[2 * i] = xs[i];
+    out[2 * i + 1] = ys[i];
+  }
   return out;
 }
 
@@ -122,4 +174,98 @@ export function polarPolygon(hull: Float64Array): Float64Array {
     out[2 * i + 1] = (ax - bx) / det;
   }
   return out;
+}
+
+/**
+ * O(log m) strict-inside test for a convex polygon (counter-clockwise) that contains the origin: find the wedge
+ * from the origin that holds the point by binary search on angle (ordered from vertex 0), then test that edge.
+ */
+export class ConvexIndex {
+  private readonly xs: Float64Array;
+  private readonly ys: Float64Array;
+  private readonly halves: Uint8Array;
+  readonly size: number;
+  constructor(polygon: Float64Array) {
+    const m = polygon.length / 2;
+    this.size = m;
+    this.xs = new Float64Array(m);
+    this.ys = new Float64Array(m);
+    this.halves = new Uint8Array(m);
+    for (let i = 0; i < m; i++) {
+      this.xs[i] = polygon[2 * i];
+      this.ys[i] = polygon[2 * i + 1];
+    }
+    for (let i = 0; i < m; i++) this.halves[i] = this.half(this.xs[i], this.ys[i]);
+  }
+
+  /** 0 for angles [θ0, θ0 + π) measured from vertex 0, 1 for the rest. */
+  private half(x: number, y: number): number {
+    const c = this.xs[0] * y - this.ys[0] * x;
+    if (c > 0) return 0;
+    if (c < 0) return 1;
+    return this.xs[0] * x + this.ys[0] * y > 0 ? 0 : 1;
+  }
+
+  contains(x: number, y: number): boolean {
+    const m = this.size;
+    if (m < 3) return false;
+    const h = this.half(x, y);
+    // Last vertex i whose angle is ≤ the point's angle.
+    let lo = 0;
+    let hi = m - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      const hm = this.halves[mid];
+      const before = hm < h || (hm === h && this.xs[mid] * y - this.ys[mid] * x >= 0);
+      if (before) lo = mid;
+      else hi = mid - 1;
+    }
+    const i = lo;
+    const j = i + 1 === m ? 0 : i + 1;
+    const ex = this.xs[j] - this.xs[i];
+    const ey = this.ys[j] - this.ys[i];
+    const cross = ex * (y - this.ys[i]) - ey * (x - this.xs[i]);
+    return cross > 1e-12 * (Math.abs(ex) + Math.abs(ey)) * (Math.abs(x) + Math.abs(y));
+  }
+}
+
+/**
+ * Hull of a convex polygon (counter-clockwise) and a few extra points, by inserting the points one at a time:
+ * the edges a point sees form one run; they are replaced by two edges through the point. O(m) per point.
+ */
+export function insertIntoHull(polygon: Float64Array, extra: Float64Array, extraCount: number): Float64Array {
+  let poly = polygon;
+  for (let e = 0; e < extraCount; e++) {
+    const px = extra[2 * e];
+    const py = extra[2 * e + 1];
+    const m = poly.length / 2;
+    const sees = (i: number): boolean => {
+      const j = i + 1 === m ? 0 : i + 1;
+      return (poly[2 * j] - poly[2 * i]) * (py - poly[2 * i + 1]) - (poly[2 * j + 1] - poly[2 * i + 1]) * (px - poly[2 * i]) < 0;
+    };
+    let first = -1;
+    for (let i = 0; i < m; i++) {
+      if (sees(i)) {
+        first = i;
+        break;
+      }
+    }
+    if (first < 0) continue;
+    // Walk back to the start of the visible run, then forward to its end.
+    let start = first;
+    while (sees((start + m - 1) % m) && (start + m - 1) % m !== first) start = (start + m - 1) % m;
+    let end = first;
+    while (sees((end + 1) % m) && (end + 1) % m !== start) end = (end + 1) % m;
+    // Keep vertices from end+1 round to start (inclusive), then the new point.
+    const kept = ((start - (end + 1) + 2 * m) % m) + 1;
+    const next = new Float64Array(2 * (kept + 1));
+    for (let t = 0, i = (end + 1) % m; t < kept; t++, i = i + 1 === m ? 0 : i + 1) {
+      next[2 * t] = poly[2 * i];
+      next[2 * t + 1] = poly[2 * i + 1];
+    }
+    next[2 * kept] = px;
+    next[2 * kept + 1] = py;
+    poly = next;
+  }
+  return poly === polygon ? polygon : cleanHull(poly);
 }
