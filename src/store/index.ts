@@ -61,9 +61,9 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
     openDB<RodsideSchema>(name, DB_VERSION, {
       upgrade: (database, oldVersion, _newVersion, tx) => upgrade(database, oldVersion, tx),
       blocked: () => events.onBlocked?.(),
-      blocking: () => {
+      blocking: (_current, _wanted, event) => {
         // Let the newer tab upgrade; this tab must reload before it writes again.
-        database.close();
+        (event.target as IDBDatabase).close();
         events.onVersionChange?.();
       },
       terminated: () => events.onVersionChange?.(),
