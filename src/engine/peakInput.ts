@@ -1,5 +1,6 @@
 /**
- * Inputs of the peak simulation: physical constants, the refusal of bad input, and the Mathieu parameters
+ * Inputs of the peak simulation: the refusal of bad input (the engine's InputRangeError, naming field, value and
+ * range; CODATA 2018 constants from constants.ts), and the Mathieu parameters
  * that follow from a set of instrument settings.
  *
  * Convention (the engine's one): rod pair x at +(U + V cos Ωt), rod pair y at −(U + V cos Ωt), U and V per rod
@@ -7,27 +8,8 @@
  * x'' + (a − 2q cos 2ξ) x = 0 and y'' − (a − 2q cos 2ξ) y = 0 (DLMF 28.2.1 with (a, q) and (−a, −q)).
  */
 
-/** Elementary charge, C (CODATA 2018, exact since the 2019 SI). */
-export const PEAK_ELEMENTARY_CHARGE = 1.602176634e-19;
-/** Atomic mass constant, kg (CODATA 2018). */
-export const PEAK_ATOMIC_MASS = 1.6605390666e-27;
-
-/**
- * Bad input to the peak simulation: names the field, the value given and the accepted range.
- * (Local until the engine's shared validation error lands; same shape: field, value, range.)
- */
-export class PeakInputError extends RangeError {
-  readonly field: string;
-  readonly value: unknown;
-  readonly range: string;
-  constructor(field: string, value: unknown, range: string) {
-    super(`${field} = ${String(value)} is not accepted: expected ${range}`);
-    this.name = 'PeakInputError';
-    this.field = field;
-    this.value = value;
-    this.range = range;
-  }
-}
+import { ATOMIC_MASS_CONSTANT, ELEMENTARY_CHARGE } from './constants';
+import { InputRangeError } from './validate';
 
 export function requireFinite(field: string, value: number, min: number, max: number, open: 'min' | 'none' = 'min'): number {
   const ok =
@@ -37,14 +19,14 @@ export function requireFinite(field: string, value: number, min: number, max: nu
     value <= max;
   if (!ok) {
     const lower = open === 'min' ? `> ${min}` : `≥ ${min}`;
-    throw new PeakInputError(field, value, `a finite number ${lower} and ≤ ${max}`);
+    throw new InputRangeError(field, value, `a finite number ${lower} and ≤ ${max}`);
   }
   return value;
 }
 
 export function requireInteger(field: string, value: number, min: number, max: number): number {
   if (typeof value !== 'number' || !Number.isInteger(value) || value < min || value > max) {
-    throw new PeakInputError(field, value, `an integer from ${min} to ${max}`);
+    throw new InputRangeError(field, value, `an integer from ${min} to ${max}`);
   }
   return value;
 }
@@ -83,7 +65,7 @@ export interface TransmissionParams extends BeamSettings {
 export const PEAK_MAX_CYCLES = 1e6;
 
 export function validateBeamSettings(p: BeamSettings): void {
-  if (p === null || typeof p !== 'object') throw new PeakInputError('params', p, 'an object of instrument settings');
+  if (p === null || typeof p !== 'object') throw new InputRangeError('params', p, 'an object of instrument settings');
   requireFinite('r0', p.r0, 0, 0.1);
   requireFinite('frequency', p.frequency, 0, 1e9);
   requireFinite('dc', p.dc, -1e5, 1e5, 'none');
@@ -94,7 +76,7 @@ export function validateBeamSettings(p: BeamSettings): void {
   requireFinite('transverseEnergy', p.transverseEnergy, 0, 1e4, 'none');
   if (p.charge !== undefined) {
     requireInteger('charge', p.charge, -100, 100);
-    if (p.charge === 0) throw new PeakInputError('charge', 0, 'a non-zero integer from -100 to 100');
+    if (p.charge === 0) throw new InputRangeError('charge', 0, 'a non-zero integer from -100 to 100');
   }
 }
 
@@ -110,13 +92,13 @@ export interface FlightModel {
   slopeSigma: number;
 }
 
-/** Mathieu parameters, flight length and scaled beam for one species; throws PeakInputError on bad input. */
+/** Mathieu parameters, flight length and scaled beam for one species; throws InputRangeError on bad input. */
 export function flightModel(p: TransmissionParams): FlightModel {
   validateBeamSettings(p);
   requireFinite('mz', p.mz, 0, 1e7);
   const z = Math.abs(p.charge ?? 1);
-  const mass = p.mz * z * PEAK_ATOMIC_MASS;
-  const charge = z * PEAK_ELEMENTARY_CHARGE;
+  const mass = p.mz * z * ATOMIC_MASS_CONSTANT;
+  const charge = z * ELEMENTARY_CHARGE;
   const omega = 2 * Math.PI * p.frequency;
   const scale = charge / (mass * p.r0 * p.r0 * omega * omega);
   // A negative ion sees (−a, −q) in x, i.e. the roles of x and y swap; the round beam makes that irrelevant.
@@ -126,14 +108,14 @@ export function flightModel(p: TransmissionParams): FlightModel {
   const axialSpeed = Math.sqrt((2 * charge * p.axialVoltage) / mass);
   const cycles = (p.frequency * p.rodLength) / axialSpeed;
   if (!(cycles >= 0.5 && cycles <= PEAK_MAX_CYCLES)) {
-    throw new PeakInputError(
+    throw new InputRangeError(
       'cycles',
       cycles,
       `a flight of 0.5 to ${PEAK_MAX_CYCLES} RF cycles (n = f·L·√(m/(2zeV_z)); change frequency, rodLength or axialVoltage)`,
     );
   }
   // dx/dξ = (2/Ω)·v_x; σ_v = √(e·ε⊥/m).
-  const velocitySigma = Math.sqrt((PEAK_ELEMENTARY_CHARGE * p.transverseEnergy) / mass);
+  const velocitySigma = Math.sqrt((ELEMENTARY_CHARGE * p.transverseEnergy) / mass);
   return {
     a,
     q,

@@ -14,9 +14,10 @@ import {
   type FastContext,
   type PhaseValues,
 } from './transmission';
-import { PeakInputError, flightModel, requireFinite, requireInteger, validateBeamSettings, type BeamSettings } from './peakInput';
+import { flightModel, requireFinite, requireInteger, validateBeamSettings, type BeamSettings } from './peakInput';
+import { InputRangeError } from './validate';
+import { ATOMIC_MASS_CONSTANT, ELEMENTARY_CHARGE } from './constants';
 import { monodromy, periodTable } from './trajectoryMathieu';
-import { PEAK_ATOMIC_MASS, PEAK_ELEMENTARY_CHARGE } from './peakInput';
 
 /** Progress and cancellation hooks for long runs (the worker reports progress and can stop a stale run). */
 export interface RunControl {
@@ -67,7 +68,7 @@ export function validateProfileParams(p: PeakProfileParams): void {
   validateBeamSettings(p);
   requireFinite('mzFrom', p.mzFrom, 0, 1e7);
   requireFinite('mzTo', p.mzTo, 0, 1e7);
-  if (!(p.mzTo > p.mzFrom)) throw new PeakInputError('mzTo', p.mzTo, `a number greater than mzFrom (${p.mzFrom})`);
+  if (!(p.mzTo > p.mzFrom)) throw new InputRangeError('mzTo', p.mzTo, `a number greater than mzFrom (${p.mzFrom})`);
   requireInteger('points', p.points, 2, 4001);
 }
 
@@ -163,7 +164,7 @@ export function stableInterval(s: BeamSettings, inside: number): { low: number; 
   const z = Math.abs(s.charge ?? 1);
   const omega = 2 * Math.PI * s.frequency;
   const stable = (mz: number): boolean => {
-    const scale = (z * PEAK_ELEMENTARY_CHARGE) / (mz * z * PEAK_ATOMIC_MASS * s.r0 * s.r0 * omega * omega);
+    const scale = (z * ELEMENTARY_CHARGE) / (mz * z * ATOMIC_MASS_CONSTANT * s.r0 * s.r0 * omega * omega);
     const a = 8 * scale * s.dc;
     const q = 4 * scale * s.rf;
     const tx = monodromy(periodTable(a, q, 64, 2));
@@ -223,12 +224,12 @@ export function transmissionVsResolution(
   requireFinite('mz', p.mz, 0, 1e7);
   const qOperating = requireFinite('qOperating', p.qOperating ?? 0.706, 0, 0.908);
   const ratios = p.ratios ?? Array.from({ length: 12 }, (_, i) => 0.15 + (0.0175 * i) / 11);
-  if (!Array.isArray(ratios) || ratios.length < 1) throw new PeakInputError('ratios', ratios, 'a non-empty list of U/V ratios');
+  if (!Array.isArray(ratios) || ratios.length < 1) throw new InputRangeError('ratios', ratios, 'a non-empty list of U/V ratios');
   ratios.forEach((r, i) => requireFinite(`ratios[${i}]`, r, 0, 0.5, 'none'));
   const points = requireInteger('points', p.points ?? 61, 5, 1001);
   const z = Math.abs(p.charge ?? 1);
   const omega = 2 * Math.PI * p.frequency;
-  const rf = (qOperating * p.mz * z * PEAK_ATOMIC_MASS * p.r0 * p.r0 * omega * omega) / (4 * z * PEAK_ELEMENTARY_CHARGE);
+  const rf = (qOperating * p.mz * z * ATOMIC_MASS_CONSTANT * p.r0 * p.r0 * omega * omega) / (4 * z * ELEMENTARY_CHARGE);
   const k = ratios.length;
   const out: TransmissionVsResolution = {
     ratio: Float64Array.from(ratios),

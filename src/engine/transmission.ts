@@ -639,7 +639,7 @@ export const MAX_PHASES = 512;
 
 /**
  * Transmitted fraction of the ion ensemble (see the model and method above). SI inputs; m/z in u per e.
- * Throws PeakInputError naming the field and accepted range on bad input.
+ * Throws InputRangeError naming the field and accepted range on bad input.
  */
 export function transmission(p: TransmissionParams, options: FastTransmissionOptions & { relativeTolerance?: number } = {}): TransmissionResult {
   const model = flightModel(p);
