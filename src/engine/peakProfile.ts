@@ -56,7 +56,7 @@ export interface PeakProfile {
 }
 
 export interface PeakProfileOptions extends FastTransmissionOptions, RunControl {
-  /** Target error per point relative to the peak height (phases are doubled until met); default 5e-4. */
+  /** Target error bound per point relative to the peak height (phases are doubled until met); default 1e-3. */
   relativeTolerance?: number;
 }
 
@@ -79,7 +79,7 @@ export function validateProfileParams(p: PeakProfileParams): void {
 export function peakProfile(p: PeakProfileParams, options: PeakProfileOptions = {}): PeakProfile {
   validateProfileParams(p);
   const resolved = resolveOptions(options);
-  const relative = requireFinite('relativeTolerance', options.relativeTolerance ?? 5e-4, 0, 1);
+  const relative = requireFinite('relativeTolerance', options.relativeTolerance ?? 1e-3, 0, 1);
   const n = p.points;
   const mz = new Float64Array(n);
   const transmission = new Float64Array(n);
