@@ -28,39 +28,38 @@ function sinhc(x: number): number {
   return Math.abs(x) < 1e-4 ? 1 + (x * x) / 6 : Math.sinh(x) / x;
 }
 
-/** Hurwitz ζ(s, w) for w ≳ 15 by its Euler–Maclaurin asymptotic series (DLMF 25.11.43). */
-function hurwitzZetaLarge(s: number, w: number): number {
-  const ws = Math.pow(w, -s);
-  const w2 = 1 / (w * w);
-  let sum = (w * ws) / (s - 1) + ws / 2;
-  // Bernoulli terms B_2k/(2k)! · s(s+1)…(s+2k−2) · w^(−s−2k+1).
-  const coefficients = [1 / 12, -1 / 720, 1 / 30240, -1 / 1209600];
-  let rising = s; // s(s+1)…(s+2k−2)
-  let power = ws / w; // w^(−s−1)
-  for (let k = 0; k < coefficients.length; k++) {
-    sum += coefficients[k] * rising * power;
-    rising *= (s + 2 * k + 1) * (s + 2 * k + 2);
-    power *= w2;
-  }
-  return sum;
-}
-
 /** Σ_{k≥N} γ_k γ_{k+1} with γ_k = q/(4k² − a), via x = k + ½:
- *  (4k² − a)(4(k+1)² − a) = 16 (x⁴ − A x² + B), A = a/2 + ½, B = (a − 1)²/16, expanded in 1/x². */
+ *  (4k² − a)(4(k+1)² − a) = 16 (x⁴ − A x² + B), A = a/2 + ½, B = (a − 1)²/16, expanded in 1/x² as
+ *  Σ_j e_j x^(−4−2j), and each Σ_k x^(−s) = ζ(s, N + ½) by the Hurwitz zeta asymptotic series
+ *  ζ(s, w) ≈ w^(1−s)/(s−1) + w^(−s)/2 + Σ B_2k/(2k)! · s(s+1)…(s+2k−2) · w^(−s−2k+1) (DLMF 25.11.43). */
 function tailSum(a: number, q: number, n: number): number {
   const capitalA = a / 2 + 0.5;
   const capitalB = ((a - 1) * (a - 1)) / 16;
   const w = n + 0.5;
+  const inverseW = 1 / w;
+  const inverseW2 = inverseW * inverseW;
+  let ws = inverseW2 * inverseW2; // w^(−s), s = 4 + 2j
   let previous = 0;
-  let current = 1;
+  let current = 1; // e_j
   let sum = 0;
   for (let j = 0; j < 14; j++) {
-    const term = current * hurwitzZetaLarge(4 + 2 * j, w);
+    const s = 4 + 2 * j;
+    const zeta =
+      ws *
+      (w / (s - 1) +
+        0.5 +
+        inverseW *
+          ((s / 12) +
+            inverseW2 *
+              ((-s * (s + 1) * (s + 2)) / 720 +
+                (inverseW2 * (s * (s + 1) * (s + 2) * (s + 3) * (s + 4))) / 30240)));
+    const term = current * zeta;
     sum += term;
-    if (Math.abs(term) < 1e-18 * Math.abs(sum)) break;
+    if (Math.abs(term) < 1e-17 * Math.abs(sum)) break;
     const next = capitalA * current - capitalB * previous;
     previous = current;
     current = next;
+    ws *= inverseW2;
   }
   return ((q * q) / 16) * sum;
 }
