@@ -2,7 +2,15 @@
 export * from './constants';
 export * from './validate';
 export { mathieuA, mathieuB } from './characteristicValues';
-export * from './characteristicExponent';
+export {
+  stabilityExponent,
+  characteristicExponent,
+  exponentGrid,
+  MAX_ABS_A_EXPONENT,
+  MAX_ABS_Q_EXPONENT,
+  type ExponentResult,
+  type ExponentGrid,
+} from './characteristicExponent';
 export {
   firstRegionApex,
   apexRatio,
