@@ -6,10 +6,12 @@ export {
   stabilityExponent,
   characteristicExponent,
   exponentGrid,
+  massFilterGrid,
   MAX_ABS_A_EXPONENT,
   MAX_ABS_Q_EXPONENT,
   type ExponentResult,
   type ExponentGrid,
+  type MassFilterGrid,
 } from './characteristicExponent';
 export {
   firstRegionApex,

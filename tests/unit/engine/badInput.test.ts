@@ -29,6 +29,12 @@ const cases: Case[] = [
     valid: { aMin: 0, aMax: 0.3, aCount: 3, qMin: 0, qMax: 1, qCount: 3 },
     bad: { aMin: NON_FINITE, aMax: [...NON_FINITE, -1], aCount: [...NON_FINITE, 0, 2.5, 5000], qMin: NON_FINITE, qMax: [...NON_FINITE, -1], qCount: [0, 1.5] },
   },
+  {
+    name: 'massFilterGrid',
+    call: (p) => engine.massFilterGrid(p as never),
+    valid: { aMin: -0.3, aMax: 0.3, aCount: 3, qMin: 0, qMax: 1, qCount: 3 },
+    bad: { aMin: NON_FINITE, aMax: [...NON_FINITE, -1], aCount: [...NON_FINITE, 0], qMin: NON_FINITE, qCount: [0, 1.5, 1e5] },
+  },
   { name: 'firstRegionBoundary', call: (p) => engine.firstRegionBoundary(p.points as number), valid: { points: 10 }, bad: { points: [NaN, Infinity, 2, 10.5, -5, '10'] } },
   {
     name: 'characteristicCurves',

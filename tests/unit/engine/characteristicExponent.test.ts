@@ -3,6 +3,7 @@ import fc from 'fast-check';
 import {
   characteristicExponent,
   exponentGrid,
+  massFilterGrid,
   mathieuA,
   mathieuB,
   stabilityExponent,
@@ -83,6 +84,12 @@ describe('β against an independent monodromy integration (Floquet: cos πβ = �
       } else {
         expectClose(Math.cos(Math.PI * beta), halfTrace, 1e-10, `cos πβ at (${a}, ${q})`);
       }
+    }
+  });
+  it('larger q and a (zones up to 5, deep instability): half-trace agrees to 1e-11 relative (2000 steps)', () => {
+    for (const [a, q] of [[50, 30], [100, 100], [-50, 1], [10, 40], [60, 20]] as [number, number][]) {
+      const hill = characteristicExponent(a, q).halfTrace;
+      expectClose(hill, halfTraceByIntegration(a, q, 2000), 1e-11, `cos πβ at (${a}, ${q})`, 'mixed');
     }
   });
   it('growth per RF period equals the larger |Floquet multiplier| where unstable', () => {
@@ -172,5 +179,27 @@ describe('β grid', () => {
     }
     expect(stable).toBeGreaterThan(5);
     expect(stable).toBeLessThan(63);
+  });
+});
+
+describe('mass-filter grid', () => {
+  it('β_x = β(a, q), β_y = β(−a, −q) per cell; stable where both are', () => {
+    const grid = massFilterGrid({ aMin: -0.3, aMax: 0.3, aCount: 13, qMin: 0, qMax: 1.2, qCount: 11 });
+    let stableCells = 0;
+    for (let i = 0; i < 13; i++) {
+      for (let j = 0; j < 11; j++) {
+        const k = i * 11 + j;
+        const bx = stabilityExponent(grid.a[i], grid.q[j]);
+        const by = stabilityExponent(-grid.a[i], -grid.q[j]);
+        expect(grid.betaX[k]).toBe(bx ?? -1);
+        if (by === null) expect(grid.betaY[k]).toBe(-1);
+        else expectClose(grid.betaY[k], by, 1e-12, `β_y at (${grid.a[i]}, ${grid.q[j]})`);
+        expect(grid.stable[k]).toBe(bx !== null && by !== null ? 1 : 0);
+        stableCells += grid.stable[k];
+      }
+    }
+    // Symmetric in a: row i and row 12−i have the same stability.
+    for (let i = 0; i < 13; i++) for (let j = 0; j < 11; j++) expect(grid.stable[i * 11 + j]).toBe(grid.stable[(12 - i) * 11 + j]);
+    expect(stableCells).toBeGreaterThan(10);
   });
 });
