@@ -137,6 +137,8 @@ export interface ExponentResult {
   growthPerPeriod: number;
   /** ln of growthPerPeriod (finite even where growthPerPeriod overflows). */
   logGrowthPerPeriod: number;
+  /** RF periods for the amplitude to grow tenfold, ln 10 / ln(growth) — how fast an ion is lost; null when stable. */
+  periodsPerTenfoldGrowth: number | null;
   /** cos πν = ½ trace of the one-period monodromy matrix (Floquet); capped to ±1e300. */
   halfTrace: number;
 }
@@ -164,7 +166,15 @@ export function exponentUnchecked(a: number, q: number): ExponentResult {
       beta = count / 2;
       zone = Math.max(0, count / 2 - (theta < 0.5 ? 0 : 1));
     }
-    return { stable: true, beta, zone, growthPerPeriod: 1, logGrowthPerPeriod: 0, halfTrace: 1 - 2 * f };
+    return {
+      stable: true,
+      beta,
+      zone,
+      growthPerPeriod: 1,
+      logGrowthPerPeriod: 0,
+      periodsPerTenfoldGrowth: null,
+      halfTrace: 1 - 2 * f,
+    };
   }
   // |cos πν| > 1: cosh(πμ) = |1 − 2F|.
   let logGrowth: number;
@@ -186,6 +196,8 @@ export function exponentUnchecked(a: number, q: number): ExponentResult {
     zone: null,
     growthPerPeriod: Math.min(Number.MAX_VALUE, Math.exp(logGrowth)),
     logGrowthPerPeriod: logGrowth,
+    // logGrowth > 0 here except exactly on an edge (|c| = 1), where growth is only linear.
+    periodsPerTenfoldGrowth: logGrowth > 0 ? Math.LN10 / logGrowth : Number.MAX_VALUE,
     halfTrace,
   };
 }
