@@ -1,0 +1,102 @@
+// Record shapes kept on the device. SI units inside records; the UI converts for display.
+
+export type InstrumentKind = 'gc-ms-single' | 'gc-ms-triple' | 'lc-ms-single' | 'lc-ms-triple' | 'rga';
+
+export type AmplitudeForm = 'zero-to-peak' | 'peak-to-peak' | 'rms';
+export type AmplitudeReference = 'per-rod' | 'between-pairs';
+
+/** How an instrument's own read-backs state RF/DC: the form of the amplitude and what it is measured against. */
+export interface ReadbackConvention {
+  amplitude: AmplitudeForm;
+  reference: AmplitudeReference;
+}
+
+export interface InstrumentProfile {
+  id: string;
+  name: string;
+  kind: InstrumentKind;
+  /** Field radius r0, m. */
+  rodFieldRadius: number;
+  /** Rod length, m. */
+  rodLength: number;
+  /** RF frequency f, Hz. */
+  rfFrequency: number;
+  /** Largest RF amplitude the supply can give, V zero-to-peak, one rod to ground. */
+  maxRfAmplitude: number;
+  /** Typical ion axial energy, eV (per unit charge: the rod offset the ions fall through). */
+  axialEnergy: number;
+  readbackConvention: ReadbackConvention;
+  notes: string;
+  /** Part of the invented demo scenario; removable as a group. */
+  demo?: boolean;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface SettingRecord {
+  key: string;
+  value: unknown;
+}
+
+export type VisitReason = 'preventive' | 'installation' | 'after-venting-or-cleaning' | 'sensitivity-loss' | 'failure' | 'other';
+
+export interface Visit {
+  id: string;
+  instrumentId: string;
+  /** Start of the visit, ISO 8601. */
+  startedAt: string;
+  site: string;
+  engineer: string;
+  reason: VisitReason;
+  notes: string;
+  partsUsed: string;
+  /** When set, this visit's as-left readings are the instrument's baseline. */
+  baseline?: boolean;
+  demo?: boolean;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export type ReadingPhase = 'as-found' | 'as-left';
+export type Verdict = 'pass' | 'borderline' | 'fail';
+
+export interface Reading {
+  id: string;
+  visitId: string;
+  instrumentId: string;
+  /** Reading type from the catalogue (or a user-defined type id). */
+  typeId: string;
+  phase: ReadingPhase;
+  /** Value in the type's base unit. */
+  value: number;
+  /** What the user typed and in which unit, kept verbatim for the record. */
+  entered: { text: string; unit: string };
+  /** Parked m/z, gauge gas, convention and similar context for the value. */
+  context?: Record<string, string | number>;
+  expected?: { value?: number; low?: number; high?: number; basis: string };
+  verdict?: Verdict;
+  note: string;
+  takenAt: string;
+  /** Where the reading came from: typed in, noted from a calculator, or taken during a diagnosis walk. */
+  origin: 'entered' | 'calculator' | 'walk';
+  demo?: boolean;
+}
+
+export interface WalkRecord {
+  id: string;
+  visitId?: string;
+  instrumentId?: string;
+  treeId: string;
+  /** Serialisable walker state (src/diagnose). */
+  state: unknown;
+  status: 'in-progress' | 'finished' | 'abandoned';
+  startedAt: string;
+  updatedAt: string;
+}
+
+/** Unsaved form input, kept so a reload or crash never loses what was typed. */
+export interface DraftRecord {
+  key: string;
+  value: unknown;
+  updatedAt: string;
+}
