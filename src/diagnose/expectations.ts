@@ -7,6 +7,7 @@
  * selected instrument's read-back convention so that the number can be compared with what the engineer reads.
  */
 import { expectedPressure, gasLoad, rateOfRise } from '../engine/leak';
+import { engineFace } from './engineLink';
 import type { DiagnoseInstrument } from './types';
 
 /** The engine's public face, as agreed (SI; mz in u/e; V zero-to-peak per rod to ground). */
@@ -260,3 +261,6 @@ export function makeRegistry(engine: EngineFace): Record<string, ExpectationFn> 
     },
   };
 }
+
+/** The registry the app uses: name → function(instrument, inputs), bound to the engine's public face. */
+export const expectations: Record<string, ExpectationFn> = makeRegistry(engineFace);

@@ -9,7 +9,7 @@
  *
  * Nothing here reads the clock unless no time is given, touches storage, or mutates its inputs.
  */
-import type { ExpectationFn, ExpectedValue } from './expectations';
+import { expectations, type ExpectationFn, type ExpectedValue } from './expectations';
 import { judge, type Judgement } from './judge';
 import type {
   ActionNode,
@@ -133,11 +133,8 @@ export interface WalkState {
   path: Array<{ treeId: TreeId; nodeId: string }>;
 }
 
-/** Registry used when the caller gives none. Bound to the engine once the engine's public face is in. */
-let defaultRegistry: Registry | null = null;
-export function setDefaultRegistry(r: Registry | null): void {
-  defaultRegistry = r;
-}
+/** Registry used when the caller gives none: the engine-backed one. */
+const defaultRegistry: Registry = expectations;
 
 const now = (o?: WalkOptions) => o?.at ?? new Date().toISOString();
 

@@ -3,3 +3,4 @@ export * from './constants';
 export * from './validate';
 export { mathieuA, mathieuB } from './characteristicValues';
 export * from './characteristicExponent';
+export * from './leak';

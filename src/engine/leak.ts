@@ -10,27 +10,12 @@
  * No DOM, no storage, nothing of ours imported: this file belongs to the engine.
  */
 
-// ---------------------------------------------------------------------------
-// Input checks. Every message names the field and the accepted range.
+import { checkNumber, InputRangeError } from './validate';
 
-function finite(field: string, value: unknown): number {
-  if (typeof value !== 'number' || !Number.isFinite(value)) {
-    throw new RangeError(`${field} must be a finite number; got ${String(value)}`);
-  }
-  return value;
-}
-
-function positive(field: string, value: unknown, unit: string): number {
-  const v = finite(field, value);
-  if (!(v > 0)) throw new RangeError(`${field} must be greater than 0 ${unit}; got ${v}`);
-  return v;
-}
-
-function nonNegative(field: string, value: unknown, unit: string): number {
-  const v = finite(field, value);
-  if (v < 0) throw new RangeError(`${field} must be 0 ${unit} or more; got ${v}`);
-  return v;
-}
+// Input checks through the engine's validation helper: messages name the field, the value and the range.
+const positive = (field: string, value: unknown, unit: string): number =>
+  checkNumber(field, value, { min: 0, minExclusive: true, unit: unit || undefined });
+const nonNegative = (field: string, value: unknown, unit: string): number => checkNumber(field, value, { min: 0, unit: unit || undefined });
 
 // ---------------------------------------------------------------------------
 // Reference composition and gauge sensitivities.
@@ -61,9 +46,8 @@ export const ION_GAUGE_SOURCE =
 
 /** Ratio of two composition percentages, e.g. N2/O2 of dry air = 78.084 / 20.946 = 3.728. */
 export function airRatio(numeratorPercent: number, denominatorPercent: number): number {
-  const n = positive('numeratorPercent', numeratorPercent, '%');
-  const d = positive('denominatorPercent', denominatorPercent, '%');
-  if (n > 100 || d > 100) throw new RangeError('numeratorPercent and denominatorPercent must be at most 100 %');
+  const n = checkNumber('numeratorPercent', numeratorPercent, { min: 0, minExclusive: true, max: 100, unit: '%' });
+  const d = checkNumber('denominatorPercent', denominatorPercent, { min: 0, minExclusive: true, max: 100, unit: '%' });
   return n / d;
 }
 
@@ -181,7 +165,7 @@ export function leakIndication(peaks: PeakHeights, heliumBackground?: number): L
   let dominantMz = 28;
   let top = -1;
   for (const [mz, h] of all) if (h !== undefined && h > top) { top = h; dominantMz = mz; }
-  if (!(top > 0)) throw new RangeError('peaks: at least one of m/z 18, 28, 32, 40, 44 must be greater than 0');
+  if (!(top > 0)) throw new InputRangeError('peaks', top, 'at least one of m/z 18, 28, 32, 40, 44 greater than 0');
 
   const r2832 = ratio(m28, m32);
   const ratios: RatioUsed[] = [
@@ -284,14 +268,14 @@ function linearFit(xs: number[], ys: number[]): { slope: number; intercept: numb
 
 function checkSeries(field: string, samples: PressureSample[], minCount: number, strictlyPositiveTime: boolean): PressureSample[] {
   if (!Array.isArray(samples) || samples.length < minCount) {
-    throw new RangeError(`${field} must hold at least ${minCount} samples; got ${Array.isArray(samples) ? samples.length : 'none'}`);
+    throw new InputRangeError(`${field}.length`, Array.isArray(samples) ? samples.length : undefined, `at least ${minCount} samples`);
   }
   const out = samples.map((s, i) => ({
     t: strictlyPositiveTime ? positive(`${field}[${i}].t`, s?.t, 's') : nonNegative(`${field}[${i}].t`, s?.t, 's'),
     p: nonNegative(`${field}[${i}].p`, s?.p, 'Pa'),
   }));
   for (let i = 1; i < out.length; i++) {
-    if (!(out[i].t > out[i - 1].t)) throw new RangeError(`${field}[${i}].t must be later than ${field}[${i - 1}].t; times must increase`);
+    if (!(out[i].t > out[i - 1].t)) throw new InputRangeError(`${field}[${i}].t`, out[i].t, `later than ${field}[${i - 1}].t = ${out[i - 1].t} s (times must increase)`);
   }
   return out;
 }
@@ -411,7 +395,7 @@ export function expectedPressure(throughput: number, pumpingSpeed: number, condu
 function gaugeGas(gas: string): number {
   const table = ION_GAUGE_RELATIVE_SENSITIVITY as Record<string, number>;
   const s = table[gas];
-  if (s === undefined) throw new RangeError(`gas must be one of ${Object.keys(table).join(', ')}; got ${gas}`);
+  if (s === undefined) throw new InputRangeError('gas', gas, `one of ${Object.keys(table).join(', ')}`);
   return s;
 }
 

@@ -34,7 +34,7 @@ describe('dry-air ratios', () => {
   });
   it('rejects percentages outside 0–100 with the field named', () => {
     expect(() => airRatio(0, 20)).toThrow(/numeratorPercent/);
-    expect(() => airRatio(78, 120)).toThrow(/at most 100/);
+    expect(() => airRatio(78, 120)).toThrow(/denominatorPercent = 120 is out of range; accepted: finite number > 0 % and ≤ 100 %/);
   });
 });
 
@@ -84,7 +84,7 @@ describe('leakIndication', () => {
   it('rejects bad heights with the field named', () => {
     expect(() => leakIndication({ m28: -1, m32: 1 })).toThrow(/m28/);
     expect(() => leakIndication({ m28: 1, m32: Number.NaN })).toThrow(/m32/);
-    expect(() => leakIndication({ m28: 0, m32: 0 })).toThrow(/at least one/);
+    expect(() => leakIndication({ m28: 0, m32: 0 })).toThrow(/peaks.*at least one/);
   });
 });
 
@@ -105,9 +105,9 @@ describe('rateOfRise', () => {
     expect(rateOfRise(0.01, s).shape).toBe('levelling');
   });
   it('rejects bad input with the field and range named', () => {
-    expect(() => rateOfRise(0, [{ t: 0, p: 1 }, { t: 1, p: 2 }])).toThrow(/volume must be greater than 0/);
-    expect(() => rateOfRise(1, [{ t: 0, p: 1 }])).toThrow(/at least 2 samples/);
-    expect(() => rateOfRise(1, [{ t: 5, p: 1 }, { t: 5, p: 2 }])).toThrow(/samples\[1\]\.t must be later/);
+    expect(() => rateOfRise(0, [{ t: 0, p: 1 }, { t: 1, p: 2 }])).toThrow(/volume = 0 is out of range; accepted: finite number > 0 m³/);
+    expect(() => rateOfRise(1, [{ t: 0, p: 1 }])).toThrow(/samples.length = 1 is out of range; accepted: at least 2 samples/);
+    expect(() => rateOfRise(1, [{ t: 5, p: 1 }, { t: 5, p: 2 }])).toThrow(/samples\[1\]\.t = 5 is out of range; accepted: later than/);
     expect(() => rateOfRise(1, [{ t: 0, p: -1 }, { t: 5, p: 2 }])).toThrow(/samples\[0\]\.p/);
   });
 });
@@ -137,8 +137,8 @@ describe('fitOutgassing', () => {
     expect(fitOutgassing([100, 200, 300, 400, 500].map((t, i) => ({ t, p: i % 2 ? 1 : 0.01 }))).judgement).toBe('poor-fit');
   });
   it('rejects t = 0 and too few samples', () => {
-    expect(() => fitOutgassing([{ t: 0, p: 1 }, { t: 1, p: 1 }, { t: 2, p: 1 }])).toThrow(/samples\[0\]\.t must be greater than 0/);
-    expect(() => fitOutgassing([{ t: 1, p: 1 }, { t: 2, p: 1 }])).toThrow(/at least 3/);
+    expect(() => fitOutgassing([{ t: 0, p: 1 }, { t: 1, p: 1 }, { t: 2, p: 1 }])).toThrow(/samples\[0\]\.t = 0 is out of range/);
+    expect(() => fitOutgassing([{ t: 1, p: 1 }, { t: 2, p: 1 }])).toThrow(/at least 3 samples/);
   });
 });
 
@@ -162,7 +162,7 @@ describe('gas load and ion-gauge correction', () => {
     expect(DRY_AIR_PERCENT).toEqual({ nitrogen: 78.084, oxygen: 20.946, argon: 0.934 });
   });
   it('rejects unknown gases and negative pressures', () => {
-    expect(() => ionGaugeTruePressure(1, 'Xe' as never)).toThrow(/gas must be one of/);
+    expect(() => ionGaugeTruePressure(1, 'Xe' as never)).toThrow(/gas = "Xe" is out of range; accepted: one of N2, He/);
     expect(() => ionGaugeTruePressure(-1, 'He')).toThrow(/indicated/);
     expect(() => expectedPressure(1, 0)).toThrow(/pumpingSpeed/);
   });
