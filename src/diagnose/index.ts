@@ -8,3 +8,9 @@ export { judge, describeLimits } from './judge';
 export * from './walker';
 export * from './types';
 export { UNITS, convert } from './units';
+// Leak check tools live in the engine (pure physics); screens reach them through here.
+export {
+  leakIndication, rateOfRise, fitOutgassing, airCompositionRatios, airSignalRatios, LEAK_BANDS, DRY_AIR_PERCENT, DRY_AIR_SOURCE,
+  ION_GAUGE_RELATIVE_SENSITIVITY, ION_GAUGE_SOURCE, gasLoad, expectedPressure, ionGaugeTruePressure,
+} from '../engine/leak';
+export type { PeakHeights, LeakIndicationResult, RateOfRiseResult, OutgassingFit, PressureSample, GaugeGas } from '../engine/leak';
