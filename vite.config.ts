@@ -1,8 +1,16 @@
 import { defineConfig } from 'vite';
 import preact from '@preact/preset-vite';
 import { VitePWA } from 'vite-plugin-pwa';
+import { readFileSync } from 'node:fs';
+
+const pkg = JSON.parse(readFileSync(new URL('./package.json', import.meta.url), 'utf8')) as { version: string };
+// RODSIDE_BUILD_LABEL lets a test build a second, distinguishable version of the same source.
+const appVersion = process.env.RODSIDE_BUILD_LABEL ? `${pkg.version}+${process.env.RODSIDE_BUILD_LABEL}` : pkg.version;
 
 export default defineConfig({
+  define: {
+    __APP_VERSION__: JSON.stringify(appVersion),
+  },
   plugins: [
     preact(),
     VitePWA({

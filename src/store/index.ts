@@ -167,21 +167,18 @@ async function guard<T>(action: string, fn: () => Promise<T>): Promise<T> {
 }
 
 export async function openStore(name: string = DB_NAME, events: StoreEvents = {}, options: StoreOptions = {}): Promise<Store> {
-  // The blocking callback fires only after open resolves, so `db` is set by then.
-  let opened: IDBPDatabase<RodsideSchema> | undefined;
   const db = await guard('open the database', () =>
     openDB<RodsideSchema>(name, DB_VERSION, {
       upgrade: (database, oldVersion, _newVersion, tx) => upgrade(database, oldVersion, tx),
       blocked: () => events.onBlocked?.(),
-      blocking: () => {
+      blocking: (_current, _wanted, event) => {
         // Let the newer tab upgrade; this tab must reload before it writes again.
-        opened?.close();
+        (event.target as IDBDatabase).close();
         events.onVersionChange?.();
       },
       terminated: () => events.onVersionChange?.(),
     }),
   );
-  opened = db;
 
   const deletedWith = new Map<string, VisitBundle[]>();
 

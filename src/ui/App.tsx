@@ -1,0 +1,160 @@
+import { useCallback, useEffect, useMemo, useRef, useState } from 'preact/hooks';
+import { openStore, type InstrumentProfile, type Store } from '../store';
+import { areaForPath, areas } from './areas';
+import { AppContext, useApp, type AppContextValue } from './context';
+import { UpdateBanner } from './components/UpdateBanner';
+import { usePath } from './router';
+import { routeFor } from './routes';
+
+interface Toast {
+  id: number;
+  message: string;
+  action?: { label: string; run: () => void };
+}
+
+const CURRENT_INSTRUMENT_KEY = 'currentInstrumentId';
+
+export function App() {
+  const path = usePath();
+  const [store, setStore] = useState<Store | null>(null);
+  const [storeProblem, setStoreProblem] = useState<string | null>(null);
+  const [instruments, setInstruments] = useState<InstrumentProfile[]>([]);
+  const [currentId, setCurrentId] = useState<string | null>(null);
+  const [toast, setToast] = useState<Toast | null>(null);
+  const toastTimer = useRef<number | undefined>(undefined);
+
+  const notify = useCallback((message: string, action?: Toast['action']) => {
+    window.clearTimeout(toastTimer.current);
+    setToast({ id: Date.now(), message, action });
+    toastTimer.current = window.setTimeout(() => setToast(null), action ? 8000 : 4000);
+  }, []);
+
+  useEffect(() => {
+    let cancelled = false;
+    (async () => {
+      try {
+        const s = await openStore(undefined, {
+          onBlocked: () =>
+            setStoreProblem('Rodside is open in another tab with an older version. Close that tab (or reload it) so this one can finish updating your data.'),
+          onVersionChange: () =>
+            setStoreProblem('A newer version of Rodside opened in another tab. Reload this tab to keep working; anything typed here is kept as a draft.'),
+        });
+        if (cancelled) return;
+        await s.loadDemo();
+        const list = await s.listInstruments();
+        const saved = await s.getSetting<string>(CURRENT_INSTRUMENT_KEY);
+        setStore(s);
+        setInstruments(list);
+        setCurrentId(saved && list.some((p) => p.id === saved) ? saved : (list[0]?.id ?? null));
+      } catch (err) {
+        setStoreProblem((err as { userMessage?: string }).userMessage ?? `The database could not be opened: ${String(err)}`);
+      }
+    })();
+    return () => {
+      cancelled = true;
+    };
+  }, []);
+
+  const reloadInstruments = useCallback(async () => {
+    if (!store) return;
+    const list = await store.listInstruments();
+    setInstruments(list);
+    setCurrentId((id) => (id && list.some((p) => p.id === id) ? id : (list[0]?.id ?? null)));
+  }, [store]);
+
+  const selectInstrument = useCallback(
+    (id: string) => {
+      setCurrentId(id);
+      void store?.setSetting(CURRENT_INSTRUMENT_KEY, id).catch(() => undefined);
+    },
+    [store],
+  );
+
+  const ctx: AppContextValue = useMemo(
+    () => ({
+      store,
+      storeProblem,
+      instruments,
+      instrument: instruments.find((p) => p.id === currentId) ?? null,
+      selectInstrument,
+      reloadInstruments,
+      notify,
+    }),
+    [store, storeProblem, instruments, currentId, selectInstrument, reloadInstruments, notify],
+  );
+
+  const area = areaForPath(path);
+  const Screen = routeFor(path);
+
+  useEffect(() => {
+    document.title = area.id === 'home' ? 'Rodside' : `${area.title} · Rodside`;
+  }, [area]);
+
+  return (
+    <AppContext.Provider value={ctx}>
+      <a class="skip-link" href="#main">Skip to content</a>
+      <header class="topbar">
+        <a class="brand" href="/" aria-label="Rodside overview">
+          <span class="brand-mark" aria-hidden="true" />
+          <span class="brand-name">Rodside</span>
+        </a>
+        <InstrumentPicker />
+      </header>
+      <UpdateBanner />
+      {storeProblem && (
+        <div class="banner banner-problem" role="alert">
+          <strong>Storage:</strong> {storeProblem}
+        </div>
+      )}
+      <div class="frame">
+        <nav class="rail" aria-label="Areas">
+          {areas.map((a) => (
+            <a key={a.id} href={a.path} class={a.id === area.id ? 'rail-link active' : 'rail-link'} aria-current={a.id === area.id ? 'page' : undefined}>
+              <a.icon />
+              <span>{a.title}</span>
+            </a>
+          ))}
+        </nav>
+        <main id="main" tabIndex={-1}>
+          <Screen />
+        </main>
+      </div>
+      <nav class="bottombar" aria-label="Main areas">
+        {areas.filter((a) => a.primary).map((a) => (
+          <a key={a.id} href={a.path} class={a.id === area.id ? 'bottom-link active' : 'bottom-link'} aria-current={a.id === area.id ? 'page' : undefined}>
+            <a.icon />
+            <span>{a.id === 'home' ? 'All' : a.title}</span>
+          </a>
+        ))}
+      </nav>
+      {toast && (
+        <div class="toast" role="status" aria-live="polite" key={toast.id}>
+          <span>{toast.message}</span>
+          {toast.action && (
+            <button type="button" class="btn btn-small" onClick={() => { toast.action!.run(); setToast(null); }}>
+              {toast.action.label}
+            </button>
+          )}
+        </div>
+      )}
+    </AppContext.Provider>
+  );
+}
+
+function InstrumentPicker() {
+  const { instruments, instrument, selectInstrument } = useApp();
+  if (instruments.length === 0) {
+    return <a class="picker-empty" href="/instruments/new">Add an instrument</a>;
+  }
+  return (
+    <label class="picker">
+      <span class="visually-hidden">Instrument in use</span>
+      <select value={instrument?.id ?? ''} onChange={(e) => selectInstrument((e.target as HTMLSelectElement).value)}>
+        {instruments.map((p) => (
+          <option key={p.id} value={p.id}>{p.name}</option>
+        ))}
+      </select>
+    </label>
+  );
+}
+

@@ -1,0 +1,92 @@
+// The one uPlot wrapper: create once, setData on change, resize with the container, destroy on unmount.
+// uPlot has no touch zoom, so the wrapper offers zoom buttons and reports taps (with a generous hit radius
+// left to the caller, which knows its series).
+import { useEffect, useRef } from 'preact/hooks';
+import uPlot from 'uplot';
+
+export interface ChartProps {
+  /** Columnar data: [xs, ys1, ys2, …]; null marks a gap. */
+  data: uPlot.AlignedData;
+  options: Omit<uPlot.Options, 'width' | 'height'>;
+  height?: number;
+  /** Accessible description of what the chart shows (the canvas itself says nothing to a screen reader). */
+  label: string;
+  /** A tap or click on the plot area, in data coordinates of the x scale and the given y scale. */
+  onTap?: (x: number, y: number, plot: uPlot) => void;
+  yScaleForTap?: string;
+  /** Show zoom in / zoom out / reset buttons for the x (and optionally y) scale. */
+  zoomButtons?: boolean;
+  testId?: string;
+}
+
+export function Chart(props: ChartProps) {
+  const host = useRef<HTMLDivElement>(null);
+  const plot = useRef<uPlot | null>(null);
+  const latest = useRef(props);
+  latest.current = props;
+
+  useEffect(() => {
+    const el = host.current!;
+    const width = Math.max(240, el.clientWidth || 320);
+    const u = new uPlot({ ...props.options, width, height: props.height ?? 300 }, props.data, el);
+    plot.current = u;
+    const onClick = (ev: MouseEvent) => {
+      const cb = latest.current.onTap;
+      if (!cb) return;
+      const rect = u.over.getBoundingClientRect();
+      const left = ev.clientX - rect.left;
+      const top = ev.clientY - rect.top;
+      cb(u.posToVal(left, 'x'), u.posToVal(top, latest.current.yScaleForTap ?? 'y'), u);
+    };
+    u.over.addEventListener('click', onClick);
+    const ro = typeof ResizeObserver !== 'undefined'
+      ? new ResizeObserver(() => {
+          const w = Math.max(240, el.clientWidth);
+          if (w !== u.width) u.setSize({ width: w, height: latest.current.height ?? 300 });
+        })
+      : null;
+    ro?.observe(el);
+    return () => {
+      ro?.disconnect();
+      u.over.removeEventListener('click', onClick);
+      u.destroy();
+      plot.current = null;
+    };
+    // Options are read once: a new series layout needs a new key on the component.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, []);
+
+  useEffect(() => {
+    plot.current?.setData(props.data);
+  }, [props.data]);
+
+  function zoom(factor: number) {
+    const u = plot.current;
+    if (!u) return;
+    const min = u.scales.x.min!;
+    const max = u.scales.x.max!;
+    const mid = (min + max) / 2;
+    const half = ((max - min) / 2) * factor;
+    u.setScale('x', { min: mid - half, max: mid + half });
+  }
+  function reset() {
+    const u = plot.current;
+    if (!u) return;
+    u.setData(latest.current.data, true);
+  }
+
+  return (
+    <figure class="chart-figure" data-testid={props.testId}>
+      {props.zoomButtons && (
+        <div class="chart-tools">
+          <button type="button" class="btn btn-small" onClick={() => zoom(0.5)} aria-label="Zoom in">＋</button>
+          <button type="button" class="btn btn-small" onClick={() => zoom(2)} aria-label="Zoom out">－</button>
+          <button type="button" class="btn btn-small" onClick={reset}>Reset view</button>
+        </div>
+      )}
+      <div class="chart" ref={host} role="img" aria-label={props.label} />
+    </figure>
+  );
+}
+
+export type { uPlot };

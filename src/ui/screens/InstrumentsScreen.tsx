@@ -1,0 +1,245 @@
+import { useEffect, useRef, useState } from 'preact/hooks';
+import {
+  amplitudeForms, amplitudeReferences, draftFromProfile, emptyDraft, instrumentKinds, numericFields, validateDraft,
+  type InstrumentProfile, type ProfileDraft, type ProfileErrors,
+} from '../../store';
+import { useApp } from '../context';
+import { NumberField, SelectField } from '../components/Field';
+import { markSaved, markUnsaved } from '../offline';
+import { navigate, usePath } from '../router';
+import { formatConvention, formatSi } from '../format';
+
+export function InstrumentsScreen() {
+  const path = usePath();
+  const rest = path.slice('/instruments'.length).replace(/^\//, '');
+  if (rest === '') return <InstrumentList />;
+  return <InstrumentForm key={rest} id={rest === 'new' ? null : decodeURIComponent(rest)} />;
+}
+
+function InstrumentList() {
+  const { instruments, instrument, store, selectInstrument, reloadInstruments, notify } = useApp();
+  const [busy, setBusy] = useState(false);
+  const hasDemo = instruments.some((p) => p.demo);
+
+  async function remove(p: InstrumentProfile) {
+    if (!store) return;
+    try {
+      const removed = await store.deleteInstrument(p.id);
+      await reloadInstruments();
+      if (removed) {
+        notify(`Deleted “${removed.name}”.`, {
+          label: 'Undo',
+          run: () => void store.restoreInstrument(removed).then(reloadInstruments),
+        });
+      }
+    } catch (err) {
+      notify((err as { userMessage?: string }).userMessage ?? String(err));
+    }
+  }
+
+  async function duplicate(p: InstrumentProfile) {
+    if (!store) return;
+    try {
+      const copy = await store.duplicateInstrument(p.id);
+      await reloadInstruments();
+      navigate(`/instruments/${encodeURIComponent(copy.id)}`);
+    } catch (err) {
+      notify((err as { userMessage?: string }).userMessage ?? String(err));
+    }
+  }
+
+  async function toggleDemo() {
+    if (!store) return;
+    setBusy(true);
+    try {
+      if (hasDemo) {
+        if (!confirm('Remove the invented demo instruments (and their demo visits)? Your own profiles stay.')) return;
+        const n = await store.removeDemo();
+        notify(`Removed ${n} demo instrument${n === 1 ? '' : 's'}.`);
+      } else {
+        await store.loadDemo(true);
+        notify('Demo instruments loaded.');
+      }
+      await reloadInstruments();
+    } catch (err) {
+      notify((err as { userMessage?: string }).userMessage ?? String(err));
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  return (
+    <section class="screen">
+      <h1>Instruments</h1>
+      <p class="lede">Each profile holds the analyser geometry and RF supply that every expected value is computed from.</p>
+      <div class="row">
+        <a class="btn btn-primary" href="/instruments/new">New profile</a>
+        <button type="button" class="btn" onClick={toggleDemo} disabled={busy || !store}>
+          {hasDemo ? 'Remove demo data' : 'Load demo data'}
+        </button>
+      </div>
+      {instruments.length === 0 && <p class="notice">No instrument profiles yet. Create one, or load the demo data.</p>}
+      <ul class="cards" aria-label="Instrument profiles">
+        {instruments.map((p) => (
+          <li key={p.id} class="card" data-testid="instrument-card">
+            <h2 class="card-title">
+              {p.name}
+              {p.id === instrument?.id && <span class="tag">in use</span>}
+              {p.demo && <span class="tag tag-muted">demo</span>}
+            </h2>
+            <dl class="facts">
+              <div><dt>Type</dt><dd>{instrumentKinds.find((k) => k.value === p.kind)?.label ?? p.kind}</dd></div>
+              <div><dt>r0</dt><dd>{formatSi(p.rodFieldRadius * 1e3, 'mm')}</dd></div>
+              <div><dt>Rods</dt><dd>{formatSi(p.rodLength * 1e3, 'mm')}</dd></div>
+              <div><dt>RF</dt><dd>{formatSi(p.rfFrequency / 1e6, 'MHz')}</dd></div>
+              <div><dt>RF max</dt><dd>{formatSi(p.maxRfAmplitude, 'V 0-p')}</dd></div>
+              <div><dt>Ion energy</dt><dd>{formatSi(p.axialEnergy, 'eV')}</dd></div>
+              <div><dt>Read-backs</dt><dd>{formatConvention(p.readbackConvention)}</dd></div>
+            </dl>
+            {p.notes && <p class="notes">{p.notes}</p>}
+            <div class="row">
+              {p.id !== instrument?.id && (
+                <button type="button" class="btn" onClick={() => selectInstrument(p.id)}>Use this one</button>
+              )}
+              <a class="btn" href={`/instruments/${encodeURIComponent(p.id)}`}>Edit</a>
+              <button type="button" class="btn" onClick={() => duplicate(p)}>Duplicate</button>
+              <button type="button" class="btn btn-danger" onClick={() => remove(p)}>Delete</button>
+            </div>
+          </li>
+        ))}
+      </ul>
+    </section>
+  );
+}
+
+function InstrumentForm(props: { id: string | null }) {
+  const { store, instruments, reloadInstruments, selectInstrument, notify } = useApp();
+  const existing = props.id ? instruments.find((p) => p.id === props.id) : undefined;
+  const draftKey = `instrument-form:${props.id ?? 'new'}`;
+  const [draft, setDraft] = useState<ProfileDraft | null>(null);
+  const [errors, setErrors] = useState<ProfileErrors>({});
+  const [saveProblem, setSaveProblem] = useState<string | null>(null);
+  const [restored, setRestored] = useState(false);
+  const dirty = useRef(false);
+
+  // Start from a kept draft if there is one (nothing typed is ever lost), else from the profile.
+  useEffect(() => {
+    if (!store || draft) return;
+    if (props.id && !existing) return;
+    void store.getDraft<ProfileDraft>(draftKey).then((kept) => {
+      if (kept) {
+        setDraft(kept);
+        setRestored(true);
+        dirty.current = true;
+        markUnsaved(draftKey, 'the instrument profile form');
+      } else {
+        setDraft(existing ? draftFromProfile(existing) : emptyDraft());
+      }
+    }).catch(() => setDraft(existing ? draftFromProfile(existing) : emptyDraft()));
+  }, [store, existing, draftKey, draft, props.id]);
+
+  useEffect(() => () => {
+    // Leaving the form keeps the draft; only the "unsaved" mark for updates is dropped with the screen.
+    markSaved(draftKey);
+  }, [draftKey]);
+
+  if (props.id && store && !existing) {
+    return (
+      <section class="screen">
+        <h1>Profile not found</h1>
+        <p>There is no instrument profile with this address on this device. It may have been deleted.</p>
+        <a class="btn" href="/instruments">Back to instruments</a>
+      </section>
+    );
+  }
+  if (!draft) return <section class="screen"><p>Loading…</p></section>;
+
+  function update(patch: Partial<ProfileDraft>) {
+    const next = { ...draft!, ...patch };
+    setDraft(next);
+    dirty.current = true;
+    markUnsaved(draftKey, 'the instrument profile form');
+    // Re-check only fields already flagged, so messages clear as soon as they are fixed.
+    if (Object.keys(errors).length) {
+      const r = validateDraft(next);
+      setErrors(r.ok ? {} : Object.fromEntries(Object.entries(r.errors).filter(([k]) => k in errors)));
+    }
+    void store?.putDraft(draftKey, next).catch(() => undefined);
+  }
+
+  async function save(e: Event) {
+    e.preventDefault();
+    setSaveProblem(null);
+    const r = validateDraft(draft!);
+    if (!r.ok) {
+      setErrors(r.errors);
+      const first = Object.keys(r.errors)[0];
+      document.getElementById(`profile-${first}`)?.focus();
+      return;
+    }
+    setErrors({});
+    if (!store) {
+      setSaveProblem('The database is not open, so nothing can be saved yet. Your input stays here.');
+      return;
+    }
+    try {
+      const saved = await store.saveInstrument(r.fields, existing?.id);
+      await store.clearDraft(draftKey).catch(() => undefined);
+      dirty.current = false;
+      markSaved(draftKey);
+      await reloadInstruments();
+      if (!existing) selectInstrument(saved.id);
+      notify(existing ? `Saved “${saved.name}”.` : `Created “${saved.name}”.`);
+      navigate('/instruments');
+    } catch (err) {
+      setSaveProblem((err as { userMessage?: string }).userMessage ?? `Could not save: ${String(err)}. Your input stays here.`);
+    }
+  }
+
+  async function discard() {
+    await store?.clearDraft(draftKey).catch(() => undefined);
+    dirty.current = false;
+    markSaved(draftKey);
+    navigate('/instruments');
+  }
+
+  return (
+    <section class="screen">
+      <h1>{existing ? `Edit ${existing.name}` : 'New instrument profile'}</h1>
+      {restored && <p class="notice">Restored the input you had not saved yet.</p>}
+      <form class="form" onSubmit={save} noValidate>
+        <div class={errors.name ? 'field has-error' : 'field'}>
+          <label for="profile-name">Name</label>
+          <input id="profile-name" type="text" value={draft.name} maxLength={200} autoComplete="off"
+            aria-invalid={errors.name ? 'true' : 'false'} aria-describedby={errors.name ? 'profile-name-error' : undefined}
+            onInput={(e) => update({ name: (e.target as HTMLInputElement).value })} />
+          {errors.name && <p class="field-error" id="profile-name-error" role="alert">{errors.name}</p>}
+        </div>
+        <SelectField id="profile-kind" label="Instrument type" value={draft.kind as never} options={instrumentKinds as never}
+          onChange={(v) => update({ kind: v })} error={errors.kind} />
+        {numericFields.map((spec) => (
+          <NumberField key={spec.key} id={`profile-${spec.key}`} label={spec.label} unit={spec.unit} value={draft[spec.key]}
+            onInput={(t) => update({ [spec.key]: t })} error={errors[spec.key]} hint={`${spec.help} Accepted: ${spec.min}–${spec.max} ${spec.unit}.`} />
+        ))}
+        <fieldset class="fieldset">
+          <legend>How this instrument's read-backs state RF amplitude</legend>
+          <SelectField id="profile-amplitude" label="Amplitude form" value={draft.amplitude as never} options={amplitudeForms as never}
+            onChange={(v) => update({ amplitude: v })} error={errors.amplitude} />
+          <SelectField id="profile-reference" label="Measured" value={draft.reference as never} options={amplitudeReferences as never}
+            onChange={(v) => update({ reference: v })} error={errors.reference} />
+          <p class="hint">Mixing these up makes every voltage wrong by a factor of 2 or more. Check the maker's documentation for the read-back.</p>
+        </fieldset>
+        <div class={errors.notes ? 'field has-error' : 'field'}>
+          <label for="profile-notes">Notes</label>
+          <textarea id="profile-notes" rows={3} value={draft.notes} onInput={(e) => update({ notes: (e.target as HTMLTextAreaElement).value })} />
+          {errors.notes && <p class="field-error" role="alert">{errors.notes}</p>}
+        </div>
+        {saveProblem && <p class="banner banner-problem" role="alert">{saveProblem}</p>}
+        <div class="row sticky-actions">
+          <button type="submit" class="btn btn-primary">Save profile</button>
+          <button type="button" class="btn" onClick={discard}>{dirty.current ? 'Discard changes' : 'Cancel'}</button>
+        </div>
+      </form>
+    </section>
+  );
+}
