@@ -282,6 +282,17 @@ export const catalogue: readonly ReadingType[] = [
     context: [], matchContext: [], trendScale: 'linear',
     help: 'About 1.7 % of m/z 28 in an air leak (domain C14, computed from dry-air composition).',
   },
+  {
+    id: 'noted-value', label: 'Noted value', group: 'own', baseUnit: 'as noted', units: [{ id: 'as-noted', label: 'as noted', factor: 1 }],
+    defaultUnit: 'as-noted', plausible: { min: -1e30, max: 1e30 }, badSide: 'both',
+    baselineTolerance: { kind: 'relative', pass: 0, borderline: 0 },
+    context: [
+      { key: 'label', label: 'What it is', kind: 'text', required: true },
+      { key: 'unit', label: 'Unit', kind: 'text' },
+    ],
+    matchContext: ['label', 'unit'], trendScale: 'linear',
+    help: 'A value noted from a calculator or a screen that has no reading type of its own; kept as given, not judged.',
+  },
 ];
 
 const byId = new Map(catalogue.map((t) => [t.id, t]));

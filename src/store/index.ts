@@ -56,6 +56,16 @@ export interface VisitBundle {
   walks: WalkRecord[];
 }
 
+/** A value noted from another screen (the UI's noteThis passes this shape). */
+export interface NoteInput {
+  typeId?: string;
+  label: string;
+  value: number;
+  unit: string;
+  context?: Record<string, string | number>;
+  origin: 'calculator' | 'entered';
+}
+
 export interface StoreOptions {
   /** Physics for expected RF and DC values; injected so the store runs and tests without the engine. */
   engine?: EngineFunctions;
@@ -140,6 +150,15 @@ export interface Store {
   listWalks(visitId: string): Promise<WalkRecord[]>;
   /** The most recently updated walk still in progress (optionally for one visit or instrument). */
   latestInProgressWalk(filter?: { visitId?: string; instrumentId?: string }): Promise<WalkRecord | undefined>;
+
+  /** The visit that "Note this" and the Visits screen treat as open for an instrument. */
+  setCurrentVisit(instrumentId: string, visitId: string | null): Promise<void>;
+  /**
+   * Record a value from any screen in the instrument's current visit: the visit marked current, else one
+   * started in the last 12 hours, else a new visit opened for it. Values of a catalogue type are converted
+   * from the unit given; anything else is kept as a "Noted value" with its label and unit.
+   */
+  noteReading(instrument: InstrumentProfile, note: NoteInput): Promise<{ visitLabel: string; reading: Reading; visit: Visit }>;
 
   // ---- Backup and reports -------------------------------------------------------------------------
   /** Everything on the device as one JSON document (format "rodside-backup", version 1, SHA-256 checksum). */
@@ -660,6 +679,56 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
           if (!best || w.updatedAt > best.updatedAt) best = w;
         }
         return best;
+      }),
+
+
+    setCurrentVisit: (instrumentId, visitId) =>
+      guard('remember the open visit', async () => {
+        if (visitId === null) await db.delete('settings', `currentVisit:${instrumentId}`);
+        else await db.put('settings', { key: `currentVisit:${instrumentId}`, value: visitId });
+      }),
+
+    noteReading: (instrument, note) =>
+      guard('note the value', async () => {
+        if (!Number.isFinite(note.value)) throw new StoreError(`Could not note “${note.label}”: the value is not a finite number.`);
+        const now = new Date();
+        let visit: Visit | undefined;
+        const currentId = (await db.get('settings', `currentVisit:${instrument.id}`))?.value;
+        if (typeof currentId === 'string') {
+          const v = await db.get('visits', currentId);
+          if (v && v.instrumentId === instrument.id) visit = v;
+        }
+        if (!visit) {
+          const recent = (await store.listVisits(instrument.id))[0];
+          if (recent && now.getTime() - Date.parse(recent.startedAt) < 12 * 3600_000 && Date.parse(recent.startedAt) <= now.getTime()) visit = recent;
+        }
+        if (!visit) {
+          visit = await store.saveVisit({
+            instrumentId: instrument.id, startedAt: now.toISOString(), site: '', engineer: '', reason: 'other',
+            notes: 'Opened by “Note this”. Fill in the site, engineer and reason.', partsUsed: '',
+          });
+        }
+        await store.setCurrentVisit(instrument.id, visit.id);
+        const types = await store.listReadingTypes();
+        const type = note.typeId ? types.find((t) => t.id === note.typeId) : undefined;
+        const unit = type?.units.find((u) => u.label === note.unit || u.id === note.unit);
+        const context: ReadingContext = { ...(note.context ?? {}) };
+        let reading: Reading;
+        const text = String(Number(note.value.toPrecision(8)));
+        if (type && unit) {
+          reading = await store.addReading({
+            visitId: visit.id, typeId: type.id, phase: 'as-found', value: note.value * unit.factor + (unit.offset ?? 0),
+            entered: { text, unit: unit.label }, context, note: note.label, origin: note.origin,
+          });
+        } else {
+          context.label = note.label.slice(0, 200);
+          context.unit = note.unit.slice(0, 200);
+          reading = await store.addReading({
+            visitId: visit.id, typeId: 'noted-value', phase: 'as-found', value: note.value,
+            entered: { text, unit: note.unit.slice(0, 100) }, context, note: note.label, origin: note.origin,
+          });
+        }
+        return { visitLabel: `the visit of ${visit.startedAt.slice(0, 10)}`, reading, visit: (await db.get('visits', visit.id))! };
       }),
 
     // ---- Backup and reports ---------------------------------------------------------------------

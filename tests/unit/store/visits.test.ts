@@ -267,3 +267,21 @@ describe('backup reminder', () => {
     store.close();
   });
 });
+
+describe('note this', () => {
+  it('puts a value into the current visit, opening one when needed, converting catalogue units', async () => {
+    const { store, instrumentId } = await storeWithInstrument();
+    const instrument = (await store.getInstrument(instrumentId))!;
+    const a = await store.noteReading(instrument, { typeId: 'rf-amplitude', label: 'Expected RF at m/z 502', value: 1468.3, unit: 'V peak-to-peak, one rod to ground', context: { mz: 502 }, origin: 'calculator' });
+    expect(a.reading.value).toBeCloseTo(734.15, 6);
+    expect(a.reading.origin).toBe('calculator');
+    expect(a.reading.verdict).toBe('pass');
+    expect(a.visit.reason).toBe('other');
+    const b = await store.noteReading(instrument, { label: 'Stroke frequency', value: 2.5, unit: 'Hz', origin: 'calculator' });
+    expect(b.visit.id).toBe(a.visit.id);
+    expect(b.reading).toMatchObject({ typeId: 'noted-value', value: 2.5, context: { label: 'Stroke frequency', unit: 'Hz' } });
+    expect(b.reading.verdict).toBeUndefined();
+    await expect(store.noteReading(instrument, { label: 'x', value: Number.NaN, unit: 'V', origin: 'entered' })).rejects.toThrow(/not a finite number/);
+    store.close();
+  });
+});
