@@ -172,6 +172,11 @@ export interface Store {
   readingsCsv(filter?: { visitId?: string; instrumentId?: string }): Promise<string>;
   /** A standalone printable HTML record of one visit. */
   visitReport(visitId: string, now?: Date): Promise<string>;
+  /**
+   * Erase every record on this device in one transaction (instruments, visits, readings, walks, settings,
+   * drafts). The demo is marked as seen so it does not come back on the next start.
+   */
+  eraseAll(): Promise<void>;
 
   /** The underlying database, for sibling modules inside src/store only. */
   readonly db: IDBPDatabase<RodsideSchema>;
@@ -770,6 +775,16 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
           readings = await db.getAll('readings');
         }
         return readingsCsv(instruments, visits, readings, (id) => types.find((t) => t.id === id));
+      }),
+
+    eraseAll: () =>
+      guard('erase the data on this device', async () => {
+        const names = ['instruments', 'visits', 'readings', 'walks', 'settings', 'drafts'] as const;
+        const tx = db.transaction([...names], 'readwrite');
+        await Promise.all(names.map((n) => tx.objectStore(n).clear()));
+        await tx.objectStore('settings').put({ key: 'demoLoaded', value: true });
+        await tx.done;
+        deletedWith.clear();
       }),
 
     visitReport: (visitId, now = new Date()) =>
