@@ -31,3 +31,7 @@ export * from './vacuum';
 export * from './ionGauge';
 export * from './rods';
 export * from './massDrift';
+// Added with the bench screens (scan planning, proportionality check, hazardous-live levels).
+export * from './scanPlanning';
+export * from './proportionality';
+export * from './hazardousLive';
