@@ -2,6 +2,7 @@
 import {
   exponentGrid,
   firstRegionBoundary,
+  massFilterGrid,
   mathieuA,
   mathieuB,
   operatingPoint,
@@ -34,6 +35,11 @@ export function run(): void {
     medianMs(() => exponentGrid({ aMin: -0.1, aMax: 0.4, aCount: 300, qMin: 0, qMax: 1, qCount: 300 }), 5, 1),
     'ms',
     '< 50 ms',
+  );
+  report(
+    'mass-filter grid (β_x and β_y) 300 × 300',
+    medianMs(() => massFilterGrid({ aMin: -0.3, aMax: 0.3, aCount: 300, qMin: 0, qMax: 1, qCount: 300 }), 5, 1),
+    'ms',
   );
   report(
     'operating point (β_x, β_y, margins)',

@@ -138,6 +138,11 @@ export interface ExponentResult {
 /** Internal, unchecked: exponent from Hill's determinant plus the zone from a Sturm count. */
 export function exponentUnchecked(a: number, q: number): ExponentResult {
   const hill = hillSinSquared(a, q);
+  if (hill.exponent < 0) {
+    // A determinant scaled down below 1/RESCALE is zero to double precision: sin²(πν/2) = 0 then.
+    hill.mantissa *= Math.pow(RESCALE, hill.exponent);
+    hill.exponent = 0;
+  }
   if (hill.exponent === 0 && hill.mantissa >= 0 && hill.mantissa <= 1) {
     const f = hill.mantissa;
     // θ = acos(1 − 2F)/π written with asin for accuracy near F = 0 and F = 1.
@@ -246,4 +251,48 @@ export function exponentGrid(p: {
     }
   }
   return { a: aValues, q: qValues, beta, logGrowth };
+}
+
+/** β in both directions of the mass filter over a grid, chart-ready. */
+export interface MassFilterGrid {
+  a: Float64Array;
+  q: Float64Array;
+  /** β_x = β(a, q), row-major (i·qCount + j); −1 where x is unstable. */
+  betaX: Float64Array;
+  /** β_y = β(−a, −q), row-major; −1 where y is unstable. */
+  betaY: Float64Array;
+  /** 1 where both directions are stable (any zones), else 0: shades the first and the higher regions. */
+  stable: Uint8Array;
+}
+
+/**
+ * β_x and β_y of the mass filter over a grid of (a, q) (same arguments as exponentGrid). The first region
+ * and the higher stability regions are the cells where both are stable.
+ */
+export function massFilterGrid(p: {
+  aMin: number;
+  aMax: number;
+  aCount: number;
+  qMin: number;
+  qMax: number;
+  qCount: number;
+}): MassFilterGrid {
+  const x = exponentGrid(p);
+  const aMirrored = { ...p, aMin: -p.aMax, aMax: -p.aMin };
+  const yReversed = exponentGrid(aMirrored);
+  const aCount = p.aCount;
+  const qCount = p.qCount;
+  const betaY = new Float64Array(aCount * qCount);
+  const stable = new Uint8Array(aCount * qCount);
+  for (let i = 0; i < aCount; i++) {
+    // Row i of x is a[i]; the y value at a[i] is β(−a[i], q), row aCount−1−i of the mirrored grid.
+    // (β depends on |q| only, so −q needs no second mirror.)
+    const mirroredRow = aCount - 1 - i;
+    for (let j = 0; j < qCount; j++) {
+      const value = yReversed.beta[mirroredRow * qCount + j];
+      betaY[i * qCount + j] = value;
+      stable[i * qCount + j] = value >= 0 && x.beta[i * qCount + j] >= 0 ? 1 : 0;
+    }
+  }
+  return { a: x.a, q: x.q, betaX: x.beta, betaY, stable };
 }

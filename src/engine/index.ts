@@ -2,7 +2,17 @@
 export * from './constants';
 export * from './validate';
 export { mathieuA, mathieuB } from './characteristicValues';
-export * from './characteristicExponent';
+export {
+  stabilityExponent,
+  characteristicExponent,
+  exponentGrid,
+  massFilterGrid,
+  MAX_ABS_A_EXPONENT,
+  MAX_ABS_Q_EXPONENT,
+  type ExponentResult,
+  type ExponentGrid,
+  type MassFilterGrid,
+} from './characteristicExponent';
 export {
   firstRegionApex,
   apexRatio,

@@ -101,9 +101,10 @@ export function edgeCrossings(ratio: number): { qHighMassEdge: number; qLowMassE
   // y edge: −a0(q) = 2λq; divided by q so that the trivial root q = 0 drops out (−a0(q)/q → q/2).
   const yEdge = (q: number) => (q === 0 ? -2 * ratio : -a0Unchecked(q) / q - 2 * ratio);
   const xEdge = (q: number) => b1Unchecked(q) - 2 * ratio * q;
+  // For a vanishing ratio b1(qEnd) (≈ 1e-17, rounding) can exceed 2λ·qEnd: the crossing is then qEnd itself.
   return {
     qHighMassEdge: brentRoot(yEdge, 0, apex.q, 1e-17),
-    qLowMassEdge: brentRoot(xEdge, apex.q, qEnd, 1e-17),
+    qLowMassEdge: xEdge(qEnd) >= 0 ? qEnd : brentRoot(xEdge, apex.q, qEnd, 1e-17),
   };
 }
 

@@ -60,6 +60,7 @@ export function firstRegionBoundary(points = 1000): FirstRegionBoundary {
   const rightCount = points - leftCount;
   const q = new Float64Array(points);
   for (let i = 0; i < leftCount; i++) q[i] = (apex.q * i) / (leftCount - 1);
+  q[leftCount - 1] = apex.q; // exactly, so the kink of the upper edge is drawn
   for (let j = 1; j <= rightCount; j++) q[leftCount - 1 + j] = apex.q + ((qEnd - apex.q) * j) / rightCount;
   const yEdge = new Float64Array(points);
   const xEdge = new Float64Array(points);

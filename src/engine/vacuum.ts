@@ -50,6 +50,17 @@ export function meanFreePath(p: { pressure: number; temperature: number; diamete
   return (BOLTZMANN_CONSTANT * temperature) / (Math.SQRT2 * Math.PI * diameter * diameter * pressure);
 }
 
+/**
+ * Mean free path (m) of an ion of collision cross-section σ (m²) moving fast through still gas:
+ * λ = k_B·T/(p·σ) — no √2, the ion outruns the gas molecules (domain.md C9; O'Hanlon 2003).
+ */
+export function ionMeanFreePath(p: { pressure: number; temperature: number; crossSection: number }): number {
+  const pressure = checkNumber('pressure', p?.pressure, { min: 0, minExclusive: true, max: 1e7, unit: 'Pa' });
+  const temperature = checkNumber('temperature', p?.temperature, { min: 0, minExclusive: true, max: 1e4, unit: 'K' });
+  const crossSection = checkNumber('crossSection', p?.crossSection, { min: 0, minExclusive: true, max: 1e-15, unit: 'm²' });
+  return (BOLTZMANN_CONSTANT * temperature) / (pressure * crossSection);
+}
+
 /** Mean free path (m) for a preset gas. */
 export function meanFreePathForGas(p: { gas: GasName; pressure: number; temperature: number }): number {
   const gas = checkChoice('gas', p?.gas, GAS_NAMES);
