@@ -11,7 +11,8 @@
  * The Monte Carlo ensemble draws ions from a seeded xoshiro128** stream: same seed → same ions → same numbers.
  */
 import { seededRandom } from './peakRandom';
-import { flightModel, requireInteger, type FlightModel, type TransmissionParams } from './peakInput';
+import { flightModel, requireFinite, requireInteger, type FlightModel, type TransmissionParams } from './peakInput';
+import { InputRangeError } from './validate';
 
 /** One ion at the entrance, lengths in units of r0, slopes dx/dξ in units of r0. */
 export interface EntryState {
@@ -33,6 +34,11 @@ export interface IonFate {
 
 /** Draw `count` entry states (uniform phase, uniform disc, Gaussian slopes) from a seeded stream. */
 export function sampleIons(model: FlightModel, count: number, seed: number): EntryState[] {
+  if (model === null || typeof model !== 'object') throw new InputRangeError('model', model, 'a flight model from flightModel()');
+  requireFinite('beamRadius', model.beamRadius, 0, 1e3);
+  requireFinite('slopeSigma', model.slopeSigma, 0, 1e6, 'none');
+  requireInteger('count', count, 0, 1e8);
+  requireInteger('seed', seed, -(2 ** 31), 2 ** 32 - 1);
   const random = seededRandom(seed);
   const ions: EntryState[] = [];
   for (let i = 0; i < count; i++) {
@@ -77,6 +83,12 @@ function hermiteMax(p0: number, d0: number, p1: number, d1: number, h: number): 
  * x'' = −(a − 2q cos 2ξ)x, y'' = +(a − 2q cos 2ξ)y.
  */
 export function integrateIon(a: number, q: number, cycles: number, ion: EntryState, stepsPerPeriod = 256): IonFate {
+  requireFinite('a', a, -1e3, 1e3, 'none');
+  requireFinite('q', q, -1e3, 1e3, 'none');
+  requireFinite('cycles', cycles, 0, 1e6);
+  requireInteger('stepsPerPeriod', stepsPerPeriod, 8, 1 << 16);
+  if (ion === null || typeof ion !== 'object') throw new InputRangeError('ion', ion, 'an entry state {phase, x, slopeX, y, slopeY}');
+  for (const key of ['phase', 'x', 'slopeX', 'y', 'slopeY'] as const) requireFinite(key, ion[key], -1e6, 1e6, 'none');
   const total = cycles * Math.PI;
   const steps = Math.max(1, Math.ceil(cycles * stepsPerPeriod));
   const h = total / steps;
