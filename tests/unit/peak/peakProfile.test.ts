@@ -8,6 +8,7 @@ import {
   transmissionVsResolution,
 } from '../../../src/engine/peakProfile';
 import { mathieuA, mathieuB } from '../../../src/engine/characteristicValues';
+import { passBand } from '../../../src/engine/index';
 import { InputRangeError } from '../../../src/engine/validate';
 import { ATOMIC_MASS_CONSTANT, ELEMENTARY_CHARGE } from '../../../src/engine/constants';
 import { flightModel } from '../../../src/engine/peakInput';
@@ -66,13 +67,18 @@ describe('peakWidths: resolution from a sampled peak', () => {
 });
 
 describe('peakProfile: published behaviour', () => {
-  it('with very many cycles and a small cold beam, R50 and R10 approach the ideal band from the stability edges', () => {
+  it('with very many cycles and a small cold beam, R50 and R10 approach the ideal band from the stability edges (engine passBand)', () => {
     // Ideal R ≈ 100 (U/V = 0.16784 − 0.126/100, Dawson 1976 rule, from memory); n ≈ 1000 cycles, n²/K ≫ 100.
     const mz0 = 100;
     const q0 = 0.706;
     const ratio = 0.16784 - 0.126 / 100;
     const rf = rfFor(mz0, q0);
-    const band = exactBand(ratio, mz0, q0);
+    // The engine's pass band (first-region edges) is the reference; our own bisection on the characteristic
+    // values and on |tr M| must agree with it.
+    const band = passBand({ dc: ratio * rf, rf, r0: R0, frequency: F })!;
+    const fromValues = exactBand(ratio, mz0, q0);
+    near('engine passBand low vs characteristic values', band.low, fromValues.low, 1e-7 * band.low);
+    near('engine passBand high vs characteristic values', band.high, fromValues.high, 1e-7 * band.high);
     const idealResolution = (0.5 * (band.low + band.high)) / (band.high - band.low);
     const settings = { r0: R0, frequency: F, dc: ratio * rf, rf, rodLength: 0.2, axialVoltage: 0.02, beamRadius: 0.01 * R0, transverseEnergy: 1e-5 };
     expect(flightModel({ ...settings, mz: mz0 }).cycles).toBeGreaterThan(900);
