@@ -91,10 +91,12 @@ export function buildPeakRun(inputs: PeakInputs, profile: InstrumentProfile, err
   };
   const model = tryEngine(() => flightModel({ ...beamSettings, mz: mz.value }), map, errors, 'profile');
   if (!model) return null;
+  // Window: the ideal band plus room for the finite-flight tails (base width ≈ m·K/n², K ≈ 12–20).
+  const margin = 0.6 * width + (mz.value * 12) / (model.cycles * model.cycles);
   const params: PeakProfileParams = {
     ...beamSettings,
-    mzFrom: band.low - 0.6 * width,
-    mzTo: band.high + 0.6 * width,
+    mzFrom: Math.max(band.low - margin, 0.5 * band.low),
+    mzTo: band.high + margin,
     points: PROFILE_POINTS,
   };
   return { params, ratio, dc, rf, cycles: model.cycles, band, key: JSON.stringify(params) };
