@@ -92,6 +92,26 @@ describe('fast method vs direct Monte Carlo over whole peaks', () => {
     expect(chi2 / dof).toBeLessThan(2.41);
   });
 
+  it('χ²/dof across a wide band and both edges (U/V = 0.1615, n = 30) lies in the 99 % band for 9 dof', () => {
+    let chi2 = 0;
+    let dof = 0;
+    for (let i = 0; i < 9; i++) {
+      const q = 0.655 + (0.08 * i) / 8;
+      const p = settingsFor({ a: 2 * 0.1615 * q, q, cycles: 30, beamFraction: 0.3, transverseEnergy: 0.5 });
+      const fast = transmission(p).transmission;
+      const mc = monteCarloTransmission(p, { ions: 2000, seed: 300 + i });
+      const sigma = Math.sqrt((fast * (1 - fast)) / mc.ions);
+      if (sigma > 0) {
+        chi2 += ((fast - mc.transmission) / sigma) ** 2;
+        dof++;
+      } else expect(mc.transmitted).toBe(0);
+    }
+    expect(dof).toBeGreaterThanOrEqual(5);
+    // 99 % band of χ²/dof for 5–9 dof is within [0.08, 3.02]; use the widest.
+    expect(chi2 / dof).toBeGreaterThan(0.08);
+    expect(chi2 / dof).toBeLessThan(3.02);
+  });
+
   it('the seeded Monte Carlo is reproducible: same seed → same count; another seed → another sample', () => {
     const p = settingsFor({ a: 0.2365, q: 0.7055, cycles: 20, beamFraction: 0.3, transverseEnergy: 0.3 });
     const a = monteCarloTransmission(p, { ions: 400, seed: 9 });
