@@ -62,7 +62,7 @@ export interface TransmissionParams extends BeamSettings {
 }
 
 /** The largest flight the simulation accepts, in RF cycles (cost grows only as log n, but keep it bounded). */
-export const PEAK_MAX_CYCLES = 1e6;
+export const PEAK_MAX_CYCLES = 1e5;
 
 export function validateBeamSettings(p: BeamSettings): void {
   if (p === null || typeof p !== 'object') throw new InputRangeError('params', p, 'an object of instrument settings');

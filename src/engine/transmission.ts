@@ -30,7 +30,7 @@
  * half-width as `errorBound` (rigorous for the sampling; the Magnus tables, erfc and quadrature add < 1e-7,
  * checked by convergence tests). `uncertainty` is 0: nothing here is random.
  */
-import { ConvexIndex, convexHull, insertIntoHull, polarPolygon, transformRows } from './transmissionHull';
+import { ConvexIndex, convexHull, insertIntoHull, polarPolygon, simplifyHull, transformRows } from './transmissionHull';
 import { gaussLegendre, meanNormalCdf, normalCdf, psiExcess } from './transmissionMath';
 import { fundamentalAt, monodromy, multiply2, periodTable, power2, type PeriodTable } from './trajectoryMathieu';
 import { flightModel, requireInteger, type FlightModel, type TransmissionParams } from './peakInput';
@@ -63,6 +63,12 @@ export const FAST_DEFAULTS = { samplesPerPeriod: 128, phases: 16, quadratureOrde
  */
 const COLLAPSE_LIMIT = 1e10;
 
+/**
+ * The core hull (whole periods) is thinned so that true hull ⊆ (1 + δ)·kept hull; δ enters the sampling bracket.
+ * Long stable flights otherwise carry ~2 hull vertices per RF cycle into every phase.
+ */
+const HULL_SIMPLIFICATION = 2e-6;
+
 /** Everything about one transverse axis that does not depend on the entry phase. */
 export interface AxisFlight {
   table: PeriodTable;
@@ -77,7 +83,11 @@ export interface AxisFlight {
   collapsed: boolean;
   /** When collapsed: actual sample rows (phase-0 frame) of periods ≥ 1, for the strip bound. */
   collapsedRows: Float64Array | null;
-  /** Relative overshoot bound ε = h²G/8 between samples. */
+  /**
+   * Relative shrink of the inner polygon: the true acceptance contains (1 − ε)/(1 + δ) times the computed one,
+   * ε = h²G/8 the overshoot between samples, (1 + δ) the product over the simplifications of the core hull
+   * (≤ 1 + 1.6·HULL_SIMPLIFICATION).
+   */
   epsilon: number;
   /**
    * Samples outside the core that some window may include: period 0 and the periods after the core, as
@@ -90,7 +100,9 @@ export function prepareAxis(A: number, Q: number, cycles: number, samples: numbe
   const table = periodTable(A, Q, samples, substeps);
   const m = monodromy(table);
   const h = Math.PI / samples;
-  const epsilon = (h * h * (Math.abs(A) + 2 * Math.abs(Q))) / 8;
+  const overshoot = (h * h * (Math.abs(A) + 2 * Math.abs(Q))) / 8;
+  // True core hull ⊆ growth × kept hull (each simplification multiplies by 1 + its δ).
+  let growth = 1;
   // One period's rows and their negatives.
   const one = new Float64Array(4 * (samples + 1));
   for (let j = 0; j <= samples; j++) {
@@ -110,10 +122,12 @@ export function prepareAxis(A: number, Q: number, cycles: number, samples: numbe
     let mk = m; // M^k
     const bits = coreEnd.toString(2);
     for (let i = 1; i < bits.length && !collapsed; i++) {
-      d = mergeHull(d, d, mk);
+      d = simplifyHull(mergeHull(d, d, mk), HULL_SIMPLIFICATION / 64);
+      growth *= 1 + HULL_SIMPLIFICATION / 64;
       mk = multiply2(mk, mk);
       if (bits[i] === '1') {
-        d = mergeHull(d, h1, mk);
+        d = simplifyHull(mergeHull(d, h1, mk), HULL_SIMPLIFICATION / 64);
+        growth *= 1 + HULL_SIMPLIFICATION / 64;
         mk = multiply2(mk, m);
       }
       if (maxAbs(mk) > COLLAPSE_LIMIT || maxAbs(d) > COLLAPSE_LIMIT) collapsed = true;
@@ -121,8 +135,12 @@ export function prepareAxis(A: number, Q: number, cycles: number, samples: numbe
     const shifted = new Float64Array(d.length);
     transformRows(d, d.length / 2, m, shifted, 0);
     if (collapsed) collapsedRows = shifted;
-    else core = convexHull(shifted, shifted.length / 2);
+    else {
+      core = simplifyHull(convexHull(shifted, shifted.length / 2), HULL_SIMPLIFICATION);
+      growth *= 1 + HULL_SIMPLIFICATION;
+    }
   }
+  const epsilon = 1 - (1 - overshoot) / growth;
   const coreIndex = core && core.length >= 6 ? new ConvexIndex(core) : null;
   const candidates = windowCandidates(table, m, coreEnd, cycles, coreIndex);
   return { table, monodromy: m, cycles, core, coreIndex, coreEnd, collapsed, collapsedRows, epsilon, candidates };

@@ -269,3 +269,55 @@ export function insertIntoHull(polygon: Float64Array, extra: Float64Array, extra
   }
   return poly === polygon ? polygon : cleanHull(poly);
 }
+
+/**
+ * Drop vertices of a convex polygon around the origin (counter-clockwise) while keeping H ⊆ (1 + δ)·H',
+ * H' the result (a subset of the vertices, so H' ⊆ H). A vertex v between kept neighbours a, b is dropped only if
+ * n·v ≤ (1 + δ)·n·a for the outward normal n of ab — then v lies in the triangle 0, (1+δ)a, (1+δ)b.
+ * Long flights of stable ions give hulls with ~2 vertices per RF cycle on a smooth curve; this bounds the count.
+ */
+export function simplifyHull(hull: Float64Array, delta: number, maxRun = 64): Float64Array {
+  const m = hull.length / 2;
+  if (m <= 8 || delta <= 0) return hull;
+  const keep: number[] = [];
+  // Start from the vertex farthest from the origin (always kept).
+  let start = 0;
+  let far = -1;
+  for (let i = 0; i < m; i++) {
+    const r = hull[2 * i] * hull[2 * i] + hull[2 * i + 1] * hull[2 * i + 1];
+    if (r > far) {
+      far = r;
+      start = i;
+    }
+  }
+  let a = 0; // offset from start
+  keep.push(start);
+  while (a < m) {
+    let best = a + 1;
+    for (let b = a + 2; b <= m && b - a <= maxRun; b++) {
+      const ia = (start + a) % m;
+      const ib = (start + b) % m;
+      const ax = hull[2 * ia];
+      const ay = hull[2 * ia + 1];
+      const nx = hull[2 * ib + 1] - ay;
+      const ny = -(hull[2 * ib] - ax);
+      const d = nx * ax + ny * ay;
+      if (!(d > 0)) break;
+      let ok = true;
+      for (let t = a + 1; t < b && ok; t++) {
+        const it = (start + t) % m;
+        if (nx * hull[2 * it] + ny * hull[2 * it + 1] > (1 + delta) * d) ok = false;
+      }
+      if (!ok) break;
+      best = b;
+    }
+    a = best;
+    if (a < m) keep.push((start + a) % m);
+  }
+  const out = new Float64Array(2 * keep.length);
+  keep.forEach((i, k) => {
+    out[2 * k] = hull[2 * i];
+    out[2 * k + 1] = hull[2 * i + 1];
+  });
+  return out;
+}
