@@ -276,9 +276,10 @@ export function insertIntoHull(polygon: Float64Array, extra: Float64Array, extra
  * n·v ≤ (1 + δ)·n·a for the outward normal n of ab — then v lies in the triangle 0, (1+δ)a, (1+δ)b.
  * Long flights of stable ions give hulls with ~2 vertices per RF cycle on a smooth curve; this bounds the count.
  */
-export function simplifyHull(hull: Float64Array, delta: number, maxRun = 64): Float64Array {
+export function simplifyHull(hull: Float64Array, delta: number, maxRun = 64, minVertices = 256): Float64Array {
   const m = hull.length / 2;
-  if (m <= 8 || delta <= 0) return hull;
+  // Small hulls cost little downstream: keep them exact.
+  if (m <= minVertices || delta <= 0) return hull;
   const keep: number[] = [];
   // Start from the vertex farthest from the origin (always kept).
   let start = 0;
