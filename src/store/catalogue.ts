@@ -103,7 +103,7 @@ const ionMz = (label: string): ContextField => ({
 
 const setpoint = (unit: string, min: number, max: number): ContextField => ({
   key: 'setpoint', label: 'Set value', kind: 'number', unit, min, max,
-  help: 'The value the instrument was set to (in the base unit shown); the reading is judged against it.',
+  help: 'The value the instrument was set to, in the same unit as the reading; the reading is judged against it.',
 });
 
 /** Calibrant ions with a published M+1/M, for the isotope-ratio check (C15). */

@@ -1,5 +1,6 @@
 // The store: the only module that talks to IndexedDB. Everything the app keeps goes through here.
 import { deleteDB, openDB, type IDBPDatabase, type IDBPTransaction } from 'idb';
+import { dcForMass, rfForMass } from '../engine';
 import { exportBackupText, importBackupText, type ImportResult } from './backup';
 import { catalogue, type ReadingType } from './catalogue';
 import { readingsCsv } from './csv';
@@ -67,7 +68,7 @@ export interface NoteInput {
 }
 
 export interface StoreOptions {
-  /** Physics for expected RF and DC values; injected so the store runs and tests without the engine. */
+  /** Physics for expected RF and DC values (default: the engine's scan law); injectable for tests. */
   engine?: EngineFunctions;
 }
 
@@ -190,7 +191,11 @@ async function guard<T>(action: string, fn: () => Promise<T>): Promise<T> {
   }
 }
 
-export async function openStore(name: string = DB_NAME, events: StoreEvents = {}, options: StoreOptions = {}): Promise<Store> {
+/** The engine's scan law: V and U at the apex of the first stability region, per rod to ground. */
+export const defaultEngine: EngineFunctions = { rfForMass, dcForMass };
+
+export async function openStore(name: string = DB_NAME, events: StoreEvents = {}, given: StoreOptions = {}): Promise<Store> {
+  const options: StoreOptions = { engine: defaultEngine, ...given };
   const db = await guard('open the database', () =>
     openDB<RodsideSchema>(name, DB_VERSION, {
       upgrade: (database, oldVersion, _newVersion, tx) => upgrade(database, oldVersion, tx),

@@ -118,6 +118,16 @@ function num(v: unknown): number | undefined {
   return typeof v === 'number' && Number.isFinite(v) ? v : undefined;
 }
 
+/** The engine refuses inputs outside its ranges by throwing; here that just means "no calculated value". */
+function safely(f: () => number): number | undefined {
+  try {
+    const v = f();
+    return Number.isFinite(v) ? v : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
 /** The calculated expectation of a type, or undefined when its inputs are missing. */
 function calculated(inp: ExpectationInput): Expectation | undefined {
   const { type, instrument, context, engine } = inp;
@@ -128,14 +138,14 @@ function calculated(inp: ExpectationInput): Expectation | undefined {
   switch (type.computed) {
     case 'rf-amplitude': {
       if (!engine || !instrument || mz === undefined) return undefined;
-      const v = engine.rfForMass({ mz, r0: instrument.rodFieldRadius, frequency: instrument.rfFrequency });
-      return Number.isFinite(v) ? { value: v, basis: 'calculated', source, tolerance, badSide: type.badSide } : undefined;
+      const v = safely(() => engine.rfForMass({ mz, r0: instrument.rodFieldRadius, frequency: instrument.rfFrequency }));
+      return v !== undefined ? { value: v, basis: 'calculated', source, tolerance, badSide: type.badSide } : undefined;
     }
     case 'dc-amplitude': {
       if (!engine || !instrument || mz === undefined) return undefined;
       const args = { mz, r0: instrument.rodFieldRadius, frequency: instrument.rfFrequency };
-      const u = engine.dcForMass ? engine.dcForMass(args) : APEX_DC_TO_RF * engine.rfForMass(args);
-      return Number.isFinite(u) ? { value: u, basis: 'calculated', source, tolerance, badSide: type.badSide } : undefined;
+      const u = safely(() => (engine.dcForMass ? engine.dcForMass(args) : APEX_DC_TO_RF * engine.rfForMass(args)));
+      return u !== undefined ? { value: u, basis: 'calculated', source, tolerance, badSide: type.badSide } : undefined;
     }
     case 'rf-frequency':
       if (!instrument) return undefined;

@@ -286,7 +286,7 @@ function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: 
       ) : (
         <div class="scroll-x">
           <table class="values reading-table" data-testid={`readings-${props.title === 'As found' ? 'as-found' : 'as-left'}`}>
-            <thead><tr><th>Reading</th><th>Value</th><th>Expected</th><th>Verdict</th><th>Note</th>{props.onDelete && <th><span class="visually-hidden">Actions</span></th>}</tr></thead>
+            <thead><tr><th>Reading</th><th>Value</th><th>Verdict</th><th>Expected</th><th>Note</th>{props.onDelete && <th><span class="visually-hidden">Actions</span></th>}</tr></thead>
             <tbody>
               {props.readings.map((r) => {
                 const t = props.typeOf(r.typeId);
@@ -295,8 +295,8 @@ function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: 
                   <tr key={r.id} data-testid="reading-row">
                     <td>{r.typeId === 'noted-value' ? String(r.context?.label ?? 'Noted value') : t?.label ?? r.typeId}{ctx && <span class="ctx">{ctx}</span>}</td>
                     <td class="value">{shownValue(r, t)}</td>
-                    <td>{expectedText(r, t)}{r.expected?.summary && <span class="ctx">{r.expected.summary}</span>}</td>
                     <td><VerdictBadge verdict={r.verdict} /></td>
+                    <td>{expectedText(r, t)}{r.expected?.summary && <span class="ctx">{r.expected.summary}</span>}</td>
                     <td class="note">{r.note}</td>
                     {props.onDelete && <td><button type="button" class="btn btn-small no-print" onClick={() => props.onDelete!(r)} aria-label={`Delete ${t?.label ?? 'reading'}`}>Delete</button></td>}
                   </tr>

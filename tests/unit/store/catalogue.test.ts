@@ -184,3 +184,20 @@ describe('catalogue', () => {
     }
   });
 });
+
+describe('expected RF and DC from the engine itself', () => {
+  it('agrees with the worked values: m/z 69 → 100.91 V and 16.94 V; m/z 502 → 734.13 V (r0 4.5 mm, 1 MHz; domain F3, Dawson 1976 formula with CODATA 2018 constants, computed; ±0.05 %)', async () => {
+    const { defaultEngine } = await import('../../../src/store');
+    const kestrel = demoInstruments[0];
+    const rf69 = expectationFor({ type: type('rf-amplitude'), instrument: kestrel, context: { mz: 69 }, engine: defaultEngine })!.value!;
+    const dc69 = expectationFor({ type: type('dc-amplitude'), instrument: kestrel, context: { mz: 69 }, engine: defaultEngine })!.value!;
+    const rf502 = expectationFor({ type: type('rf-amplitude'), instrument: kestrel, context: { mz: 502 }, engine: defaultEngine })!.value!;
+    expect(Math.abs(rf69 / 100.91 - 1)).toBeLessThan(5e-4);
+    expect(Math.abs(dc69 / 16.94 - 1)).toBeLessThan(5e-4);
+    expect(Math.abs(rf502 / 734.13 - 1)).toBeLessThan(5e-4);
+  });
+  it('an m/z the engine refuses gives no calculated value instead of an error', async () => {
+    const { defaultEngine } = await import('../../../src/store');
+    expect(expectationFor({ type: type('rf-amplitude'), instrument: demoInstruments[0], context: { mz: 1e12 }, engine: defaultEngine })).toBeUndefined();
+  });
+});
