@@ -12,6 +12,7 @@ import { errorText, shareOrDownload, canShareFiles, showDate } from '../visits/f
 import { ReadingEntry } from '../visits/ReadingEntry';
 import { TrendPanel } from '../visits/TrendPanel';
 import { VerdictBadge } from '../visits/Verdict';
+import { OwnTypeForm } from '../visits/OwnTypeForm';
 import { VisitForm } from '../visits/VisitForm';
 import '../visits/visits.css';
 
@@ -26,18 +27,19 @@ export function VisitsScreen() {
 
 const reasonLabel = (r: string) => visitReasons.find((x) => x.value === r)?.label ?? r;
 
-function useReadingTypes(): ReadingType[] {
+function useReadingTypes(): [ReadingType[], () => void] {
   const { store } = useApp();
   const [types, setTypes] = useState<ReadingType[]>([]);
-  useEffect(() => {
+  const reload = useCallback(() => {
     if (store) void store.listReadingTypes().then(setTypes).catch(() => undefined);
   }, [store]);
-  return types;
+  useEffect(reload, [reload]);
+  return [types, reload];
 }
 
 function VisitList() {
   const { store, instrument } = useApp();
-  const types = useReadingTypes();
+  const [types, reloadTypes] = useReadingTypes();
   const [visits, setVisits] = useState<Visit[] | null>(null);
   const [counts, setCounts] = useState<Record<string, { n: number; fail: number; borderline: number }>>({});
   const [problem, setProblem] = useState<string | null>(null);
@@ -98,6 +100,7 @@ function VisitList() {
             </ul>
           )}
           {types.length > 0 && <TrendPanel instrumentId={instrument.id} types={types} />}
+          <OwnTypeForm onAdded={reloadTypes} />
         </>
       )}
       <BackupPanel />
@@ -124,7 +127,7 @@ function NewVisit() {
 
 function VisitPage(props: { id: string; sub?: string }) {
   const { store, instruments, notify } = useApp();
-  const types = useReadingTypes();
+  const [types] = useReadingTypes();
   const [visit, setVisit] = useState<Visit | null | undefined>(undefined);
   const [readings, setReadings] = useState<Reading[]>([]);
   const [walks, setWalks] = useState<WalkRecord[]>([]);
