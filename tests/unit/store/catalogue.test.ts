@@ -201,3 +201,27 @@ describe('expected RF and DC from the engine itself', () => {
     expect(expectationFor({ type: type('rf-amplitude'), instrument: demoInstruments[0], context: { mz: 1e12 }, engine: defaultEngine })).toBeUndefined();
   });
 });
+
+describe('verdict properties (fast-check)', () => {
+  it('a reading never gets a better verdict by straying further from the expected value', async () => {
+    const fc = (await import('fast-check')).default;
+    const rank = { pass: 0, borderline: 1, fail: 2 } as const;
+    fc.assert(fc.property(
+      fc.double({ min: 1e-6, max: 1e6, noNaN: true }), fc.double({ min: 0, max: 0.5, noNaN: true }), fc.double({ min: 0, max: 0.5, noNaN: true }),
+      fc.double({ min: 0, max: 2, noNaN: true }), fc.double({ min: 0, max: 2, noNaN: true }), fc.constantFrom('relative', 'factor'),
+      (ref, a, b, d1, d2, kind) => {
+        const pass = Math.min(a, b), borderline = Math.max(a, b);
+        const tol = kind === 'factor' ? { kind, pass: 1 + pass, borderline: 1 + borderline } as const : { kind, pass, borderline } as const;
+        const e: Expectation = { value: ref, basis: 'baseline', source: 'property', tolerance: tol, badSide: 'both' };
+        const near = Math.min(d1, d2), far = Math.max(d1, d2);
+        for (const sign of [1, -1]) {
+          const x1 = kind === 'factor' ? ref * (1 + near) ** sign : ref * (1 + sign * near);
+          const x2 = kind === 'factor' ? ref * (1 + far) ** sign : ref * (1 + sign * far);
+          if (!(x1 > 0 && x2 > 0) && kind === 'factor') continue;
+          if (rank[judge(x2, e).verdict] < rank[judge(x1, e).verdict]) return false;
+        }
+        return judge(ref, e).verdict === 'pass';
+      },
+    ), { numRuns: 500, seed: 7 });
+  });
+});
