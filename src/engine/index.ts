@@ -58,3 +58,7 @@ export {
 export { monteCarloTransmission, integrateIon, sampleIons, type MonteCarloResult, type IonFate, type EntryState } from './trajectoryDirect';
 export { flightModel, type BeamSettings, type TransmissionParams, type FlightModel } from './peakInput';
 export { seededRandom, type SeededRandom } from './peakRandom';
+export * from './leak';
+export * from './scanPlanning';
+export * from './proportionality';
+export * from './hazardousLive';
