@@ -176,7 +176,9 @@ export function expectationFor(inp: ExpectationInput): Expectation | undefined {
   }
   const c = calculated(inp);
   if (c) return c;
-  const generic = type.generic?.find((g) => !g.kinds || (instrument && g.kinds.includes(instrument.kind)));
+  const generic = type.generic?.find((g) =>
+    (!g.kinds || (instrument && g.kinds.includes(instrument.kind))) &&
+    Object.entries(g.when ?? {}).every(([k, v]) => String(inp.context[k] ?? '') === v));
   if (generic) {
     return {
       low: generic.low, high: generic.high, basis: 'generic', source: generic.source, badSide: type.badSide,

@@ -161,9 +161,12 @@ describe('expected values', () => {
   it('generic ranges follow the instrument kind: an RGA at 1e-5 mbar passes, a GC-MS at 1e-3 Torr fails', () => {
     const rga = demoInstruments[2];
     const vh = type('vacuum-high');
-    expect(judge(1e-3, expectationFor({ type: vh, instrument: rga, context: {} })!).verdict).toBe('pass');
-    expect(judge(1e-3 * PASCAL_PER_TORR, expectationFor({ type: vh, instrument: kestrel, context: {} })!).verdict).toBe('fail');
-    expect(judge(2e-5 * PASCAL_PER_TORR, expectationFor({ type: vh, instrument: kestrel, context: {} })!).verdict).toBe('pass');
+    const n2 = { gaugeGas: 'N2-equivalent' };
+    expect(judge(1e-3, expectationFor({ type: vh, instrument: rga, context: n2 })!).verdict).toBe('pass');
+    expect(judge(1e-3 * PASCAL_PER_TORR, expectationFor({ type: vh, instrument: kestrel, context: n2 })!).verdict).toBe('fail');
+    expect(judge(2e-5 * PASCAL_PER_TORR, expectationFor({ type: vh, instrument: kestrel, context: n2 })!).verdict).toBe('pass');
+    // The ranges are N2-equivalent: a pressure corrected for helium is not judged by them.
+    expect(expectationFor({ type: vh, instrument: kestrel, context: { gaugeGas: 'He' } })).toBeUndefined();
   });
 });
 
