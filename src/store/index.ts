@@ -496,7 +496,7 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         const ctx = await judgingContext(tx, visitId, typeId);
         await tx.done;
         const e = expectationFromRecord(ctx.type, ctx.instrument, context, ctx.baseline, visitId);
-        return e ? { expectation: e, judgement: judge(value, e) } : {};
+        return e ? { expectation: e, judgement: judge(value, e, ctx.type.baseUnit) } : {};
       }),
 
     addReading: (input) =>

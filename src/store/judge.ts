@@ -69,11 +69,19 @@ function grade(rule: ToleranceRule, dev: number): Verdict {
   return 'fail';
 }
 
-function describe(rule: ToleranceRule, dev: number): string {
+const basisWords: Record<ExpectationBasis, string> = {
+  baseline: 'the baseline value',
+  calculated: 'the calculated value',
+  'set value': 'the set value',
+  published: 'the published value',
+  generic: 'the generic value',
+};
+
+function describe(rule: ToleranceRule, dev: number, unit: string): string {
   if (!Number.isFinite(dev)) return 'off the scale';
   switch (rule.kind) {
     case 'absolute':
-      return `off by ${formatNumber(dev, 3)}`;
+      return `off by ${formatNumber(dev, 3)}${unit ? ` ${unit}` : ''}`;
     case 'relative':
       return `off by ${formatNumber(dev * 100, 3)} %`;
     case 'factor':
@@ -81,17 +89,20 @@ function describe(rule: ToleranceRule, dev: number): string {
   }
 }
 
-/** Judge a value (base units) against an expectation. Pure and total: every finite input gets a verdict. */
-export function judge(x: number, e: Expectation): Judgement {
+/**
+ * Judge a value (base units) against an expectation. Pure and total: every finite input gets a verdict.
+ * `unit` (the base unit) only makes the summary read better for absolute tolerances.
+ */
+export function judge(x: number, e: Expectation, unit = ''): Judgement {
   if (!Number.isFinite(x)) return { verdict: 'fail', deviation: Infinity, summary: 'not a finite number' };
   if (e.value !== undefined) {
     const ref = e.value;
     if ((e.badSide === 'high' && x <= ref) || (e.badSide === 'low' && x >= ref)) {
-      return { verdict: 'pass', deviation: 0, summary: `on the good side of the ${e.basis} value` };
+      return { verdict: 'pass', deviation: 0, summary: `on the good side of ${basisWords[e.basis]}` };
     }
     const dev = measure(e.tolerance, x, ref);
     const verdict = grade(e.tolerance, dev);
-    return { verdict, deviation: dev, summary: `${describe(e.tolerance, dev)} from the ${e.basis} value` };
+    return { verdict, deviation: dev, summary: `${describe(e.tolerance, dev, unit)} from ${basisWords[e.basis]}` };
   }
   const below = e.low !== undefined && x < e.low;
   const above = e.high !== undefined && x > e.high;
@@ -102,7 +113,7 @@ export function judge(x: number, e: Expectation): Judgement {
   const bound = below ? e.low! : e.high!;
   const dev = measure(e.tolerance, x, bound);
   const verdict = grade(e.tolerance, dev);
-  return { verdict, deviation: dev, summary: `${below ? 'below' : 'above'} the ${e.basis} range, ${describe(e.tolerance, dev)}` };
+  return { verdict, deviation: dev, summary: `${below ? 'below' : 'above'} the ${e.basis} range, ${describe(e.tolerance, dev, unit)}` };
 }
 
 export interface ExpectationInput {
