@@ -55,6 +55,12 @@ describe('visit log offline', () => {
     await page.goto(origin + '/visits/new');
     await page.locator('#visit-engineer').fill('Browser-test engineer');
     await page.locator('#visit-site').fill('Shielded room 3');
+    // Reload mid-entry: the visit form comes back as typed.
+    await page.waitForTimeout(300);
+    await page.reload();
+    await expect.poll(() => page.locator('#visit-site').inputValue()).toBe('Shielded room 3');
+    expect(await page.locator('#visit-engineer').inputValue()).toBe('Browser-test engineer');
+    await expect.poll(() => page.getByText('Restored the input you had not saved yet.').count()).toBe(1);
     await page.locator('#visit-notes').fill(hostileNotes);
     await page.getByRole('button', { name: 'Create visit' }).click();
     await expect.poll(() => new URL(page.url()).pathname).toMatch(/^\/visits\/visit-/);
