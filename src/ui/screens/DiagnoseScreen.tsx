@@ -44,10 +44,13 @@ export function DiagnoseScreen() {
 function LeakCheck() {
   const { store } = useApp();
   const [typed, setTyped] = useState<LeakTyped | null>(null);
+  const { storeProblem } = useApp();
   useEffect(() => {
-    if (!store || typed) return;
-    void store.getDraft<LeakTyped>(LEAK_DRAFT_KEY).then((t) => setTyped(t ?? {})).catch(() => setTyped({}));
-  }, [store, typed]);
+    if (!store) return;
+    // Never let a late read overwrite what was typed meanwhile.
+    void store.getDraft<LeakTyped>(LEAK_DRAFT_KEY).then((t) => setTyped((cur) => cur ?? t ?? {})).catch(() => setTyped((cur) => cur ?? {}));
+  }, [store]);
+  if (!typed && store && !storeProblem) return <p>Loading…</p>;
   const current = typed ?? {};
   return (
     <LeakCheckPanel
@@ -231,31 +234,31 @@ function WalkSummary(props: { walk: WalkState }) {
       {walk.readings.length === 0 ? (
         <p class="hint">No readings yet.</p>
       ) : (
-        <div class="scroll-x">
-          <table class="values" data-testid="walk-readings">
-            <thead>
-              <tr><th>Step</th><th>Reading</th><th>Value</th><th>Expected</th><th>Verdict</th></tr>
-            </thead>
-            <tbody>
-              {walk.readings.map((r) => (
-                <tr key={r.id} class={r.withdrawn ? 'withdrawn' : ''}>
-                  <td>{r.treeId}/{r.nodeId}{r.phase === 'as-left' ? ' (as-left)' : ''}</td>
-                  <td>{r.quantity}{r.withdrawn ? ' — withdrawn by Back' : ''}</td>
-                  <td>{formatNumber(r.value)} {r.unit}</td>
-                  <td>
-                    {r.expected !== null
-                      ? `${formatNumber(r.expected)} ${r.unit}`
-                      : r.low !== null || r.high !== null
-                        ? `${r.low !== null ? formatNumber(r.low) : '…'} to ${r.high !== null ? formatNumber(r.high) : '…'} ${r.unit}`
-                        : '—'}
-                    {r.judgedBy === 'engineer' ? ' (judged by the engineer)' : ''}
-                  </td>
-                  <td><VerdictWord verdict={r.verdict} side={r.side} /></td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <ul class="reading-list" data-testid="walk-readings">
+          {walk.readings.map((r) => (
+            <li key={r.id} class={r.withdrawn ? 'reading withdrawn' : 'reading'}>
+              <p class="reading-head">
+                <strong>{r.quantity}</strong>
+                {r.phase === 'as-left' ? ' (as-left)' : ''}
+                {r.withdrawn ? ' — withdrawn by Back' : ''}
+              </p>
+              <p class="reading-line">
+                <span class="reading-value">{formatNumber(r.value)} {r.unit}</span>{' '}
+                <VerdictWord verdict={r.verdict} side={r.side} />
+              </p>
+              <p class="hint">
+                {r.expected !== null
+                  ? `Expected ${formatNumber(r.expected)} ${r.unit}`
+                  : r.low !== null || r.high !== null
+                    ? `Expected ${r.low !== null ? formatNumber(r.low) : '…'} to ${r.high !== null ? formatNumber(r.high) : '…'} ${r.unit}`
+                    : 'No expected value'}
+                {r.tolerance ? `; pass ${formatNumber(r.tolerance.passLow)} to ${formatNumber(r.tolerance.passHigh)} ${r.unit}` : ''}
+                {r.judgedBy === 'engineer' ? '; judged by the engineer' : ''}
+                {` · step ${r.treeId}/${r.nodeId} · ${new Date(r.at).toLocaleTimeString()}`}
+              </p>
+            </li>
+          ))}
+        </ul>
       )}
     </div>
   );
