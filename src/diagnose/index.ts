@@ -2,7 +2,7 @@
 export { trees, treeById } from './trees/index';
 export { treeProblems } from './check';
 export { SAFETY_CARDS, HAZARD_CARD, DEFERRAL, cardProblems } from './safety';
-export { EXPECTATION_INFO, expectations, makeRegistry, readbackFactor, readbackName } from './expectations';
+export { EXPECTATION_INFO, expectations, makeRegistry, rfFormOf, readbackName } from './expectations';
 export type { EngineFace, ExpectedValue, ExpectationFn } from './expectations';
 export { judge, describeLimits } from './judge';
 export * from './walker';
@@ -11,6 +11,6 @@ export { UNITS, convert } from './units';
 // Leak check tools live in the engine (pure physics); screens reach them through here.
 export {
   leakIndication, rateOfRise, fitOutgassing, airCompositionRatios, airSignalRatios, LEAK_BANDS, DRY_AIR_PERCENT, DRY_AIR_SOURCE,
-  ION_GAUGE_RELATIVE_SENSITIVITY, ION_GAUGE_SOURCE, gasLoad, expectedPressure, ionGaugeTruePressure,
+  gasLoad, expectedPressure,
 } from '../engine/leak';
-export type { PeakHeights, LeakIndicationResult, RateOfRiseResult, OutgassingFit, PressureSample, GaugeGas } from '../engine/leak';
+export type { PeakHeights, LeakIndicationResult, RateOfRiseResult, OutgassingFit, PressureSample } from '../engine/leak';

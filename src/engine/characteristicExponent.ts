@@ -28,39 +28,38 @@ function sinhc(x: number): number {
   return Math.abs(x) < 1e-4 ? 1 + (x * x) / 6 : Math.sinh(x) / x;
 }
 
-/** Hurwitz ζ(s, w) for w ≳ 15 by its Euler–Maclaurin asymptotic series (DLMF 25.11.43). */
-function hurwitzZetaLarge(s: number, w: number): number {
-  const ws = Math.pow(w, -s);
-  const w2 = 1 / (w * w);
-  let sum = (w * ws) / (s - 1) + ws / 2;
-  // Bernoulli terms B_2k/(2k)! · s(s+1)…(s+2k−2) · w^(−s−2k+1).
-  const coefficients = [1 / 12, -1 / 720, 1 / 30240, -1 / 1209600];
-  let rising = s; // s(s+1)…(s+2k−2)
-  let power = ws / w; // w^(−s−1)
-  for (let k = 0; k < coefficients.length; k++) {
-    sum += coefficients[k] * rising * power;
-    rising *= (s + 2 * k + 1) * (s + 2 * k + 2);
-    power *= w2;
-  }
-  return sum;
-}
-
 /** Σ_{k≥N} γ_k γ_{k+1} with γ_k = q/(4k² − a), via x = k + ½:
- *  (4k² − a)(4(k+1)² − a) = 16 (x⁴ − A x² + B), A = a/2 + ½, B = (a − 1)²/16, expanded in 1/x². */
+ *  (4k² − a)(4(k+1)² − a) = 16 (x⁴ − A x² + B), A = a/2 + ½, B = (a − 1)²/16, expanded in 1/x² as
+ *  Σ_j e_j x^(−4−2j), and each Σ_k x^(−s) = ζ(s, N + ½) by the Hurwitz zeta asymptotic series
+ *  ζ(s, w) ≈ w^(1−s)/(s−1) + w^(−s)/2 + Σ B_2k/(2k)! · s(s+1)…(s+2k−2) · w^(−s−2k+1) (DLMF 25.11.43). */
 function tailSum(a: number, q: number, n: number): number {
   const capitalA = a / 2 + 0.5;
   const capitalB = ((a - 1) * (a - 1)) / 16;
   const w = n + 0.5;
+  const inverseW = 1 / w;
+  const inverseW2 = inverseW * inverseW;
+  let ws = inverseW2 * inverseW2; // w^(−s), s = 4 + 2j
   let previous = 0;
-  let current = 1;
+  let current = 1; // e_j
   let sum = 0;
   for (let j = 0; j < 14; j++) {
-    const term = current * hurwitzZetaLarge(4 + 2 * j, w);
+    const s = 4 + 2 * j;
+    const zeta =
+      ws *
+      (w / (s - 1) +
+        0.5 +
+        inverseW *
+          ((s / 12) +
+            inverseW2 *
+              ((-s * (s + 1) * (s + 2)) / 720 +
+                (inverseW2 * (s * (s + 1) * (s + 2) * (s + 3) * (s + 4))) / 30240)));
+    const term = current * zeta;
     sum += term;
-    if (Math.abs(term) < 1e-18 * Math.abs(sum)) break;
+    if (Math.abs(term) < 1e-17 * Math.abs(sum)) break;
     const next = capitalA * current - capitalB * previous;
     previous = current;
     current = next;
+    ws *= inverseW2;
   }
   return ((q * q) / 16) * sum;
 }
@@ -81,13 +80,15 @@ export function hillSinSquared(a: number, q: number): HillValue {
   const absQ = Math.abs(q);
   const rStar = a > 0 ? Math.round(Math.sqrt(a) / 2) : 0;
   const n = hillSize(a, absQ, rStar);
-  // Three-term recurrence f_k = d_k f_{k−1} − c_{k−1} c_k f_{k−2} over rows r = −n … n.
+  // Three-term recurrence f_k = d_k f_{k−1} − c_{k−1} c_k f_{k−2} over rows r = −n … −1 only: the matrix is
+  // symmetric about r = 0, so with L_k = det(rows −n … k) the full determinant is
+  // L_{−1} · (d_0 L_{−1} − 2 p L_{−2}), p = c_0 c_1 the coupling product of rows 0 and ±1.
   let scale = 0;
-  let previous = 1; // f_{k−2}
-  let current = 1; // f_{k−1} (empty determinant)
+  let previous = 1; // L_{k−2}
+  let current = 1; // L_{k−1} (empty determinant)
   let previousOffDiagonal = 0;
-  for (let r = -n; r <= n; r++) {
-    const pivotRow = r === rStar || r === -rStar;
+  for (let r = -n; r <= -1; r++) {
+    const pivotRow = r === -rStar;
     const denominator = 4 * r * r - a;
     const diagonal = pivotRow ? denominator : 1;
     const offDiagonal = pivotRow ? absQ : absQ / denominator;
@@ -105,7 +106,11 @@ export function hillSinSquared(a: number, q: number): HillValue {
       scale--;
     }
   }
-  const determinant = current * Math.exp(-2 * tailSum(a, absQ, n));
+  const centreDiagonal = rStar === 0 ? -a : 1;
+  const centreOffDiagonal = rStar === 0 ? absQ : absQ / -a;
+  const full = current * (centreDiagonal * current - 2 * previousOffDiagonal * centreOffDiagonal * previous);
+  scale *= 2;
+  const determinant = full * Math.exp(-2 * tailSum(a, absQ, n));
   // G = sin²(π√a/2) / Π_{r=±r*} (4r² − a), smooth through a = 4r*².
   let g: number;
   if (rStar === 0) {
@@ -132,6 +137,8 @@ export interface ExponentResult {
   growthPerPeriod: number;
   /** ln of growthPerPeriod (finite even where growthPerPeriod overflows). */
   logGrowthPerPeriod: number;
+  /** RF periods for the amplitude to grow tenfold, ln 10 / ln(growth) — how fast an ion is lost; null when stable. */
+  periodsPerTenfoldGrowth: number | null;
   /** cos πν = ½ trace of the one-period monodromy matrix (Floquet); capped to ±1e300. */
   halfTrace: number;
 }
@@ -139,6 +146,11 @@ export interface ExponentResult {
 /** Internal, unchecked: exponent from Hill's determinant plus the zone from a Sturm count. */
 export function exponentUnchecked(a: number, q: number): ExponentResult {
   const hill = hillSinSquared(a, q);
+  if (hill.exponent < 0) {
+    // A determinant scaled down below 1/RESCALE is zero to double precision: sin²(πν/2) = 0 then.
+    hill.mantissa *= Math.pow(RESCALE, hill.exponent);
+    hill.exponent = 0;
+  }
   if (hill.exponent === 0 && hill.mantissa >= 0 && hill.mantissa <= 1) {
     const f = hill.mantissa;
     // θ = acos(1 − 2F)/π written with asin for accuracy near F = 0 and F = 1.
@@ -154,7 +166,15 @@ export function exponentUnchecked(a: number, q: number): ExponentResult {
       beta = count / 2;
       zone = Math.max(0, count / 2 - (theta < 0.5 ? 0 : 1));
     }
-    return { stable: true, beta, zone, growthPerPeriod: 1, logGrowthPerPeriod: 0, halfTrace: 1 - 2 * f };
+    return {
+      stable: true,
+      beta,
+      zone,
+      growthPerPeriod: 1,
+      logGrowthPerPeriod: 0,
+      periodsPerTenfoldGrowth: null,
+      halfTrace: 1 - 2 * f,
+    };
   }
   // |cos πν| > 1: cosh(πμ) = |1 − 2F|.
   let logGrowth: number;
@@ -176,6 +196,8 @@ export function exponentUnchecked(a: number, q: number): ExponentResult {
     zone: null,
     growthPerPeriod: Math.min(Number.MAX_VALUE, Math.exp(logGrowth)),
     logGrowthPerPeriod: logGrowth,
+    // logGrowth > 0 here except exactly on an edge (|c| = 1), where growth is only linear.
+    periodsPerTenfoldGrowth: logGrowth > 0 ? Math.LN10 / logGrowth : Number.MAX_VALUE,
     halfTrace,
   };
 }
@@ -247,4 +269,48 @@ export function exponentGrid(p: {
     }
   }
   return { a: aValues, q: qValues, beta, logGrowth };
+}
+
+/** β in both directions of the mass filter over a grid, chart-ready. */
+export interface MassFilterGrid {
+  a: Float64Array;
+  q: Float64Array;
+  /** β_x = β(a, q), row-major (i·qCount + j); −1 where x is unstable. */
+  betaX: Float64Array;
+  /** β_y = β(−a, −q), row-major; −1 where y is unstable. */
+  betaY: Float64Array;
+  /** 1 where both directions are stable (any zones), else 0: shades the first and the higher regions. */
+  stable: Uint8Array;
+}
+
+/**
+ * β_x and β_y of the mass filter over a grid of (a, q) (same arguments as exponentGrid). The first region
+ * and the higher stability regions are the cells where both are stable.
+ */
+export function massFilterGrid(p: {
+  aMin: number;
+  aMax: number;
+  aCount: number;
+  qMin: number;
+  qMax: number;
+  qCount: number;
+}): MassFilterGrid {
+  const x = exponentGrid(p);
+  const aMirrored = { ...p, aMin: -p.aMax, aMax: -p.aMin };
+  const yReversed = exponentGrid(aMirrored);
+  const aCount = p.aCount;
+  const qCount = p.qCount;
+  const betaY = new Float64Array(aCount * qCount);
+  const stable = new Uint8Array(aCount * qCount);
+  for (let i = 0; i < aCount; i++) {
+    // Row i of x is a[i]; the y value at a[i] is β(−a[i], q), row aCount−1−i of the mirrored grid.
+    // (β depends on |q| only, so −q needs no second mirror.)
+    const mirroredRow = aCount - 1 - i;
+    for (let j = 0; j < qCount; j++) {
+      const value = yReversed.beta[mirroredRow * qCount + j];
+      betaY[i * qCount + j] = value;
+      stable[i * qCount + j] = value >= 0 && x.beta[i * qCount + j] >= 0 ? 1 : 0;
+    }
+  }
+  return { a: x.a, q: x.q, betaX: x.beta, betaY, stable };
 }

@@ -4,6 +4,7 @@
 // 1965, §5.37; Barth, Martin & Wilkinson, Numer. Math. 9 (1967) 386). The matrix is symmetrised with the
 // single factor √2 in the first off-diagonal of the a_{2n} matrix. Negative q is handled by the matrices
 // themselves (their spectra give DLMF 28.2.21–28.2.22 automatically).
+import { brentRoot } from './rootFinding';
 import { checkNumber } from './validate';
 
 /** Which recurrence: even/odd in ξ (cos/sin series) and period π (even multiples) or 2π (odd multiples). */
@@ -14,10 +15,11 @@ export const MAX_ABS_Q = 1e5;
 /** Largest accepted order n. */
 export const MAX_ORDER = 200;
 
-/** Matrix size enough for eigenvalue index k at this q: Fourier coefficients fall as q/(4m²) per step
- * once (2m)² exceeds |q|, so 2√|q| + 16 further terms leave truncation far below double precision. */
+/** Matrix size enough for eigenvalue index k at this q: Fourier coefficients fall by q/(4m²) per step, which
+ * is below 1/16 from m = 2√|q| on, so 10 further terms put the truncation error (≈ coefficient²) far below
+ * double precision. */
 export function truncationSize(index: number, q: number): number {
-  return index + Math.ceil(2 * Math.sqrt(Math.abs(q))) + 16;
+  return index + Math.ceil(2 * Math.sqrt(Math.abs(q))) + 10;
 }
 
 /** Diagonal of the recurrence matrix (DLMF 28.4.5–28.4.8). */
@@ -56,7 +58,27 @@ export function sturmCount(kind: RecurrenceKind, q: number, n: number, x: number
   return count;
 }
 
-/** The index-th (0-based, ascending) eigenvalue of the recurrence matrix, by bisection to full precision. */
+/** det(T − xI) divided by Π max(1, |d_m − shift|): same sign and roots, no overflow near x ≈ shift. */
+function scaledDeterminant(kind: RecurrenceKind, q: number, n: number, x: number, shift: number): number {
+  let product = 1;
+  let d = diagonal(kind, 0, q);
+  let pivot = d - x;
+  if (pivot === 0) pivot = -1e-300;
+  product *= pivot / Math.max(1, Math.abs(d - shift));
+  for (let m = 1; m < n; m++) {
+    d = diagonal(kind, m, q);
+    pivot = d - x - offDiagonalSquared(kind, m - 1, q) / pivot;
+    if (pivot === 0) pivot = -1e-300;
+    product *= pivot / Math.max(1, Math.abs(d - shift));
+  }
+  return product;
+}
+
+/**
+ * The index-th (0-based, ascending) eigenvalue of the recurrence matrix: Sturm bisection until the
+ * eigenvalue is isolated, then Brent's method on the (scaled) characteristic polynomial, which has a
+ * single simple root in the isolating interval. Falls back to plain bisection if the polynomial misbehaves.
+ */
 export function recurrenceEigenvalue(kind: RecurrenceKind, index: number, q: number): number {
   const n = truncationSize(index, q);
   // Gershgorin bounds of the whole spectrum.
@@ -71,6 +93,29 @@ export function recurrenceEigenvalue(kind: RecurrenceKind, index: number, q: num
   }
   // Characteristic values never fall below −2|q| (the potential minimum); it tightens the bracket.
   lo = Math.max(lo, -2 * Math.abs(q) - 1);
+  let countLo = 0;
+  let countHi = n;
+  for (let iteration = 0; iteration < 2000; iteration++) {
+    if (countLo === index && countHi === index + 1) break;
+    const mid = 0.5 * (lo + hi);
+    if (mid <= lo || mid >= hi) return 0.5 * (lo + hi);
+    const count = sturmCount(kind, q, n, mid);
+    if (count > index) {
+      hi = mid;
+      countHi = count;
+    } else {
+      lo = mid;
+      countLo = count;
+    }
+  }
+  const shift = 0.5 * (lo + hi);
+  const f = (x: number) => scaledDeterminant(kind, q, n, x, shift);
+  const fLo = f(lo);
+  const fHi = f(hi);
+  if (Number.isFinite(fLo) && Number.isFinite(fHi) && fLo * fHi <= 0) {
+    const root = brentRoot(f, lo, hi, 1e-16 * Math.max(1, Math.abs(shift)));
+    if (Number.isFinite(root)) return root;
+  }
   for (let iteration = 0; iteration < 2000; iteration++) {
     const mid = 0.5 * (lo + hi);
     if (mid <= lo || mid >= hi) break;
@@ -124,11 +169,24 @@ export function countCharacteristicValuesBelow(a: number, q: number): number {
   const absQ = Math.abs(q);
   // Index bound: values a_n, b_n near n² for n² ≫ |q|, so n up to √(a + 2|q|) + 2 matters.
   const nMax = Math.ceil(Math.sqrt(Math.max(0, a + 2 * absQ))) + 2;
-  const size = truncationSize(nMax, absQ);
-  return (
-    sturmCount('aEven', absQ, size, a) +
-    sturmCount('aOdd', absQ, size, a) +
-    sturmCount('bOdd', absQ, size, a) +
-    sturmCount('bEven', absQ, size, a)
-  );
+  const size = truncationSize(Math.ceil(nMax / 2), absQ); // each matrix holds every other order
+  let count = 0;
+  for (const kind of KINDS) if (a > spectrumLowerBound(kind, absQ, size)) count += sturmCount(kind, absQ, size, a);
+  return count;
+}
+
+const KINDS: readonly RecurrenceKind[] = ['aEven', 'aOdd', 'bOdd', 'bEven'];
+
+/** Gershgorin lower bound of the recurrence matrix's spectrum (rows stop mattering once d_m − 2√2|q| grows). */
+function spectrumLowerBound(kind: RecurrenceKind, q: number, size: number): number {
+  let bound = Infinity;
+  let left = 0;
+  for (let m = 0; m < size; m++) {
+    const d = diagonal(kind, m, q);
+    if (d - 2 * Math.SQRT2 * q > bound) break; // later rows have larger diagonals and the same off-diagonals
+    const right = m < size - 1 ? Math.sqrt(offDiagonalSquared(kind, m, q)) : 0;
+    bound = Math.min(bound, d - left - right);
+    left = right;
+  }
+  return bound;
 }

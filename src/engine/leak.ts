@@ -4,12 +4,13 @@
  * - Peak-ratio indication from residual-gas peaks (m/z 4, 17, 18, 28, 32, 40, 44).
  * - Rate-of-rise: throughput Q = V·Δp/Δt and a linear-versus-levelling judgement.
  * - Outgassing or leak: least-squares fit of p(t) = A/t + B to a pump-down series.
- * - Gas load from a flow at reference conditions, expected pressure p = Q/S_eff,
- *   and the Bayard–Alpert ion-gauge gas correction.
+ * - Gas load from a flow at reference conditions and expected pressure p = Q/S_eff (the ion-gauge gas
+ *   correction is in ionGauge.ts).
  *
  * No DOM, no storage, nothing of ours imported: this file belongs to the engine.
  */
 
+import { ION_GAUGE_SENSITIVITY } from './ionGauge';
 import { checkNumber, InputRangeError } from './validate';
 
 // Input checks through the engine's validation helper: messages name the field, the value and the range.
@@ -23,26 +24,6 @@ const nonNegative = (field: string, value: unknown, unit: string): number => che
 /** Dry air by volume (CRC Handbook, composition of dry air; U.S. Standard Atmosphere, 1976). */
 export const DRY_AIR_PERCENT = { nitrogen: 78.084, oxygen: 20.946, argon: 0.934 } as const;
 export const DRY_AIR_SOURCE = 'CRC Handbook of Chemistry and Physics, composition of dry air; U.S. Standard Atmosphere, 1976';
-
-/**
- * Bayard–Alpert ion-gauge sensitivity relative to N2 (CRC Handbook, table "Relative sensitivity of
- * Bayard–Alpert ionization gauges to various gases", P. Redhead). Individual gauges differ by up to ±15 %.
- */
-export const ION_GAUGE_RELATIVE_SENSITIVITY = {
-  N2: 1.0,
-  He: 0.18,
-  Ne: 0.31,
-  Ar: 1.4,
-  H2: 0.43,
-  O2: 0.96,
-  CO: 1.0,
-  CO2: 1.4,
-  H2O: 0.93,
-  CH4: 1.6,
-} as const;
-export type GaugeGas = keyof typeof ION_GAUGE_RELATIVE_SENSITIVITY;
-export const ION_GAUGE_SOURCE =
-  'CRC Handbook of Chemistry and Physics, relative sensitivity of Bayard–Alpert ionization gauges (Redhead)';
 
 /** Ratio of two composition percentages, e.g. N2/O2 of dry air = 78.084 / 20.946 = 3.728. */
 export function airRatio(numeratorPercent: number, denominatorPercent: number): number {
@@ -109,7 +90,7 @@ export function airCompositionRatios(): { nitrogenToOxygen: number; argonToNitro
  * (composition × S_rel): 28:32 ≈ 3.88 and 40:28 ≈ 1.7 %.
  */
 export function airSignalRatios(): { m28ToM32: number; m40ToM28: number } {
-  const s = ION_GAUGE_RELATIVE_SENSITIVITY;
+  const s = ION_GAUGE_SENSITIVITY;
   const c = airCompositionRatios();
   return { m28ToM32: (c.nitrogenToOxygen * s.N2) / s.O2, m40ToM28: (c.argonToNitrogen * s.Ar) / s.N2 };
 }
@@ -362,7 +343,7 @@ export function fitOutgassing(samples: PressureSample[]): OutgassingFit {
 }
 
 // ---------------------------------------------------------------------------
-// Gas load, expected pressure, ion-gauge correction.
+// Gas load and expected pressure.
 
 /** Standard atmosphere, Pa (ISO 2533). The usual reference pressure of "standard" flows. */
 export const STANDARD_PRESSURE = 101_325;
@@ -390,21 +371,4 @@ export function expectedPressure(throughput: number, pumpingSpeed: number, condu
   const s = positive('pumpingSpeed', pumpingSpeed, 'm³/s');
   const sEff = conductance === undefined ? s : 1 / (1 / s + 1 / positive('conductance', conductance, 'm³/s'));
   return q / sEff;
-}
-
-function gaugeGas(gas: string): number {
-  const table = ION_GAUGE_RELATIVE_SENSITIVITY as Record<string, number>;
-  const s = table[gas];
-  if (s === undefined) throw new InputRangeError('gas', gas, `one of ${Object.keys(table).join(', ')}`);
-  return s;
-}
-
-/** True pressure from an N2-equivalent ion-gauge reading: p_true = p_indicated / S_rel (CRC, Redhead). */
-export function ionGaugeTruePressure(indicated: number, gas: GaugeGas): number {
-  return nonNegative('indicated', indicated, 'Pa') / gaugeGas(gas);
-}
-
-/** N2-equivalent ion-gauge reading for a true pressure of one gas: p_indicated = p_true · S_rel. */
-export function ionGaugeIndicatedPressure(truePressure: number, gas: GaugeGas): number {
-  return nonNegative('truePressure', truePressure, 'Pa') * gaugeGas(gas);
 }

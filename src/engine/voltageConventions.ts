@@ -1,0 +1,44 @@
+// Conversions between the ways an RF or DC amplitude is quoted (domain.md §0.2; physics.md). The engine keeps
+// V zero-to-peak on one rod to ground; between the two pairs the voltage doubles; peak-to-peak is twice
+// zero-to-peak; rms of a sine is zero-to-peak/√2.
+import { checkChoice, checkNumber } from './validate';
+
+export const RF_FORMS = [
+  'zeroToPeakPerRod',
+  'peakToPeakPerRod',
+  'rmsPerRod',
+  'zeroToPeakBetweenPairs',
+  'peakToPeakBetweenPairs',
+  'rmsBetweenPairs',
+] as const;
+export type RfForm = (typeof RF_FORMS)[number];
+
+/** Factor f with value(form) = f · V(zero-to-peak, per rod). */
+const RF_FACTOR: Record<RfForm, number> = {
+  zeroToPeakPerRod: 1,
+  peakToPeakPerRod: 2,
+  rmsPerRod: Math.SQRT1_2,
+  zeroToPeakBetweenPairs: 2,
+  peakToPeakBetweenPairs: 4,
+  rmsBetweenPairs: Math.SQRT2,
+};
+
+/** Convert an RF amplitude (V) between forms. */
+export function convertRf(value: number, from: RfForm, to: RfForm): number {
+  checkNumber('value', value, { min: 0, max: 1e7, unit: 'V' });
+  const f = checkChoice('from', from, RF_FORMS);
+  const t = checkChoice('to', to, RF_FORMS);
+  return (value / RF_FACTOR[f]) * RF_FACTOR[t];
+}
+
+export const DC_FORMS = ['perRod', 'betweenPairs'] as const;
+export type DcForm = (typeof DC_FORMS)[number];
+
+/** Convert a DC voltage (V): between the pairs it is 2U. */
+export function convertDc(value: number, from: DcForm, to: DcForm): number {
+  checkNumber('value', value, { min: -1e7, max: 1e7, unit: 'V' });
+  const f = checkChoice('from', from, DC_FORMS);
+  const t = checkChoice('to', to, DC_FORMS);
+  const factor = { perRod: 1, betweenPairs: 2 } as const;
+  return (value / factor[f]) * factor[t];
+}
