@@ -59,3 +59,6 @@ export { monteCarloTransmission, integrateIon, sampleIons, type MonteCarloResult
 export { flightModel, type BeamSettings, type TransmissionParams, type FlightModel } from './peakInput';
 export { seededRandom, type SeededRandom } from './peakRandom';
 export * from './leak';
+export * from './scanPlanning';
+export * from './proportionality';
+export * from './hazardousLive';
