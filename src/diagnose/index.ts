@@ -14,3 +14,4 @@ export {
   gasLoad, expectedPressure,
 } from '../engine/leak';
 export type { PeakHeights, LeakIndicationResult, RateOfRiseResult, OutgassingFit, PressureSample } from '../engine/leak';
+export { ION_GAUGE_SENSITIVITY, ION_GAUGE_SOURCE, ionGaugeTruePressure, type GaugeGas } from '../engine/ionGauge';

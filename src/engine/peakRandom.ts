@@ -6,6 +6,7 @@
  * well-mixed non-zero state. All arithmetic is 32-bit integer (Math.imul, >>>), so results are exact
  * and identical in every JavaScript engine.
  */
+import { InputRangeError } from './validate';
 export interface SeededRandom {
   /** Uniform in [0, 1) with 53 random bits. */
   uniform(): number;
@@ -25,7 +26,7 @@ function splitmix32(seed: number): () => number {
 }
 
 export function seededRandom(seed: number): SeededRandom {
-  if (!Number.isInteger(seed)) throw new RangeError(`seed: expected an integer, got ${seed}`);
+  if (!Number.isInteger(seed)) throw new InputRangeError('seed', seed, 'an integer (any 32-bit value)');
   const mix = splitmix32(seed);
   let s0 = mix();
   let s1 = mix();

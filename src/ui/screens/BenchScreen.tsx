@@ -1,5 +1,27 @@
-import { Pending } from '../components/Pending';
+// Bench: expected voltages for the instrument in front of you (/bench) and the vacuum check (/bench/vacuum).
+import { SubNav } from '../bench/SubNav';
+import { VacuumCheck } from '../bench/VacuumCheck';
+import { Voltages } from '../bench/Voltages';
+import { usePath } from '../router';
+
+export const benchParts = [
+  { path: '/bench', title: 'Voltages' },
+  { path: '/bench/vacuum', title: 'Vacuum check' },
+] as const;
 
 export function BenchScreen() {
-  return <Pending title="Bench" what="Expected RF and DC amplitudes for an m/z on the selected instrument, in every voltage convention, with the inverse and a proportionality check." />;
+  const path = usePath();
+  const vacuum = path === '/bench/vacuum';
+  return (
+    <section class="screen">
+      <h1>{vacuum ? 'Bench · vacuum check' : 'Bench · expected voltages'}</h1>
+      <SubNav label="Bench parts" current={vacuum ? '/bench/vacuum' : '/bench'} items={benchParts} />
+      {vacuum ? <VacuumCheck /> : (
+        <>
+          <p class="lede">Expected RF and DC for each m/z on this analyser, in the convention its read-backs use and in every other, from ideal-field physics.</p>
+          <Voltages />
+        </>
+      )}
+    </section>
+  );
 }

@@ -1,0 +1,71 @@
+// Inverse: a measured RF amplitude in its convention → the m/z it passes on the current scan line, and the
+// mass error against the set m/z.
+import { convertRf, hazardousLive, massError, massForRf, massForScanRf, RF_FORMS, type RfForm } from '../../engine';
+import type { InstrumentProfile } from '../../store';
+import { NumberField, SelectField } from '../components/Field';
+import { formatNumber, formatSi } from '../format';
+import { rfFormWords } from './conventions';
+import { tryEngine, type FieldErrors } from './engineErrors';
+import { HvCaution } from './HvCaution';
+import { parseNumber } from './inputs';
+import { Result } from './NoteButton';
+import type { BuiltLine } from './scanLine';
+import type { BenchInputs } from './Voltages';
+
+export function InverseCheck(props: { inputs: BenchInputs; update: (p: Partial<BenchInputs>) => void; built: BuiltLine | null; profile: InstrumentProfile }) {
+  const { inputs, update, built, profile } = props;
+  const errors: FieldErrors = {};
+  const form = (RF_FORMS as readonly string[]).includes(inputs.invForm) ? (inputs.invForm as RfForm) : 'zeroToPeakPerRod';
+  const typed = inputs.invRf.trim() !== '';
+  const rfIn = typed ? parseNumber(inputs.invRf, 'Measured RF', '734') : null;
+  const setIn = parseNumber(inputs.invSetMz, 'Set m/z', '502');
+  if (rfIn && !rfIn.ok) errors.invRf = rfIn.message;
+  if (!setIn.ok) errors.invSetMz = setIn.message;
+  let passed: number | null = null;
+  let perRod: number | null = null;
+  let err: { error: number; ppm: number } | null = null;
+  if (rfIn?.ok && built) {
+    perRod = tryEngine(() => convertRf(rfIn.value, form, 'zeroToPeakPerRod'), { value: 'invRf' }, errors, 'invRf');
+    if (perRod !== null) {
+      const r0 = profile.rodFieldRadius;
+      const frequency = profile.rfFrequency;
+      const map = { rf: 'invRf', r0: 'profile', frequency: 'profile' };
+      const v = perRod;
+      passed = built.line
+        ? tryEngine(() => massForScanRf({ line: built.line!, rf: v, r0, frequency }), map, errors, 'invRf')
+        : tryEngine(() => massForRf({ rf: v, r0, frequency }), map, errors, 'invRf');
+      if (passed === null && !errors.invRf) errors.invRf = 'At this amplitude the scan line passes no m/z (the DC offset exceeds λ·V). Check the value and its convention.';
+    }
+  }
+  if (passed !== null && setIn.ok) err = tryEngine(() => massError({ setMz: setIn.value, passedMz: passed! }), { setMz: 'invSetMz', passedMz: 'invRf' }, errors, 'invSetMz');
+  const hazard = perRod !== null ? hazardousLive({ rf: perRod }) : null;
+  const ctx = { convention: rfFormWords[form], measured: inputs.invRf.trim() };
+
+  return (
+    <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="inverse-title">
+      <h2 class="card-title" id="inverse-title">Which m/z does a measured RF pass?</h2>
+      <NumberField id="inv-rf" label="Measured RF amplitude" unit="V" value={inputs.invRf} error={errors.invRf} onInput={(t) => update({ invRf: t })} />
+      <SelectField id="inv-form" label="Measured as" value={form} options={RF_FORMS.map((f) => ({ value: f, label: rfFormWords[f] }))} onChange={(v) => update({ invForm: v })} />
+      <NumberField id="inv-set" label="Set m/z" unit="u" value={inputs.invSetMz} error={errors.invSetMz} onInput={(t) => update({ invSetMz: t })} />
+      {!typed && <p class="hint">Enter a read-back or a probe reading to see the m/z it passes on the scan line above.</p>}
+      {perRod !== null && (
+        <Result label="Same amplitude, zero-to-peak per rod" value={formatSi(perRod, 'V 0-p', 5)}
+          hint={perRod > profile.maxRfAmplitude ? `Above the supply's largest RF in this profile (${formatSi(profile.maxRfAmplitude, 'V 0-p')}).` : undefined}
+          note={{ label: 'Measured RF as zero-to-peak per rod', value: perRod, unit: 'V', origin: 'entered', context: ctx, typeId: 'rf-amplitude' }} />
+      )}
+      {passed !== null && (
+        <Result label="m/z passed (band centre on this scan line)" value={`m/z ${formatNumber(passed, 6)}`} testId="inverse-mz"
+          note={{ label: 'm/z passed at the measured RF', value: passed, unit: 'u', origin: 'calculator', context: ctx }} />
+      )}
+      {err && (
+        <>
+          <Result label={`Mass error against m/z ${inputs.invSetMz.trim()}`} value={`${err.error >= 0 ? '+' : ''}${formatNumber(err.error, 4)} u`} testId="inverse-error-u"
+            note={{ label: `Mass error against set m/z ${inputs.invSetMz.trim()}`, value: err.error, unit: 'u', origin: 'calculator', context: ctx }} />
+          <Result label="Mass error, relative" value={`${err.ppm >= 0 ? '+' : ''}${formatNumber(err.ppm, 4)} ppm`} testId="inverse-error-ppm"
+            note={{ label: `Relative mass error against set m/z ${inputs.invSetMz.trim()}`, value: err.ppm, unit: 'ppm', origin: 'calculator', context: ctx }} />
+        </>
+      )}
+      {hazard?.hazardous && <HvCaution exceeded={hazard.exceeded} />}
+    </form>
+  );
+}

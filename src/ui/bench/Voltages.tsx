@@ -1,0 +1,138 @@
+// Expected U and V for a list of m/z on the chosen scan line, in the read-back convention and every other,
+// with the hazardous-live caution, the top of the mass range, the inverse and the proportionality check.
+import {
+  convertDc, convertRf, DC_FORMS, hazardousLive, massRangeTop, RF_FORMS, type HazardousLiveResult,
+} from '../../engine';
+import type { InstrumentProfile } from '../../store';
+import { NumberField } from '../components/Field';
+import { useApp } from '../context';
+import { formatConvention, formatNumber, formatSi } from '../format';
+import { ionListsFor, defaultIons } from './calibrants';
+import { dcFormOf, dcFormWords, rfFormOf, rfFormUnit, rfFormWords } from './conventions';
+import { tryEngine, type FieldErrors } from './engineErrors';
+import { HvCaution } from './HvCaution';
+import { parseMzList, usePersistentInputs } from './inputs';
+import { InverseCheck } from './InverseCheck';
+import { Proportionality } from './Proportionality';
+import { Result } from './NoteButton';
+import { buildScanLine, expectedFor, type BuiltLine, type Expected } from './scanLine';
+import { ScanLineFields } from './ScanLineFields';
+
+export type BenchInputs = {
+  mzList: string; mode: string; width: string; referenceMz: string; resolution: string;
+  invRf: string; invForm: string; invSetMz: string;
+  p1mz: string; p1rf: string; p2mz: string; p2rf: string; p3mz: string; p3rf: string;
+};
+
+export function benchDefaults(p: InstrumentProfile | null): BenchInputs {
+  const rga = p?.kind === 'rga';
+  return {
+    mzList: defaultIons(p).join(', '), mode: 'apex', width: '1', referenceMz: rga ? '28' : '219', resolution: rga ? '100' : '500',
+    invRf: '', invForm: p ? rfFormOf(p.readbackConvention) : 'zeroToPeakPerRod', invSetMz: rga ? '28' : '69',
+    p1mz: rga ? '18' : '69', p1rf: '', p2mz: rga ? '28' : '219', p2rf: '', p3mz: rga ? '44' : '502', p3rf: '',
+  };
+}
+
+export function Voltages() {
+  const { instrument } = useApp();
+  const [inputs, update] = usePersistentInputs<BenchInputs>('bench', benchDefaults);
+  if (!instrument) return <p class="notice">Pick or add an instrument first: every expected value comes from its profile.</p>;
+  const profile = instrument;
+  const errors: FieldErrors = {};
+  const list = parseMzList(inputs.mzList);
+  if (!list.ok) errors.mz = list.message;
+  const built = buildScanLine(inputs, profile, errors);
+  const rows = list.ok && built ? list.values.map((mz) => expectedFor(mz, built, profile, errors, 'mz')) : [];
+  const top = tryEngine(() => massRangeTop({ maxRf: profile.maxRfAmplitude, r0: profile.rodFieldRadius, frequency: profile.rfFrequency }), { maxRf: 'profile', r0: 'profile', frequency: 'profile' }, errors, 'profile');
+  const readForm = rfFormOf(profile.readbackConvention);
+  const readDc = dcFormOf(profile.readbackConvention);
+  const good = rows.filter((r): r is Expected => !!r && 'rf' in r);
+  const hazards = good.map((r) => hazardousLive({ dc: r.dc, rf: r.rf }));
+  const anyHazard = hazards.some((h) => h.hazardous);
+  const exceeded = [...new Set(hazards.flatMap((h) => h.exceeded))];
+
+  return (
+    <>
+      <div class="card">
+        <h2 class="card-title">{profile.name}</h2>
+        <p class="muted">r0 {formatSi(profile.rodFieldRadius * 1e3, 'mm')} · f {formatSi(profile.rfFrequency / 1e6, 'MHz')} · read-backs {formatConvention(profile.readbackConvention)} · <a href={`/instruments/${encodeURIComponent(profile.id)}`}>edit profile</a></p>
+        {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
+        {top !== null && (
+          <Result label={`Top of the mass range at the supply's largest RF (${formatSi(profile.maxRfAmplitude, 'V 0-p')} per rod, apex q)`}
+            value={`m/z ${formatNumber(top, 4)}`} testId="mass-range-top"
+            note={{ label: 'Top of mass range from the supply’s largest RF', value: top, unit: 'u', origin: 'calculator', context: { maxRf: profile.maxRfAmplitude } }} />
+        )}
+      </div>
+
+      <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="expected-title">
+        <h2 class="card-title" id="expected-title">Expected voltages</h2>
+        <NumberField id="bench-mz" label="m/z (one or a list)" value={inputs.mzList} error={errors.mz} onInput={(t) => update({ mzList: t })}
+          hint="Separate values with commas or spaces." />
+        <div class="row" role="group" aria-label="Ion lists">
+          {ionListsFor(profile).map((l) => (
+            <button key={l.label} type="button" class="btn btn-small" onClick={() => update({ mzList: l.values.join(', ') })}>{l.label}</button>
+          ))}
+        </div>
+        <ScanLineFields idPrefix="bench" values={inputs} errors={errors} onChange={update} />
+        {built && <p class="hint" data-testid="scan-line">Scan line: {built.description}.</p>}
+      </form>
+
+      {anyHazard && <HvCaution exceeded={exceeded} />}
+
+      <ul class="cards" aria-label="Expected voltages per m/z" data-testid="expected-list">
+        {rows.map((r, i) => r === null ? null : 'reason' in r ? (
+          <li key={i} class="card"><h3 class="card-title">m/z {formatNumber(r.mz, 6)}</h3><p>{r.reason}.</p></li>
+        ) : (
+          <ExpectedCard key={i} row={r} hazard={hazards[good.indexOf(r)]} readForm={readForm} readDc={readDc} built={built!} />
+        ))}
+      </ul>
+
+      <InverseCheck inputs={inputs} update={update} built={built} profile={profile} />
+      <Proportionality inputs={inputs} update={update} profile={profile} />
+    </>
+  );
+}
+
+function ExpectedCard(props: { row: Expected; hazard: HazardousLiveResult; readForm: (typeof RF_FORMS)[number]; readDc: (typeof DC_FORMS)[number]; built: BuiltLine }) {
+  const { row, hazard, readForm, readDc } = props;
+  const mzText = formatNumber(row.mz, 6);
+  const ctx = { mz: row.mz, scanLine: props.built.description };
+  const rfRead = convertRf(row.rf, 'zeroToPeakPerRod', readForm);
+  const dcRead = convertDc(row.dc, 'perRod', readDc);
+  return (
+    <li class="card" data-testid="expected-card" data-mz={row.mz}>
+      <h3 class="card-title">
+        m/z {mzText}
+        {hazard.hazardous && <span class="tag tag-hv">⚠ hazardous live</span>}
+      </h3>
+      <Result label={`V, ${rfFormWords[readForm]} (read-back form)`} value={`${formatNumber(rfRead, 5)} ${rfFormUnit[readForm]}`} testId="rf-readback"
+        note={{ label: `Expected RF at m/z ${mzText} (${rfFormWords[readForm]})`, value: rfRead, unit: rfFormUnit[readForm], origin: 'calculator', context: ctx, typeId: 'rf-amplitude' }} />
+      <Result label={`U, ${dcFormWords[readDc]} (read-back form)`} value={`${formatNumber(dcRead, 5)} V DC`} testId="dc-readback"
+        note={{ label: `Expected DC at m/z ${mzText} (${dcFormWords[readDc]})`, value: dcRead, unit: 'V', origin: 'calculator', context: ctx }} />
+      {row.band && (
+        <Result label="Ideal pass band on this line" value={`${formatNumber(row.band.low, 6)}–${formatNumber(row.band.high, 6)} u (Δm ${formatNumber(row.band.width, 3)} u, m/Δm ${formatNumber(row.band.resolution, 4)})`}
+          note={{ label: `Ideal peak width at m/z ${mzText}`, value: row.band.width, unit: 'u', origin: 'calculator', context: ctx }} />
+      )}
+      <details class="conventions">
+        <summary>All conventions</summary>
+        {RF_FORMS.map((form) => {
+          const v = convertRf(row.rf, 'zeroToPeakPerRod', form);
+          const hot = form.endsWith('PerRod') ? hazard.perRod.hazardous : hazard.betweenPairs.hazardous;
+          return (
+            <Result key={form} label={`RF ${rfFormWords[form]}`} value={`${formatNumber(v, 5)} ${rfFormUnit[form]}${hot ? ' ⚠' : ''}`}
+              note={{ label: `Expected RF at m/z ${mzText} (${rfFormWords[form]})`, value: v, unit: rfFormUnit[form], origin: 'calculator', context: ctx }} />
+          );
+        })}
+        {DC_FORMS.map((form) => {
+          const v = convertDc(row.dc, 'perRod', form);
+          const hot = form === 'perRod' ? Math.abs(v) > hazard.levels.dc : hazard.betweenPairs.dc > hazard.levels.dc;
+          return (
+            <Result key={form} label={`DC ${dcFormWords[form]}`} value={`${formatNumber(v, 5)} V${hot ? ' ⚠' : ''}`}
+              note={{ label: `Expected DC at m/z ${mzText} (${dcFormWords[form]})`, value: v, unit: 'V', origin: 'calculator', context: ctx }} />
+          );
+        })}
+        <p class="hint">⚠ marks a value above a hazardous-live level.</p>
+      </details>
+    </li>
+  );
+}

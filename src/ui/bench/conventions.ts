@@ -1,0 +1,36 @@
+// The instrument's read-back convention in the engine's names, and words for every form.
+import type { DcForm, RfForm } from '../../engine';
+import type { ReadbackConvention } from '../../store';
+
+export function rfFormOf(c: ReadbackConvention): RfForm {
+  const amp = c.amplitude === 'zero-to-peak' ? 'zeroToPeak' : c.amplitude === 'peak-to-peak' ? 'peakToPeak' : 'rms';
+  return `${amp}${c.reference === 'per-rod' ? 'PerRod' : 'BetweenPairs'}` as RfForm;
+}
+
+export function dcFormOf(c: ReadbackConvention): DcForm {
+  return c.reference === 'per-rod' ? 'perRod' : 'betweenPairs';
+}
+
+export const rfFormWords: Record<RfForm, string> = {
+  zeroToPeakPerRod: 'zero-to-peak, one rod to ground',
+  peakToPeakPerRod: 'peak-to-peak, one rod to ground',
+  rmsPerRod: 'rms, one rod to ground',
+  zeroToPeakBetweenPairs: 'zero-to-peak, between the pairs',
+  peakToPeakBetweenPairs: 'peak-to-peak, between the pairs',
+  rmsBetweenPairs: 'rms, between the pairs',
+};
+
+/** Short unit suffix for a form, e.g. "V 0-p". */
+export const rfFormUnit: Record<RfForm, string> = {
+  zeroToPeakPerRod: 'V 0-p',
+  peakToPeakPerRod: 'V p-p',
+  rmsPerRod: 'V rms',
+  zeroToPeakBetweenPairs: 'V 0-p',
+  peakToPeakBetweenPairs: 'V p-p',
+  rmsBetweenPairs: 'V rms',
+};
+
+export const dcFormWords: Record<DcForm, string> = {
+  perRod: 'one rod pair to ground',
+  betweenPairs: 'between the pairs',
+};

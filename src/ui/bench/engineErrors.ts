@@ -1,0 +1,22 @@
+// Engine validation errors carry the field name; screens place the message beside the field it belongs to.
+import { InputRangeError } from '../../engine';
+
+export type FieldErrors = Record<string, string>;
+
+/**
+ * Runs an engine call. On InputRangeError the engine's message is filed under the screen field mapped from
+ * the engine's field name (else under `fallback`); anything else is re-thrown.
+ */
+export function tryEngine<T>(run: () => T, fieldMap: Record<string, string>, errors: FieldErrors, fallback: string): T | null {
+  try {
+    return run();
+  } catch (err) {
+    if (err instanceof InputRangeError) {
+      const base = err.field.replace(/\[\d+\].*$/, '');
+      const target = fieldMap[err.field] ?? fieldMap[base] ?? fallback;
+      if (!errors[target]) errors[target] = err.message;
+      return null;
+    }
+    throw err;
+  }
+}

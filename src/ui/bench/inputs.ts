@@ -1,0 +1,65 @@
+// Screen inputs kept as typed, per instrument profile and screen, in the store's settings, so a reload, a
+// profile switch or an update never loses them. Parsing accepts a decimal comma (gloved thumbs, EU keypads).
+import { useEffect, useRef, useState } from 'preact/hooks';
+import type { InstrumentProfile } from '../../store';
+import { useApp } from '../context';
+
+export type Inputs = Record<string, string>;
+
+/** Inputs for `screen` on the current instrument: [values, update]. Defaults fill anything never typed. */
+export function usePersistentInputs<T extends Inputs>(screen: string, defaults: (p: InstrumentProfile | null) => T): [T, (patch: Partial<T>) => void] {
+  const { store, instrument } = useApp();
+  const key = `inputs:${screen}:${instrument?.id ?? 'none'}`;
+  const [state, setState] = useState<{ key: string; values: T }>(() => ({ key, values: defaults(instrument) }));
+  const defaultsRef = useRef(defaults);
+  defaultsRef.current = defaults;
+
+  useEffect(() => {
+    let cancelled = false;
+    const base = defaultsRef.current(instrument);
+    setState({ key, values: base });
+    if (!store || !instrument) return;
+    store.getSetting<Partial<T>>(key).then((kept) => {
+      if (!cancelled && kept && typeof kept === 'object') setState({ key, values: { ...base, ...kept } });
+    }).catch(() => undefined);
+    return () => {
+      cancelled = true;
+    };
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [key, store]);
+
+  function update(patch: Partial<T>) {
+    setState((s) => {
+      const values = { ...s.values, ...patch } as T;
+      if (store && instrument) void store.setSetting(s.key, values).catch(() => undefined);
+      return { key: s.key, values };
+    });
+  }
+  return [state.values, update];
+}
+
+export type Parsed = { ok: true; value: number } | { ok: false; message: string };
+
+/** A number as typed: decimal comma allowed, exponent allowed (1e-5, 1,5e-5). */
+export function parseNumber(text: string, label: string, example = '1.5'): Parsed {
+  const t = text.trim().replace(/\s+/g, '').replace(',', '.').replace(/×10\^?/, 'e');
+  if (t === '') return { ok: false, message: `${label}: enter a number, e.g. ${example}.` };
+  if (!/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(t)) return { ok: false, message: `${label}: “${text.trim()}” is not a number; e.g. ${example}.` };
+  const value = Number(t);
+  if (!Number.isFinite(value)) return { ok: false, message: `${label}: the number is too large.` };
+  return { ok: true, value };
+}
+
+/** A list of m/z values separated by commas, semicolons or spaces (decimals in a list take a point). */
+export function parseMzList(text: string, label = 'm/z list'): { ok: true; values: number[] } | { ok: false; message: string } {
+  const parts = text.split(/[;,\s]+/).map((s) => s.trim()).filter(Boolean);
+  if (parts.length === 0) return { ok: false, message: `${label}: enter one m/z or several separated by commas, e.g. 69, 219, 502.` };
+  if (parts.length > 24) return { ok: false, message: `${label}: at most 24 values at a time (you entered ${parts.length}).` };
+  const values: number[] = [];
+  for (const p of parts) {
+    const r = parseNumber(p, label, '69');
+    if (!r.ok) return { ok: false, message: `${label}: “${p}” is not a number; separate values with commas or spaces, e.g. 69, 219, 502.` };
+    values.push(r.value);
+  }
+  return { ok: true, values };
+}
