@@ -111,6 +111,7 @@ describe('diagnose offline', () => {
     await confirmGate(page);
     await atNode(page, 'NS5');
     // Kestrel: r0 4.5 mm, 1.0 MHz, zero-to-peak per rod: m/z 69 needs 100.91 V (domain notes F3, Dawson 1976).
+    await expect.poll(() => page.locator('[data-testid="expected"]').textContent()).toMatch(/Expected: 100\.9 V/);
     await measure(page, '100.9', { mz: '69' });
     await atNode(page, 'NS5b');
     // Proportional check (C5, Dawson 1976): 100.9 V × 219/69 = 320.248 V.
@@ -147,6 +148,9 @@ describe('diagnose offline', () => {
     expect(text).toMatch(/as-left/);
     expect(text).not.toMatch(/NaN/);
     await screenshot(page, 'diagnose-summary');
+    // The walk's readings go into the instrument's visit log (six: the withdrawn one stays out).
+    await pick(page, 'Add 6 readings to the visit log');
+    await expect.poll(() => page.getByRole('button', { name: 'Readings are in the visit log' }).count()).toBe(1);
 
     foreign.push(...session.foreignRequests);
     expect(session.pageErrors).toEqual([]);
