@@ -319,6 +319,17 @@ function derivedFigures(node: MeasureNode, instrument: DiagnoseInstrument | null
   return out;
 }
 
+/** Figures computed from a reading and shown beside it (e.g. mean free path at the pressure read). Never throws. */
+export function previewDerived(
+  node: MeasureNode,
+  instrument: DiagnoseInstrument | null,
+  inputs: Record<string, number> | undefined,
+  measured: { value: number; unit: string },
+  registry?: Registry | null,
+): DerivedFigure[] {
+  return derivedFigures(node, instrument, inputs, measured, registry === undefined ? defaultRegistry : registry);
+}
+
 function makeReading(
   state: WalkState,
   tree: Tree,

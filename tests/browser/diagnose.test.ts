@@ -1,6 +1,8 @@
 // Diagnose offline: on a demo instrument, with the network cut and the server stopped, walk the shared entry
 // and the whole no-signal tree to an action, resuming after a reload and after a cold restart on the same profile.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import type { Page } from 'playwright-core';
 import type { PreviewServer } from 'vite';
 import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session } from './harness';
@@ -21,6 +23,18 @@ afterAll(async () => {
   await stopPreview(server).catch(() => undefined);
   removeDir(profile);
 });
+
+const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+
+/** Serious or critical accessibility problems inside the screen (axe-core, WCAG 2 A/AA rules). */
+async function axeProblems(page: Page): Promise<string[]> {
+  await page.evaluate(axeSource);
+  return page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run: (ctx: unknown, opts: unknown) => Promise<{ violations: { id: string; impact: string; nodes: unknown[] }[] }> } }).axe;
+    const r = await axe.run({ include: [['main']] }, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] } });
+    return r.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id} (${v.nodes.length})`);
+  });
+}
 
 const nodeId = (page: Page) => page.locator('[data-testid="walk-node"]').getAttribute('data-node-id');
 
@@ -65,6 +79,7 @@ describe('diagnose offline', () => {
     await pick(page, /Start a walk/);
     await atNode(page, 'E1');
     expect(await page.locator('[data-testid="safety-card"]').count()).toBeGreaterThan(0);
+    expect(await axeProblems(page)).toEqual([]);
     await confirmGate(page);
     await atNode(page, 'E2');
     await measure(page, '2e-5');
@@ -85,6 +100,9 @@ describe('diagnose offline', () => {
     await expect.poll(() => page.locator('[data-testid="expected"]').textContent()).toMatch(/Expected: 1\.520?×10⁻⁵ mbar/);
     await page.locator('#walk-value').fill('1.4e-5');
     await expect.poll(() => page.locator('[data-testid="live-verdict"]').textContent()).toMatch(/✓ pass/);
+    // Mean free path at the pressure read, for this instrument's rods (kinetic theory, air).
+    await expect.poll(() => page.locator('[data-testid="derived"]').textContent()).toMatch(/Mean free path at the pressure read: 4\.7\d* m/);
+    expect(await axeProblems(page)).toEqual([]);
     await pick(page, 'Record reading and continue');
     await atNode(page, 'NS3');
     await pick(page, /Electron ionisation/);
