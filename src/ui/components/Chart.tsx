@@ -16,6 +16,12 @@ export interface ChartProps {
   yScaleForTap?: string;
   /** Show zoom in / zoom out / reset buttons for the x (and optionally y) scale. */
   zoomButtons?: boolean;
+  /** Scales the zoom buttons act on (default x only). */
+  zoomScales?: readonly string[];
+  /** A view set from outside (e.g. "close-up of the apex"); a new `key` applies it again. */
+  view?: { key: number; ranges: Record<string, [number, number]> } | null;
+  /** Redraw (e.g. for points drawn in a draw hook) when this value changes without new data. */
+  redrawKey?: unknown;
   testId?: string;
 }
 
@@ -60,14 +66,30 @@ export function Chart(props: ChartProps) {
     plot.current?.setData(props.data);
   }, [props.data]);
 
+  useEffect(() => {
+    const u = plot.current;
+    if (!u || !props.view) return;
+    u.batch(() => {
+      for (const [scale, [min, max]] of Object.entries(props.view!.ranges)) u.setScale(scale, { min, max });
+    });
+  }, [props.view?.key]);
+
+  useEffect(() => {
+    plot.current?.redraw(false);
+  }, [props.redrawKey]);
+
   function zoom(factor: number) {
     const u = plot.current;
     if (!u) return;
-    const min = u.scales.x.min!;
-    const max = u.scales.x.max!;
-    const mid = (min + max) / 2;
-    const half = ((max - min) / 2) * factor;
-    u.setScale('x', { min: mid - half, max: mid + half });
+    u.batch(() => {
+      for (const scale of props.zoomScales ?? ['x']) {
+        const min = u.scales[scale].min!;
+        const max = u.scales[scale].max!;
+        const mid = (min + max) / 2;
+        const half = ((max - min) / 2) * factor;
+        u.setScale(scale, { min: mid - half, max: mid + half });
+      }
+    });
   }
   function reset() {
     const u = plot.current;
