@@ -1,7 +1,7 @@
 // The one uPlot wrapper: create once, setData on change, resize with the container, destroy on unmount.
 // uPlot has no touch zoom, so the wrapper offers zoom buttons and reports taps (with a generous hit radius
 // left to the caller, which knows its series).
-import { useEffect, useRef } from 'preact/hooks';
+import { useEffect, useRef, useState } from 'preact/hooks';
 import uPlot from 'uplot';
 
 export interface ChartProps {
@@ -31,8 +31,15 @@ export function Chart(props: ChartProps) {
   const latest = useRef(props);
   latest.current = props;
 
+  // Canvas can be missing (blocked by a privacy setting, or a DOM without 2D canvas): say so, keep the page.
+  const [noCanvas, setNoCanvas] = useState(false);
+
   useEffect(() => {
     const el = host.current!;
+    if (!document.createElement('canvas').getContext('2d')) {
+      setNoCanvas(true);
+      return;
+    }
     const width = Math.max(240, el.clientWidth || 320);
     const u = new uPlot({ ...props.options, width, height: props.height ?? 300 }, props.data, el);
     plot.current = u;
@@ -101,12 +108,13 @@ export function Chart(props: ChartProps) {
     <figure class="chart-figure" data-testid={props.testId}>
       {props.zoomButtons && (
         <div class="chart-tools">
-          <button type="button" class="btn btn-small" onClick={() => zoom(0.5)} aria-label="Zoom in">＋</button>
-          <button type="button" class="btn btn-small" onClick={() => zoom(2)} aria-label="Zoom out">－</button>
+          <button type="button" class="btn btn-small" onClick={() => zoom(0.5)}>Zoom in</button>
+          <button type="button" class="btn btn-small" onClick={() => zoom(2)}>Zoom out</button>
           <button type="button" class="btn btn-small" onClick={reset}>Reset view</button>
         </div>
       )}
       <div class="chart" ref={host} role="img" aria-label={props.label} />
+      {noCanvas && <p class="notice">This browser does not allow drawing on a canvas, so the chart cannot be shown; the values below are complete without it.</p>}
     </figure>
   );
 }
