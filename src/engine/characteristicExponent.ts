@@ -80,13 +80,15 @@ export function hillSinSquared(a: number, q: number): HillValue {
   const absQ = Math.abs(q);
   const rStar = a > 0 ? Math.round(Math.sqrt(a) / 2) : 0;
   const n = hillSize(a, absQ, rStar);
-  // Three-term recurrence f_k = d_k f_{k−1} − c_{k−1} c_k f_{k−2} over rows r = −n … n.
+  // Three-term recurrence f_k = d_k f_{k−1} − c_{k−1} c_k f_{k−2} over rows r = −n … −1 only: the matrix is
+  // symmetric about r = 0, so with L_k = det(rows −n … k) the full determinant is
+  // L_{−1} · (d_0 L_{−1} − 2 p L_{−2}), p = c_0 c_1 the coupling product of rows 0 and ±1.
   let scale = 0;
-  let previous = 1; // f_{k−2}
-  let current = 1; // f_{k−1} (empty determinant)
+  let previous = 1; // L_{k−2}
+  let current = 1; // L_{k−1} (empty determinant)
   let previousOffDiagonal = 0;
-  for (let r = -n; r <= n; r++) {
-    const pivotRow = r === rStar || r === -rStar;
+  for (let r = -n; r <= -1; r++) {
+    const pivotRow = r === -rStar;
     const denominator = 4 * r * r - a;
     const diagonal = pivotRow ? denominator : 1;
     const offDiagonal = pivotRow ? absQ : absQ / denominator;
@@ -104,7 +106,11 @@ export function hillSinSquared(a: number, q: number): HillValue {
       scale--;
     }
   }
-  const determinant = current * Math.exp(-2 * tailSum(a, absQ, n));
+  const centreDiagonal = rStar === 0 ? -a : 1;
+  const centreOffDiagonal = rStar === 0 ? absQ : absQ / -a;
+  const full = current * (centreDiagonal * current - 2 * previousOffDiagonal * centreOffDiagonal * previous);
+  scale *= 2;
+  const determinant = full * Math.exp(-2 * tailSum(a, absQ, n));
   // G = sin²(π√a/2) / Π_{r=±r*} (4r² − a), smooth through a = 4r*².
   let g: number;
   if (rStar === 0) {
@@ -131,6 +137,8 @@ export interface ExponentResult {
   growthPerPeriod: number;
   /** ln of growthPerPeriod (finite even where growthPerPeriod overflows). */
   logGrowthPerPeriod: number;
+  /** RF periods for the amplitude to grow tenfold, ln 10 / ln(growth) — how fast an ion is lost; null when stable. */
+  periodsPerTenfoldGrowth: number | null;
   /** cos πν = ½ trace of the one-period monodromy matrix (Floquet); capped to ±1e300. */
   halfTrace: number;
 }
@@ -158,7 +166,15 @@ export function exponentUnchecked(a: number, q: number): ExponentResult {
       beta = count / 2;
       zone = Math.max(0, count / 2 - (theta < 0.5 ? 0 : 1));
     }
-    return { stable: true, beta, zone, growthPerPeriod: 1, logGrowthPerPeriod: 0, halfTrace: 1 - 2 * f };
+    return {
+      stable: true,
+      beta,
+      zone,
+      growthPerPeriod: 1,
+      logGrowthPerPeriod: 0,
+      periodsPerTenfoldGrowth: null,
+      halfTrace: 1 - 2 * f,
+    };
   }
   // |cos πν| > 1: cosh(πμ) = |1 − 2F|.
   let logGrowth: number;
@@ -180,6 +196,8 @@ export function exponentUnchecked(a: number, q: number): ExponentResult {
     zone: null,
     growthPerPeriod: Math.min(Number.MAX_VALUE, Math.exp(logGrowth)),
     logGrowthPerPeriod: logGrowth,
+    // logGrowth > 0 here except exactly on an edge (|c| = 1), where growth is only linear.
+    periodsPerTenfoldGrowth: logGrowth > 0 ? Math.LN10 / logGrowth : Number.MAX_VALUE,
     halfTrace,
   };
 }

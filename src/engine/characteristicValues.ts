@@ -16,10 +16,10 @@ export const MAX_ABS_Q = 1e5;
 export const MAX_ORDER = 200;
 
 /** Matrix size enough for eigenvalue index k at this q: Fourier coefficients fall by q/(4m²) per step, which
- * is below 1/16 from m = 2√|q| on, so 12 further terms put the truncation error (≈ coefficient²) far below
+ * is below 1/16 from m = 2√|q| on, so 10 further terms put the truncation error (≈ coefficient²) far below
  * double precision. */
 export function truncationSize(index: number, q: number): number {
-  return index + Math.ceil(2 * Math.sqrt(Math.abs(q))) + 12;
+  return index + Math.ceil(2 * Math.sqrt(Math.abs(q))) + 10;
 }
 
 /** Diagonal of the recurrence matrix (DLMF 28.4.5–28.4.8). */
@@ -170,10 +170,23 @@ export function countCharacteristicValuesBelow(a: number, q: number): number {
   // Index bound: values a_n, b_n near n² for n² ≫ |q|, so n up to √(a + 2|q|) + 2 matters.
   const nMax = Math.ceil(Math.sqrt(Math.max(0, a + 2 * absQ))) + 2;
   const size = truncationSize(Math.ceil(nMax / 2), absQ); // each matrix holds every other order
-  return (
-    sturmCount('aEven', absQ, size, a) +
-    sturmCount('aOdd', absQ, size, a) +
-    sturmCount('bOdd', absQ, size, a) +
-    sturmCount('bEven', absQ, size, a)
-  );
+  let count = 0;
+  for (const kind of KINDS) if (a > spectrumLowerBound(kind, absQ, size)) count += sturmCount(kind, absQ, size, a);
+  return count;
+}
+
+const KINDS: readonly RecurrenceKind[] = ['aEven', 'aOdd', 'bOdd', 'bEven'];
+
+/** Gershgorin lower bound of the recurrence matrix's spectrum (rows stop mattering once d_m − 2√2|q| grows). */
+function spectrumLowerBound(kind: RecurrenceKind, q: number, size: number): number {
+  let bound = Infinity;
+  let left = 0;
+  for (let m = 0; m < size; m++) {
+    const d = diagonal(kind, m, q);
+    if (d - 2 * Math.SQRT2 * q > bound) break; // later rows have larger diagonals and the same off-diagonals
+    const right = m < size - 1 ? Math.sqrt(offDiagonalSquared(kind, m, q)) : 0;
+    bound = Math.min(bound, d - left - right);
+    left = right;
+  }
+  return bound;
 }

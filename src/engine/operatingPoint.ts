@@ -26,7 +26,7 @@ export interface OperatingPoint {
   stable: boolean;
   /** Inside the first stability region (both zones 0). */
   firstRegion: boolean;
-  /** U/V (dc/rf); Infinity sign of dc when rf = 0. */
+  /** U/V (dc/rf); ±Number.MAX_VALUE (sign of dc) when rf = 0 and dc ≠ 0. */
   dcToRfRatio: number;
   /** Secular frequencies β·f/2 in Hz (0 where unstable). */
   secularFrequencyX: number;

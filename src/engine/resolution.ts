@@ -7,7 +7,9 @@
 //     J. Chem. Educ. 63 (1986) 617 — from memory), beside the exact value from the region's edges.
 import { ATOMIC_MASS_CONSTANT, ELEMENTARY_CHARGE } from './constants';
 import { LIMITS } from './mathieuScale';
+import { a0Unchecked, b1Unchecked } from './characteristicValues';
 import { exactResolutionAtRatio, ratioForExactResolution } from './operatingPoint';
+import { apexRatio, firstRegionApex } from './stabilityRegions';
 import { checkChoice, checkNumber } from './validate';
 
 export const CYCLE_LIMIT_CONSTANTS = {
@@ -100,4 +102,23 @@ export function resolutionAtRatio(ratio: number): RatioResolution {
 export function ratioForResolution(resolution: number): { exact: number; rule: number } {
   checkNumber('resolution', resolution, { min: 0.5, max: 1e9 });
   return { exact: ratioForExactResolution(resolution), rule: APEX_RULE.apexRatio - APEX_RULE.numerator / resolution };
+}
+
+let apexConstantCache: number | null = null;
+
+/**
+ * The exact constant C in m/Δm → C/(λ_apex − U/V) as U/V approaches the apex, from the slopes s_x = db1/dq and
+ * s_y = −da0/dq of the two edges there: C = 1 / (2 [1/(2λ − s_x) − 1/(2λ − s_y)]) ≈ 0.1263 (computed; the
+ * published rule rounds it to 0.126 and the apex ratio to 0.16784).
+ */
+export function apexResolutionConstant(): number {
+  if (apexConstantCache === null) {
+    const { q } = firstRegionApex();
+    const lambda = apexRatio();
+    const h = 1e-5; // central differences: error ≈ h²·(third derivative) ≈ 1e-11, rounding ≈ 1e-16/h
+    const slopeX = (b1Unchecked(q + h) - b1Unchecked(q - h)) / (2 * h);
+    const slopeY = (a0Unchecked(q - h) - a0Unchecked(q + h)) / (2 * h);
+    apexConstantCache = 1 / (2 * (1 / (2 * lambda - slopeX) - 1 / (2 * lambda - slopeY)));
+  }
+  return apexConstantCache;
 }

@@ -73,9 +73,3 @@ export function checkChoice<T extends string>(field: string, value: unknown, opt
   }
   return value as T;
 }
-
-/** The argument object itself must be present. */
-export function checkObject(field: string, value: unknown): Record<string, unknown> {
-  if (typeof value !== 'object' || value === null) throw new InputRangeError(field, value, 'an object');
-  return value as Record<string, unknown>;
-}

@@ -17,6 +17,11 @@ describe('β: special values', () => {
       expectClose(stabilityExponent(a, 0)!, Math.sqrt(a), 1e-12, `β(${a}, 0)`, 'mixed');
     }
   });
+  it('stable points report no growth: periodsPerTenfoldGrowth null, growth 1', () => {
+    const r = characteristicExponent(0.1, 0.5);
+    expect(r.periodsPerTenfoldGrowth).toBeNull();
+    expect(r.growthPerPeriod).toBe(1);
+  });
   it('q = 0, a < 0: unstable, growth per RF period e^{π√−a} (solutions e^{±√−a ξ}, period π)', () => {
     for (const a of [-0.01, -0.5, -3, -20]) {
       expect(stabilityExponent(a, 0), `β(${a}, 0)`).toBeNull();
@@ -98,6 +103,7 @@ describe('β against an independent monodromy integration (Floquet: cos πβ = �
       if (r.stable) continue;
       const c = Math.abs(halfTraceByIntegration(a, q, 400));
       expectClose(r.growthPerPeriod, c + Math.sqrt(c * c - 1), 1e-9, `growth at (${a}, ${q})`, 'mixed');
+      expectClose(r.periodsPerTenfoldGrowth!, Math.LN10 / Math.log(c + Math.sqrt(c * c - 1)), 1e-8, `periods ×10 at (${a}, ${q})`, 'relative');
     }
   });
 });

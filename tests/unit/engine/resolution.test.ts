@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   apexRatio,
+  apexResolutionConstant,
   APEX_RULE,
   axialSpeed,
   cycleLimitedResolution,
@@ -78,6 +79,18 @@ describe('resolution from U/V near the apex', () => {
     expectClose(fromSlopes, APEX_RULE.numerator, 0.005, 'constant from slopes vs 0.126 (Dawson 1976 — from memory)', 'relative');
     const t = 1e-7;
     expectClose(exactResolutionAtRatio(lambda - t)! * t, fromSlopes, 1e-4, 'limit R·t', 'relative');
+  });
+  it('apexResolutionConstant() ≈ 0.1263 rounds to the published 0.126; with the exact apex ratio the rule is within 2 % from U/V 0.160 up to the apex', () => {
+    const c = apexResolutionConstant();
+    expectClose(c, 0.126, 0.004, 'constant vs 0.126 (Dawson 1976 — from memory)', 'relative');
+    for (const ratio of [0.16, 0.165, 0.1675, 0.1678, 0.16784]) {
+      const exact = exactResolutionAtRatio(ratio)!;
+      expectClose(exact, c / (apexRatio() - ratio), 0.02, `R at U/V ${ratio}`, 'relative');
+    }
+    // With the rounded apex 0.16784 the rule departs by ~9 % at U/V = 0.1678 (the domain notes' "within 1 %"
+    // does not hold that close to the apex).
+    const { exact, rule } = resolutionAtRatio(0.1678);
+    expect(rule! / exact! - 1).toBeGreaterThan(0.05);
   });
   it('U/V at or above the apex: no band, both forms null (never NaN)', () => {
     expect(resolutionAtRatio(0.2)).toEqual({ exact: null, rule: null });
