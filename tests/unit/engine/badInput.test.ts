@@ -168,6 +168,28 @@ const cases: Case[] = [
     valid: { mz: 1000, frequencyChange: 1e-4, r0Change: 0, rfChange: 0 },
     bad: { mz: POSITIVE, frequencyChange: [NaN, Infinity, 1], r0Change: [NaN, -1], rfChange: [Infinity] },
   },
+  // Bench additions: scan planning, proportionality check, hazardous-live levels.
+  {
+    name: 'scanPlan',
+    call: (p) => engine.scanPlan(p as never),
+    valid: { mzStart: 50, mzEnd: 550, step: 0.1, dwell: 0.002, scans: 4, settle: 0, countRate: 1000 },
+    bad: { mzStart: POSITIVE, mzEnd: [...NON_FINITE, 10], step: POSITIVE, dwell: POSITIVE, scans: [...NON_FINITE, 0, 2.5], settle: [NaN, -1, '0'], countRate: [NaN, 0, -5] },
+  },
+  { name: 'scansForGain', call: (p) => engine.scansForGain(p.gain as number), valid: { gain: 3 }, bad: { gain: [...NON_FINITE, 0.5, 1e5] } },
+  {
+    name: 'proportionalityCheck',
+    call: (p) => engine.proportionalityCheck([{ mz: p['readings[0].mz'], rf: p['readings[0].rf'] }, { mz: p['readings[1].mz'], rf: p['readings[1].rf'] }] as never),
+    valid: { 'readings[0].mz': 69, 'readings[0].rf': 100.9, 'readings[1].mz': 502, 'readings[1].rf': 734.1 },
+    bad: { 'readings[0].mz': POSITIVE, 'readings[0].rf': POSITIVE, 'readings[1].mz': [...POSITIVE, 69], 'readings[1].rf': POSITIVE },
+  },
+  { name: 'massError', call: (p) => engine.massError(p as never), valid: { setMz: 500, passedMz: 500.1 }, bad: { setMz: POSITIVE, passedMz: POSITIVE } },
+  { name: 'hazardousLive', call: (p) => engine.hazardousLive(p as never), valid: { dc: 16.9, rf: 100.9, location: 'dry' }, bad: { dc: [NaN, Infinity, '1', null], rf: [NaN, -1, '1'], location: ['damp', 1] } },
+  {
+    name: 'exceedsHazardousLevel',
+    call: (p) => engine.exceedsHazardousLevel(p as never),
+    valid: { volts: 50, kind: 'peak', location: 'wet' },
+    bad: { volts: NON_FINITE, kind: ['p-p', undefined], location: ['outdoors'] },
+  },
 ];
 
 describe('bad input: every public function', () => {
