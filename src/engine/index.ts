@@ -41,7 +41,24 @@ export * from './vacuum';
 export * from './ionGauge';
 export * from './rods';
 export * from './massDrift';
-// Added with the bench screens (scan planning, proportionality check, hazardous-live levels).
+export { transmission, type TransmissionResult, type FastTransmissionOptions } from './transmission';
+export {
+  peakProfile,
+  peakWidths,
+  transmissionVsResolution,
+  stableInterval,
+  PeakCancelledError,
+  type PeakProfile,
+  type PeakProfileParams,
+  type PeakProfileOptions,
+  type RunControl,
+  type TransmissionVsResolution,
+  type TransmissionVsResolutionParams,
+} from './peakProfile';
+export { monteCarloTransmission, integrateIon, sampleIons, type MonteCarloResult, type IonFate, type EntryState } from './trajectoryDirect';
+export { flightModel, type BeamSettings, type TransmissionParams, type FlightModel } from './peakInput';
+export { seededRandom, type SeededRandom } from './peakRandom';
+export * from './leak';
 export * from './scanPlanning';
 export * from './proportionality';
 export * from './hazardousLive';

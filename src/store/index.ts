@@ -1,17 +1,75 @@
 // The store: the only module that talks to IndexedDB. Everything the app keeps goes through here.
-import { deleteDB, openDB, type IDBPDatabase } from 'idb';
-import { demoInstruments } from './demo';
+import { deleteDB, openDB, type IDBPDatabase, type IDBPTransaction } from 'idb';
+import { exportBackupText, importBackupText, type ImportResult } from './backup';
+import { catalogue, type ReadingType } from './catalogue';
+import { readingsCsv } from './csv';
+import { demoInstruments, demoReadings, demoVisits, DEMO_LAB } from './demo';
 import { describeStorageError, StoreError } from './errors';
 import { newId, nowIso } from './ids';
+import { checkEntry, expectationFor, type EngineFunctions, type Expectation, type Judgement, judge, type ReadingContext } from './judge';
 import { profileRecordProblems, type ProfileFields } from './profile';
+import { readingProblems, visitProblems, walkProblems } from './records';
+import { backupReminder, type BackupReminder } from './reminder';
+import { visitReportHtml } from './report';
 import { DB_NAME, DB_VERSION, upgrade, type RodsideSchema } from './schema';
-import type { DraftRecord, InstrumentProfile } from './types';
+import { buildTrend, DEFAULT_MULTIPLIER_LIMIT, seriesOf, type TrendData, type TrendOptions } from './trends';
+import type { DraftRecord, InstrumentProfile, Reading, ReadingPhase, Visit, WalkRecord } from './types';
+import {
+  allTypes, assess, OWN_TYPES_SETTING, ownTypeFromDraft, ownTypesFrom, pickBaselineVisit, type BaselineSet, type OwnTypeDraft,
+  type VisitFields,
+} from './visits';
 
 export * from './types';
 export * from './profile';
 export { StoreError, describeStorageError } from './errors';
 export { DB_NAME, DB_VERSION } from './schema';
-export { demoInstruments, DEMO_LAB } from './demo';
+export { demoInstruments, demoVisits, DEMO_LAB } from './demo';
+export * from './units';
+export * from './catalogue';
+export * from './judge';
+export * from './trends';
+export * from './visits';
+export * from './reminder';
+export { visitReasons, LIMITS } from './records';
+export { csvCell, toCsv, readingsCsv, CSV_BOM } from './csv';
+export { escapeHtml, REPORT_PRINT_CSS, visitReportHtml, visitReportSection, shownValue } from './report';
+export { BACKUP_FORMAT, BACKUP_VERSION, BackupError, canonicalJson, type ImportResult } from './backup';
+export { sha256Hex } from './sha256';
+
+/** What a new reading needs: the value already in base units (use checkEntry on what was typed). */
+export interface NewReading {
+  visitId: string;
+  typeId: string;
+  phase: ReadingPhase;
+  value: number;
+  entered: { text: string; unit: string };
+  context?: ReadingContext;
+  note?: string;
+  takenAt?: string;
+  origin?: Reading['origin'];
+}
+
+/** A visit with everything hanging off it, as deleteVisit returns it for undo. */
+export interface VisitBundle {
+  visit: Visit;
+  readings: Reading[];
+  walks: WalkRecord[];
+}
+
+/** A value noted from another screen (the UI's noteThis passes this shape). */
+export interface NoteInput {
+  typeId?: string;
+  label: string;
+  value: number;
+  unit: string;
+  context?: Record<string, string | number>;
+  origin: 'calculator' | 'entered';
+}
+
+export interface StoreOptions {
+  /** Physics for expected RF and DC values; injected so the store runs and tests without the engine. */
+  engine?: EngineFunctions;
+}
 
 export interface StoreEvents {
   /** Another tab holds an older connection open and our upgrade waits for it. */
@@ -44,6 +102,82 @@ export interface Store {
   putDraft(key: string, value: unknown): Promise<void>;
   clearDraft(key: string): Promise<void>;
 
+  // ---- Visits -------------------------------------------------------------------------------------
+  /** Visits of one instrument (or all), newest first. */
+  listVisits(instrumentId?: string): Promise<Visit[]>;
+  getVisit(id: string): Promise<Visit | undefined>;
+  /** Create (no id) or update (with id) a visit. Keeps the baseline mark and the demo flag. */
+  saveVisit(fields: VisitFields, id?: string): Promise<Visit>;
+  /** Delete a visit with its readings and walks in one transaction; returns them for undo. */
+  deleteVisit(id: string): Promise<VisitBundle | undefined>;
+  restoreVisit(bundle: VisitBundle): Promise<void>;
+
+  // ---- Readings -----------------------------------------------------------------------------------
+  /** Readings of a visit, in the order they were taken. */
+  listReadings(visitId: string): Promise<Reading[]>;
+  /** All readings of an instrument, optionally of one type. */
+  listInstrumentReadings(instrumentId: string, typeId?: string): Promise<Reading[]>;
+  /** What a value would be judged against, and the verdict, without saving anything (for the form). */
+  previewReading(visitId: string, typeId: string, value: number, context: ReadingContext): Promise<{ expectation?: Expectation; judgement?: Judgement }>;
+  /** Judge and save a reading, and touch its visit's updatedAt, in ONE transaction. */
+  addReading(input: NewReading): Promise<Reading>;
+  /** Change a reading (value, unit, context, note, phase); it is judged again. */
+  updateReading(id: string, changes: Partial<Pick<NewReading, 'value' | 'entered' | 'context' | 'note' | 'phase'>>): Promise<Reading>;
+  deleteReading(id: string): Promise<Reading | undefined>;
+  restoreReading(reading: Reading): Promise<void>;
+
+  // ---- Reading types ------------------------------------------------------------------------------
+  /** The catalogue plus the user's own types. */
+  listReadingTypes(): Promise<ReadingType[]>;
+  saveOwnReadingType(draft: OwnTypeDraft): Promise<{ ok: true; type: ReadingType } | { ok: false; errors: Partial<Record<keyof OwnTypeDraft, string>> }>;
+  /** Refused (StoreError) while readings of that type exist. */
+  deleteOwnReadingType(id: string): Promise<void>;
+
+  // ---- Baseline -----------------------------------------------------------------------------------
+  /** Mark a visit's as-left readings as the instrument's baseline (clears any earlier mark), or unmark it. */
+  markBaseline(visitId: string, on?: boolean): Promise<Visit>;
+  getBaseline(instrumentId: string): Promise<BaselineSet | undefined>;
+
+  // ---- Trends -------------------------------------------------------------------------------------
+  trend(instrumentId: string, typeId: string, options?: TrendOptions): Promise<TrendData>;
+  /** The contexts (e.g. parked m/z values) a type was recorded under for an instrument. */
+  trendSeries(instrumentId: string, typeId: string): Promise<ReadingContext[]>;
+
+  // ---- Diagnosis walks ----------------------------------------------------------------------------
+  /** Create (no id) or update a walk. startedAt is kept from the first save. */
+  saveWalk(walk: Omit<WalkRecord, 'id' | 'startedAt' | 'updatedAt'> & { id?: string; startedAt?: string }): Promise<WalkRecord>;
+  getWalk(id: string): Promise<WalkRecord | undefined>;
+  listWalks(visitId: string): Promise<WalkRecord[]>;
+  /** The most recently updated walk still in progress (optionally for one visit or instrument). */
+  latestInProgressWalk(filter?: { visitId?: string; instrumentId?: string }): Promise<WalkRecord | undefined>;
+
+  /** The visit that "Note this" and the Visits screen treat as open for an instrument. */
+  setCurrentVisit(instrumentId: string, visitId: string | null): Promise<void>;
+  /**
+   * Record a value from any screen in the instrument's current visit: the visit marked current, else one
+   * started in the last 12 hours, else a new visit opened for it. Values of a catalogue type are converted
+   * from the unit given; anything else is kept as a "Noted value" with its label and unit.
+   */
+  noteReading(instrument: InstrumentProfile, note: NoteInput): Promise<{ visitLabel: string; reading: Reading; visit: Visit }>;
+
+  // ---- Backup and reports -------------------------------------------------------------------------
+  /** Everything on the device as one JSON document (format "rodside-backup", version 1, SHA-256 checksum). */
+  exportBackup(): Promise<string>;
+  /** Check a backup completely, then merge it by id in one transaction; on any problem nothing changes. */
+  importBackup(text: string): Promise<ImportResult>;
+  /** Remember that a backup was saved or shared (for the reminder). */
+  noteBackupSaved(at?: Date): Promise<void>;
+  backupStatus(now?: Date): Promise<BackupReminder>;
+  /** Readings as CSV (UTF-8 with BOM), for one visit, one instrument, or everything. */
+  readingsCsv(filter?: { visitId?: string; instrumentId?: string }): Promise<string>;
+  /** A standalone printable HTML record of one visit. */
+  visitReport(visitId: string, now?: Date): Promise<string>;
+  /**
+   * Erase every record on this device in one transaction (instruments, visits, readings, walks, settings,
+   * drafts). The demo is marked as seen so it does not come back on the next start.
+   */
+  eraseAll(): Promise<void>;
+
   /** The underlying database, for sibling modules inside src/store only. */
   readonly db: IDBPDatabase<RodsideSchema>;
 }
@@ -56,7 +190,7 @@ async function guard<T>(action: string, fn: () => Promise<T>): Promise<T> {
   }
 }
 
-export async function openStore(name: string = DB_NAME, events: StoreEvents = {}): Promise<Store> {
+export async function openStore(name: string = DB_NAME, events: StoreEvents = {}, options: StoreOptions = {}): Promise<Store> {
   const db = await guard('open the database', () =>
     openDB<RodsideSchema>(name, DB_VERSION, {
       upgrade: (database, oldVersion, _newVersion, tx) => upgrade(database, oldVersion, tx),
@@ -69,6 +203,56 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
       terminated: () => events.onVersionChange?.(),
     }),
   );
+
+  const deletedWith = new Map<string, VisitBundle[]>();
+
+  type Tx = IDBPTransaction<RodsideSchema, ('visits' | 'readings' | 'walks' | 'instruments')[], 'readwrite'>;
+  async function deleteVisitIn(tx: Tx, visit: Visit): Promise<VisitBundle> {
+    const readings = await tx.objectStore('readings').index('byVisit').getAll(visit.id);
+    const walks = await tx.objectStore('walks').index('byVisit').getAll(visit.id);
+    for (const r of readings) await tx.objectStore('readings').delete(r.id);
+    for (const w of walks) await tx.objectStore('walks').delete(w.id);
+    await tx.objectStore('visits').delete(visit.id);
+    return { visit, readings, walks };
+  }
+  async function putBundle(tx: Tx, b: VisitBundle): Promise<void> {
+    await tx.objectStore('visits').put(b.visit);
+    for (const r of b.readings) await tx.objectStore('readings').put(r);
+    for (const w of b.walks) await tx.objectStore('walks').put(w);
+  }
+
+  type JudgeTx = IDBPTransaction<RodsideSchema, ('visits' | 'instruments' | 'readings' | 'settings')[], IDBTransactionMode>;
+  /** Everything needed to judge a reading of `typeId` on `visitId`, read inside the caller's transaction. */
+  async function judgingContext(tx: JudgeTx, visitId: string, typeId: string) {
+    const visit = await tx.objectStore('visits').get(visitId);
+    if (!visit) throw new StoreError('Could not save the reading: its visit no longer exists.');
+    const instrument = await tx.objectStore('instruments').get(visit.instrumentId);
+    const own = ownTypesFrom((await tx.objectStore('settings').get(OWN_TYPES_SETTING))?.value);
+    const type = allTypes(own).find((t) => t.id === typeId);
+    if (!type) throw new StoreError(`Could not save the reading: the reading type ${typeId} is not known here.`);
+    const baselineVisit = pickBaselineVisit(await tx.objectStore('visits').index('byInstrument').getAll(visit.instrumentId));
+    const baseline = baselineVisit
+      ? { visit: baselineVisit, readings: (await tx.objectStore('readings').index('byVisit').getAll(baselineVisit.id)).filter((r) => r.typeId === typeId) }
+      : undefined;
+    return { visit, instrument, type, baseline };
+  }
+
+  function expectationFromRecord(type: ReadingType, instrument: InstrumentProfile | undefined, context: ReadingContext, baseline: BaselineSet | undefined, visitId: string): Expectation | undefined {
+    let base: { value: number; visitStartedAt: string } | undefined;
+    if (baseline && baseline.visit.id !== visitId) {
+      const m = baseline.readings.filter((r) => r.typeId === type.id && r.phase === 'as-left' && type.matchContext.every((k) => String(r.context?.[k] ?? '') === String(context[k] ?? '')))
+        .sort((a, b) => (a.takenAt < b.takenAt ? 1 : -1))[0];
+      if (m) base = { value: m.value, visitStartedAt: baseline.visit.startedAt };
+    }
+    return expectationFor({ type, instrument, context, baseline: base, engine: options.engine });
+  }
+
+  function checkReading(r: Reading, type: ReadingType): void {
+    const problems = readingProblems('reading', r);
+    if (!(r.value >= type.plausible.min && r.value <= type.plausible.max)) problems.push(`value ${r.value} ${type.baseUnit} is outside ${type.plausible.min} to ${type.plausible.max}`);
+    if (problems.length) throw new StoreError(`Could not save the reading: ${problems.join('; ')}.`);
+  }
+
   const store: Store = {
     name,
     db,
@@ -118,21 +302,33 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
 
     deleteInstrument: (id) =>
       guard('delete the instrument profile', async () => {
-        const tx = db.transaction('instruments', 'readwrite');
-        const existing = await tx.store.get(id);
-        if (existing) await tx.store.delete(id);
+        // Its visits, readings and walks go with it (a visit without its instrument cannot be restored from a
+        // backup); they are kept in memory so restoreInstrument can undo the whole deletion.
+        const tx = db.transaction(['instruments', 'visits', 'readings', 'walks'], 'readwrite');
+        const existing = await tx.objectStore('instruments').get(id);
+        if (existing) {
+          const visits = await tx.objectStore('visits').index('byInstrument').getAll(id);
+          const bundles: VisitBundle[] = [];
+          for (const v of visits) bundles.push(await deleteVisitIn(tx, v));
+          await tx.objectStore('instruments').delete(id);
+          deletedWith.set(id, bundles);
+        }
         await tx.done;
         return existing;
       }),
 
     restoreInstrument: (profile) =>
       guard('restore the instrument profile', async () => {
-        await db.put('instruments', profile);
+        const tx = db.transaction(['instruments', 'visits', 'readings', 'walks'], 'readwrite');
+        await tx.objectStore('instruments').put(profile);
+        for (const b of deletedWith.get(profile.id) ?? []) await putBundle(tx, b);
+        await tx.done;
+        deletedWith.delete(profile.id);
       }),
 
     loadDemo: (force = false) =>
       guard('load the demo instruments', async () => {
-        const tx = db.transaction(['instruments', 'settings'], 'readwrite');
+        const tx = db.transaction(['instruments', 'settings', 'visits', 'readings'], 'readwrite');
         const flag = await tx.objectStore('settings').get('demoLoaded');
         if (flag && !force) {
           await tx.done;
@@ -141,6 +337,33 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         for (const p of demoInstruments) {
           if (!(await tx.objectStore('instruments').get(p.id))) await tx.objectStore('instruments').put({ ...p });
         }
+        // Demo readings are judged by the same rules as real ones, in date order so the baseline applies.
+        const visits = [...demoVisits].sort((a, b) => (a.startedAt < b.startedAt ? -1 : 1));
+        for (const v of visits) if (!(await tx.objectStore('visits').get(v.id))) await tx.objectStore('visits').put({ ...v });
+        const done = new Map<string, Reading[]>();
+        for (const v of visits) {
+          const instrument = demoInstruments.find((i) => i.id === v.instrumentId);
+          const baselineVisit = pickBaselineVisit(visits.filter((x) => x.instrumentId === v.instrumentId && x.startedAt <= v.startedAt));
+          const baseline = baselineVisit ? { visit: baselineVisit, readings: done.get(baselineVisit.id) ?? [] } : undefined;
+          const list: Reading[] = [];
+          for (const seed of demoReadings.filter((r) => r.visitId === v.id)) {
+            const type = catalogue.find((t) => t.id === seed.typeId)!;
+            const entry = checkEntry(type, seed.text, seed.unitId, seed.context ?? {});
+            if (!entry.ok) throw new StoreError(`Demo data is inconsistent (${Object.values(entry.errors).join(' ')}).`);
+            const unit = type.units.find((u) => u.id === seed.unitId)!;
+            const verdict = assess(type, instrument, v.id, entry.value, entry.context, baseline, options.engine);
+            const r: Reading = {
+              id: `demo-rdg-${v.id.replace(/^demo-visit-/, '')}-${seed.phase}-${seed.typeId}${seed.context?.mz ? `-${seed.context.mz}` : ''}`,
+              visitId: v.id, instrumentId: v.instrumentId, typeId: type.id, phase: seed.phase, value: entry.value,
+              entered: { text: seed.text, unit: unit.label }, context: entry.context, ...verdict,
+              note: seed.note ?? '', takenAt: seed.takenAt ?? new Date(Date.parse(v.startedAt) + (seed.phase === 'as-left' ? 5 : 1) * 3600_000).toISOString(),
+              origin: 'entered', demo: true,
+            };
+            list.push(r);
+            if (!(await tx.objectStore('readings').get(r.id))) await tx.objectStore('readings').put(r);
+          }
+          done.set(v.id, list);
+        }
         await tx.objectStore('settings').put({ key: 'demoLoaded', value: true });
         await tx.done;
         return true;
@@ -148,15 +371,36 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
 
     removeDemo: () =>
       guard('remove the demo data', async () => {
-        const tx = db.transaction('instruments', 'readwrite');
+        // Demo visits, readings and walks go too; real records on demo instruments are kept only if their
+        // instrument stays, so a demo instrument's own visits are removed with it.
+        const tx = db.transaction(['instruments', 'visits', 'readings', 'walks'], 'readwrite');
         let removed = 0;
-        let cursor = await tx.store.openCursor();
+        const demoIds = new Set<string>();
+        let cursor = await tx.objectStore('instruments').openCursor();
         while (cursor) {
           if (cursor.value.demo) {
+            demoIds.add(cursor.value.id);
             await cursor.delete();
             removed++;
           }
           cursor = await cursor.continue();
+        }
+        let vc = await tx.objectStore('visits').openCursor();
+        while (vc) {
+          if (vc.value.demo || demoIds.has(vc.value.instrumentId)) {
+            await deleteVisitIn(tx, vc.value);
+          }
+          vc = await vc.continue();
+        }
+        let rc = await tx.objectStore('readings').openCursor();
+        while (rc) {
+          if (rc.value.demo) await rc.delete();
+          rc = await rc.continue();
+        }
+        let wc = await tx.objectStore('walks').openCursor();
+        while (wc) {
+          if (wc.value.demo) await wc.delete();
+          wc = await wc.continue();
         }
         await tx.done;
         return removed;
@@ -174,6 +418,387 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         await db.put('drafts', rec);
       }),
     clearDraft: (key) => guard('clear a draft', () => db.delete('drafts', key)),
+
+    // ---- Visits ---------------------------------------------------------------------------------
+    listVisits: (instrumentId) =>
+      guard('read the visits', async () => {
+        const list = instrumentId ? await db.getAllFromIndex('visits', 'byInstrument', instrumentId) : await db.getAll('visits');
+        return list.sort((a, b) => (a.startedAt < b.startedAt ? 1 : a.startedAt > b.startedAt ? -1 : 0));
+      }),
+
+    getVisit: (id) => guard('read the visit', () => db.get('visits', id)),
+
+    saveVisit: (fields, id) =>
+      guard('save the visit', async () => {
+        const tx = db.transaction(['visits', 'instruments'], 'readwrite');
+        const existing = id ? await tx.objectStore('visits').get(id) : undefined;
+        if (id && !existing) throw new StoreError(`Could not save: the visit ${id} no longer exists.`);
+        if (!(await tx.objectStore('instruments').get(fields.instrumentId))) {
+          throw new StoreError('Could not save the visit: its instrument profile no longer exists.');
+        }
+        if (existing && existing.instrumentId !== fields.instrumentId) {
+          throw new StoreError('Could not save the visit: a visit cannot move to another instrument (its readings belong to the first).');
+        }
+        const now = nowIso();
+        const record: Visit = {
+          ...fields,
+          id: existing?.id ?? newId('visit'),
+          createdAt: existing?.createdAt ?? now,
+          updatedAt: now,
+          ...(existing?.baseline ? { baseline: true } : {}),
+          ...(existing?.demo ? { demo: true } : {}),
+        };
+        const problems = visitProblems('visit', record);
+        if (problems.length) throw new StoreError(`Could not save the visit: ${problems.join('; ')}.`);
+        await tx.objectStore('visits').put(record);
+        await tx.done;
+        return record;
+      }),
+
+    deleteVisit: (id) =>
+      guard('delete the visit', async () => {
+        const tx = db.transaction(['visits', 'readings', 'walks'], 'readwrite');
+        const v = await tx.objectStore('visits').get(id);
+        const bundle = v ? await deleteVisitIn(tx, v) : undefined;
+        await tx.done;
+        return bundle;
+      }),
+
+    restoreVisit: (bundle) =>
+      guard('restore the visit', async () => {
+        const tx = db.transaction(['visits', 'readings', 'walks'], 'readwrite');
+        await putBundle(tx, bundle);
+        await tx.done;
+      }),
+
+    // ---- Readings -------------------------------------------------------------------------------
+    listReadings: (visitId) =>
+      guard('read the readings', async () => {
+        const list = await db.getAllFromIndex('readings', 'byVisit', visitId);
+        return list.sort((a, b) => (a.takenAt < b.takenAt ? -1 : a.takenAt > b.takenAt ? 1 : 0));
+      }),
+
+    listInstrumentReadings: (instrumentId, typeId) =>
+      guard('read the readings', async () => {
+        if (typeId) return db.getAllFromIndex('readings', 'byInstrumentType', [instrumentId, typeId]);
+        const range = IDBKeyRange.bound([instrumentId, ''], [instrumentId, '\uffff']);
+        return db.getAllFromIndex('readings', 'byInstrumentType', range);
+      }),
+
+    previewReading: (visitId, typeId, value, context) =>
+      guard('work out the expected value', async () => {
+        const tx = db.transaction(['visits', 'instruments', 'readings', 'settings'], 'readonly');
+        const ctx = await judgingContext(tx, visitId, typeId);
+        await tx.done;
+        const e = expectationFromRecord(ctx.type, ctx.instrument, context, ctx.baseline, visitId);
+        return e ? { expectation: e, judgement: judge(value, e) } : {};
+      }),
+
+    addReading: (input) =>
+      guard('save the reading', async () => {
+        const tx = db.transaction(['visits', 'instruments', 'readings', 'settings'], 'readwrite');
+        const ctx = await judgingContext(tx, input.visitId, input.typeId);
+        const now = nowIso();
+        const judged = assess(ctx.type, ctx.instrument, input.visitId, input.value, input.context ?? {}, ctx.baseline, options.engine);
+        const reading: Reading = {
+          id: newId('rdg'),
+          visitId: input.visitId,
+          instrumentId: ctx.visit.instrumentId,
+          typeId: input.typeId,
+          phase: input.phase,
+          value: input.value,
+          entered: input.entered,
+          ...(input.context && Object.keys(input.context).length ? { context: input.context } : {}),
+          ...judged,
+          note: input.note ?? '',
+          takenAt: input.takenAt ?? now,
+          origin: input.origin ?? 'entered',
+          ...(ctx.visit.demo ? { demo: true } : {}),
+        };
+        checkReading(reading, ctx.type);
+        await tx.objectStore('readings').put(reading);
+        await tx.objectStore('visits').put({ ...ctx.visit, updatedAt: now });
+        await tx.done;
+        return reading;
+      }),
+
+    updateReading: (id, changes) =>
+      guard('save the reading', async () => {
+        const tx = db.transaction(['visits', 'instruments', 'readings', 'settings'], 'readwrite');
+        const was = await tx.objectStore('readings').get(id);
+        if (!was) throw new StoreError(`Could not save: the reading ${id} no longer exists.`);
+        const ctx = await judgingContext(tx, was.visitId, was.typeId);
+        const now = nowIso();
+        const next: Reading = { ...was, ...changes, updatedAt: now };
+        if (changes.context && Object.keys(changes.context).length === 0) delete next.context;
+        delete next.expected;
+        delete next.verdict;
+        Object.assign(next, assess(ctx.type, ctx.instrument, was.visitId, next.value, next.context ?? {}, ctx.baseline, options.engine));
+        checkReading(next, ctx.type);
+        await tx.objectStore('readings').put(next);
+        await tx.objectStore('visits').put({ ...ctx.visit, updatedAt: now });
+        await tx.done;
+        return next;
+      }),
+
+    deleteReading: (id) =>
+      guard('delete the reading', async () => {
+        const tx = db.transaction(['readings', 'visits'], 'readwrite');
+        const was = await tx.objectStore('readings').get(id);
+        if (was) {
+          await tx.objectStore('readings').delete(id);
+          const v = await tx.objectStore('visits').get(was.visitId);
+          if (v) await tx.objectStore('visits').put({ ...v, updatedAt: nowIso() });
+        }
+        await tx.done;
+        return was;
+      }),
+
+    restoreReading: (reading) =>
+      guard('restore the reading', async () => {
+        const tx = db.transaction(['readings', 'visits'], 'readwrite');
+        const v = await tx.objectStore('visits').get(reading.visitId);
+        if (!v) throw new StoreError('Could not restore the reading: its visit no longer exists.');
+        await tx.objectStore('readings').put(reading);
+        await tx.objectStore('visits').put({ ...v, updatedAt: nowIso() });
+        await tx.done;
+      }),
+
+    // ---- Reading types --------------------------------------------------------------------------
+    listReadingTypes: () => guard('read the reading types', async () => allTypes(ownTypesFrom((await db.get('settings', OWN_TYPES_SETTING))?.value))),
+
+    saveOwnReadingType: (draft) =>
+      guard('save the reading type', async () => {
+        const tx = db.transaction('settings', 'readwrite');
+        const own = ownTypesFrom((await tx.store.get(OWN_TYPES_SETTING))?.value);
+        const r = ownTypeFromDraft(draft, new Set(own.map((t) => t.id)));
+        if (r.ok) await tx.store.put({ key: OWN_TYPES_SETTING, value: [...own, r.type] });
+        await tx.done;
+        return r;
+      }),
+
+    deleteOwnReadingType: (id) =>
+      guard('delete the reading type', async () => {
+        const tx = db.transaction(['settings', 'readings'], 'readwrite');
+        const own = ownTypesFrom((await tx.objectStore('settings').get(OWN_TYPES_SETTING))?.value);
+        let cursor = await tx.objectStore('readings').openCursor();
+        let used = 0;
+        while (cursor) {
+          if (cursor.value.typeId === id) used++;
+          cursor = await cursor.continue();
+        }
+        if (used) throw new StoreError(`Could not delete the reading type: ${used} reading${used === 1 ? '' : 's'} use it. Delete those first.`);
+        await tx.objectStore('settings').put({ key: OWN_TYPES_SETTING, value: own.filter((t) => t.id !== id) });
+        await tx.done;
+      }),
+
+    // ---- Baseline -------------------------------------------------------------------------------
+    markBaseline: (visitId, on = true) =>
+      guard('mark the baseline', async () => {
+        const tx = db.transaction('visits', 'readwrite');
+        const v = await tx.store.get(visitId);
+        if (!v) throw new StoreError(`Could not mark the baseline: the visit ${visitId} no longer exists.`);
+        const now = nowIso();
+        if (on) {
+          // One baseline per instrument: later readings compare with this visit's as-left values.
+          for (const other of await tx.store.index('byInstrument').getAll(v.instrumentId)) {
+            if (other.baseline && other.id !== visitId) {
+              const next = { ...other, updatedAt: now };
+              delete next.baseline;
+              await tx.store.put(next);
+            }
+          }
+        }
+        const next: Visit = { ...v, updatedAt: now };
+        if (on) next.baseline = true;
+        else delete next.baseline;
+        await tx.store.put(next);
+        await tx.done;
+        return next;
+      }),
+
+    getBaseline: (instrumentId) =>
+      guard('read the baseline', async () => {
+        const tx = db.transaction(['visits', 'readings'], 'readonly');
+        const visit = pickBaselineVisit(await tx.objectStore('visits').index('byInstrument').getAll(instrumentId));
+        const readings = visit ? (await tx.objectStore('readings').index('byVisit').getAll(visit.id)).filter((r) => r.phase === 'as-left') : [];
+        await tx.done;
+        return visit ? { visit, readings } : undefined;
+      }),
+
+    // ---- Trends ---------------------------------------------------------------------------------
+    trend: (instrumentId, typeId, opts = {}) =>
+      guard('compute the trend', async () => {
+        const tx = db.transaction(['visits', 'readings', 'instruments', 'settings'], 'readonly');
+        const [visits, readings, instrument, own] = await Promise.all([
+          tx.objectStore('visits').index('byInstrument').getAll(instrumentId),
+          tx.objectStore('readings').index('byInstrumentType').getAll([instrumentId, typeId]),
+          tx.objectStore('instruments').get(instrumentId),
+          tx.objectStore('settings').get(OWN_TYPES_SETTING),
+        ]);
+        await tx.done;
+        const type = allTypes(ownTypesFrom(own?.value)).find((t) => t.id === typeId);
+        if (!type) throw new StoreError(`Could not compute the trend: the reading type ${typeId} is not known here.`);
+        return buildTrend(type, visits, readings, { limit: instrument?.multiplierVoltageLimit ?? DEFAULT_MULTIPLIER_LIMIT, ...opts });
+      }),
+
+    trendSeries: (instrumentId, typeId) =>
+      guard('read the readings', async () => {
+        const type = (await store.listReadingTypes()).find((t) => t.id === typeId);
+        if (!type) return [];
+        return seriesOf(type, await db.getAllFromIndex('readings', 'byInstrumentType', [instrumentId, typeId]));
+      }),
+
+    // ---- Walks ----------------------------------------------------------------------------------
+    saveWalk: (walk) =>
+      guard('keep the diagnosis walk', async () => {
+        const tx = db.transaction('walks', 'readwrite');
+        const was = walk.id ? await tx.store.get(walk.id) : undefined;
+        const now = nowIso();
+        const record: WalkRecord = {
+          ...walk,
+          id: walk.id ?? newId('walk'),
+          startedAt: was?.startedAt ?? walk.startedAt ?? now,
+          updatedAt: now,
+        };
+        const problems = walkProblems('walk', record);
+        if (problems.length) throw new StoreError(`Could not keep the diagnosis walk: ${problems.join('; ')}.`);
+        await tx.store.put(record);
+        await tx.done;
+        return record;
+      }),
+
+    getWalk: (id) => guard('read the diagnosis walk', () => db.get('walks', id)),
+
+    listWalks: (visitId) =>
+      guard('read the diagnosis walks', async () =>
+        (await db.getAllFromIndex('walks', 'byVisit', visitId)).sort((a, b) => (a.startedAt < b.startedAt ? -1 : 1))),
+
+    latestInProgressWalk: (filter = {}) =>
+      guard('read the diagnosis walks', async () => {
+        const all = filter.visitId ? await db.getAllFromIndex('walks', 'byVisit', filter.visitId) : await db.getAll('walks');
+        let best: WalkRecord | undefined;
+        for (const w of all) {
+          if (w.status !== 'in-progress') continue;
+          if (filter.instrumentId && w.instrumentId !== filter.instrumentId) continue;
+          if (!best || w.updatedAt > best.updatedAt) best = w;
+        }
+        return best;
+      }),
+
+
+    setCurrentVisit: (instrumentId, visitId) =>
+      guard('remember the open visit', async () => {
+        if (visitId === null) await db.delete('settings', `currentVisit:${instrumentId}`);
+        else await db.put('settings', { key: `currentVisit:${instrumentId}`, value: visitId });
+      }),
+
+    noteReading: (instrument, note) =>
+      guard('note the value', async () => {
+        if (!Number.isFinite(note.value)) throw new StoreError(`Could not note “${note.label}”: the value is not a finite number.`);
+        const now = new Date();
+        let visit: Visit | undefined;
+        const currentId = (await db.get('settings', `currentVisit:${instrument.id}`))?.value;
+        if (typeof currentId === 'string') {
+          const v = await db.get('visits', currentId);
+          if (v && v.instrumentId === instrument.id) visit = v;
+        }
+        if (!visit) {
+          const recent = (await store.listVisits(instrument.id))[0];
+          if (recent && now.getTime() - Date.parse(recent.startedAt) < 12 * 3600_000 && Date.parse(recent.startedAt) <= now.getTime()) visit = recent;
+        }
+        if (!visit) {
+          visit = await store.saveVisit({
+            instrumentId: instrument.id, startedAt: now.toISOString(), site: '', engineer: '', reason: 'other',
+            notes: 'Opened by “Note this”. Fill in the site, engineer and reason.', partsUsed: '',
+          });
+        }
+        await store.setCurrentVisit(instrument.id, visit.id);
+        const types = await store.listReadingTypes();
+        const type = note.typeId ? types.find((t) => t.id === note.typeId) : undefined;
+        const unit = type?.units.find((u) => u.label === note.unit || u.id === note.unit);
+        const context: ReadingContext = { ...(note.context ?? {}) };
+        let reading: Reading;
+        const text = String(Number(note.value.toPrecision(8)));
+        if (type && unit) {
+          reading = await store.addReading({
+            visitId: visit.id, typeId: type.id, phase: 'as-found', value: note.value * unit.factor + (unit.offset ?? 0),
+            entered: { text, unit: unit.label }, context, note: note.label, origin: note.origin,
+          });
+        } else {
+          context.label = note.label.slice(0, 200);
+          context.unit = note.unit.slice(0, 200);
+          reading = await store.addReading({
+            visitId: visit.id, typeId: 'noted-value', phase: 'as-found', value: note.value,
+            entered: { text, unit: note.unit.slice(0, 100) }, context, note: note.label, origin: note.origin,
+          });
+        }
+        return { visitLabel: `the visit of ${visit.startedAt.slice(0, 10)}`, reading, visit: (await db.get('visits', visit.id))! };
+      }),
+
+    // ---- Backup and reports ---------------------------------------------------------------------
+    exportBackup: () => guard('export the backup', () => exportBackupText(db)),
+
+    importBackup: async (text) => {
+      try {
+        return await importBackupText(db, text);
+      } catch (err) {
+        // Problems with the file keep their exact message; storage failures get the usual wording.
+        if (err instanceof Error && err.name === 'BackupError') throw err;
+        throw describeStorageError('restore the backup', err);
+      }
+    },
+
+    noteBackupSaved: (at = new Date()) => guard('remember the backup', async () => void (await db.put('settings', { key: 'lastBackupAt', value: at.toISOString() }))),
+
+    backupStatus: (now = new Date()) =>
+      guard('check the backup date', async () => {
+        const last = (await db.get('settings', 'lastBackupAt'))?.value;
+        const count = (await db.count('visits')) + (await db.count('instruments'));
+        return backupReminder(typeof last === 'string' ? last : undefined, now, count > 0);
+      }),
+
+    readingsCsv: (filter = {}) =>
+      guard('export the readings', async () => {
+        const [instruments, types] = await Promise.all([db.getAll('instruments'), store.listReadingTypes()]);
+        let visits: Visit[];
+        let readings: Reading[];
+        if (filter.visitId) {
+          const v = await db.get('visits', filter.visitId);
+          visits = v ? [v] : [];
+          readings = await db.getAllFromIndex('readings', 'byVisit', filter.visitId);
+        } else if (filter.instrumentId) {
+          visits = await db.getAllFromIndex('visits', 'byInstrument', filter.instrumentId);
+          readings = await store.listInstrumentReadings(filter.instrumentId);
+        } else {
+          visits = await db.getAll('visits');
+          readings = await db.getAll('readings');
+        }
+        return readingsCsv(instruments, visits, readings, (id) => types.find((t) => t.id === id));
+      }),
+
+    eraseAll: () =>
+      guard('erase the data on this device', async () => {
+        const names = ['instruments', 'visits', 'readings', 'walks', 'settings', 'drafts'] as const;
+        const tx = db.transaction([...names], 'readwrite');
+        await Promise.all(names.map((n) => tx.objectStore(n).clear()));
+        await tx.objectStore('settings').put({ key: 'demoLoaded', value: true });
+        await tx.done;
+        deletedWith.clear();
+      }),
+
+    visitReport: (visitId, now = new Date()) =>
+      guard('make the visit report', async () => {
+        const visit = await db.get('visits', visitId);
+        if (!visit) throw new StoreError(`Could not make the report: the visit ${visitId} no longer exists.`);
+        const instrument = await db.get('instruments', visit.instrumentId);
+        if (!instrument) throw new StoreError('Could not make the report: the visit’s instrument profile no longer exists.');
+        const [readings, walks, types] = await Promise.all([store.listReadings(visitId), store.listWalks(visitId), store.listReadingTypes()]);
+        return visitReportHtml({
+          lab: instrument.demo ? DEMO_LAB : undefined, instrument, visit, readings, walks,
+          typeOf: (id) => types.find((t) => t.id === id), generatedAt: now,
+        });
+      }),
   };
   return store;
 }

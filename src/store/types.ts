@@ -27,6 +27,8 @@ export interface InstrumentProfile {
   axialEnergy: number;
   readbackConvention: ReadbackConvention;
   notes: string;
+  /** Largest multiplier voltage the detector supply gives, V (for the end-of-life projection). */
+  multiplierVoltageLimit?: number;
   /** Part of the invented demo scenario; removable as a group. */
   demo?: boolean;
   createdAt: string;
@@ -50,6 +52,8 @@ export interface Visit {
   reason: VisitReason;
   notes: string;
   partsUsed: string;
+  /** Test equipment used: ID, rating, calibration due date (traceability). */
+  testEquipment?: string;
   /** When set, this visit's as-left readings are the instrument's baseline. */
   baseline?: boolean;
   demo?: boolean;
@@ -73,10 +77,12 @@ export interface Reading {
   entered: { text: string; unit: string };
   /** Parked m/z, gauge gas, convention and similar context for the value. */
   context?: Record<string, string | number>;
-  expected?: { value?: number; low?: number; high?: number; basis: string };
+  /** What the value was judged against (base units), where that came from, and how far off it was. */
+  expected?: { value?: number; low?: number; high?: number; basis: string; source?: string; summary?: string };
   verdict?: Verdict;
   note: string;
   takenAt: string;
+  updatedAt?: string;
   /** Where the reading came from: typed in, noted from a calculator, or taken during a diagnosis walk. */
   origin: 'entered' | 'calculator' | 'walk';
   demo?: boolean;
@@ -92,6 +98,7 @@ export interface WalkRecord {
   status: 'in-progress' | 'finished' | 'abandoned';
   startedAt: string;
   updatedAt: string;
+  demo?: boolean;
 }
 
 /** Unsaved form input, kept so a reload or crash never loses what was typed. */

@@ -121,6 +121,9 @@ function InstrumentForm(props: { id: string | null }) {
   const [saveProblem, setSaveProblem] = useState<string | null>(null);
   const [restored, setRestored] = useState(false);
   const dirty = useRef(false);
+  // The latest draft, so two inputs in one frame never overwrite each other with a stale copy.
+  const latest = useRef<ProfileDraft | null>(null);
+  latest.current = draft;
 
   // Start from a kept draft if there is one (nothing typed is ever lost), else from the profile.
   useEffect(() => {
@@ -155,7 +158,8 @@ function InstrumentForm(props: { id: string | null }) {
   if (!draft) return <section class="screen"><p>Loading…</p></section>;
 
   function update(patch: Partial<ProfileDraft>) {
-    const next = { ...draft!, ...patch };
+    const next = { ...latest.current!, ...patch };
+    latest.current = next;
     setDraft(next);
     dirty.current = true;
     markUnsaved(draftKey, 'the instrument profile form');

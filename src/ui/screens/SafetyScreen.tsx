@@ -1,5 +1,7 @@
 import { StorageStatus } from '../components/StorageStatus';
 import { IconCaution } from '../components/icons';
+import { SAFETY_CARDS, type SafetyCardId } from '../../diagnose';
+import { SafetyCards } from './diagnose/SafetyCards';
 
 declare const __APP_VERSION__: string;
 
@@ -20,6 +22,12 @@ export function SafetyScreen() {
         </ul>
         <p class="muted">The guided diagnosis shows the matching hazard card at each step and asks for acknowledgement before invasive work.</p>
       </div>
+
+      <section aria-labelledby="cards-heading" class="screen">
+        <h2 id="cards-heading">Hazard cards</h2>
+        <p class="muted">The same cards the diagnosis shows at each step. Tap one to open it.</p>
+        <SafetyCards ids={Object.keys(SAFETY_CARDS) as SafetyCardId[]} />
+      </section>
 
       <div class="card">
         <h2 class="card-title">Your data</h2>

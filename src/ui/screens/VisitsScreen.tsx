@@ -1,5 +1,352 @@
-import { Pending } from '../components/Pending';
+// Visits: the service record of each instrument. Paths: /visits (list, trends, backup), /visits/new,
+// /visits/<id> (readings), /visits/<id>/edit, /visits/<id>/report (printable record).
+import { useCallback, useEffect, useState } from 'preact/hooks';
+import {
+  DEMO_LAB, formatNumber, fromBase, shownValue, visitReasons, type InstrumentProfile, type Reading, type ReadingType, type Visit,
+  type WalkRecord,
+} from '../../store';
+import { useApp } from '../context';
+import { navigate, usePath } from '../router';
+import { BackupPanel, BackupReminderNote } from '../visits/BackupPanel';
+import { errorText, shareOrDownload, canShareFiles, showDate } from '../visits/files';
+import { ReadingEntry } from '../visits/ReadingEntry';
+import { TrendPanel } from '../visits/TrendPanel';
+import { VerdictBadge } from '../visits/Verdict';
+import { VisitForm } from '../visits/VisitForm';
+import '../visits/visits.css';
 
 export function VisitsScreen() {
-  return <Pending title="Visits" what="Service visits with as-found and as-left readings, judged against expectations." />;
+  const path = usePath();
+  const parts = path.slice('/visits'.length).split('/').filter(Boolean).map(decodeURIComponent);
+  if (parts.length === 0) return <VisitList />;
+  if (parts[0] === 'new') return <NewVisit />;
+  const [id, sub] = parts;
+  return <VisitPage key={id} id={id} sub={sub} />;
+}
+
+const reasonLabel = (r: string) => visitReasons.find((x) => x.value === r)?.label ?? r;
+
+function useReadingTypes(): ReadingType[] {
+  const { store } = useApp();
+  const [types, setTypes] = useState<ReadingType[]>([]);
+  useEffect(() => {
+    if (store) void store.listReadingTypes().then(setTypes).catch(() => undefined);
+  }, [store]);
+  return types;
+}
+
+function VisitList() {
+  const { store, instrument } = useApp();
+  const types = useReadingTypes();
+  const [visits, setVisits] = useState<Visit[] | null>(null);
+  const [counts, setCounts] = useState<Record<string, { n: number; fail: number; borderline: number }>>({});
+  const [problem, setProblem] = useState<string | null>(null);
+
+  useEffect(() => {
+    if (!store || !instrument) return;
+    let stale = false;
+    (async () => {
+      try {
+        const list = await store.listVisits(instrument.id);
+        const readings = await store.listInstrumentReadings(instrument.id);
+        const c: Record<string, { n: number; fail: number; borderline: number }> = {};
+        for (const r of readings) {
+          const x = (c[r.visitId] ??= { n: 0, fail: 0, borderline: 0 });
+          x.n++;
+          if (r.verdict === 'fail') x.fail++;
+          if (r.verdict === 'borderline') x.borderline++;
+        }
+        if (!stale) { setVisits(list); setCounts(c); }
+      } catch (err) {
+        if (!stale) setProblem(errorText(err));
+      }
+    })();
+    return () => { stale = true; };
+  }, [store, instrument]);
+
+  return (
+    <section class="screen">
+      <h1>Visits</h1>
+      <p class="lede">Service visits with as-found and as-left readings, each judged against the instrument’s baseline, a calculation or a generic range.</p>
+      <BackupReminderNote />
+      {!instrument ? (
+        <p class="notice">Pick or create an instrument first: visits belong to an instrument. <a href="/instruments/new">New instrument</a></p>
+      ) : (
+        <>
+          <div class="row">
+            <a class="btn btn-primary" href="/visits/new">New visit</a>
+            <span class="muted">for {instrument.name}</span>
+          </div>
+          {problem && <p class="banner banner-problem" role="alert">{problem}</p>}
+          {visits && visits.length === 0 && <p class="notice">No visits recorded for this instrument yet.</p>}
+          {visits && visits.length > 0 && (
+            <ul class="visit-list" aria-label={`Visits to ${instrument.name}`}>
+              {visits.map((v) => {
+                const c = counts[v.id];
+                return (
+                  <li key={v.id}>
+                    <a class="visit-item" href={`/visits/${encodeURIComponent(v.id)}`} data-testid="visit-item">
+                      <span class="when">{showDate(v.startedAt)} · {reasonLabel(v.reason)}{v.baseline ? ' · ★ baseline' : ''}{v.demo ? ' · demo' : ''}</span>
+                      <span class="counts">
+                        {v.engineer || 'engineer not recorded'}{v.site ? ` · ${v.site}` : ''} · {c?.n ?? 0} readings
+                        {c?.fail ? ` · ✗ ${c.fail} fail` : ''}{c?.borderline ? ` · △ ${c.borderline} borderline` : ''}
+                      </span>
+                    </a>
+                  </li>
+                );
+              })}
+            </ul>
+          )}
+          {types.length > 0 && <TrendPanel instrumentId={instrument.id} types={types} />}
+        </>
+      )}
+      <BackupPanel />
+    </section>
+  );
+}
+
+function NewVisit() {
+  const { instrument } = useApp();
+  return (
+    <section class="screen">
+      <h1>New visit</h1>
+      {instrument ? (
+        <>
+          <p class="lede">For {instrument.name}. Everything you type is kept as a draft until you save.</p>
+          <VisitForm instrumentId={instrument.id} />
+        </>
+      ) : (
+        <p class="notice">Pick or create an instrument first. <a href="/instruments/new">New instrument</a></p>
+      )}
+    </section>
+  );
+}
+
+function VisitPage(props: { id: string; sub?: string }) {
+  const { store, instruments, notify } = useApp();
+  const types = useReadingTypes();
+  const [visit, setVisit] = useState<Visit | null | undefined>(undefined);
+  const [readings, setReadings] = useState<Reading[]>([]);
+  const [walks, setWalks] = useState<WalkRecord[]>([]);
+  const [problem, setProblem] = useState<string | null>(null);
+
+  const load = useCallback(async () => {
+    if (!store) return;
+    try {
+      const v = await store.getVisit(props.id);
+      setVisit(v ?? null);
+      if (v) {
+        setReadings(await store.listReadings(v.id));
+        setWalks(await store.listWalks(v.id));
+        await store.setCurrentVisit(v.instrumentId, v.id).catch(() => undefined);
+      }
+    } catch (err) {
+      setProblem(errorText(err));
+    }
+  }, [store, props.id]);
+  useEffect(() => void load(), [load]);
+
+  if (problem) return <section class="screen"><p class="banner banner-problem" role="alert">{problem}</p></section>;
+  if (visit === undefined) return <section class="screen"><p>Loading…</p></section>;
+  if (visit === null) {
+    return (
+      <section class="screen">
+        <h1>Visit not found</h1>
+        <p>There is no visit with this address on this device. It may have been deleted, or it lives on another device.</p>
+        <a class="btn" href="/visits">Back to visits</a>
+      </section>
+    );
+  }
+  const instrument = instruments.find((i) => i.id === visit.instrumentId);
+  const typeOf = (id: string) => types.find((t) => t.id === id);
+
+  if (props.sub === 'edit') {
+    return (
+      <section class="screen">
+        <h1>Edit visit</h1>
+        <VisitForm visit={visit} instrumentId={visit.instrumentId} />
+      </section>
+    );
+  }
+  if (props.sub === 'report') return <ReportView visit={visit} instrument={instrument} readings={readings} walks={walks} typeOf={typeOf} />;
+
+  async function toggleBaseline() {
+    if (!store || !visit) return;
+    try {
+      const next = await store.markBaseline(visit.id, !visit.baseline);
+      setVisit(next);
+      notify(next.baseline ? 'This visit’s as-left readings are now the baseline: later readings compare with them.' : 'Baseline mark removed.');
+    } catch (err) {
+      notify(errorText(err));
+    }
+  }
+
+  async function removeReading(r: Reading) {
+    if (!store) return;
+    try {
+      const gone = await store.deleteReading(r.id);
+      await load();
+      if (gone) notify('Reading deleted.', { label: 'Undo', run: () => void store.restoreReading(gone).then(load) });
+    } catch (err) {
+      notify(errorText(err));
+    }
+  }
+
+  async function removeVisit() {
+    if (!store || !visit) return;
+    if (!confirm('Delete this visit with all its readings? You can undo right after.')) return;
+    try {
+      const bundle = await store.deleteVisit(visit.id);
+      navigate('/visits');
+      if (bundle) notify('Visit deleted.', { label: 'Undo', run: () => void store.restoreVisit(bundle).then(() => navigate(`/visits/${encodeURIComponent(bundle.visit.id)}`)) });
+    } catch (err) {
+      notify(errorText(err));
+    }
+  }
+
+  async function saveReport(viaShare: boolean) {
+    if (!store || !visit) return;
+    try {
+      const html = await store.visitReport(visit.id);
+      await shareOrDownload(`rodside-visit-${visit.startedAt.slice(0, 10)}.html`, 'text/html;charset=utf-8', html, viaShare);
+    } catch (err) {
+      notify(errorText(err));
+    }
+  }
+
+  async function saveCsv() {
+    if (!store || !visit) return;
+    try {
+      await shareOrDownload(`rodside-visit-${visit.startedAt.slice(0, 10)}.csv`, 'text/csv;charset=utf-8', await store.readingsCsv({ visitId: visit.id }), false);
+    } catch (err) {
+      notify(errorText(err));
+    }
+  }
+
+  return (
+    <section class="screen">
+      <p><a href="/visits">← All visits</a></p>
+      <h1>Visit of {showDate(visit.startedAt)}</h1>
+      <div class="card" data-testid="visit-summary">
+        <dl class="facts">
+          <div><dt>Instrument</dt><dd>{instrument?.name ?? 'deleted instrument'}</dd></div>
+          <div><dt>Reason</dt><dd>{reasonLabel(visit.reason)}</dd></div>
+          <div><dt>Engineer</dt><dd>{visit.engineer || '—'}</dd></div>
+          <div><dt>Site</dt><dd>{visit.site || '—'}</dd></div>
+          <div><dt>Baseline</dt><dd>{visit.baseline ? '★ yes' : 'no'}</dd></div>
+        </dl>
+        {visit.testEquipment && <p class="notes"><strong>Test equipment:</strong> {visit.testEquipment}</p>}
+        {visit.partsUsed && <p class="notes"><strong>Parts used:</strong> {visit.partsUsed}</p>}
+        {visit.notes && <p class="notes" data-testid="visit-notes">{visit.notes}</p>}
+        <div class="row">
+          <a class="btn" href={`/visits/${encodeURIComponent(visit.id)}/edit`}>Edit visit</a>
+          <button type="button" class="btn" onClick={toggleBaseline}>{visit.baseline ? 'Remove baseline mark' : 'Mark as-left values as baseline'}</button>
+          <a class="btn" href={`/visits/${encodeURIComponent(visit.id)}/report`}>Printable record</a>
+          <button type="button" class="btn" onClick={() => saveReport(false)}>Download record</button>
+          {canShareFiles() && <button type="button" class="btn" onClick={() => saveReport(true)}>Share record…</button>}
+          <button type="button" class="btn" onClick={saveCsv}>CSV</button>
+          <button type="button" class="btn btn-danger" onClick={removeVisit}>Delete visit</button>
+        </div>
+      </div>
+      <ReadingTable title="As found" readings={readings.filter((r) => r.phase === 'as-found')} typeOf={typeOf} onDelete={removeReading} />
+      <ReadingTable title="As left" readings={readings.filter((r) => r.phase === 'as-left')} typeOf={typeOf} onDelete={removeReading} />
+      {types.length > 0 && <ReadingEntry visit={visit} types={types} onSaved={() => void load()} />}
+      {walks.length > 0 && (
+        <div class="card">
+          <h2 class="card-title">Diagnosis walks</h2>
+          <ul>{walks.map((w) => <li key={w.id}>{w.treeId} — {w.status}, started {showDate(w.startedAt)}</li>)}</ul>
+        </div>
+      )}
+    </section>
+  );
+}
+
+function expectedText(r: Reading, type: ReadingType | undefined): string {
+  const e = r.expected;
+  if (!e) return '—';
+  const unit = type?.units.find((u) => u.label === r.entered.unit) ?? type?.units.find((u) => u.id === type.defaultUnit);
+  const f = (x: number) => (unit ? formatNumber(fromBase(unit, x)) : formatNumber(x));
+  const range = e.value !== undefined ? f(e.value) : `${e.low !== undefined ? f(e.low) : '…'} to ${e.high !== undefined ? f(e.high) : '…'}`;
+  return `${range} ${unit?.label ?? ''} (${e.basis})`;
+}
+
+function contextText(r: Reading): string {
+  return Object.entries(r.context ?? {})
+    .filter(([k]) => k !== 'convention' && k !== 'label' && k !== 'unit')
+    .map(([k, v]) => (k === 'mz' ? `m/z ${v}` : k === 'referenceMz' ? `relative to m/z ${v}` : k === 'gaugeGas' ? `gauge: ${v}` : k === 'setpoint' ? 'set value given' : `${k} ${v}`))
+    .join(' · ');
+}
+
+function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: string) => ReadingType | undefined; onDelete?: (r: Reading) => void }) {
+  return (
+    <div class="card">
+      <h2 class="card-title">{props.title}</h2>
+      {props.readings.length === 0 ? (
+        <p class="muted">None recorded yet.</p>
+      ) : (
+        <div class="scroll-x">
+          <table class="values reading-table" data-testid={`readings-${props.title === 'As found' ? 'as-found' : 'as-left'}`}>
+            <thead><tr><th>Reading</th><th>Value</th><th>Expected</th><th>Verdict</th><th>Note</th>{props.onDelete && <th><span class="visually-hidden">Actions</span></th>}</tr></thead>
+            <tbody>
+              {props.readings.map((r) => {
+                const t = props.typeOf(r.typeId);
+                const ctx = contextText(r);
+                return (
+                  <tr key={r.id} data-testid="reading-row">
+                    <td>{r.typeId === 'noted-value' ? String(r.context?.label ?? 'Noted value') : t?.label ?? r.typeId}{ctx && <span class="ctx">{ctx}</span>}</td>
+                    <td class="value">{shownValue(r, t)}</td>
+                    <td>{expectedText(r, t)}{r.expected?.summary && <span class="ctx">{r.expected.summary}</span>}</td>
+                    <td><VerdictBadge verdict={r.verdict} /></td>
+                    <td class="note">{r.note}</td>
+                    {props.onDelete && <td><button type="button" class="btn btn-small no-print" onClick={() => props.onDelete!(r)} aria-label={`Delete ${t?.label ?? 'reading'}`}>Delete</button></td>}
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </div>
+  );
+}
+
+function ReportView(props: { visit: Visit; instrument?: InstrumentProfile; readings: Reading[]; walks: WalkRecord[]; typeOf: (id: string) => ReadingType | undefined }) {
+  const { visit: v, instrument: i, readings } = props;
+  const counts = { pass: 0, borderline: 0, fail: 0 };
+  for (const r of readings) if (r.verdict) counts[r.verdict]++;
+  return (
+    <section class="screen">
+      <div class="row no-print">
+        <a class="btn" href={`/visits/${encodeURIComponent(v.id)}`}>← Back to the visit</a>
+        <button type="button" class="btn btn-primary" onClick={() => window.print()}>Print</button>
+      </div>
+      <article class="visit-report" data-testid="visit-report">
+        <h1>Service visit record — {i?.name ?? 'deleted instrument'}</h1>
+        {i?.demo && <p>{DEMO_LAB}</p>}
+        <dl>
+          <dt>Started</dt><dd>{showDate(v.startedAt)}</dd>
+          <dt>Site</dt><dd>{v.site || '—'}</dd>
+          <dt>Engineer</dt><dd>{v.engineer || '—'}</dd>
+          <dt>Reason</dt><dd>{reasonLabel(v.reason)}</dd>
+          <dt>Test equipment</dt><dd>{v.testEquipment || '—'}</dd>
+          <dt>Parts used</dt><dd>{v.partsUsed || '—'}</dd>
+          <dt>Baseline</dt><dd>{v.baseline ? 'Yes: this visit’s as-left readings are the instrument’s baseline' : 'No'}</dd>
+        </dl>
+        <h2>Summary</h2>
+        <p>{readings.length} readings: {counts.pass} pass (✓), {counts.borderline} borderline (△), {counts.fail} fail (✗).</p>
+        <h2>Notes</h2>
+        <p class="notes">{v.notes || '—'}</p>
+        <ReadingTable title="As found" readings={readings.filter((r) => r.phase === 'as-found')} typeOf={props.typeOf} />
+        <ReadingTable title="As left" readings={readings.filter((r) => r.phase === 'as-left')} typeOf={props.typeOf} />
+        {props.walks.length > 0 && (
+          <>
+            <h2>Diagnosis walks</h2>
+            <ul>{props.walks.map((w) => <li key={w.id}>{w.treeId} — {w.status}, started {showDate(w.startedAt)}</li>)}</ul>
+          </>
+        )}
+        <div class="sign"><div>Engineer: name, signature, date</div><div>Customer: name, signature, date</div></div>
+        <p><small>Expected values are guides; the instrument maker’s limits and procedures take precedence.</small></p>
+      </article>
+    </section>
+  );
 }

@@ -1,0 +1,190 @@
+import type { Tree } from '../types';
+import { BEHIND_COVERS, CARRIER_INPUTS, leaf, opt, PRESSURE_FROM_READING, STOP_TEXT } from './build';
+
+/** Vacuum fault or pump problems. */
+export const vacuumTree: Tree = {
+  id: 'vacuum',
+  title: 'Vacuum fault or pump problem',
+  summary: 'Read every gauge and pump status, then work on the rough pump, the turbo, the gas load, the pump-down curve or the gauges.',
+  entry: 'VF1',
+  nodes: [
+    {
+      id: 'VF1',
+      kind: 'choice',
+      title: 'Where is the fault?',
+      text: 'Read all gauges and the pump status before changing anything.',
+      options: [
+        opt('fore', 'Fore-vacuum high', 'VF2-G'),
+        opt('turbo', 'Turbo not at full speed', 'VF4'),
+        opt('hv', 'Fore-vacuum fine, high vacuum high', 'VF5'),
+        opt('gauges', 'Gauges disagree or read implausibly', 'VF8'),
+        opt('vented', 'Just vented: judging the pump-down', 'VF6'),
+        opt('bursts', 'Pressure bursts or fluctuation', 'VF7'),
+      ],
+    },
+    {
+      id: 'VF2-G',
+      kind: 'gate',
+      title: 'Gate: blank off the rough pump',
+      text: 'Isolating the rough pump with a valve or blank flange means shutting the system down and opening the foreline.',
+      roles: BEHIND_COVERS,
+      asks: ['role', 'lockout', 'ppe', 'procedure'],
+      cards: ['lockout', 'vacuum', 'turbo'],
+      next: 'VF2',
+      refuse: 'VF-stop',
+    },
+    {
+      id: 'VF2',
+      kind: 'measure',
+      title: 'Does the rough pump reach its ultimate pressure on its own?',
+      text: 'With the pump isolated (valve or blank flange) and a gauge at its inlet, let it run and read the lowest pressure.',
+      points: ['Two-stage oil-sealed rotary vane about 10⁻³ to 10⁻² mbar; dry scroll about 10⁻² to 5×10⁻² mbar; diaphragm about 1–10 mbar (common practice) — use the pump’s data where you have it.'],
+      access: 'covers-off',
+      hazards: ['venting', 'rotating'],
+      cards: ['lockout', 'vacuum', 'turbo'],
+      measure: { quantity: 'Rough-pump blank-off pressure', unit: 'mbar', altUnits: ['Pa', 'Torr'], tool: 'Pirani or capacitance gauge at the pump inlet', how: 'Run for several minutes with gas ballast closed; read the lowest steady value.' },
+      expect: { range: { low: 1e-3, high: 5e-2 }, tolerance: { kind: 'range', borderline: 0.3, log: true }, source: 'Oil-sealed and scroll pumps (common practice); a diaphragm pump reaches only about 1–10 mbar.' },
+      branches: { pass: 'VF2-load', borderline: 'VF2-load', low: 'VF2-load', high: 'VF3' },
+    },
+    leaf('VF2-load', 'Pump fine: gas load or leak on the foreline', 'Hoses, KF joints, vent valves, gas ballast left open, or solvent load on an LC-MS.', [
+      'Leak-check the foreline; estimate the gas load from the flows (p = Q/S).',
+    ], 'the fore-vacuum with the system reconnected', { continueWith: ['leak'] }),
+    {
+      id: 'VF3',
+      kind: 'choice',
+      title: 'What condition is the pump in?',
+      text: 'Look at the oil (level, colour), the exhaust filter and line, and listen and feel for noise and heat.',
+      hazards: ['chemical', 'hot-surface'],
+      cards: ['chemical', 'hot-surface', 'lockout'],
+      options: [
+        opt('dark', 'Oil dark', 'VF3-dark'),
+        opt('milky', 'Oil milky or cloudy', 'VF3-milky'),
+        opt('exhaust', 'Exhaust mist filter saturated or exhaust line restricted', 'VF3-exhaust'),
+        opt('worn', 'Noise, heat, belt or coupling wear; dry-pump seals worn', 'VF3-worn'),
+      ],
+    },
+    leaf('VF3-dark', 'Oil degraded', 'Change the oil. Used oil is hazardous waste.', ['Let the pump cool first; lock it out.'], 'the blank-off pressure and the fore-vacuum', {
+      hazards: ['chemical', 'hot-surface'],
+      cards: ['chemical', 'hot-surface', 'lockout'],
+    }),
+    leaf('VF3-milky', 'Water or solvent in the oil', 'Run with gas ballast open for about 30–60 min (common practice); change the oil if it is still poor.', [
+      'The exhaust must go to extraction.',
+    ], 'the blank-off pressure and the oil appearance', { hazards: ['chemical', 'hot-surface'], cards: ['chemical', 'hot-surface'] }),
+    leaf('VF3-exhaust', 'Exhaust restricted', 'Replace the mist filter and clear the line; the exhaust must go to extraction.', ['Lock the pump out before opening the exhaust.'], 'the blank-off pressure', {
+      hazards: ['chemical', 'hot-surface'],
+      cards: ['chemical', 'hot-surface', 'lockout'],
+    }),
+    leaf('VF3-worn', 'Pump worn', 'Service or replace the pump.', ['Pumps are heavy: lift with help or aids.'], 'the blank-off pressure with the serviced pump', {
+      hazards: ['lifting', 'hot-surface'],
+      cards: ['mechanical', 'hot-surface', 'lockout'],
+    }),
+    {
+      id: 'VF4',
+      kind: 'question',
+      title: 'Turbo not at speed: is the backing pressure low enough?',
+      text: 'Compare the fore-vacuum with the turbo’s maximum backing pressure (roughly 0.1–10 mbar depending on design; from memory — use the pump’s data).',
+      hazards: ['rotating'],
+      cards: ['turbo'],
+      options: [
+        opt('no', 'No: the fore-vacuum is too high', 'VF2-G'),
+        opt('noisy', 'Yes, but there is noise, vibration, high motor current or over-temperature', 'VF4-svc'),
+        opt('slow', 'Yes, but run-up takes more than about twice the as-installed time', 'VF4-bearing'),
+        opt('ctl', 'Controller or cable fault shown', 'VF4-ctl'),
+      ],
+    },
+    leaf('VF4-svc', 'Turbo distressed', 'Check cooling: fan, water flow, room temperature. Do not power-cycle it again and again.', [
+      'Send the turbo for service; bearings are not field work.',
+      'Do not move or knock a running turbo.',
+    ], 'turbo speed, current and temperature after the cooling fix', { hazards: ['rotating'], cards: ['turbo'], escalate: true }),
+    leaf('VF4-bearing', 'Bearing wear or excess gas load', 'Compare the run-up with the as-installed curve and plan service.', ['Check the gas load first (leak tree) so the pump is not blamed for a leak.'], 'turbo run-up time and high vacuum', {
+      hazards: ['rotating'],
+      cards: ['turbo'],
+      continueWith: ['leak'],
+    }),
+    leaf('VF4-ctl', 'Controller or cable', 'Check connections and the supply by the procedure; replace the controller.', ['Lock out before unplugging controller cables.'], 'turbo speed and run-up', {
+      hazards: ['high-voltage', 'rotating'],
+      cards: ['high-voltage', 'turbo', 'lockout'],
+    }),
+    {
+      id: 'VF5',
+      kind: 'measure',
+      title: 'High vacuum high: what should the gas load give?',
+      text: 'Read the high-vacuum gauge and compare with the pressure the deliberate flows (carrier, collision gas, spray inlet) should give.',
+      measure: { quantity: 'Analyser pressure, N2-equivalent', unit: 'mbar', altUnits: ['Torr', 'Pa'], tool: 'Instrument ion-gauge read-back', how: 'Flows at their usual set points, system settled.' },
+      expect: { calc: 'gaugeReadingForCarrier', inputs: CARRIER_INPUTS, tolerance: { kind: 'range', borderline: 0.5, log: true } },
+      derived: [{ calc: 'meanFreePath', inputs: [PRESSURE_FROM_READING] }],
+      source: "p = Q/S_eff (O'Hanlon 2003); N2-equivalent reading = true pressure × relative sensitivity (CRC Bayard–Alpert table).",
+      branches: { pass: 'VF5-flow', borderline: 'VF5q', high: 'VF5q', low: 'VF5-low' },
+      alternatives: [opt('no-flow', 'No deliberate flow here (residual gas analyser); pressure above the baseline', 'VF5q')],
+    },
+    leaf('VF5-flow', 'The flows explain the pressure', 'The pressure is what the set flows give: check the set points (carrier, collision gas) and the regulator.', ['Correct any set point that is wrong.'], 'the analyser pressure against the expected value'),
+    leaf('VF5-low', 'Less gas than the flows should give', 'A deliberate flow is not arriving: a broken or plugged column, or an empty collision-gas supply.', ['Check the column and the gas supplies.'], 'the analyser pressure against the expected value', {
+      hazards: ['gas-cylinder'],
+      cards: ['gas'],
+    }),
+    {
+      id: 'VF5q',
+      kind: 'choice',
+      title: 'What goes with the extra pressure?',
+      text: 'Look at the background spectrum and at what changes the pressure.',
+      options: [
+        opt('air', 'Air signature (28:32 about 3.7–4)', 'VF5-air'),
+        opt('water', 'Water-dominated after a vent', 'VF5-water'),
+        opt('temp', 'Rises with source temperature', 'VF5-outgas'),
+        opt('cell', 'Collision-gas set point or regulator wrong', 'VF5-cell'),
+      ],
+    },
+    leaf('VF5-air', 'Air leak', 'Find the leak.', ['Record the background ratios first.'], 'the analyser pressure and 28:32', { continueWith: ['leak'] }),
+    leaf('VF5-water', 'Water after a vent', 'Wait, or bake by the procedure; fit the decay in the Leak check panel.', ['Bake only within the parts’ temperature limits.'], 'the analyser pressure at the next milestone', {
+      hazards: ['hot-surface'],
+      cards: ['hot-surface'],
+    }),
+    leaf('VF5-outgas', 'Outgassing from contamination', 'Clean or bake.', ['Let parts cool before handling.'], 'the analyser pressure at working temperature', { hazards: ['hot-surface'], cards: ['hot-surface'] }),
+    leaf('VF5-cell', 'Collision gas set wrong', 'Correct the set point or the regulator.', ['Change regulators by the site’s gas rules.'], 'the analyser pressure and collision-gas read-back', {
+      hazards: ['gas-cylinder'],
+      cards: ['gas'],
+    }),
+    {
+      id: 'VF6',
+      kind: 'measure',
+      title: 'Pump-down against the as-installed curve',
+      text: 'Log the time to rough-pump crossover, the time for the turbo to reach full speed, and the high vacuum at 1 h, 4 h and 24 h. Enter the latest high-vacuum value and the baseline at the same time since pump-down.',
+      measure: { quantity: 'High vacuum at the milestone', unit: 'mbar', altUnits: ['Torr', 'Pa'], tool: 'Instrument ion-gauge read-back and a clock', how: 'Same gauge and flows as the baseline curve.' },
+      expect: {
+        calc: 'baseline',
+        inputs: [{ key: 'baseline', label: 'Baseline at the same time since pump-down', unit: 'mbar', min: 1e-12, max: 2000 }],
+        tolerance: { kind: 'decades', pass: 0.3, borderline: 0.5 },
+      },
+      source: 'Compare with this instrument’s as-installed curve; within a factor of 2 passes (our working tolerance).',
+      branches: { pass: 'VF6-ok', borderline: 'VF6q', high: 'VF6q', low: 'VF6-ok' },
+    },
+    leaf('VF6-ok', 'Pump-down on track', 'The pump-down follows the baseline.', ['Keep logging to the next milestone.'], 'the high vacuum at the next milestone'),
+    {
+      id: 'VF6q',
+      kind: 'choice',
+      title: 'How does it differ?',
+      text: 'Use the Leak check panel to fit p = A/t + B to the logged values.',
+      options: [
+        opt('slow-rough', 'Slow roughing', 'VF6-rough'),
+        opt('one-over-t', 'High vacuum falling like 1/t', 'VF6-water'),
+        opt('floor', 'Levelling at a high floor', 'VF6-floor'),
+      ],
+    },
+    leaf('VF6-rough', 'Slow roughing', 'A leak or a pump problem. Rough pump-down should take about t = (V/S)·ln(p0/p) (O’Hanlon 2003).', ['Check the rough pump (blank-off) and the foreline.'], 'the time to crossover', {
+      continueWith: ['leak'],
+    }),
+    leaf('VF6-water', 'Water outgassing', 'Be patient, or bake by the procedure.', ['Log the decay.'], 'the high vacuum at the next milestone', { hazards: ['hot-surface'], cards: ['hot-surface'] }),
+    leaf('VF6-floor', 'A floor: leak', 'A constant floor under the 1/t decay is a leak (or permeation).', ['Find it with the leak tree.'], 'the high vacuum and the fitted floor B', { continueWith: ['leak'] }),
+    leaf('VF7', 'Bursts or fluctuation', 'Candidates: a virtual leak (trapped volumes such as blind tapped holes or double O-rings), trapped solvent, a regulator oscillating, turbo speed hunting.', [
+      'Time-correlate the bursts with gas and temperature events.',
+    ], 'a pressure log over the same period'),
+    leaf('VF8', 'Gauges disagree', 'Both gauge types depend on the gas (Jousten 2016). Switch hot-cathode gauges on only below about 10⁻³ mbar (common practice).', [
+      'A contaminated ion gauge reads wrong: degas, clean or replace it by the procedure.',
+      'Cross-check with a second gauge, or with the MS’s own partial pressures.',
+    ], 'both gauges at the same time, with the gas stated', { hazards: ['hot-surface'], cards: ['hot-surface'] }),
+    leaf('VF-stop', 'Stop and escalate', STOP_TEXT, ['Leave the vacuum system closed; pass this walk on.'], 'nothing further here; record every gauge reading for whoever takes over', {
+      escalate: true,
+      cards: ['general'],
+    }),
+  ],
+};

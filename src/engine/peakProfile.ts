@@ -1,0 +1,264 @@
+/**
+ * Peak shape of an ideal quadrupole mass filter: transmission across m/z at fixed U and V, resolution at 50 %
+ * and 10 % of peak height, and the transmission-against-resolution curve as U/V is stepped towards the apex.
+ *
+ * Model and method: see transmission.ts. Results are columnar Float64Arrays, ready to chart and to transfer.
+ */
+import {
+  MAX_PHASES,
+  evaluatePhases,
+  prepareFlight,
+  resolveOptions,
+  summarisePhases,
+  type FastTransmissionOptions,
+  type FastContext,
+  type PhaseValues,
+} from './transmission';
+import { flightModel, requireFinite, requireInteger, validateBeamSettings, type BeamSettings } from './peakInput';
+import { InputRangeError } from './validate';
+import { ATOMIC_MASS_CONSTANT, ELEMENTARY_CHARGE } from './constants';
+import { monodromy, periodTable } from './trajectoryMathieu';
+
+/** Progress and cancellation hooks for long runs (the worker reports progress and can stop a stale run). */
+export interface RunControl {
+  /** Called with the completed fraction in [0, 1]. */
+  onProgress?: (fraction: number) => void;
+  /** Polled between m/z points; returning true abandons the run with PeakCancelledError. */
+  shouldStop?: () => boolean;
+  /** An AbortSignal-like object; aborted → PeakCancelledError. */
+  signal?: { readonly aborted: boolean };
+}
+
+export class PeakCancelledError extends Error {
+  constructor() {
+    super('Peak simulation cancelled');
+    this.name = 'PeakCancelledError';
+  }
+}
+
+export interface PeakProfileParams extends BeamSettings {
+  mzFrom: number;
+  mzTo: number;
+  points: number;
+}
+
+export interface PeakProfile {
+  mz: Float64Array;
+  transmission: Float64Array;
+  /** Error bound per point (sampling bracket + phase-rule estimate); deterministic, so no 1σ. */
+  errorBound: Float64Array;
+  /** m/Δm at 50 % and 10 % of the highest sampled point; NaN when the peak does not fall to that level inside the range. */
+  resolution50: number;
+  resolution10: number;
+  /** Highest sampled transmission and its m/z. */
+  peakTransmission: number;
+  peakMz: number;
+}
+
+export interface PeakProfileOptions extends FastTransmissionOptions, RunControl {
+  /** Target error per point relative to the peak height (phases are doubled until met); default 5e-4. */
+  relativeTolerance?: number;
+}
+
+function checkStop(control: RunControl): void {
+  if (control.signal?.aborted || control.shouldStop?.()) throw new PeakCancelledError();
+}
+
+export function validateProfileParams(p: PeakProfileParams): void {
+  validateBeamSettings(p);
+  requireFinite('mzFrom', p.mzFrom, 0, 1e7);
+  requireFinite('mzTo', p.mzTo, 0, 1e7);
+  if (!(p.mzTo > p.mzFrom)) throw new InputRangeError('mzTo', p.mzTo, `a number greater than mzFrom (${p.mzFrom})`);
+  requireInteger('points', p.points, 2, 4001);
+}
+
+/**
+ * Transmission across m/z at fixed U (dc) and V (rf). Two passes: every point with the starting number of
+ * phases, then points whose error estimate exceeds relativeTolerance × peak height are refined.
+ */
+export function peakProfile(p: PeakProfileParams, options: PeakProfileOptions = {}): PeakProfile {
+  validateProfileParams(p);
+  const resolved = resolveOptions(options);
+  const relative = requireFinite('relativeTolerance', options.relativeTolerance ?? 5e-4, 0, 1);
+  const n = p.points;
+  const mz = new Float64Array(n);
+  const transmission = new Float64Array(n);
+  const errorBound = new Float64Array(n);
+  const values: PhaseValues[] = [];
+  const contexts: FastContext[] = [];
+  for (let i = 0; i < n; i++) mz[i] = p.mzFrom + ((p.mzTo - p.mzFrom) * i) / (n - 1);
+  const report = (fraction: number): void => options.onProgress?.(Math.min(1, Math.max(0, fraction)));
+  // Pass 1: all points at the starting number of phases (about 60 % of the work).
+  let peak = 0;
+  for (let i = 0; i < n; i++) {
+    checkStop(options);
+    const ctx = prepareFlight(flightModel({ ...p, mz: mz[i] }), resolved);
+    contexts.push(ctx);
+    values.push(evaluatePhases(ctx, resolved.phases));
+    const r = summarisePhases(values[i]);
+    transmission[i] = r.transmission;
+    errorBound[i] = r.errorBound;
+    if (r.transmission > peak) peak = r.transmission;
+    report((0.6 * (i + 1)) / n);
+  }
+  // Pass 2: refine where the bound is too large for the peak height.
+  const target = relative * Math.max(peak, 1e-12);
+  const pending: number[] = [];
+  for (let i = 0; i < n; i++) if (errorBound[i] > target) pending.push(i);
+  pending.forEach((i, done) => {
+    checkStop(options);
+    while (errorBound[i] > target && values[i].phases < MAX_PHASES) {
+      values[i] = evaluatePhases(contexts[i], values[i].phases * 2, values[i]);
+      const r = summarisePhases(values[i]);
+      transmission[i] = r.transmission;
+      errorBound[i] = r.errorBound;
+    }
+    report(0.6 + (0.4 * (done + 1)) / pending.length);
+  });
+  report(1);
+  const widths = peakWidths(mz, transmission);
+  return { mz, transmission, errorBound, ...widths };
+}
+
+/**
+ * Resolution m/Δm from a sampled peak: Δm between the outermost crossings of the level (linear interpolation
+ * between samples) around the highest point; m = midpoint of the 50 % crossings. NaN when the profile does not
+ * drop below the level on both sides within the range (the peak is cut off) or has no height.
+ */
+export function peakWidths(mz: Float64Array, t: Float64Array): {
+  resolution50: number;
+  resolution10: number;
+  peakTransmission: number;
+  peakMz: number;
+} {
+  let top = 0;
+  for (let i = 1; i < t.length; i++) if (t[i] > t[top]) top = i;
+  const height = t[top];
+  const crossing = (level: number): [number, number] | null => {
+    let left = -1;
+    for (let i = top; i > 0; i--) if (t[i - 1] < level) { left = i - 1; break; }
+    let right = -1;
+    for (let i = top; i + 1 < t.length; i++) if (t[i + 1] < level) { right = i + 1; break; }
+    if (left < 0 || right < 0) return null;
+    const at = (a: number, b: number): number => mz[a] + ((level - t[a]) / (t[b] - t[a])) * (mz[b] - mz[a]);
+    return [at(left, left + 1), at(right, right - 1)];
+  };
+  if (!(height > 0)) return { resolution50: Number.NaN, resolution10: Number.NaN, peakTransmission: 0, peakMz: mz[top] };
+  const half = crossing(0.5 * height);
+  const tenth = crossing(0.1 * height);
+  const centre = half ? 0.5 * (half[0] + half[1]) : mz[top];
+  return {
+    resolution50: half ? centre / (half[1] - half[0]) : Number.NaN,
+    resolution10: tenth ? centre / (tenth[1] - tenth[0]) : Number.NaN,
+    peakTransmission: height,
+    peakMz: mz[top],
+  };
+}
+
+/**
+ * The m/z interval where both x and y motions are stable (|tr M| < 2, Floquet) along the scan line of fixed U, V,
+ * found by bisection from a stable starting m/z. Returns null if `inside` is not stable.
+ * (For windows only; the engine's passBand gives the published band edges.)
+ */
+export function stableInterval(s: BeamSettings, inside: number): { low: number; high: number } | null {
+  const z = Math.abs(s.charge ?? 1);
+  const omega = 2 * Math.PI * s.frequency;
+  const stable = (mz: number): boolean => {
+    const scale = (z * ELEMENTARY_CHARGE) / (mz * z * ATOMIC_MASS_CONSTANT * s.r0 * s.r0 * omega * omega);
+    const a = 8 * scale * s.dc;
+    const q = 4 * scale * s.rf;
+    const tx = monodromy(periodTable(a, q, 64, 2));
+    const ty = monodromy(periodTable(-a, -q, 64, 2));
+    return Math.abs(tx[0] + tx[3]) < 2 && Math.abs(ty[0] + ty[3]) < 2;
+  };
+  if (!stable(inside)) return null;
+  const edge = (direction: number): number => {
+    let good = inside;
+    let step = inside * 1e-4;
+    let bad = inside + direction * step;
+    while (stable(bad)) {
+      good = bad;
+      step *= 2;
+      bad = inside + direction * step;
+      if (bad <= 0 || step > inside * 10) return bad;
+    }
+    for (let i = 0; i < 60; i++) {
+      const mid = 0.5 * (good + bad);
+      if (stable(mid)) good = mid;
+      else bad = mid;
+    }
+    return 0.5 * (good + bad);
+  };
+  return { low: edge(-1), high: edge(1) };
+}
+
+export interface TransmissionVsResolutionParams extends Omit<BeamSettings, 'dc' | 'rf'> {
+  /** Nominal m/z: V is set so that q = qOperating there. */
+  mz: number;
+  /** q at the nominal m/z (default 0.706, near the apex). */
+  qOperating?: number;
+  /** U/V ratios to visit, ascending towards the apex (default: 12 steps from 0.150 to 0.1675). */
+  ratios?: number[];
+  /** Points per peak profile (default 61). */
+  points?: number;
+}
+
+export interface TransmissionVsResolution {
+  ratio: Float64Array;
+  dc: Float64Array;
+  rf: Float64Array;
+  resolution50: Float64Array;
+  resolution10: Float64Array;
+  peakTransmission: Float64Array;
+}
+
+/**
+ * Step U/V towards the apex at fixed V and record the highest transmission of the peak against its resolution.
+ * Ratios past the apex (no stable band) give T = 0 and R = NaN. Each peak's window is its stable band widened by
+ * half its width plus the finite-flight tail m·20/n² on each side.
+ */
+export function transmissionVsResolution(
+  p: TransmissionVsResolutionParams,
+  options: PeakProfileOptions = {},
+): TransmissionVsResolution {
+  requireFinite('mz', p.mz, 0, 1e7);
+  const qOperating = requireFinite('qOperating', p.qOperating ?? 0.706, 0, 0.908);
+  const ratios = p.ratios ?? Array.from({ length: 12 }, (_, i) => 0.15 + (0.0175 * i) / 11);
+  if (!Array.isArray(ratios) || ratios.length < 1) throw new InputRangeError('ratios', ratios, 'a non-empty list of U/V ratios');
+  ratios.forEach((r, i) => requireFinite(`ratios[${i}]`, r, 0, 0.5, 'none'));
+  const points = requireInteger('points', p.points ?? 61, 5, 1001);
+  const z = Math.abs(p.charge ?? 1);
+  const omega = 2 * Math.PI * p.frequency;
+  const rf = (qOperating * p.mz * z * ATOMIC_MASS_CONSTANT * p.r0 * p.r0 * omega * omega) / (4 * z * ELEMENTARY_CHARGE);
+  const k = ratios.length;
+  const out: TransmissionVsResolution = {
+    ratio: Float64Array.from(ratios),
+    dc: new Float64Array(k),
+    rf: new Float64Array(k).fill(rf),
+    resolution50: new Float64Array(k).fill(Number.NaN),
+    resolution10: new Float64Array(k).fill(Number.NaN),
+    peakTransmission: new Float64Array(k),
+  };
+  // Flight length at the nominal m/z (for the window's tail allowance); validates the beam settings too.
+  const cycles = flightModel({ ...p, mz: p.mz, dc: 0, rf }).cycles;
+  ratios.forEach((ratio, i) => {
+    checkStop(options);
+    const dc = ratio * rf;
+    out.dc[i] = dc;
+    const settings: BeamSettings = { ...p, dc, rf };
+    const band = stableInterval(settings, p.mz);
+    if (band) {
+      const width = band.high - band.low;
+      const margin = 0.5 * width + (p.mz * 20) / (cycles * cycles);
+      const profile = peakProfile(
+        { ...settings, mzFrom: Math.max(band.low - margin, 1e-3), mzTo: band.high + margin, points },
+        { ...options, onProgress: (f) => options.onProgress?.((i + f) / k) },
+      );
+      out.resolution50[i] = profile.resolution50;
+      out.resolution10[i] = profile.resolution10;
+      out.peakTransmission[i] = profile.peakTransmission;
+    }
+    options.onProgress?.((i + 1) / k);
+  });
+  return out;
+}

@@ -1,0 +1,657 @@
+/**
+ * Ion-ensemble transmission through an ideal quadrupole mass filter, computed deterministically.
+ *
+ * MODEL (stated here and on screen): ideal hyperbolic field over the whole rod length, no fringe fields, no
+ * collisions, no space charge. Engine convention: x pair at +(U + V cos Ωt), y pair at −(U + V cos Ωt), per rod
+ * to ground, V zero-to-peak; a = 8zeU/(m r0²Ω²), q = 4zeV/(m r0²Ω²), ξ = Ωt/2, x'' + (a − 2q cos 2ξ)x = 0,
+ * y'' − (a − 2q cos 2ξ)y = 0. Ions: entry phase ξ0 uniform over one RF period (Δξ = π); entry point uniform in a
+ * disc of radius beamRadius on the axis; v_x, v_y independent Gaussians, mean 0, σ = √(e·ε⊥/m) with
+ * ε⊥ = transverseEnergy (eV); axial speed fixed, v_z = √(2zeV_z/m); flight n = f·L/v_z RF cycles, not rounded.
+ * An ion is lost when |x| ≥ r0 or |y| ≥ r0 at any instant of the flight. T = transmitted fraction.
+ *
+ * METHOD. The motion is linear: x(ξ) = x0·u(ξ) + x0'·w(ξ) with u, w the fundamental solutions from the entry
+ * phase. For phase 0 we tabulate the rows r(ξ) = (u, w) at S samples per period (Magnus, trajectoryMathieu.ts);
+ * later periods follow from the one-period matrix M: r(ξ + pπ) = r(ξ)·M^p. An ion entering at ξ0 has rows
+ * c(ξ) = r(ξ)·Φ(ξ0)⁻¹, so every entry phase shares one point set, seen through a window [ξ0, ξ0 + nπ].
+ * (x0, x0') survives the samples iff |c·z| < r0 for every sampled c; only the vertices of the convex hull of ±c
+ * matter, and the accepted set is the polar polygon of that hull (a centrally symmetric convex polygon).
+ * The hull of the whole periods 1..⌊n⌋−1 is built by doubling (hull(D ∪ D·M^k)), so the cost grows as log n;
+ * each phase then adds its own partial first and last periods.
+ * For each x0 the accepted x0' is an interval [lo, hi] of a piecewise-linear concave chain, so the Gaussian
+ * velocity integral is Φ(hi/s) − Φ(lo/s); the y-side integral over the chord of the disc has a closed form
+ * (∫Φ = τΦ + φ on each linear piece); the remaining integral over x0 uses Gauss–Legendre panels split at every
+ * feature (chain zero crossings and ends), after x0 = b sin θ removes the square root at the rim of the disc.
+ * The entry phase is averaged with the trapezoid rule on a uniform periodic grid (exponentially convergent for
+ * smooth periodic integrands; checked against twice the phases in the tests).
+ *
+ * ERROR BOUND. Between two samples ξ_k, ξ_k + h, e = x − (chord) satisfies e'' = −g·x, |g| ≤ G = |a| + 2|q|, so
+ * max|x| ≤ max(|x_k|, |x_k+1|) + h²G/8·max|x|. With ε = h²G/8 (h = π/S) the true acceptance lies between the
+ * sampled polygon A and (1 − ε)·A. Both are integrated: T_in ≤ T ≤ T_out. We return the midpoint and the
+ * half-width as `errorBound` (rigorous for the sampling; the Magnus tables, erfc and quadrature add < 1e-7,
+ * checked by convergence tests). `uncertainty` is 0: nothing here is random.
+ */
+import { ConvexIndex, convexHull, insertIntoHull, polarPolygon, transformRows } from './transmissionHull';
+import { gaussLegendre, meanNormalCdf, normalCdf, psiExcess } from './transmissionMath';
+import { fundamentalAt, monodromy, multiply2, periodTable, power2, type PeriodTable } from './trajectoryMathieu';
+import { flightModel, requireInteger, type FlightModel, type TransmissionParams } from './peakInput';
+
+export interface TransmissionResult {
+  transmission: number;
+  /** 1σ statistical uncertainty: 0 for this deterministic method. */
+  uncertainty: number;
+  /** Half-width of the rigorous sampling bracket [T_in, T_out] around `transmission`. */
+  errorBound: number;
+}
+
+export interface FastTransmissionOptions {
+  /** Samples per RF period S (a multiple of `phases`); default 128. */
+  samplesPerPeriod?: number;
+  /** Entry phases to start with (doubled while the error estimate is too large); default 16. */
+  phases?: number;
+  /** Gauss–Legendre order per panel; default 4. */
+  quadratureOrder?: number;
+  /** Magnus steps between samples; default 2. */
+  substeps?: number;
+}
+
+export const FAST_DEFAULTS = { samplesPerPeriod: 128, phases: 16, quadratureOrder: 4, substeps: 2 } as const;
+
+/** A c-space hull beyond this size means the acceptance is thinner than 1e-80 of the beam: T = 0 (documented). */
+const COLLAPSE_LIMIT = 1e80;
+
+/** Everything about one transverse axis that does not depend on the entry phase. */
+export interface AxisFlight {
+  table: PeriodTable;
+  monodromy: Float64Array;
+  cycles: number;
+  /** Hull (r-space, phase-0 frame) of whole periods 1..coreEnd, or null if none. */
+  core: Float64Array | null;
+  /** Fast inside test for the core hull (points inside it cannot be vertices of a window's hull). */
+  coreIndex: ConvexIndex | null;
+  coreEnd: number;
+  /** The motion grows so fast that nothing survives (see COLLAPSE_LIMIT). */
+  collapsed: boolean;
+  /** Relative overshoot bound ε = h²G/8 between samples. */
+  epsilon: number;
+  /**
+   * Samples outside the core that some window may include: period 0 and the periods after the core, as
+   * (ξ, u, w) rows in the phase-0 frame, ascending ξ. Samples inside the core hull are dropped once, here.
+   */
+  candidates: { xi: Float64Array; u: Float64Array; w: Float64Array; count: number };
+}
+
+export function prepareAxis(A: number, Q: number, cycles: number, samples: number, substeps: number): AxisFlight {
+  const table = periodTable(A, Q, samples, substeps);
+  const m = monodromy(table);
+  const h = Math.PI / samples;
+  const epsilon = (h * h * (Math.abs(A) + 2 * Math.abs(Q))) / 8;
+  // One period's rows and their negatives.
+  const one = new Float64Array(4 * (samples + 1));
+  for (let j = 0; j <= samples; j++) {
+    one[2 * j] = table.u[j];
+    one[2 * j + 1] = table.w[j];
+    one[2 * (samples + 1 + j)] = -table.u[j];
+    one[2 * (samples + 1 + j) + 1] = -table.w[j];
+  }
+  const h1 = convexHull(one, 2 * (samples + 1));
+  const coreEnd = Math.floor(cycles) - 1;
+  let core: Float64Array | null = null;
+  let collapsed = false;
+  if (coreEnd >= 1) {
+    // D_k = hull of periods 0..k−1; binary doubling from the top bit of coreEnd.
+    let d = h1;
+    let mk = m; // M^k
+    const bits = coreEnd.toString(2);
+    for (let i = 1; i < bits.length && !collapsed; i++) {
+      d = mergeHull(d, d, mk);
+      mk = multiply2(mk, mk);
+      if (bits[i] === '1') {
+        d = mergeHull(d, h1, mk);
+        mk = multiply2(mk, m);
+      }
+      if (maxAbs(mk) > COLLAPSE_LIMIT || maxAbs(d) > COLLAPSE_LIMIT) collapsed = true;
+    }
+    if (!collapsed) {
+      const shifted = new Float64Array(d.length);
+      transformRows(d, d.length / 2, m, shifted, 0);
+      core = convexHull(shifted, shifted.length / 2);
+    }
+  }
+  const coreIndex = core && core.length >= 6 ? new ConvexIndex(core) : null;
+  const candidates = windowCandidates(table, m, coreEnd, cycles, coreIndex);
+  return { table, monodromy: m, cycles, core, coreIndex, coreEnd, collapsed, epsilon, candidates };
+}
+
+function windowCandidates(
+  table: PeriodTable,
+  m: Float64Array,
+  coreEnd: number,
+  cycles: number,
+  index: ConvexIndex | null,
+): AxisFlight['candidates'] {
+  const S = table.samples;
+  const spacing = Math.PI / S;
+  const firstExtra = Math.max(1, coreEnd + 1);
+  // The latest window ends before π + nπ.
+  const lastPeriod = Math.floor(cycles + 1);
+  const capacity = S + 1 + Math.max(0, lastPeriod - firstExtra + 1) * S;
+  const xi = new Float64Array(capacity);
+  const u = new Float64Array(capacity);
+  const w = new Float64Array(capacity);
+  let count = 0;
+  const add = (at: number, a: number, b: number): void => {
+    if (index && index.contains(a, b)) return; // −(a, b) is then inside too: the core is centrally symmetric
+    xi[count] = at;
+    u[count] = a;
+    w[count] = b;
+    count++;
+  };
+  for (let j = 1; j <= S; j++) add(j * spacing, table.u[j], table.w[j]);
+  if (lastPeriod >= firstExtra && lastPeriod - firstExtra < 4) {
+    let mp = power2(m, firstExtra);
+    for (let p = firstExtra; p <= lastPeriod; p++) {
+      for (let j = 0; j < S; j++) {
+        const a = table.u[j];
+        const b = table.w[j];
+        add(p * Math.PI + j * spacing, a * mp[0] + b * mp[2], a * mp[1] + b * mp[3]);
+      }
+      mp = multiply2(mp, m);
+    }
+  }
+  return { xi, u, w, count };
+}
+
+function mergeHull(d: Float64Array, e: Float64Array, b: Float64Array): Float64Array {
+  const nd = d.length / 2;
+  const ne = e.length / 2;
+  const all = new Float64Array(2 * (nd + ne));
+  all.set(d);
+  transformRows(e, ne, b, all, nd);
+  return convexHull(all, nd + ne);
+}
+
+function maxAbs(v: Float64Array): number {
+  let m = 0;
+  for (let i = 0; i < v.length; i++) m = Math.max(m, Math.abs(v[i]));
+  return m;
+}
+
+/**
+ * The accepted polygon (units of r0: (x0/r0, x0'/r0)) for entry phase ξ0 ∈ [0, π), or null if the axis collapsed.
+ * Counter-clockwise vertices.
+ */
+export function acceptancePolygon(axis: AxisFlight, entryPhase: number): Float64Array | null {
+  const c = constraintHull(axis, entryPhase);
+  return c ? polarPolygon(c) : null;
+}
+
+/**
+ * Hull of ±c(ξ) over the sampled flight for entry phase ξ0 (c-space: x(ξ)/r0 = c·(x0, x0')/r0), counter-clockwise;
+ * null if the axis collapsed. max over its vertices of |c·z| is the largest sampled |x|/r0 of the ion z.
+ */
+export function constraintHull(axis: AxisFlight, entryPhase: number): Float64Array | null {
+  if (axis.collapsed) return null;
+  const { table, cycles, candidates } = axis;
+  const end = entryPhase + cycles * Math.PI;
+  const lastPeriod = Math.floor(end / Math.PI);
+  const coreCount = axis.core ? axis.core.length / 2 : 0;
+  const pts = new Float64Array(2 * (coreCount + 2 * (candidates.count + 2)));
+  let count = 0;
+  if (axis.core) {
+    pts.set(axis.core);
+    count = coreCount;
+  }
+  const index = axis.coreIndex;
+  const push = (x: number, y: number): void => {
+    if (index && index.contains(x, y)) return;
+    pts[2 * count] = x;
+    pts[2 * count + 1] = y;
+    pts[2 * count + 2] = -x;
+    pts[2 * count + 3] = -y;
+    count += 2;
+  };
+  const entry = new Float64Array(4);
+  fundamentalAt(table, entryPhase, entry);
+  push(entry[0], entry[1]);
+  // Samples strictly after the entry and not after the exit (period 0 and the periods after the core).
+  for (let i = 0; i < candidates.count; i++) {
+    const at = candidates.xi[i];
+    if (at <= entryPhase) continue;
+    if (at > end) break;
+    pts[2 * count] = candidates.u[i];
+    pts[2 * count + 1] = candidates.w[i];
+    pts[2 * count + 2] = -candidates.u[i];
+    pts[2 * count + 3] = -candidates.w[i];
+    count += 2;
+  }
+  // Exit point.
+  const exit = new Float64Array(4);
+  const mEnd = power2(axis.monodromy, lastPeriod);
+  fundamentalAt(table, end - lastPeriod * Math.PI, exit);
+  push(exit[0] * mEnd[0] + exit[1] * mEnd[2], exit[0] * mEnd[1] + exit[1] * mEnd[3]);
+
+  // Few points outside the core: insert them; many (growing motion): one full hull.
+  const extraCount = count - coreCount;
+  const hull =
+    axis.core && extraCount <= 24
+      ? insertIntoHull(axis.core, pts.subarray(2 * coreCount), extraCount)
+      : convexHull(pts, count);
+  if (maxAbs(hull) > COLLAPSE_LIMIT) return null;
+  // c = r·Φ(ξ0)⁻¹, Φ⁻¹ = [[w', −w], [−u', u]] (det Φ = 1).
+  const inverse = Float64Array.of(entry[3], -entry[1], -entry[2], entry[0]);
+  const c = new Float64Array(hull.length);
+  transformRows(hull, hull.length / 2, inverse, c, 0);
+  return c;
+}
+
+/** Largest sampled |x|/r0 along the flight of an ion entering at ξ0 with (x0, x0') in units of r0. */
+export function sampledExcursion(hull: Float64Array, x0: number, slope0: number): number {
+  let m = 0;
+  for (let i = 0; i < hull.length; i += 2) m = Math.max(m, Math.abs(hull[i] * x0 + hull[i + 1] * slope0));
+  return m;
+}
+
+/** Upper boundary x0'max(x0) of a centrally symmetric convex polygon, as increasing x with heights. */
+export interface UpperChain {
+  xs: Float64Array;
+  hs: Float64Array;
+  /** Half-width of the polygon in x. */
+  extent: number;
+}
+
+export function upperChain(polygon: Float64Array, scale = 1): UpperChain {
+  const m = polygon.length / 2;
+  let right = 0;
+  let left = 0;
+  for (let i = 1; i < m; i++) {
+    const x = polygon[2 * i];
+    const y = polygon[2 * i + 1];
+    if (x > polygon[2 * right] || (x === polygon[2 * right] && y > polygon[2 * right + 1])) right = i;
+    if (x < polygon[2 * left]) left = i;
+  }
+  const minX = polygon[2 * left];
+  const indices: number[] = [];
+  for (let i = right; ; i = (i + 1) % m) {
+    indices.push(i);
+    if (polygon[2 * i] === minX) break;
+    if (indices.length > m) break;
+  }
+  const k = indices.length;
+  const xs = new Float64Array(k);
+  const hs = new Float64Array(k);
+  for (let t = 0; t < k; t++) {
+    const i = indices[k - 1 - t];
+    xs[t] = scale * polygon[2 * i];
+    hs[t] = scale * polygon[2 * i + 1];
+  }
+  return { xs, hs, extent: scale * polygon[2 * right] };
+}
+
+/** The part of a chain over [−limit, limit] (limit ≤ extent), ends interpolated; `extent` is kept. */
+export function clipChain(chain: UpperChain, limit: number): UpperChain {
+  const { xs, hs } = chain;
+  if (limit >= chain.extent || xs.length < 2) return chain;
+  const k0 = segmentOf(xs, -limit);
+  const k1 = segmentOf(xs, limit);
+  const n = k1 - k0 + 2;
+  const cx = new Float64Array(n);
+  const ch = new Float64Array(n);
+  cx[0] = -limit;
+  ch[0] = heightAt(chain, -limit);
+  for (let k = k0 + 1; k <= k1; k++) {
+    cx[k - k0] = xs[k];
+    ch[k - k0] = hs[k];
+  }
+  cx[n - 1] = limit;
+  ch[n - 1] = heightAt(chain, limit);
+  return { xs: cx, hs: ch, extent: chain.extent };
+}
+
+/** Index k with xs[k] ≤ x ≤ xs[k+1] (clamped). */
+function segmentOf(xs: Float64Array, x: number): number {
+  let lo = 0;
+  let hi = xs.length - 1;
+  if (x <= xs[0]) return 0;
+  if (x >= xs[hi]) return Math.max(0, hi - 1);
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (xs[mid] <= x) lo = mid;
+    else hi = mid;
+  }
+  return lo;
+}
+
+function heightAt(chain: UpperChain, x: number): number {
+  const { xs, hs } = chain;
+  if (xs.length === 1) return hs[0];
+  const k = segmentOf(xs, x);
+  const dx = xs[k + 1] - xs[k];
+  if (dx <= 0) return Math.max(hs[k], hs[k + 1]);
+  const t = Math.min(1, Math.max(0, (x - xs[k]) / dx));
+  return hs[k] + t * (hs[k + 1] - hs[k]);
+}
+
+/** Φ(h/s), with the s = 0 limit (no transverse velocity) as a step. */
+function cdfRatio(h: number, s: number): number {
+  if (s > 0) return normalCdf(h / s);
+  return h > 0 ? 1 : h < 0 ? 0 : 0.5;
+}
+
+/** Mean of Φ(h/s) for h linear from h0 to h1. */
+function segmentMean(h0: number, h1: number, s: number): number {
+  if (s > 0) return meanNormalCdf(h0 / s, h1 / s);
+  if (h0 >= 0 && h1 >= 0) return 1;
+  if (h0 <= 0 && h1 <= 0) return 0;
+  return Math.max(h0, h1) / Math.abs(h1 - h0);
+}
+
+/** Velocity-integrated survival P(x0) = Φ(hi(x0)/s) − Φ(lo(x0)/s), lo(x) = −hi(−x) by symmetry. */
+export function survivalAt(chain: UpperChain, x: number, s: number): number {
+  if (Math.abs(x) >= chain.extent) return 0;
+  const value = cdfRatio(heightAt(chain, x), s) + cdfRatio(heightAt(chain, -x), s) - 1;
+  return value > 0 ? value : 0;
+}
+
+/**
+ * F(y) = ∫_{−Y0}^{y} Φ(hi(t)/s) dt along a (clipped) chain, in closed form per linear piece:
+ * ∫Φ(τ)dt = (Ψ(τ1) − Ψ(τ0))·Δt/Δτ with Ψ cached at the vertices (Ψ = max(τ, 0) + excess, see transmissionMath).
+ */
+interface ChainIntegral {
+  chain: UpperChain;
+  s: number;
+  /** F at the vertices. */
+  f: Float64Array;
+  /** τ = h/s and the Ψ excess at the vertices (s > 0 only). */
+  tau: Float64Array;
+  psi: Float64Array;
+}
+
+function chainIntegral(chain: UpperChain, s: number): ChainIntegral {
+  const { xs, hs } = chain;
+  const n = xs.length;
+  const f = new Float64Array(n);
+  const tau = new Float64Array(n);
+  const psi = new Float64Array(n);
+  if (s > 0) for (let k = 0; k < n; k++) {
+    tau[k] = hs[k] / s;
+    psi[k] = psiExcess(tau[k]);
+  }
+  const integral: ChainIntegral = { chain, s, f, tau, psi };
+  for (let k = 0; k + 1 < n; k++) f[k + 1] = f[k] + pieceIntegral(integral, k, xs[k + 1] - xs[k], hs[k + 1], tau[k + 1], psi[k + 1]);
+  return integral;
+}
+
+/** ∫ from vertex k over a length dy to a point of height h (τ, Ψ excess given when known, else NaN). */
+function pieceIntegral(g: ChainIntegral, k: number, dy: number, h: number, tauEnd: number, psiEnd: number): number {
+  if (dy <= 0) return 0;
+  const s = g.s;
+  const h0 = g.chain.hs[k];
+  if (!(s > 0)) return dy * segmentMean(h0, h, 0);
+  const t0 = g.tau[k];
+  const t1 = Number.isNaN(tauEnd) ? h / s : tauEnd;
+  if (Math.abs(t1 - t0) < 0.1) return dy * meanNormalCdf(t0, t1);
+  const p1 = Number.isNaN(psiEnd) ? psiExcess(t1) : psiEnd;
+  return (dy * (Math.max(t1, 0) - Math.max(t0, 0) + p1 - g.psi[k])) / (t1 - t0);
+}
+
+function cumulativeAt(g: ChainIntegral, y: number): number {
+  const { xs } = g.chain;
+  if (xs.length === 1) return 0;
+  const k = segmentOf(xs, y);
+  const dy = y - xs[k];
+  if (dy <= 0) return g.f[k];
+  return g.f[k] + pieceIntegral(g, k, dy, heightAt(g.chain, y), Number.NaN, Number.NaN);
+}
+
+/** C(Y) = ∫_0^Y P(y) dy = F(Y) − F(−Y) − Y for Y inside the polygon's extent, constant beyond. */
+function chordIntegral(g: ChainIntegral, Y: number): number {
+  const y = Math.min(Y, g.chain.extent);
+  if (y <= 0) return 0;
+  const value = cumulativeAt(g, y) - cumulativeAt(g, -y) - y;
+  return value > 0 ? value : 0;
+}
+
+/**
+ * Where P changes character: the chain ends, and every x at which hi(x) (or hi(−x)) crosses one of the levels
+ * 0, ±k·s (k in `levels`) — the Gaussian velocity weight switches over there, so panels are cut at those x.
+ * Level crossings adapt to the local steepness of the chain, however curved it is.
+ */
+function chainFeatures(chain: UpperChain, s: number, out: number[], levels: readonly number[]): void {
+  const { xs, hs } = chain;
+  out.push(chain.extent);
+  const targets = [0];
+  if (s > 0) for (const k of levels) targets.push(k * s, -k * s);
+  for (const level of targets) {
+    for (let k = 0; k + 1 < xs.length; k++) {
+      const h0 = hs[k] - level;
+      const h1 = hs[k + 1] - level;
+      if ((h0 > 0) !== (h1 > 0)) {
+        const x = xs[k] + (h0 / (h0 - h1)) * (xs[k + 1] - xs[k]);
+        out.push(x, -x);
+      }
+    }
+  }
+}
+
+const ruleCache = new Map<number, { nodes: Float64Array; weights: Float64Array }>();
+function rule(order: number): { nodes: Float64Array; weights: Float64Array } {
+  let r = ruleCache.get(order);
+  if (!r) {
+    r = gaussLegendre(order);
+    ruleCache.set(order, r);
+  }
+  return r;
+}
+
+/**
+ * Transmission at one entry phase: (1/πb²)∫∫_disc P_x(x) P_y(y) dx dy
+ *   = (4/πb) ∫_0^Θ P_x(b sin θ) C_y(b cos θ) cos θ dθ, using evenness of P_x and P_y.
+ */
+export function phaseTransmission(
+  fullX: UpperChain,
+  fullY: UpperChain,
+  beamRadius: number,
+  s: number,
+  order: number,
+  maxPanel = Math.PI / 8,
+  levels: readonly number[] = [0.5, 1, 2, 4],
+): number {
+  const b = beamRadius;
+  const limit = Math.min(b, fullX.extent);
+  if (limit <= 0 || fullY.extent <= 0) return 0;
+  // Only the parts of the chains inside the beam matter.
+  const chainX = clipChain(fullX, limit);
+  const chainY = clipChain(fullY, Math.min(b, fullY.extent));
+  const fy = chainIntegral(chainY, s);
+  const thetaMax = Math.asin(Math.min(1, limit / b));
+  const xFeatures: number[] = [];
+  chainFeatures(chainX, s, xFeatures, levels);
+  const yFeatures: number[] = [];
+  chainFeatures(chainY, s, yFeatures, levels);
+  const cuts: number[] = [0, thetaMax];
+  for (const x of xFeatures) if (x > 0 && x < limit) cuts.push(Math.asin(x / b));
+  for (const y of yFeatures) if (y > 0 && y < b) {
+    const t = Math.acos(y / b);
+    if (t < thetaMax) cuts.push(t);
+  }
+  cuts.sort((p, q) => p - q);
+  const { nodes, weights } = rule(order);
+  let sum = 0;
+  for (let i = 0; i + 1 < cuts.length; i++) {
+    const t0 = cuts[i];
+    const t1 = cuts[i + 1];
+    if (t1 - t0 < 1e-15) continue;
+    const pieces = Math.max(1, Math.ceil((t1 - t0) / maxPanel));
+    const width = (t1 - t0) / pieces;
+    for (let piece = 0; piece < pieces; piece++) {
+      const a = t0 + piece * width;
+      const half = width / 2;
+      const mid = a + half;
+      let panel = 0;
+      for (let k = 0; k < nodes.length; k++) {
+        const theta = mid + half * nodes[k];
+        const c = Math.cos(theta);
+        const px = survivalAt(chainX, b * Math.sin(theta), s);
+        if (px === 0) continue;
+        panel += weights[k] * px * chordIntegral(fy, b * c) * c;
+      }
+      sum += panel * half;
+    }
+  }
+  return (4 / (Math.PI * b)) * sum;
+}
+
+export interface FastContext {
+  model: FlightModel;
+  x: AxisFlight;
+  y: AxisFlight;
+  options: Required<FastTransmissionOptions>;
+}
+
+export function resolveOptions(options: FastTransmissionOptions = {}): Required<FastTransmissionOptions> {
+  const resolved = { ...FAST_DEFAULTS, ...options };
+  requireInteger('phases', resolved.phases, 1, 4096);
+  requireInteger('samplesPerPeriod', resolved.samplesPerPeriod, 4, 1 << 16);
+  requireInteger('quadratureOrder', resolved.quadratureOrder, 2, 64);
+  requireInteger('substeps', resolved.substeps, 1, 64);
+  return resolved;
+}
+
+export function prepareFlight(model: FlightModel, options: Required<FastTransmissionOptions>): FastContext {
+  const { samplesPerPeriod: S, substeps } = options;
+  return {
+    model,
+    x: prepareAxis(model.a, model.q, model.cycles, S, substeps),
+    y: prepareAxis(-model.a, -model.q, model.cycles, S, substeps),
+    options,
+  };
+}
+
+/** Outer (sampled) and inner ((1 − ε)-scaled) transmission at one entry phase. */
+export function phaseBracket(ctx: FastContext, entryPhase: number): { outer: number; inner: number } {
+  const px = acceptancePolygon(ctx.x, entryPhase);
+  const py = px ? acceptancePolygon(ctx.y, entryPhase) : null;
+  if (!px || !py) return { outer: 0, inner: 0 };
+  const { beamRadius, slopeSigma } = ctx.model;
+  const order = ctx.options.quadratureOrder;
+  const outer = phaseTransmission(upperChain(px), upperChain(py), beamRadius, slopeSigma, order);
+  const inner = phaseTransmission(upperChain(px, 1 - ctx.x.epsilon), upperChain(py, 1 - ctx.y.epsilon), beamRadius, slopeSigma, order);
+  return { outer, inner };
+}
+
+/**
+ * Entry-phase values on the grid ξ0 = kπ/P. Outer (sampled polygon) at every phase; inner ((1 − ε)-scaled)
+ * at the even phases only, since the sampling bracket varies slowly with phase.
+ */
+export interface PhaseValues {
+  phases: number;
+  outer: Float64Array;
+  inner: Float64Array;
+}
+
+/** Evaluate (or refine to) P phases, reusing the P/2 values of `previous`. */
+export function evaluatePhases(ctx: FastContext, phases: number, previous: PhaseValues | null = null): PhaseValues {
+  const outer = new Float64Array(phases);
+  const inner = new Float64Array(phases).fill(Number.NaN);
+  const collapsed = ctx.x.collapsed || ctx.y.collapsed;
+  const reuse = previous && previous.phases * 2 === phases ? previous : null;
+  for (let k = 0; k < phases; k++) {
+    if (collapsed) {
+      outer[k] = 0;
+      inner[k] = 0;
+      continue;
+    }
+    if (reuse && k % 2 === 0) {
+      outer[k] = reuse.outer[k / 2];
+      if (k % 4 === 0) inner[k] = reuse.inner[k / 2];
+      continue;
+    }
+    const entry = (k * Math.PI) / phases;
+    const px = acceptancePolygon(ctx.x, entry);
+    const py = px ? acceptancePolygon(ctx.y, entry) : null;
+    if (!px || !py) {
+      outer[k] = 0;
+      inner[k] = 0;
+      continue;
+    }
+    const { beamRadius, slopeSigma } = ctx.model;
+    const order = ctx.options.quadratureOrder;
+    outer[k] = phaseTransmission(upperChain(px), upperChain(py), beamRadius, slopeSigma, order);
+    if (k % 2 === 0 && Number.isNaN(inner[k])) {
+      inner[k] = phaseTransmission(upperChain(px, 1 - ctx.x.epsilon), upperChain(py, 1 - ctx.y.epsilon), beamRadius, slopeSigma, order);
+    }
+  }
+  // Inner values of the even phases that were reused from a coarser grid where they were odd: fill them now.
+  for (let k = 0; k < phases; k += 2) {
+    if (Number.isNaN(inner[k])) {
+      const entry = (k * Math.PI) / phases;
+      const px = acceptancePolygon(ctx.x, entry);
+      const py = px ? acceptancePolygon(ctx.y, entry) : null;
+      inner[k] = px && py
+        ? phaseTransmission(upperChain(px, 1 - ctx.x.epsilon), upperChain(py, 1 - ctx.y.epsilon), ctx.model.beamRadius, ctx.model.slopeSigma, ctx.options.quadratureOrder)
+        : 0;
+    }
+  }
+  return { phases, outer, inner };
+}
+
+/**
+ * Result from phase values. T_out(P) = mean of the outer values (trapezoid rule, periodic); the sampling bracket
+ * T_out − T_in is taken from the even phases; the phase-rule error is estimated by |T_out(P) − T_out(P/2)|
+ * (the P/2 rule is the even subset; for a smooth periodic integrand the P rule's error is far below this).
+ * transmission = T_out(P) − bracket/2; errorBound = bracket/2 + phase-rule estimate.
+ */
+export function summarisePhases(values: PhaseValues): TransmissionResult & { phaseError: number; samplingError: number } {
+  const P = values.phases;
+  let outer = 0;
+  let outerEven = 0;
+  let innerEven = 0;
+  for (let k = 0; k < P; k++) {
+    outer += values.outer[k];
+    if (k % 2 === 0) {
+      outerEven += values.outer[k];
+      innerEven += values.inner[k];
+    }
+  }
+  const half = Math.max(1, Math.ceil(P / 2));
+  outer /= P;
+  outerEven /= half;
+  innerEven /= half;
+  const samplingError = 0.5 * Math.max(0, outerEven - innerEven);
+  const phaseError = P >= 2 ? Math.abs(outer - outerEven) : outer;
+  const transmission = Math.min(1, Math.max(0, outer - samplingError));
+  return { transmission, uncertainty: 0, errorBound: samplingError + phaseError, phaseError, samplingError };
+}
+
+/** Phase-averaged transmission, doubling the phases from 16 until the error estimate meets `tolerance`. */
+export function flightTransmission(ctx: FastContext, tolerance: number = Number.POSITIVE_INFINITY): TransmissionResult {
+  let values = evaluatePhases(ctx, ctx.options.phases);
+  let result = summarisePhases(values);
+  while (result.errorBound > tolerance && values.phases < MAX_PHASES) {
+    values = evaluatePhases(ctx, values.phases * 2, values);
+    result = summarisePhases(values);
+  }
+  return { transmission: result.transmission, uncertainty: 0, errorBound: result.errorBound };
+}
+
+/** Upper limit of entry phases for the adaptive rule. */
+export const MAX_PHASES = 512;
+
+/**
+ * Transmitted fraction of the ion ensemble (see the model and method above). SI inputs; m/z in u per e.
+ * Throws InputRangeError naming the field and accepted range on bad input.
+ */
+export function transmission(p: TransmissionParams, options: FastTransmissionOptions & { relativeTolerance?: number } = {}): TransmissionResult {
+  const model = flightModel(p);
+  const resolved = resolveOptions(options);
+  const relative = options.relativeTolerance ?? 1e-3;
+  const ctx = prepareFlight(model, resolved);
+  // Refine until the bound is below relativeTolerance·T (with a floor of 1e-6 absolute for T near 0).
+  let values = evaluatePhases(ctx, resolved.phases);
+  let result = summarisePhases(values);
+  while (result.errorBound > relative * Math.max(result.transmission, 1e-3) && values.phases < MAX_PHASES) {
+    values = evaluatePhases(ctx, values.phases * 2, values);
+    result = summarisePhases(values);
+  }
+  return { transmission: result.transmission, uncertainty: 0, errorBound: result.errorBound };
+}

@@ -1,0 +1,271 @@
+/**
+ * Planar convex hulls for the acceptance computation. Points are interleaved [x0, y0, x1, y1, …].
+ *
+ * Why hulls: an ion (x0, x0') survives iff |c·(x0, x0')| < r0 for every sampled row c = (u(ξ), w(ξ)) of the
+ * fundamental matrix; |c·z| is convex in c, so only the vertices of the hull of ±c matter, and the accepted set
+ * is the polar polygon of that hull (scaled by r0).
+ */
+
+/** Convex hull, counter-clockwise, no repeated or collinear vertices (Andrew's monotone chain, 1979). */
+export function convexHull(points: Float64Array, count: number): Float64Array {
+  const keep = prefilter(points, count);
+  const n = keep.length;
+  if (n <= 2) {
+    const out = new Float64Array(2 * n);
+    for (let i = 0; i < n; i++) {
+      out[2 * i] = points[2 * keep[i]];
+      out[2 * i + 1] = points[2 * keep[i] + 1];
+    }
+    return out;
+  }
+  keep.sort((i, j) => points[2 * i] - points[2 * j] || points[2 * i + 1] - points[2 * j + 1]);
+  const hull = new Uint32Array(2 * n + 1);
+  let k = 0;
+  for (let t = 0; t < n; t++) {
+    const p = keep[t];
+    while (k >= 2 && cross(points, hull[k - 2], hull[k - 1], p) <= 0) k--;
+    hull[k++] = p;
+  }
+  const lowerSize = k + 1;
+  for (let t = n - 2; t >= 0; t--) {
+    const p = keep[t];
+    while (k >= lowerSize && cross(points, hull[k - 2], hull[k - 1], p) <= 0) k--;
+    hull[k++] = p;
+  }
+  k--; // last point repeats the first
+  const out = new Float64Array(2 * k);
+  for (let i = 0; i < k; i++) {
+    out[2 * i] = points[2 * hull[i]];
+    out[2 * i + 1] = points[2 * hull[i] + 1];
+  }
+  return cleanHull(out);
+}
+
+/**
+ * Remove vertices that rounding left nearly coincident with, or nearly on the line through, their neighbours
+ * (relative 1e-10): they would make the polar vertex 0/0 or ∞ and change the polygon by nothing measurable.
+ */
+function cleanHull(hull: Float64Array): Float64Array {
+  let m = hull.length / 2;
+  if (m < 3) return hull;
+  let clean = true;
+  for (let i = 0; i < m && clean; i++) {
+    const p = (i + m - 1) % m;
+    const n = (i + 1) % m;
+    const ax = hull[2 * i] - hull[2 * p];
+    const ay = hull[2 * i + 1] - hull[2 * p + 1];
+    const bx = hull[2 * n] - hull[2 * i];
+    const by = hull[2 * n + 1] - hull[2 * i + 1];
+    const lengthA = Math.sqrt(ax * ax + ay * ay);
+    const size = Math.max(Math.sqrt(hull[2 * i] * hull[2 * i] + hull[2 * i + 1] * hull[2 * i + 1]), 1e-300);
+    if (lengthA <= 1e-10 * size || ax * by - ay * bx <= 1e-10 * lengthA * Math.sqrt(bx * bx + by * by)) clean = false;
+  }
+  if (clean) return hull;
+  const xs = Array.from({ length: m }, (_, i) => hull[2 * i]);
+  const ys = Array.from({ length: m }, (_, i) => hull[2 * i + 1]);
+  let changed = true;
+  while (changed && m > 3) {
+    changed = false;
+    for (let i = 0; i < m && m > 3; i++) {
+      const p = (i + m - 1) % m;
+      const n = (i + 1) % m;
+      const ax = xs[i] - xs[p];
+      const ay = ys[i] - ys[p];
+      const bx = xs[n] - xs[i];
+      const by = ys[n] - ys[i];
+      const lengthA = Math.sqrt(ax * ax + ay * ay);
+      const lengthB = Math.sqrt(bx * bx + by * by);
+      const size = Math.max(Math.sqrt(xs[i] * xs[i] + ys[i] * ys[i]), 1e-300);
+      if (lengthA <= 1e-10 * size || ax * by - ay * bx <= 1e-10 * lengthA * lengthB) {
+        xs.splice(i, 1);
+        ys.splice(i, 1);
+        m--;
+        changed = true;
+        i--;
+      }
+    }
+  }
+  const out = new Float64Array(2 * m);
+  for (let i = 0; i < m; i++) {
+    out[2 * i] = xs[i];
+    out[2 * i + 1] = ys[i];
+  }
+  return out;
+}
+
+function cross(points: Float64Array, o: number, a: number, b: number): number {
+  const ox = points[2 * o];
+  const oy = points[2 * o + 1];
+  return (points[2 * a] - ox) * (points[2 * b + 1] - oy) - (points[2 * a + 1] - oy) * (points[2 * b] - ox);
+}
+
+/**
+ * Akl–Toussaint prefilter: drop points strictly inside the polygon of the extreme points in eight directions
+ * (S. G. Akl, G. T. Toussaint, Inf. Process. Lett. 7 (1978) 219). It only removes points that cannot be vertices.
+ */
+function prefilter(points: Float64Array, count: number): Uint32Array {
+  if (count < 16) return Uint32Array.from({ length: count }, (_, i) => i);
+  const directions = [1, 0, 1, 1, 0, 1, -1, 1, -1, 0, -1, -1, 0, -1, 1, -1];
+  const best = new Int32Array(8);
+  const bestValue = new Float64Array(8).fill(-Infinity);
+  for (let i = 0; i < count; i++) {
+    const x = points[2 * i];
+    const y = points[2 * i + 1];
+    for (let d = 0; d < 8; d++) {
+      const v = directions[2 * d] * x + directions[2 * d + 1] * y;
+      if (v > bestValue[d]) {
+        bestValue[d] = v;
+        best[d] = i;
+      }
+    }
+  }
+  // The extreme points in angular order of their directions form a convex polygon (possibly with repeats).
+  const ring: number[] = [];
+  for (let d = 0; d < 8; d++) if (ring.length === 0 || ring[ring.length - 1] !== best[d]) ring.push(best[d]);
+  if (ring.length > 1 && ring[0] === ring[ring.length - 1]) ring.pop();
+  const out = new Uint32Array(count);
+  let kept = 0;
+  const m = ring.length;
+  for (let i = 0; i < count; i++) {
+    let inside = m >= 3;
+    for (let e = 0; e < m && inside; e++) {
+      const a = ring[e];
+      const b = ring[(e + 1) % m];
+      // Strictly left of every edge (counter-clockwise ring) → strictly inside.
+      if (cross(points, a, b, i) <= 1e-12 * scaleOf(points, a, b)) inside = false;
+    }
+    if (!inside) out[kept++] = i;
+  }
+  return out.slice(0, kept);
+}
+
+function scaleOf(points: Float64Array, a: number, b: number): number {
+  const dx = points[2 * b] - points[2 * a];
+  const dy = points[2 * b + 1] - points[2 * a + 1];
+  return dx * dx + dy * dy;
+}
+
+/** Points p·B for row vectors p and a row-major 2×2 matrix B (appended into `into` at `offset`). */
+export function transformRows(points: Float64Array, count: number, b: Float64Array, into: Float64Array, offset: number): number {
+  for (let i = 0; i < count; i++) {
+    const x = points[2 * i];
+    const y = points[2 * i + 1];
+    into[2 * (offset + i)] = x * b[0] + y * b[2];
+    into[2 * (offset + i) + 1] = x * b[1] + y * b[3];
+  }
+  return offset + count;
+}
+
+/**
+ * Polar polygon {z : c·z < 1 for every vertex c} of a convex polygon containing the origin, counter-clockwise.
+ * The vertex between edges c_i and c_{i+1} solves c_i·z = 1, c_{i+1}·z = 1.
+ */
+export function polarPolygon(hull: Float64Array): Float64Array {
+  const m = hull.length / 2;
+  const out = new Float64Array(2 * m);
+  for (let i = 0; i < m; i++) {
+    const j = (i + 1) % m;
+    const ax = hull[2 * i];
+    const ay = hull[2 * i + 1];
+    const bx = hull[2 * j];
+    const by = hull[2 * j + 1];
+    const det = ax * by - ay * bx;
+    out[2 * i] = (by - ay) / det;
+    out[2 * i + 1] = (ax - bx) / det;
+  }
+  return out;
+}
+
+/**
+ * O(log m) strict-inside test for a convex polygon (counter-clockwise) that contains the origin: find the wedge
+ * from the origin that holds the point by binary search on angle (ordered from vertex 0), then test that edge.
+ */
+export class ConvexIndex {
+  private readonly xs: Float64Array;
+  private readonly ys: Float64Array;
+  private readonly halves: Uint8Array;
+  readonly size: number;
+  constructor(polygon: Float64Array) {
+    const m = polygon.length / 2;
+    this.size = m;
+    this.xs = new Float64Array(m);
+    this.ys = new Float64Array(m);
+    this.halves = new Uint8Array(m);
+    for (let i = 0; i < m; i++) {
+      this.xs[i] = polygon[2 * i];
+      this.ys[i] = polygon[2 * i + 1];
+    }
+    for (let i = 0; i < m; i++) this.halves[i] = this.half(this.xs[i], this.ys[i]);
+  }
+
+  /** 0 for angles [θ0, θ0 + π) measured from vertex 0, 1 for the rest. */
+  private half(x: number, y: number): number {
+    const c = this.xs[0] * y - this.ys[0] * x;
+    if (c > 0) return 0;
+    if (c < 0) return 1;
+    return this.xs[0] * x + this.ys[0] * y > 0 ? 0 : 1;
+  }
+
+  contains(x: number, y: number): boolean {
+    const m = this.size;
+    if (m < 3) return false;
+    const h = this.half(x, y);
+    // Last vertex i whose angle is ≤ the point's angle.
+    let lo = 0;
+    let hi = m - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      const hm = this.halves[mid];
+      const before = hm < h || (hm === h && this.xs[mid] * y - this.ys[mid] * x >= 0);
+      if (before) lo = mid;
+      else hi = mid - 1;
+    }
+    const i = lo;
+    const j = i + 1 === m ? 0 : i + 1;
+    const ex = this.xs[j] - this.xs[i];
+    const ey = this.ys[j] - this.ys[i];
+    const cross = ex * (y - this.ys[i]) - ey * (x - this.xs[i]);
+    return cross > 1e-12 * (Math.abs(ex) + Math.abs(ey)) * (Math.abs(x) + Math.abs(y));
+  }
+}
+
+/**
+ * Hull of a convex polygon (counter-clockwise) and a few extra points, by inserting the points one at a time:
+ * the edges a point sees form one run; they are replaced by two edges through the point. O(m) per point.
+ */
+export function insertIntoHull(polygon: Float64Array, extra: Float64Array, extraCount: number): Float64Array {
+  let poly = polygon;
+  for (let e = 0; e < extraCount; e++) {
+    const px = extra[2 * e];
+    const py = extra[2 * e + 1];
+    const m = poly.length / 2;
+    const sees = (i: number): boolean => {
+      const j = i + 1 === m ? 0 : i + 1;
+      return (poly[2 * j] - poly[2 * i]) * (py - poly[2 * i + 1]) - (poly[2 * j + 1] - poly[2 * i + 1]) * (px - poly[2 * i]) < 0;
+    };
+    let first = -1;
+    for (let i = 0; i < m; i++) {
+      if (sees(i)) {
+        first = i;
+        break;
+      }
+    }
+    if (first < 0) continue;
+    // Walk back to the start of the visible run, then forward to its end.
+    let start = first;
+    while (sees((start + m - 1) % m) && (start + m - 1) % m !== first) start = (start + m - 1) % m;
+    let end = first;
+    while (sees((end + 1) % m) && (end + 1) % m !== start) end = (end + 1) % m;
+    // Keep vertices from end+1 round to start (inclusive), then the new point.
+    const kept = ((start - (end + 1) + 2 * m) % m) + 1;
+    const next = new Float64Array(2 * (kept + 1));
+    for (let t = 0, i = (end + 1) % m; t < kept; t++, i = i + 1 === m ? 0 : i + 1) {
+      next[2 * t] = poly[2 * i];
+      next[2 * t + 1] = poly[2 * i + 1];
+    }
+    next[2 * kept] = px;
+    next[2 * kept + 1] = py;
+    poly = next;
+  }
+  return poly === polygon ? polygon : cleanHull(poly);
+}

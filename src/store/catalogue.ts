@@ -1,0 +1,306 @@
+// The readings catalogue: what an engineer records on a service visit, in which units, what counts as
+// plausible input, where the expected value comes from and how far a reading may stray from it.
+// Pure data plus small helpers. Ranges marked [cp] are common practice, [mem] from memory (unverified);
+// a maker's own limit for an instrument always wins over these generic defaults.
+import type { InstrumentKind } from './types';
+import {
+  currentUnits, dcUnits, frequencyUnits, massUnits, percentUnits, pressureUnits, ratioUnits, rfAmplitudeUnits,
+  temperatureUnits, voltageUnits, type UnitDef,
+} from './units';
+
+/**
+ * How far a reading may stray from a single expected value.
+ * - relative: |x − e| / |e|, as fractions (0.02 = 2 %)
+ * - absolute: |x − e| in base units
+ * - factor: max(x/e, e/x), for quantities that span decades (pressures)
+ */
+export interface ToleranceRule {
+  kind: 'relative' | 'absolute' | 'factor';
+  pass: number;
+  borderline: number;
+}
+
+/** Which way of straying is bad: both ways, only too high (a pressure), or only too low (a sensitivity). */
+export type BadSide = 'both' | 'high' | 'low';
+
+/** A generic plausible operating range, used only when nothing better (baseline, calculation, set point) exists. */
+export interface GenericRange {
+  /** Instrument kinds it applies to; absent means all. */
+  kinds?: InstrumentKind[];
+  low?: number;
+  high?: number;
+  /** Where the numbers come from, with their class. */
+  source: string;
+}
+
+export interface ContextField {
+  key: string;
+  label: string;
+  kind: 'number' | 'choice' | 'text';
+  unit?: string;
+  min?: number;
+  max?: number;
+  choices?: readonly { value: string; label: string }[];
+  required?: boolean;
+  defaultValue?: string | number;
+  help?: string;
+}
+
+/** How a type's expected value is calculated when the instrument has no baseline for it. */
+export type ComputedExpectation = 'rf-amplitude' | 'dc-amplitude' | 'rf-frequency' | 'setpoint' | 'isotope-ratio';
+
+export interface ReadingType {
+  id: string;
+  label: string;
+  group: 'vacuum' | 'source' | 'analyser' | 'detector' | 'performance' | 'leak-check' | 'own';
+  baseUnit: string;
+  units: readonly UnitDef[];
+  defaultUnit: string;
+  /** Input sanity limits in base units: outside these the value is refused as a typing slip. */
+  plausible: { min: number; max: number };
+  badSide: BadSide;
+  /** Allowed deviation from the instrument's baseline. */
+  baselineTolerance: ToleranceRule;
+  computed?: ComputedExpectation;
+  /** Allowed deviation from the computed expectation. */
+  computedTolerance?: ToleranceRule;
+  /** Where the computed expectation and its tolerance come from. */
+  computedSource?: string;
+  generic?: readonly GenericRange[];
+  /** How far outside a generic range is still borderline, as a fraction of the crossed bound. */
+  genericMargin?: ToleranceRule;
+  context: readonly ContextField[];
+  /** Context keys that must match for two readings to be compared (baseline, trend). */
+  matchContext: readonly string[];
+  trendScale: 'linear' | 'log';
+  help: string;
+  /** Added by the user on this device. */
+  own?: boolean;
+}
+
+export const gaugeGasChoices = [
+  { value: 'N2-equivalent', label: 'N2-equivalent (as the gauge shows)' },
+  { value: 'He', label: 'corrected for helium' },
+  { value: 'H2', label: 'corrected for hydrogen' },
+  { value: 'Ar', label: 'corrected for argon' },
+  { value: 'other', label: 'corrected for another gas (say which in the note)' },
+] as const;
+
+const gaugeGas: ContextField = {
+  key: 'gaugeGas', label: 'Gauge reading', kind: 'choice', choices: gaugeGasChoices, required: true,
+  defaultValue: 'N2-equivalent',
+  help: 'Ion and Pirani gauges read in N2-equivalent unless corrected; helium reads about 5.6 times low on an ion gauge.',
+};
+
+const parkedMz: ContextField = {
+  key: 'mz', label: 'Parked m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true,
+  help: 'The m/z the analyser was parked at while the voltage was read.',
+};
+
+const ionMz = (label: string): ContextField => ({
+  key: 'mz', label, kind: 'number', unit: 'u', min: 1, max: 5000, required: true,
+});
+
+const setpoint = (unit: string, min: number, max: number): ContextField => ({
+  key: 'setpoint', label: 'Set value', kind: 'number', unit, min, max,
+  help: 'The value the instrument was set to (in the base unit shown); the reading is judged against it.',
+});
+
+/** Calibrant ions with a published M+1/M, for the isotope-ratio check (C15). */
+export const isotopeRatioByMz: Readonly<Record<number, { percent: number; formula: string }>> = {
+  // IUPAC CIAAW isotopic abundances: 13C/12C = 0.01082, 15N/14N = 0.00365; M+1/M ≈ nC·1.082 % + nN·0.365 %.
+  69: { percent: 1 * 1.082, formula: 'CF3+' },
+  219: { percent: 4 * 1.082, formula: 'C4F9+' },
+  502: { percent: 9 * 1.082 + 1 * 0.365, formula: 'C9F20N+' },
+};
+
+const gcKinds: InstrumentKind[] = ['gc-ms-single', 'gc-ms-triple'];
+const lcKinds: InstrumentKind[] = ['lc-ms-single', 'lc-ms-triple'];
+
+export const catalogue: readonly ReadingType[] = [
+  {
+    id: 'vacuum-high', label: 'High vacuum (analyser)', group: 'vacuum', baseUnit: 'Pa', units: pressureUnits,
+    defaultUnit: 'mbar', plausible: { min: 1e-10, max: 1.2e5 }, badSide: 'high',
+    // A doubling of analyser pressure at the same gas load is worth a look; ×3 points to a leak or pump fault [cp].
+    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
+    generic: [
+      { kinds: gcKinds, low: 5e-6 * (101325 / 760), high: 5e-5 * (101325 / 760),
+        source: 'EI GC-MS with about 1 mL/min helium, N2-equivalent: 5e-6 to 5e-5 Torr (common practice)' },
+      { kinds: ['rga'], high: 1e-2, source: 'RGA operation: below 1e-4 mbar (common practice)' },
+    ],
+    genericMargin: { kind: 'factor', pass: 1, borderline: 2 },
+    context: [gaugeGas], matchContext: ['gaugeGas'], trendScale: 'log',
+    help: 'Ion-gauge read-back at the analyser. State whether it is the N2-equivalent indication.',
+  },
+  {
+    id: 'vacuum-fore', label: 'Fore-vacuum', group: 'vacuum', baseUnit: 'Pa', units: pressureUnits,
+    defaultUnit: 'mbar', plausible: { min: 1e-6, max: 1.2e5 }, badSide: 'high',
+    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
+    generic: [
+      { kinds: [...gcKinds, 'rga'], low: 1e-2 * 100, high: 1e-1 * 100, source: 'GC-MS fore-vacuum about 1e-2 to 1e-1 mbar (from memory)' },
+      { kinds: lcKinds, low: 1 * 100, high: 10 * 100, source: 'API first stage about 1 to 10 mbar (from memory)' },
+    ],
+    genericMargin: { kind: 'factor', pass: 1, borderline: 3 },
+    context: [gaugeGas], matchContext: ['gaugeGas'], trendScale: 'log',
+    help: 'Pirani or thermocouple gauge between the turbo and the rough pump.',
+  },
+  {
+    id: 'rf-amplitude', label: 'RF amplitude at a parked m/z', group: 'analyser', baseUnit: 'V (zero-to-peak, one rod to ground)',
+    units: rfAmplitudeUnits, defaultUnit: 'V0p-rod', plausible: { min: 0, max: 20000 }, badSide: 'both',
+    // Proportionality V ∝ m/z should hold within about ±1 % (common practice; domain C5).
+    baselineTolerance: { kind: 'relative', pass: 0.01, borderline: 0.02 },
+    computed: 'rf-amplitude',
+    // The instrument's operating point sits a little below the apex q and its r0 and f are nominal: 3 % and 6 %
+    // allow for that (common practice) while still catching a factor-of-2 convention slip.
+    computedTolerance: { kind: 'relative', pass: 0.03, borderline: 0.06 },
+    computedSource: 'calculated from the profile’s r0 and f at the apex q = 0.706 (Mathieu stability, Dawson 1976)',
+    context: [parkedMz], matchContext: ['mz'], trendScale: 'linear',
+    help: 'Read at the RF monitor point or with a rated low-capacitance probe. Say which convention the figure uses.',
+  },
+  {
+    id: 'dc-amplitude', label: 'DC at a parked m/z', group: 'analyser', baseUnit: 'V (one rod pair to ground)',
+    units: dcUnits, defaultUnit: 'V-rod', plausible: { min: -5000, max: 5000 }, badSide: 'both',
+    baselineTolerance: { kind: 'relative', pass: 0.01, borderline: 0.02 },
+    computed: 'dc-amplitude',
+    // At unit resolution U sits just below the apex value 0.16784·V (resolution offset), about 1–5 % [cp].
+    computedTolerance: { kind: 'relative', pass: 0.05, borderline: 0.1 },
+    computedSource: 'apex DC, U = 0.16784·V (Dawson 1976), less a resolution offset of a few per cent',
+    context: [parkedMz], matchContext: ['mz'], trendScale: 'linear',
+    help: 'Read back from the instrument; never put a meter on the rods while RF is on.',
+  },
+  {
+    id: 'rf-frequency', label: 'RF frequency', group: 'analyser', baseUnit: 'Hz', units: frequencyUnits,
+    defaultUnit: 'MHz', plausible: { min: 1e4, max: 5e7 }, badSide: 'both',
+    // δm/m ≈ 2·δf/f (domain C6): 0.02 % of f is 0.2 u at m/z 500, the edge of ±0.1–0.2 u mass accuracy.
+    baselineTolerance: { kind: 'relative', pass: 0.0001, borderline: 0.0002 },
+    computed: 'rf-frequency',
+    computedTolerance: { kind: 'relative', pass: 0.005, borderline: 0.02 },
+    computedSource: 'nominal frequency in the instrument profile (profile values are nominal: ±0.5 % common practice)',
+    context: [], matchContext: [], trendScale: 'linear',
+    help: 'Counter or oscilloscope through a loosely coupled pickup loop: a probe on the tank detunes it.',
+  },
+  {
+    id: 'multiplier-voltage', label: 'Multiplier voltage at tune', group: 'detector', baseUnit: 'V', units: voltageUnits,
+    defaultUnit: 'V', plausible: { min: 0, max: 6000 }, badSide: 'high',
+    // The voltage climbs as the multiplier ages (domain C18); +10 % over the baseline is worth planning for [cp].
+    baselineTolerance: { kind: 'relative', pass: 0.1, borderline: 0.2 },
+    generic: [{ low: 1000, high: 3000, source: 'discrete-dynode multipliers 1000 to 3000 V (common practice)' }],
+    genericMargin: { kind: 'relative', pass: 0, borderline: 0.1 },
+    context: [], matchContext: [], trendScale: 'linear',
+    help: 'The voltage the tune needed to reach its target gain. Enter its magnitude.',
+  },
+  {
+    id: 'emission-current', label: 'Emission current', group: 'source', baseUnit: 'A', units: currentUnits,
+    defaultUnit: 'uA', plausible: { min: 0, max: 0.02 }, badSide: 'low',
+    baselineTolerance: { kind: 'relative', pass: 0.05, borderline: 0.2 },
+    computed: 'setpoint',
+    // Signal scales with emission (domain C26): a 20 % shortfall is 20 % less signal.
+    computedTolerance: { kind: 'relative', pass: 0.05, borderline: 0.2 },
+    computedSource: 'the set value (signal scales with emission current)',
+    generic: [
+      { kinds: [...gcKinds, ...lcKinds], low: 10e-6, high: 500e-6, source: 'EI sources: tens to a few hundred µA (common practice)' },
+      { kinds: ['rga'], low: 0.1e-3, high: 2e-3, source: 'RGA: 0.1 to 2 mA (from memory)' },
+    ],
+    genericMargin: { kind: 'relative', pass: 0, borderline: 0.2 },
+    context: [setpoint('A', 0, 0.02)], matchContext: [], trendScale: 'linear',
+    help: 'Actual emission read back with the filament on.',
+  },
+  {
+    id: 'source-temperature', label: 'Ion source temperature', group: 'source', baseUnit: '°C', units: temperatureUnits,
+    defaultUnit: 'degC', plausible: { min: -50, max: 800 }, badSide: 'both',
+    baselineTolerance: { kind: 'absolute', pass: 2, borderline: 5 },
+    computed: 'setpoint',
+    computedTolerance: { kind: 'absolute', pass: 2, borderline: 5 },
+    computedSource: 'the set value; actual within about ±2 °C of set (common practice)',
+    generic: [{ kinds: gcKinds, low: 200, high: 300, source: 'EI source 200 to 300 °C (common practice)' }],
+    genericMargin: { kind: 'absolute', pass: 0, borderline: 20 },
+    context: [setpoint('°C', -50, 800)], matchContext: [], trendScale: 'linear',
+    help: 'Actual temperature read back after it has settled.',
+  },
+  {
+    id: 'peak-width', label: 'Peak width (FWHM) at a calibrant ion', group: 'performance', baseUnit: 'u', units: massUnits,
+    defaultUnit: 'u', plausible: { min: 0.01, max: 10 }, badSide: 'both',
+    baselineTolerance: { kind: 'absolute', pass: 0.05, borderline: 0.1 },
+    generic: [{ low: 0.5, high: 0.8, source: 'unit resolution: FWHM 0.5 to 0.8 u (common practice)' }],
+    genericMargin: { kind: 'absolute', pass: 0, borderline: 0.1 },
+    context: [ionMz('Calibrant ion m/z')], matchContext: ['mz'], trendScale: 'linear',
+    help: 'Full width at half maximum from a profile scan of the calibrant ion.',
+  },
+  {
+    id: 'relative-abundance', label: 'Relative abundance of a tune ion', group: 'performance', baseUnit: '%',
+    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 1000 }, badSide: 'both',
+    // Within about ±20–30 % relative of baseline (common practice); regulated methods set their own windows.
+    baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
+    context: [
+      ionMz('Ion m/z'),
+      { key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true },
+    ],
+    matchContext: ['mz', 'referenceMz'], trendScale: 'linear',
+    help: 'Abundance of this ion as a percentage of the reference ion, from the tune report.',
+  },
+  {
+    id: 'isotope-ratio', label: 'Isotope ratio M+1/M of a calibrant ion', group: 'performance', baseUnit: '%',
+    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 100 }, badSide: 'both',
+    baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
+    computed: 'isotope-ratio',
+    computedTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
+    computedSource: 'from IUPAC isotopic abundances (13C 1.082 %, 15N 0.365 %); measured within ±20 % (common practice)',
+    context: [ionMz('Ion m/z (M)')], matchContext: ['mz'], trendScale: 'linear',
+    help: 'A ratio well above theory on a strong ion points to detector saturation.',
+  },
+  {
+    id: 'leak-water-18', label: 'Leak check: water, m/z 18', group: 'leak-check', baseUnit: '%', units: percentUnits,
+    defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'high',
+    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
+    generic: [{ kinds: [...gcKinds, ...lcKinds], high: 20, source: 'm/z 18 below about 20 % of the reference ion (from memory)' }],
+    genericMargin: { kind: 'factor', pass: 1, borderline: 2 },
+    context: [{ key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true, defaultValue: 69 }],
+    matchContext: ['referenceMz'], trendScale: 'log',
+    help: 'Intensity of m/z 18 as a percentage of the reference ion. Water falls for hours after a vent.',
+  },
+  {
+    id: 'leak-nitrogen-28', label: 'Leak check: nitrogen, m/z 28', group: 'leak-check', baseUnit: '%', units: percentUnits,
+    defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'high',
+    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
+    generic: [{ kinds: [...gcKinds, ...lcKinds], high: 10, source: 'm/z 28 below about 10 % of the reference ion (from memory)' }],
+    genericMargin: { kind: 'factor', pass: 1, borderline: 2 },
+    context: [{ key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true, defaultValue: 69 }],
+    matchContext: ['referenceMz'], trendScale: 'log',
+    help: 'Intensity of m/z 28 as a percentage of the reference ion.',
+  },
+  {
+    id: 'leak-ratio-28-32', label: 'Leak check: ratio m/z 28 to 32', group: 'leak-check', baseUnit: 'ratio', units: ratioUnits,
+    defaultUnit: 'ratio', plausible: { min: 0, max: 10000 }, badSide: 'both',
+    baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
+    context: [], matchContext: [], trendScale: 'linear',
+    help: 'About 3.7 to 4 looks like air (dry air N2/O2 = 3.73 by volume, CRC); judge it together with m/z 28 and 40.',
+  },
+  {
+    id: 'leak-argon-40', label: 'Leak check: argon, m/z 40 relative to 28', group: 'leak-check', baseUnit: '%', units: percentUnits,
+    defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'both',
+    baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
+    context: [], matchContext: [], trendScale: 'linear',
+    help: 'About 1.7 % of m/z 28 in an air leak (domain C14, computed from dry-air composition).',
+  },
+  {
+    id: 'noted-value', label: 'Noted value', group: 'own', baseUnit: 'as noted', units: [{ id: 'as-noted', label: 'as noted', factor: 1 }],
+    defaultUnit: 'as-noted', plausible: { min: -1e30, max: 1e30 }, badSide: 'both',
+    baselineTolerance: { kind: 'relative', pass: 0, borderline: 0 },
+    context: [
+      { key: 'label', label: 'What it is', kind: 'text', required: true },
+      { key: 'unit', label: 'Unit', kind: 'text' },
+    ],
+    matchContext: ['label', 'unit'], trendScale: 'linear',
+    help: 'A value noted from a calculator or a screen that has no reading type of its own; kept as given, not judged.',
+  },
+];
+
+const byId = new Map(catalogue.map((t) => [t.id, t]));
+
+export function catalogueType(id: string): ReadingType | undefined {
+  return byId.get(id);
+}
+
+export function unitOf(type: ReadingType, unitId: string): UnitDef | undefined {
+  return type.units.find((u) => u.id === unitId);
+}

@@ -1,0 +1,248 @@
+// Reading entry checks, expected values and verdicts. Pure functions: no storage, no DOM.
+import type { BadSide, ReadingType, ToleranceRule } from './catalogue';
+import { isotopeRatioByMz, unitOf } from './catalogue';
+import { parseNumber } from './profile';
+import type { InstrumentProfile, Verdict } from './types';
+import { formatNumber, fromBase, toBase } from './units';
+
+export type ReadingContext = Record<string, string | number>;
+
+/**
+ * Physics the store borrows from the engine. Injected so the store can be tested (and can run) without it.
+ * rfForMass: RF amplitude, V zero-to-peak one rod to ground, for m/z (u), field radius r0 (m), frequency (Hz)
+ * and Mathieu q (default: the apex of the first stability region).
+ */
+export interface EngineFunctions {
+  rfForMass(args: { mz: number; r0: number; frequency: number; q?: number }): number;
+  /** DC on one rod pair to ground at the apex; when absent the store uses U = 0.16784·V (apex U/V, Dawson 1976). */
+  dcForMass?(args: { mz: number; r0: number; frequency: number }): number;
+}
+
+/** Apex U/V of the first stability region, a/(2q) = 0.23699/(2·0.70600) (Dawson 1976; domain F1). */
+export const APEX_DC_TO_RF = 0.16784;
+
+export type ExpectationBasis = 'baseline' | 'calculated' | 'set value' | 'published' | 'generic';
+
+export interface Expectation {
+  /** A single expected value, base units. */
+  value?: number;
+  /** Or a range, base units. */
+  low?: number;
+  high?: number;
+  basis: ExpectationBasis;
+  /** Where it comes from, in words, with the class of the source. */
+  source: string;
+  tolerance: ToleranceRule;
+  badSide: BadSide;
+}
+
+export interface Judgement {
+  verdict: Verdict;
+  /** The deviation in the tolerance's own measure (fraction, base units, or factor). 0 inside a range. */
+  deviation: number;
+  summary: string;
+}
+
+export const verdictWords: Record<Verdict, { word: string; symbol: string }> = {
+  pass: { word: 'pass', symbol: '✓' },
+  borderline: { word: 'borderline', symbol: '△' },
+  fail: { word: 'fail', symbol: '✗' },
+};
+
+function measure(rule: ToleranceRule, x: number, ref: number): number {
+  switch (rule.kind) {
+    case 'absolute':
+      return Math.abs(x - ref);
+    case 'relative':
+      if (ref === 0) return x === 0 ? 0 : Infinity;
+      return Math.abs(x - ref) / Math.abs(ref);
+    case 'factor':
+      // A ratio needs both positive; zero or negative against a positive reference is off the scale.
+      if (x <= 0 || ref <= 0) return x === ref ? 1 : Infinity;
+      return Math.max(x / ref, ref / x);
+  }
+}
+
+function grade(rule: ToleranceRule, dev: number): Verdict {
+  if (dev <= rule.pass) return 'pass';
+  if (dev <= rule.borderline) return 'borderline';
+  return 'fail';
+}
+
+function describe(rule: ToleranceRule, dev: number): string {
+  if (!Number.isFinite(dev)) return 'off the scale';
+  switch (rule.kind) {
+    case 'absolute':
+      return `off by ${formatNumber(dev, 3)}`;
+    case 'relative':
+      return `off by ${formatNumber(dev * 100, 3)} %`;
+    case 'factor':
+      return `off by a factor ${formatNumber(dev, 3)}`;
+  }
+}
+
+/** Judge a value (base units) against an expectation. Pure and total: every finite input gets a verdict. */
+export function judge(x: number, e: Expectation): Judgement {
+  if (!Number.isFinite(x)) return { verdict: 'fail', deviation: Infinity, summary: 'not a finite number' };
+  if (e.value !== undefined) {
+    const ref = e.value;
+    if ((e.badSide === 'high' && x <= ref) || (e.badSide === 'low' && x >= ref)) {
+      return { verdict: 'pass', deviation: 0, summary: `on the good side of the ${e.basis} value` };
+    }
+    const dev = measure(e.tolerance, x, ref);
+    const verdict = grade(e.tolerance, dev);
+    return { verdict, deviation: dev, summary: `${describe(e.tolerance, dev)} from the ${e.basis} value` };
+  }
+  const below = e.low !== undefined && x < e.low;
+  const above = e.high !== undefined && x > e.high;
+  if (!below && !above) return { verdict: 'pass', deviation: 0, summary: `inside the ${e.basis} range` };
+  if ((below && e.badSide === 'high') || (above && e.badSide === 'low')) {
+    return { verdict: 'pass', deviation: 0, summary: `outside the ${e.basis} range on the good side` };
+  }
+  const bound = below ? e.low! : e.high!;
+  const dev = measure(e.tolerance, x, bound);
+  const verdict = grade(e.tolerance, dev);
+  return { verdict, deviation: dev, summary: `${below ? 'below' : 'above'} the ${e.basis} range, ${describe(e.tolerance, dev)}` };
+}
+
+export interface ExpectationInput {
+  type: ReadingType;
+  instrument?: InstrumentProfile;
+  context: ReadingContext;
+  /** The matching as-left reading of the instrument's baseline visit, if any. */
+  baseline?: { value: number; visitStartedAt: string };
+  engine?: EngineFunctions;
+}
+
+function num(v: unknown): number | undefined {
+  return typeof v === 'number' && Number.isFinite(v) ? v : undefined;
+}
+
+/** The calculated expectation of a type, or undefined when its inputs are missing. */
+function calculated(inp: ExpectationInput): Expectation | undefined {
+  const { type, instrument, context, engine } = inp;
+  const tolerance = type.computedTolerance;
+  if (!type.computed || !tolerance) return undefined;
+  const source = type.computedSource ?? 'calculated';
+  const mz = num(context.mz);
+  switch (type.computed) {
+    case 'rf-amplitude': {
+      if (!engine || !instrument || mz === undefined) return undefined;
+      const v = engine.rfForMass({ mz, r0: instrument.rodFieldRadius, frequency: instrument.rfFrequency });
+      return Number.isFinite(v) ? { value: v, basis: 'calculated', source, tolerance, badSide: type.badSide } : undefined;
+    }
+    case 'dc-amplitude': {
+      if (!engine || !instrument || mz === undefined) return undefined;
+      const args = { mz, r0: instrument.rodFieldRadius, frequency: instrument.rfFrequency };
+      const u = engine.dcForMass ? engine.dcForMass(args) : APEX_DC_TO_RF * engine.rfForMass(args);
+      return Number.isFinite(u) ? { value: u, basis: 'calculated', source, tolerance, badSide: type.badSide } : undefined;
+    }
+    case 'rf-frequency':
+      if (!instrument) return undefined;
+      return { value: instrument.rfFrequency, basis: 'calculated', source, tolerance, badSide: type.badSide };
+    case 'setpoint': {
+      const s = num(context.setpoint);
+      return s === undefined ? undefined : { value: s, basis: 'set value', source, tolerance, badSide: type.badSide };
+    }
+    case 'isotope-ratio': {
+      const known = mz === undefined ? undefined : isotopeRatioByMz[mz];
+      return known ? { value: known.percent, basis: 'published', source: `${source}; ${known.formula}`, tolerance, badSide: type.badSide } : undefined;
+    }
+  }
+}
+
+/**
+ * Where the expected value comes from, best first: the instrument's own baseline, then a calculation
+ * (engine, profile, set value or published ratio), then a generic range for the instrument kind.
+ * Returns undefined when nothing applies: the reading is recorded without a verdict.
+ */
+export function expectationFor(inp: ExpectationInput): Expectation | undefined {
+  const { type, instrument, baseline } = inp;
+  if (baseline && Number.isFinite(baseline.value)) {
+    return {
+      value: baseline.value, basis: 'baseline', tolerance: type.baselineTolerance, badSide: type.badSide,
+      source: `the instrument’s baseline (as-left, visit of ${baseline.visitStartedAt.slice(0, 10)})`,
+    };
+  }
+  const c = calculated(inp);
+  if (c) return c;
+  const generic = type.generic?.find((g) => !g.kinds || (instrument && g.kinds.includes(instrument.kind)));
+  if (generic) {
+    return {
+      low: generic.low, high: generic.high, basis: 'generic', source: generic.source, badSide: type.badSide,
+      tolerance: type.genericMargin ?? { kind: 'relative', pass: 0, borderline: 0.1 },
+    };
+  }
+  return undefined;
+}
+
+/** Readings are comparable when the type's match keys agree (same parked m/z, same gauge gas…). */
+export function contextMatches(type: ReadingType, a: ReadingContext | undefined, b: ReadingContext | undefined): boolean {
+  return type.matchContext.every((k) => String(a?.[k] ?? '') === String(b?.[k] ?? ''));
+}
+
+function rangeText(type: ReadingType, unitId: string): string {
+  const unit = unitOf(type, unitId)!;
+  const a = fromBase(unit, type.plausible.min);
+  const b = fromBase(unit, type.plausible.max);
+  return `between ${formatNumber(Math.min(a, b))} and ${formatNumber(Math.max(a, b))} ${unit.label}`;
+}
+
+export type EntryResult =
+  | { ok: true; value: number; context: ReadingContext; unitId: string }
+  | { ok: false; errors: Record<string, string> };
+
+/**
+ * Check what the user typed for a reading: the value (in the chosen unit) and its context fields.
+ * Messages name the field and the accepted range in the unit the user chose.
+ * Context numbers marked with the reading's own unit ("Set value") are converted to base units too.
+ */
+export function checkEntry(type: ReadingType, text: string, unitId: string, contextText: Record<string, string>): EntryResult {
+  const errors: Record<string, string> = {};
+  const unit = unitOf(type, unitId);
+  let value = NaN;
+  if (!unit) {
+    errors.unit = `Unit “${unitId}” is not one of: ${type.units.map((u) => u.label).join('; ')}.`;
+  } else {
+    const t = text.trim();
+    const typed = parseNumber(t);
+    if (t === '') errors.value = `${type.label} is empty: enter a value ${rangeText(type, unitId)}.`;
+    else if (typed === null) errors.value = `${type.label} “${t}” is not a number: enter a value ${rangeText(type, unitId)}.`;
+    else {
+      value = toBase(unit, typed);
+      if (!(value >= type.plausible.min * (1 - 1e-12) && value <= type.plausible.max * (1 + 1e-12))) {
+        errors.value = `${type.label} ${t} ${unit.label} is out of range: enter a value ${rangeText(type, unitId)}.`;
+      }
+    }
+  }
+  const context: ReadingContext = {};
+  for (const f of type.context) {
+    const raw = (contextText[f.key] ?? (f.defaultValue !== undefined ? String(f.defaultValue) : '')).trim();
+    if (raw === '') {
+      if (f.required) errors[f.key] = `${f.label} is empty: ${f.kind === 'choice' ? 'choose one' : `enter a value between ${f.min} and ${f.max}${f.unit ? ` ${f.unit}` : ''}`}.`;
+      continue;
+    }
+    if (f.kind === 'choice') {
+      if (!f.choices?.some((c) => c.value === raw)) errors[f.key] = `${f.label} “${raw}” is not one of: ${f.choices?.map((c) => c.label).join('; ')}.`;
+      else context[f.key] = raw;
+    } else if (f.kind === 'number') {
+      const n = parseNumber(raw);
+      // A set value is typed in the same unit as the reading.
+      const sameUnit = f.key === 'setpoint' && unit;
+      const lo = sameUnit ? fromBase(unit, f.min ?? -Infinity) : f.min ?? -Infinity;
+      const hi = sameUnit ? fromBase(unit, f.max ?? Infinity) : f.max ?? Infinity;
+      const shownUnit = sameUnit ? unit.label : f.unit ?? '';
+      const rangeWords = `enter a value between ${formatNumber(Math.min(lo, hi))} and ${formatNumber(Math.max(lo, hi))}${shownUnit ? ` ${shownUnit}` : ''}`;
+      if (n === null) errors[f.key] = `${f.label} “${raw}” is not a number: ${rangeWords}.`;
+      else if (n < Math.min(lo, hi) || n > Math.max(lo, hi)) errors[f.key] = `${f.label} ${raw} is out of range: ${rangeWords}.`;
+      else context[f.key] = sameUnit ? toBase(unit, n) : n;
+    } else {
+      if (raw.length > 200) errors[f.key] = `${f.label} is ${raw.length} characters long: keep it to 200.`;
+      else context[f.key] = raw;
+    }
+  }
+  if (Object.keys(errors).length) return { ok: false, errors };
+  // The convention travels with the value: "V peak-to-peak, one rod to ground" and so on.
+  if (unit && type.units.length > 1) context.convention = unit.label;
+  return { ok: true, value, context, unitId };
+}

@@ -1,0 +1,180 @@
+import {
+  DRY_AIR_PERCENT,
+  DRY_AIR_SOURCE,
+  fitOutgassing,
+  leakIndication,
+  rateOfRise,
+  type LeakIndicationResult,
+  type OutgassingFit,
+  type PressureSample,
+  type RateOfRiseResult,
+} from '../../../diagnose';
+import { formatNumber } from '../../format';
+import { parseNumber } from './parse';
+
+export type LeakTyped = Record<string, string>;
+
+const INDICATION_WORDS: Record<LeakIndicationResult['indication'], string> = {
+  'air-leak': 'Air leak',
+  'water-after-venting': 'Water (normal for a few days after venting)',
+  'carbon-dioxide': 'Carbon dioxide',
+  'outgassing-or-co': 'CO or N2: outgassing, hot filament or a nitrogen source — not air',
+  'not-air': 'Not air',
+  'helium-tracer': 'Helium tracer seen: this joint leaks',
+};
+
+const PEAKS: Array<{ key: string; label: string; required?: boolean }> = [
+  { key: 'm18', label: 'm/z 18' },
+  { key: 'm17', label: 'm/z 17' },
+  { key: 'm28', label: 'm/z 28', required: true },
+  { key: 'm32', label: 'm/z 32', required: true },
+  { key: 'm40', label: 'm/z 40' },
+  { key: 'm44', label: 'm/z 44' },
+  { key: 'm4', label: 'm/z 4 (helium tracer, now)' },
+  { key: 'he0', label: 'm/z 4 before spraying' },
+];
+
+function parseSeries(text: string, timeUnit: number, what: string): { ok: true; samples: PressureSample[] } | { ok: false; message: string } {
+  const lines = text.split('\n').map((l) => l.trim()).filter(Boolean);
+  const samples: PressureSample[] = [];
+  for (const [i, line] of lines.entries()) {
+    const parts = line.split(/[;\t ]+|,\s+/).filter(Boolean);
+    if (parts.length !== 2) return { ok: false, message: `${what}, line ${i + 1}: write the time and the pressure separated by a space or semicolon.` };
+    const t = parseNumber(parts[0], `time on line ${i + 1}`);
+    if (!t.ok) return { ok: false, message: t.message };
+    const p = parseNumber(parts[1], `pressure on line ${i + 1}`);
+    if (!p.ok) return { ok: false, message: p.message };
+    samples.push({ t: t.value * timeUnit, p: p.value * 100 });
+  }
+  return { ok: true, samples };
+}
+
+function attempt<T>(fn: () => T): { ok: true; value: T } | { ok: false; message: string } {
+  try {
+    return { ok: true, value: fn() };
+  } catch (err) {
+    return { ok: false, message: (err as Error).message };
+  }
+}
+
+/** Leak check: ratios from peak heights, rate of rise, and the outgassing-or-leak fit. Typed values live in the caller's draft. */
+export function LeakCheckPanel(props: { typed: LeakTyped; onTyped: (t: LeakTyped) => void }) {
+  const { typed, onTyped } = props;
+  const set = (k: string) => (e: Event) => onTyped({ ...typed, [k]: (e.target as HTMLInputElement | HTMLTextAreaElement).value });
+
+  // Peak ratios.
+  const peakErrors: Record<string, string> = {};
+  const heights: Record<string, number> = {};
+  for (const p of PEAKS) {
+    const text = typed[p.key] ?? '';
+    if (text.trim() === '') continue;
+    const r = parseNumber(text, `Height at ${p.label}`);
+    if (r.ok) heights[p.key] = r.value;
+    else peakErrors[p.key] = r.message;
+  }
+  const canRatio = heights.m28 !== undefined && heights.m32 !== undefined && Object.keys(peakErrors).length === 0;
+  const ratio = canRatio
+    ? attempt(() =>
+        leakIndication(
+          { m28: heights.m28, m32: heights.m32, m4: heights.m4, m17: heights.m17, m18: heights.m18, m40: heights.m40, m44: heights.m44 },
+          heights.he0,
+        ),
+      )
+    : null;
+
+  // Rate of rise.
+  const volume = (typed.volume ?? '').trim() ? parseNumber(typed.volume, 'Volume') : null;
+  const riseSeries = (typed.rise ?? '').trim() ? parseSeries(typed.rise, 1, 'Rate of rise') : null;
+  let rise: { ok: true; value: RateOfRiseResult } | { ok: false; message: string } | null = null;
+  if (volume && !volume.ok) rise = volume;
+  else if (riseSeries && !riseSeries.ok) rise = riseSeries;
+  else if (volume?.ok && riseSeries?.ok) rise = attempt(() => rateOfRise(volume.value * 1e-3, riseSeries.samples));
+
+  // Outgassing fit.
+  const pumpSeries = (typed.pump ?? '').trim() ? parseSeries(typed.pump, 3600, 'Pump-down') : null;
+  let fit: { ok: true; value: OutgassingFit } | { ok: false; message: string } | null = null;
+  if (pumpSeries && !pumpSeries.ok) fit = pumpSeries;
+  else if (pumpSeries?.ok) fit = attempt(() => fitOutgassing(pumpSeries.samples));
+
+  return (
+    <section class="screen" aria-labelledby="leak-title">
+      <h2 id="leak-title">Leak check</h2>
+      <p class="lede">Heights from one background scan, a pressure-rise log, or a pump-down log. Nothing here leaves the device.</p>
+
+      <div class="card">
+        <h3 class="card-title">Peak ratios</h3>
+        <p class="hint">Any one unit for all heights (counts/s, A, arbitrary). Dry air is N2 {DRY_AIR_PERCENT.nitrogen} %, O2 {DRY_AIR_PERCENT.oxygen} %, Ar {DRY_AIR_PERCENT.argon} % ({DRY_AIR_SOURCE}).</p>
+        <div class="peak-grid">
+          {PEAKS.map((p) => (
+            <div key={p.key} class={peakErrors[p.key] ? 'field has-error' : 'field'}>
+              <label for={`leak-${p.key}`}>{p.label}{p.required ? '' : <span class="unit"> (optional)</span>}</label>
+              <input id={`leak-${p.key}`} type="text" inputMode="decimal" autoComplete="off" value={typed[p.key] ?? ''} onInput={set(p.key)} />
+              {peakErrors[p.key] && <p class="field-error" role="alert">{peakErrors[p.key]}</p>}
+            </div>
+          ))}
+        </div>
+        {!canRatio && Object.keys(peakErrors).length === 0 && <p class="hint">Enter at least m/z 28 and 32.</p>}
+        {ratio && !ratio.ok && <p class="field-error" role="alert">{ratio.message}</p>}
+        {ratio?.ok && (
+          <div data-testid="leak-indication">
+            <p class="big">{INDICATION_WORDS[ratio.value.indication]}</p>
+            <ul>{ratio.value.reasons.map((r) => <li key={r}>{r}</li>)}</ul>
+            <div class="scroll-x">
+              <table class="values">
+                <thead><tr><th>Ratio</th><th>Measured</th><th>Band</th><th>In band</th><th>Source</th></tr></thead>
+                <tbody>
+                  {ratio.value.ratios.map((r) => (
+                    <tr key={r.name}>
+                      <td>{r.name}</td>
+                      <td>{r.measured === null ? 'cannot form (zero denominator)' : formatNumber(r.measured)}</td>
+                      <td>{formatNumber(r.low)} to {Number.isFinite(r.high) ? formatNumber(r.high) : 'any higher'}</td>
+                      <td>{r.inBand ? '✓ yes' : '✗ no'}</td>
+                      <td class="hint">{r.source}</td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </div>
+          </div>
+        )}
+      </div>
+
+      <div class="card">
+        <h3 class="card-title">Rate of rise</h3>
+        <p class="hint">Isolate the volume, then log time (s) and pressure (mbar), one pair per line. Q = V·Δp/Δt (O'Hanlon, A User's Guide to Vacuum Technology, 3rd ed., 2003).</p>
+        <div class={volume && !volume.ok ? 'field has-error' : 'field'}>
+          <label for="leak-volume">Isolated volume<span class="unit"> (L)</span></label>
+          <input id="leak-volume" type="text" inputMode="decimal" value={typed.volume ?? ''} onInput={set('volume')} />
+        </div>
+        <div class="field">
+          <label for="leak-rise">Time (s) and pressure (mbar)</label>
+          <textarea id="leak-rise" rows={5} value={typed.rise ?? ''} onInput={set('rise')} placeholder={'0 1e-3\n60 1.6e-3\n120 2.2e-3'} />
+        </div>
+        {rise && !rise.ok && <p class="field-error" role="alert">{rise.message}</p>}
+        {rise?.ok && (
+          <div data-testid="rate-of-rise">
+            <p class="big">Q = {formatNumber(rise.value.throughput * 10, 3)} mbar·L/s</p>
+            <p>{rise.value.reason}{rise.value.slopeRatio !== null ? ` (late/early slope ${formatNumber(rise.value.slopeRatio, 3)})` : ''}</p>
+          </div>
+        )}
+      </div>
+
+      <div class="card">
+        <h3 class="card-title">Outgassing or leak?</h3>
+        <p class="hint">Time since pump-down started (h) and pressure (mbar), one pair per line. Fits p = A/t + B: water falls as 1/t, a leak leaves the floor B.</p>
+        <div class="field">
+          <label for="leak-pump">Time (h) and pressure (mbar)</label>
+          <textarea id="leak-pump" rows={5} value={typed.pump ?? ''} onInput={set('pump')} placeholder={'1 8e-5\n4 2.4e-5\n24 6e-6'} />
+        </div>
+        {fit && !fit.ok && <p class="field-error" role="alert">{fit.message}</p>}
+        {fit?.ok && (
+          <div data-testid="outgassing-fit">
+            <p class="big">Floor B = {formatNumber(fit.value.B / 100, 3)} mbar</p>
+            <p>{fit.value.reason}</p>
+            <p class="hint">A = {formatNumber(fit.value.A / 100 / 3600, 3)} mbar·h; R² = {formatNumber(fit.value.rSquared, 4)}; floor share at the last point {formatNumber(fit.value.floorShareAtEnd * 100, 3)} %.</p>
+          </div>
+        )}
+      </div>
+    </section>
+  );
+}

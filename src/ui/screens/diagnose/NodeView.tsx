@@ -1,0 +1,448 @@
+import { useState } from 'preact/hooks';
+import {
+  answer,
+  enter,
+  judge,
+  preview,
+  record,
+  treeById,
+  UNITS,
+  type ActionNode,
+  type ChoiceNode,
+  type GateItem,
+  type GateNode,
+  type MeasureNode,
+  type QuestionNode,
+  type Role,
+  type Tolerance,
+  type Tree,
+  type TreeId,
+  type WalkState,
+} from '../../../diagnose';
+import { formatNumber } from '../../format';
+import { parseNumber } from './parse';
+import { SafetyCards } from './SafetyCards';
+import { VerdictWord } from './VerdictWord';
+
+/** What the engineer has typed at a node, kept in the walk's draft so a reload never loses it. */
+export type Typed = Record<string, string>;
+
+export interface NodeViewProps {
+  walk: WalkState;
+  tree: Tree;
+  typed: Typed;
+  onTyped: (t: Typed) => void;
+  onWalk: (w: WalkState) => void;
+  onFinish: () => void;
+}
+
+const ROLE_LABEL: Record<Role, string> = {
+  analyst: 'Lab analyst (user maintenance)',
+  specialist: 'In-house instrument specialist',
+  'field-engineer': 'Field service engineer (qualified for live work)',
+  'vacuum-engineer': 'Vacuum engineer or technician',
+};
+
+const ASK_LABEL: Record<Exclude<GateItem, 'role'>, string> = {
+  lockout: 'Lockout/tagout is applied (or planned) for every energy source this step touches',
+  ppe: 'The PPE this step needs is on',
+  procedure: "The maker's procedure for this model is at hand",
+  permit: "The site's permit for this work is in place",
+};
+
+export const TREE_TITLE = (id: TreeId) => treeById(id).title;
+
+function Intro(props: { node: { title: string; text: string; points?: string[]; source?: string }; kind: string }) {
+  const n = props.node;
+  return (
+    <>
+      <p class="walk-kind">{props.kind}</p>
+      <h2 class="walk-title" data-testid="walk-title">{n.title}</h2>
+      <p class="walk-text">{n.text}</p>
+      {n.points && n.points.length > 0 && <ul class="walk-points">{n.points.map((p) => <li key={p}>{p}</li>)}</ul>}
+      {n.source && <p class="hint">Source: {n.source}</p>}
+    </>
+  );
+}
+
+export function NodeView(props: NodeViewProps) {
+  const { walk, tree } = props;
+  const node = tree.nodes.find((n) => n.id === walk.nodeId);
+  if (!node) return <p class="notice">This walk points at a step ({walk.nodeId}) that this version does not have. Use Back to return to a known step.</p>;
+  if (walk.status === 'hand-over' && walk.handOver) return <HandOver {...props} to={walk.handOver} />;
+  switch (node.kind) {
+    case 'question':
+    case 'choice':
+      return <ChoiceView {...props} node={node} />;
+    case 'gate':
+      return <GateView {...props} node={node} />;
+    case 'measure':
+      return <MeasureView key={`${tree.id}/${node.id}`} {...props} node={node} />;
+    case 'action':
+      return <ActionView {...props} node={node} />;
+  }
+}
+
+function HandOver(props: NodeViewProps & { to: TreeId }) {
+  const later = props.walk.queue;
+  return (
+    <div class="walk-step" data-testid="walk-node" data-node-id="hand-over">
+      <p class="walk-kind">Next tree</p>
+      <h2 class="walk-title" data-testid="walk-title">Continue with: {TREE_TITLE(props.to)}</h2>
+      {later.length > 0 && <p class="walk-text">After that: {later.map(TREE_TITLE).join(', then ')}.</p>}
+      <button type="button" class="btn btn-primary btn-block" onClick={() => props.onWalk(enter(props.walk, treeById(props.to)))}>
+        Start “{TREE_TITLE(props.to)}”
+      </button>
+    </div>
+  );
+}
+
+function ChoiceView(props: NodeViewProps & { node: QuestionNode | ChoiceNode }) {
+  const { node, walk, tree } = props;
+  const multiple = node.kind === 'choice' && node.multiple;
+  const picked = (props.typed.picked ?? '').split(',').filter(Boolean);
+  const [problem, setProblem] = useState<string | null>(null);
+  const loopUsed = (id: string) => walk.steps.filter((s) => s.treeId === tree.id && s.nodeId === node.id && s.answer.kind === 'option' && s.answer.optionId === id).length;
+
+  function choose(optionId: string) {
+    try {
+      props.onWalk(answer(walk, tree, { kind: 'option', optionId, ...(props.typed.note ? { note: props.typed.note } : {}) }));
+    } catch (err) {
+      setProblem((err as Error).message);
+    }
+  }
+  return (
+    <div class="walk-step" data-testid="walk-node" data-node-id={node.id}>
+      <Intro node={node} kind={node.kind === 'question' ? 'Question' : multiple ? 'Pick all that apply' : 'Choice'} />
+      <SafetyCards ids={node.cards} />
+      {multiple ? (
+        <fieldset class="fieldset">
+          <legend>Symptoms seen</legend>
+          {node.options.map((o) => (
+            <label key={o.id} class="check-row">
+              <input
+                type="checkbox"
+                checked={picked.includes(o.id)}
+                onChange={(e) => {
+                  const on = (e.target as HTMLInputElement).checked;
+                  const next = on ? [...picked, o.id] : picked.filter((x) => x !== o.id);
+                  props.onTyped({ ...props.typed, picked: next.join(',') });
+                }}
+              />
+              <span>{o.label}</span>
+            </label>
+          ))}
+          <button
+            type="button"
+            class="btn btn-primary btn-block"
+            disabled={picked.length === 0}
+            onClick={() => {
+              try {
+                props.onWalk(answer(walk, tree, { kind: 'options', optionIds: picked }));
+              } catch (err) {
+                setProblem((err as Error).message);
+              }
+            }}
+          >
+            Continue with {picked.length || 'no'} symptom{picked.length === 1 ? '' : 's'}
+          </button>
+        </fieldset>
+      ) : (
+        <div class="choice-list" role="group" aria-label="Answers">
+          {node.options.map((o) => {
+            const spent = o.loop ? loopUsed(o.id) >= o.loop.max : false;
+            return (
+              <button key={o.id} type="button" class="btn btn-block" disabled={spent} onClick={() => choose(o.id)}>
+                {o.label}
+                {o.loop && <span class="hint"> ({loopUsed(o.id)} of {o.loop.max} used)</span>}
+              </button>
+            );
+          })}
+        </div>
+      )}
+      <NoteField typed={props.typed} onTyped={props.onTyped} />
+      {problem && <p class="field-error" role="alert">{problem}</p>}
+    </div>
+  );
+}
+
+function NoteField(props: { typed: Typed; onTyped: (t: Typed) => void }) {
+  return (
+    <div class="field">
+      <label for="walk-note">Note (optional)</label>
+      <textarea id="walk-note" rows={2} value={props.typed.note ?? ''} onInput={(e) => props.onTyped({ ...props.typed, note: (e.target as HTMLTextAreaElement).value })} />
+    </div>
+  );
+}
+
+function GateView(props: NodeViewProps & { node: GateNode }) {
+  const { node, walk, tree, typed } = props;
+  const role = (typed.role as Role | undefined) ?? undefined;
+  const confirmed = (typed.confirmed ?? '').split(',').filter(Boolean) as GateItem[];
+  const asks = node.asks.filter((a): a is Exclude<GateItem, 'role'> => a !== 'role');
+  const allRoles: Role[] = ['analyst', 'specialist', 'field-engineer', 'vacuum-engineer'];
+  const ready = !!role && asks.every((a) => confirmed.includes(a));
+  // Refusing sends nothing as confirmed, so the walker always takes the stop branch.
+  const go = (r: Role, refuse = false) => props.onWalk(answer(walk, tree, { kind: 'gate', role: r, confirmed: refuse ? [] : confirmed }));
+  return (
+    <div class="walk-step" data-testid="walk-node" data-node-id={node.id}>
+      <Intro node={node} kind="Safety gate" />
+      <p class="notice"><strong>Who may do this step:</strong> {node.roles.map((r) => ROLE_LABEL[r]).join('; ')}.</p>
+      <SafetyCards ids={node.cards} open />
+      <fieldset class="fieldset">
+        <legend>Your role</legend>
+        {allRoles.map((r) => (
+          <label key={r} class="check-row">
+            <input type="radio" name={`role-${node.id}`} checked={role === r} onChange={() => props.onTyped({ ...typed, role: r })} />
+            <span>{ROLE_LABEL[r]}{!node.roles.includes(r) && <span class="hint"> — not for this step</span>}</span>
+          </label>
+        ))}
+      </fieldset>
+      <fieldset class="fieldset">
+        <legend>Confirm each item</legend>
+        {asks.map((a) => (
+          <label key={a} class="check-row">
+            <input
+              type="checkbox"
+              checked={confirmed.includes(a)}
+              onChange={(e) => {
+                const on = (e.target as HTMLInputElement).checked;
+                const next = on ? [...confirmed, a] : confirmed.filter((x) => x !== a);
+                props.onTyped({ ...typed, confirmed: next.join(',') });
+              }}
+            />
+            <span>{ASK_LABEL[a]}</span>
+          </label>
+        ))}
+      </fieldset>
+      <button type="button" class="btn btn-primary btn-block" disabled={!ready} onClick={() => role && go(role)}>
+        Confirmed — continue
+      </button>
+      <button type="button" class="btn btn-block" onClick={() => go(role ?? node.roles[0], true)}>
+        I cannot confirm all of this — stop
+      </button>
+    </div>
+  );
+}
+
+function describeTolerance(t: Tolerance, unit: string): string {
+  switch (t.kind) {
+    case 'relative':
+      return `pass within ±${formatNumber(t.pass * 100, 3)} %, borderline within ±${formatNumber(t.borderline * 100, 3)} %`;
+    case 'absolute':
+      return `pass within ±${formatNumber(t.pass)} ${unit}, borderline within ±${formatNumber(t.borderline)} ${unit}`;
+    case 'decades':
+      return `pass within × ${formatNumber(10 ** t.pass, 3)}, borderline within × ${formatNumber(10 ** t.borderline, 3)}`;
+    case 'range':
+      return t.outer
+        ? `pass inside the range, borderline from ${formatNumber(t.outer.low)} to ${formatNumber(t.outer.high)} ${unit}`
+        : t.log
+          ? `pass inside the range, borderline within × ${formatNumber(10 ** t.borderline, 3)} outside it`
+          : 'pass inside the range';
+  }
+}
+
+function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
+  const { node, walk, tree, typed } = props;
+  const units = [node.measure.unit, ...(node.measure.altUnits ?? [])];
+  const unit = typed.unit && units.includes(typed.unit) ? typed.unit : node.measure.unit;
+  const [problem, setProblem] = useState<string | null>(null);
+  const calcInputs = node.expect && 'calc' in node.expect ? (node.expect.inputs ?? []).filter((i) => !i.fromReading) : [];
+  const inputText = (key: string, dflt?: number) => typed[`in:${key}`] ?? (dflt === undefined ? '' : String(dflt));
+
+  // Inputs as numbers; a field left empty falls back to its default; a bad one is reported beside it.
+  const inputErrors: Record<string, string> = {};
+  const inputs: Record<string, number> = {};
+  for (const i of calcInputs) {
+    const text = inputText(i.key, i.default);
+    if (text.trim() === '') continue;
+    const p = parseNumber(text, i.label);
+    if (p.ok) inputs[i.key] = p.value;
+    else inputErrors[i.key] = p.message;
+  }
+  const measuredText = typed.value ?? '';
+  const measured = measuredText.trim() === '' ? null : parseNumber(measuredText, node.measure.quantity);
+  const pv = node.expect ? preview(node, walk.instrument, inputs, unit, undefined, measured?.ok ? measured.value : undefined) : null;
+  const tol = node.expect?.tolerance;
+  let live: ReturnType<typeof judge> | null = null;
+  if (pv?.ok && tol && measured?.ok) {
+    try {
+      live = judge(measured.value, { value: pv.expected ?? undefined, low: pv.low ?? undefined, high: pv.high ?? undefined }, tol);
+    } catch {
+      live = null;
+    }
+  }
+  const needManual = !!node.expect && !pv?.ok;
+  const manual = typed.verdict ?? '';
+
+  function submit() {
+    setProblem(null);
+    if (!measured || !measured.ok) {
+      setProblem(measured && !measured.ok ? measured.message : `Enter the ${node.measure.quantity.toLowerCase()}.`);
+      return;
+    }
+    if (Object.keys(inputErrors).length) {
+      setProblem('Fix the inputs marked above first.');
+      return;
+    }
+    let verdict: { verdict: 'pass' | 'borderline' | 'fail'; side?: 'low' | 'high' } | undefined;
+    if (needManual) {
+      if (!manual) {
+        setProblem('No expected value here: choose your own verdict below.');
+        return;
+      }
+      const [v, side] = manual.split(':') as ['pass' | 'borderline' | 'fail', 'low' | 'high' | undefined];
+      verdict = { verdict: v, ...(side ? { side } : {}) };
+    }
+    try {
+      props.onWalk(answer(walk, tree, { kind: 'measure', value: measured.value, unit, inputs, ...(verdict ? { verdict } : {}), ...(typed.note ? { note: typed.note } : {}) }));
+    } catch (err) {
+      setProblem((err as Error).message);
+    }
+  }
+
+  return (
+    <div class="walk-step" data-testid="walk-node" data-node-id={node.id}>
+      <Intro node={node} kind="Measurement" />
+      <SafetyCards ids={node.cards} />
+      <dl class="facts">
+        <div><dt>Measure</dt><dd>{node.measure.quantity}</dd></div>
+        <div><dt>Tool</dt><dd>{node.measure.tool}</dd></div>
+        <div><dt>How</dt><dd>{node.measure.how}</dd></div>
+      </dl>
+      {calcInputs.map((i) => (
+        <div key={i.key} class={inputErrors[i.key] ? 'field has-error' : 'field'}>
+          <label for={`in-${i.key}`}>{i.label}<span class="unit"> ({i.unit})</span></label>
+          <input id={`in-${i.key}`} type="text" inputMode="decimal" autoComplete="off" value={inputText(i.key, i.default)}
+            onInput={(e) => props.onTyped({ ...typed, [`in:${i.key}`]: (e.target as HTMLInputElement).value })} />
+          {inputErrors[i.key] && <p class="field-error" role="alert">{inputErrors[i.key]}</p>}
+        </div>
+      ))}
+      {pv && (
+        <div class="card expect-box" data-testid="expected">
+          {pv.ok ? (
+            <>
+              <p class="big">
+                Expected: {pv.expected !== null ? `${formatNumber(pv.expected)} ${unit}` : ''}
+                {pv.low !== null || pv.high !== null
+                  ? ` ${pv.expected !== null ? '(' : ''}${pv.low !== null && pv.high !== null ? `${formatNumber(pv.low)} to ${formatNumber(pv.high)}` : pv.high !== null ? `at most ${formatNumber(pv.high)}` : `at least ${formatNumber(pv.low!)}`} ${unit}${pv.expected !== null ? ')' : ''}`
+                  : ''}
+              </p>
+              {tol && <p class="hint">Tolerance: {describeTolerance(tol, unit)}.</p>}
+              <p class="hint">{pv.basis}</p>
+            </>
+          ) : (
+            <p class="notice">{pv.error === 'none' ? pv.basis : pv.error}</p>
+          )}
+        </div>
+      )}
+      <div class="row measure-row">
+        <div class={measured && !measured.ok ? 'field has-error grow' : 'field grow'}>
+          <label for="walk-value">Measured {node.measure.quantity.toLowerCase()}</label>
+          <input id="walk-value" type="text" inputMode="decimal" autoComplete="off" value={measuredText}
+            onInput={(e) => props.onTyped({ ...typed, value: (e.target as HTMLInputElement).value })} />
+          {measured && !measured.ok && <p class="field-error" role="alert">{measured.message}</p>}
+        </div>
+        {units.length > 1 ? (
+          <div class="field">
+            <label for="walk-unit">Unit</label>
+            <select id="walk-unit" value={unit} onChange={(e) => props.onTyped({ ...typed, unit: (e.target as HTMLSelectElement).value })}>
+              {units.map((u) => <option key={u} value={u}>{u}</option>)}
+            </select>
+          </div>
+        ) : (
+          <p class="unit-fixed">{unit}</p>
+        )}
+      </div>
+      {live && (
+        <p data-testid="live-verdict">
+          This reading would be: <VerdictWord verdict={live.verdict} side={live.side} />
+        </p>
+      )}
+      {needManual && (
+        <fieldset class="fieldset">
+          <legend>Your verdict (no expected value could be computed)</legend>
+          {(['pass', 'borderline:low', 'borderline:high', 'fail:low', 'fail:high'] as const).map((v) => (
+            <label key={v} class="check-row">
+              <input type="radio" name={`verdict-${node.id}`} checked={manual === v} onChange={() => props.onTyped({ ...typed, verdict: v })} />
+              <span>{v === 'pass' ? 'Pass' : `${v.startsWith('fail') ? 'Fail' : 'Borderline'}, ${v.endsWith('low') ? 'low' : 'high'}`}</span>
+            </label>
+          ))}
+        </fieldset>
+      )}
+      <NoteField typed={typed} onTyped={props.onTyped} />
+      <button type="button" class="btn btn-primary btn-block" onClick={submit}>Record reading and continue</button>
+      {problem && <p class="field-error" role="alert">{problem}</p>}
+      {node.alternatives && node.alternatives.length > 0 && (
+        <div class="choice-list" role="group" aria-label="Other ways forward">
+          <p class="hint">No number to enter?</p>
+          {node.alternatives.map((o) => (
+            <button key={o.id} type="button" class="btn btn-block" onClick={() => props.onWalk(answer(walk, tree, { kind: 'option', optionId: o.id }))}>
+              {o.label}
+            </button>
+          ))}
+        </div>
+      )}
+    </div>
+  );
+}
+
+function ActionView(props: NodeViewProps & { node: ActionNode }) {
+  const { node, walk, tree, typed } = props;
+  const [problem, setProblem] = useState<string | null>(null);
+  const unitList = Object.keys(UNITS);
+  const leftUnit = typed.leftUnit ?? 'V';
+  const next = [...new Set([...walk.queue, ...node.continueWith ?? []])];
+  const asLeft = walk.readings.filter((r) => r.phase === 'as-left' && r.nodeId === node.id && r.treeId === tree.id);
+
+  function recordLeft() {
+    setProblem(null);
+    const v = parseNumber(typed.leftValue ?? '', 'the as-left value');
+    if (!v.ok) return setProblem(v.message);
+    const quantity = (typed.leftQuantity ?? '').trim();
+    if (!quantity) return setProblem('Say what you re-measured.');
+    try {
+      props.onWalk(record(walk, tree, { kind: 'measure', value: v.value, unit: leftUnit, quantity, ...(typed.note ? { note: typed.note } : {}) }));
+      props.onTyped({ ...typed, leftValue: '' });
+    } catch (err) {
+      setProblem((err as Error).message);
+    }
+  }
+
+  return (
+    <div class="walk-step" data-testid="walk-node" data-node-id={node.id}>
+      <Intro node={node} kind={node.escalate ? 'Action — escalate' : 'Action'} />
+      <SafetyCards ids={node.cards} />
+      <ol class="walk-points">{node.steps.map((s) => <li key={s}>{s}</li>)}</ol>
+      <div class="card closing" data-testid="closing">
+        <p class="big">Then re-measure and record</p>
+        <p>{node.closing.what}; record it as-left and compare with the as-found value and the baseline.</p>
+        <div class="field">
+          <label for="left-quantity">What you re-measured</label>
+          <input id="left-quantity" type="text" value={typed.leftQuantity ?? ''} onInput={(e) => props.onTyped({ ...typed, leftQuantity: (e.target as HTMLInputElement).value })} />
+        </div>
+        <div class="row measure-row">
+          <div class="field grow">
+            <label for="left-value">As-left value</label>
+            <input id="left-value" type="text" inputMode="decimal" autoComplete="off" value={typed.leftValue ?? ''} onInput={(e) => props.onTyped({ ...typed, leftValue: (e.target as HTMLInputElement).value })} />
+          </div>
+          <div class="field">
+            <label for="left-unit">Unit</label>
+            <select id="left-unit" value={leftUnit} onChange={(e) => props.onTyped({ ...typed, leftUnit: (e.target as HTMLSelectElement).value })}>
+              {unitList.map((u) => <option key={u} value={u}>{u}</option>)}
+            </select>
+          </div>
+        </div>
+        <button type="button" class="btn btn-block" onClick={recordLeft}>Record as-left reading</button>
+        {problem && <p class="field-error" role="alert">{problem}</p>}
+        {asLeft.length > 0 && <p class="hint">{asLeft.length} as-left reading{asLeft.length === 1 ? '' : 's'} recorded here.</p>}
+      </div>
+      {next.map((t) => (
+        <button key={t} type="button" class="btn btn-primary btn-block" onClick={() => props.onWalk(enter(walk, treeById(t)))}>
+          Continue with “{TREE_TITLE(t)}”
+        </button>
+      ))}
+      <button type="button" class="btn btn-block" onClick={props.onFinish}>Finish this walk</button>
+    </div>
+  );
+}

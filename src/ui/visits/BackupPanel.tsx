@@ -1,0 +1,125 @@
+// Backup, restore, CSV and the reminder. Restore checks the whole file first and changes nothing if any part is wrong.
+import { useEffect, useState } from 'preact/hooks';
+import type { BackupReminder, ImportResult } from '../../store';
+import { useApp } from '../context';
+import { canShareFiles, errorText, shareOrDownload, stamp } from './files';
+
+export function BackupReminderNote() {
+  const { store } = useApp();
+  const [status, setStatus] = useState<BackupReminder | null>(null);
+  useEffect(() => {
+    if (!store) return;
+    void store.backupStatus().then(setStatus).catch(() => setStatus(null));
+  }, [store]);
+  if (!status?.due) return null;
+  return (
+    <div class="card reminder" role="note" data-testid="backup-reminder">
+      <p><strong>⚠ Time for a backup.</strong> {status.message}</p>
+      <a class="btn btn-small" href="/visits#backup">Back up now</a>
+    </div>
+  );
+}
+
+export function BackupPanel() {
+  const { store, notify, reloadInstruments } = useApp();
+  const [status, setStatus] = useState<BackupReminder | null>(null);
+  const [busy, setBusy] = useState(false);
+  const [result, setResult] = useState<ImportResult | null>(null);
+  const [problem, setProblem] = useState<string | null>(null);
+  const share = canShareFiles();
+
+  const refresh = () => void store?.backupStatus().then(setStatus).catch(() => undefined);
+  useEffect(refresh, [store]);
+
+  async function exportBackup(viaShare: boolean) {
+    if (!store) return;
+    setBusy(true);
+    setProblem(null);
+    try {
+      const text = await store.exportBackup();
+      const outcome = await shareOrDownload(`rodside-backup-${stamp()}.json`, 'application/json', text, viaShare);
+      if (outcome !== 'cancelled') {
+        await store.noteBackupSaved();
+        notify(outcome === 'shared' ? 'Backup shared.' : 'Backup downloaded. Keep the file somewhere other than this device.');
+        refresh();
+      }
+    } catch (err) {
+      setProblem(errorText(err));
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  async function exportCsv(viaShare: boolean) {
+    if (!store) return;
+    try {
+      const text = await store.readingsCsv();
+      await shareOrDownload(`rodside-readings-${stamp()}.csv`, 'text/csv;charset=utf-8', text, viaShare);
+    } catch (err) {
+      setProblem(errorText(err));
+    }
+  }
+
+  async function restore(file: File | undefined) {
+    if (!store || !file) return;
+    setBusy(true);
+    setProblem(null);
+    setResult(null);
+    try {
+      const text = await file.text();
+      const r = await store.importBackup(text);
+      setResult(r);
+      await reloadInstruments();
+      notify(`Backup restored: ${r.added} added, ${r.updated} updated, ${r.unchanged} unchanged.`);
+    } catch (err) {
+      setProblem(`The backup was not restored and nothing on this device changed. ${errorText(err)}`);
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  async function eraseEverything() {
+    if (!store) return;
+    if (!confirm('Erase every instrument, visit, reading and setting on this device? Export a backup first: this cannot be undone.')) return;
+    try {
+      await store.eraseAll();
+      await reloadInstruments();
+      setResult(null);
+      notify('Everything on this device was erased.');
+      refresh();
+    } catch (err) {
+      setProblem(errorText(err));
+    }
+  }
+
+  return (
+    <section class="card" id="backup" data-testid="backup-panel">
+      <h2 class="card-title">Backup and export</h2>
+      <p class="muted">
+        Everything lives only on this device. {status?.daysSince != null ? status.message : 'No backup has been exported from this device yet.'}{' '}
+        Browsers may delete a site’s data without asking; keep a backup file elsewhere.
+      </p>
+      <div class="row">
+        <button type="button" class="btn btn-primary" disabled={busy || !store} onClick={() => exportBackup(false)}>Download backup</button>
+        {share && <button type="button" class="btn" disabled={busy || !store} onClick={() => exportBackup(true)}>Share backup…</button>}
+        <button type="button" class="btn" disabled={!store} onClick={() => exportCsv(false)}>Readings as CSV</button>
+        {share && <button type="button" class="btn" disabled={!store} onClick={() => exportCsv(true)}>Share CSV…</button>}
+      </div>
+      <div class="field file-pick">
+        <label for="backup-file">Restore from a backup file</label>
+        <input id="backup-file" type="file" accept=".json,application/json" disabled={busy || !store}
+          onChange={(e) => { const input = e.target as HTMLInputElement; void restore(input.files?.[0]).finally(() => { input.value = ''; }); }} />
+        <p class="hint">Records are merged by id: nothing on this device is deleted, and a damaged file changes nothing.</p>
+      </div>
+      {result && (
+        <p data-testid="restore-result" role="status">✓ Restored: {result.added} added, {result.updated} updated, {result.unchanged} unchanged.</p>
+      )}
+      {problem && <p class="banner banner-problem" role="alert" data-testid="backup-problem">{problem}</p>}
+      <details>
+        <summary>Erase this device</summary>
+        <p class="muted">Removes every record kept by Rodside on this device.</p>
+        <button type="button" class="btn btn-danger" onClick={eraseEverything}>Erase everything on this device</button>
+      </details>
+    </section>
+  );
+}
