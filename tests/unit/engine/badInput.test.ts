@@ -213,6 +213,11 @@ const cases: Case[] = [
     bad: { mzFrom: [...NON_FINITE, -1], mzTo: [NaN, 498], points: [NaN, 1, 2.5, -3], r0: POSITIVE, rodLength: POSITIVE, axialVoltage: POSITIVE },
   },
   { name: 'seededRandom', call: (p) => engine.seededRandom(p.seed as number), valid: { seed: 42 }, bad: { seed: [NaN, Infinity, '1', null, 1.5] } },
+  { name: 'peakWidths', call: (p) => engine.peakWidths(p.mz as never, p.transmission as never), valid: { mz: [1, 2, 3], transmission: [0, 1, 0] }, bad: { mz: [[], [1], null, [1, NaN, 3], [3, 2, 1]], transmission: [[0, 1], null, [0, -1, 0], [0, NaN, 0]] } },
+  { name: 'stableInterval', call: (p) => engine.stableInterval(p as never, p.inside as number), valid: { ...beam, rf: 577, dc: 96, inside: 500 }, bad: { r0: POSITIVE, frequency: POSITIVE, rf: [NaN, -1], dc: [NaN, Infinity], inside: POSITIVE } },
+  { name: 'sampleIons', call: (p) => engine.sampleIons(p.model as never, p.count as number, p.seed as number), valid: { model: { a: 0.2, q: 0.7, cycles: 10, beamRadius: 0.1, slopeSigma: 0.01 }, count: 3, seed: 1 }, bad: { count: [NaN, -1, 1.5], seed: [NaN, 1.5], model: [null] } },
+  { name: 'integrateIon', call: (p) => engine.integrateIon(p.a as number, p.q as number, p.cycles as number, p.ion as never), valid: { a: 0.2, q: 0.7, cycles: 5, ion: { phase: 0, x: 0.1, slopeX: 0, y: 0.1, slopeY: 0 } }, bad: { a: [NaN, Infinity], q: [NaN], cycles: POSITIVE, ion: [null] } },
+  { name: 'transmissionVsResolution', call: (p) => engine.transmissionVsResolution(p as never), valid: { mz: 100, r0: 4e-3, frequency: 1e6, rodLength: 0.2, axialVoltage: 10, beamRadius: 4e-4, transverseEnergy: 0.2, ratios: [0.16], points: 5 }, bad: { mz: POSITIVE, qOperating: [NaN, -1, 2], points: [NaN, 1, 2.5], ratios: [[], [NaN]], rodLength: POSITIVE } },
 ];
 
 describe('bad input: every public function', () => {
