@@ -79,6 +79,16 @@ async function canvasInkedPixels(selector: string): Promise<number> {
 }
 
 describe('Bench and Stability, offline on a phone-sized screen', () => {
+  it('the resolution planner gets the transmission cost from the peak worker, offline', async () => {
+    const page = session!.page;
+    await page.goto(origin + '/stability/resolution');
+    const loss = page.locator('[data-testid="transmission-loss"]');
+    await expect.poll(() => loss.textContent(), { timeout: 30_000 }).toMatch(/Resolving to m\/Δm 1000 costs \d+(\.\d+)? % of the ions/);
+    const target = Number((await page.locator('[data-testid="transmission-target"] .result-value').textContent())!.replace(' %', ''));
+    expect(target).toBeGreaterThan(0);
+    expect(target).toBeLessThan(100);
+  });
+
   it('every area renders offline with a heading, no page errors, and no serious or critical axe violations', async () => {
     const page = session!.page;
     const problems: string[] = [];

@@ -16,6 +16,7 @@ import { Result } from '../bench/NoteButton';
 import { convertRf } from '../../engine';
 import { ScanLawChart } from './ScanLawChart';
 import { ScanPlanning } from './ScanPlanning';
+import { TransmissionCost } from './TransmissionCost';
 
 type PlannerInputs = {
   ratio: string; mz: string; rodLength: string; frequency: string; axialEnergy: string; k: string; wantedWidth: string; targetR: string;
@@ -139,7 +140,9 @@ export function ResolutionPlanner() {
             )}
           </div>
         )}
-        <p class="notice" data-testid="transmission-cost">Transmission cost: see the Peak area. Closing the band towards the apex costs transmission steeply; the peak simulation there shows how much for these settings.</p>
+        {reversePoint && mz !== null && target !== null && rodLength !== null && frequency !== null && axialEnergy !== null && (
+          <TransmissionCost mz={mz} dc={reversePoint.dc} rf={reversePoint.rf} r0={profile.rodFieldRadius} frequency={frequency} rodLength={rodLength} axialEnergy={axialEnergy} targetR={target} />
+        )}
       </form>
 
       {top !== null && <ScanLawChart profile={profile} top={top} />}
