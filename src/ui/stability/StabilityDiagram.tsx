@@ -178,7 +178,7 @@ export function StabilityDiagram() {
         <div class="row" role="group" aria-label="Chart view">
           <button type="button" class="btn btn-small" onClick={() => setView({ key: Date.now(), ranges: { x: WHOLE.x, y: WHOLE.y } })}>Whole region</button>
           <button type="button" class="btn btn-small" data-testid="zoom-apex"
-            onClick={() => setView({ key: Date.now(), ranges: { x: [apex.q - 0.012, apex.q + 0.012], y: [apex.a - 0.012, apex.a + 0.006] } })}>Apex close-up</button>
+            onClick={() => setView({ key: Date.now(), ranges: { x: [apex.q - 0.016, apex.q + 0.016], y: [apex.a - 0.012, apex.a + 0.006] } })}>Apex close-up</button>
         </div>
         <Chart data={data} options={options} height={320} zoomButtons zoomScales={['x', 'y']} view={view} redrawKey={redrawKey}
           onTap={onTap} testId="stability-chart"
@@ -264,7 +264,8 @@ function chartOptions(pointsRef: { current: PlottedPoint[] }, selectedRef: { cur
   return {
     legend: { show: false },
     cursor: { drag: { x: false, y: false }, points: { show: false }, x: false, y: false },
-    scales: { x: { time: false, range: WHOLE.x }, y: { range: WHOLE.y } },
+    // x follows the data (q from 0 to Q_MAX) so an explicit zoom sticks; a fixed array would pin it.
+    scales: { x: { time: false }, y: { range: WHOLE.y } },
     axes: [
       { label: 'q', stroke: ink, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid } },
       { label: 'a', stroke: ink, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid }, size: 56 },
