@@ -88,8 +88,12 @@ export function VacuumCheck() {
               <span class={`verdict verdict-${verdict.cls}`}>{verdict.symbol} {verdict.cls === 'pass' ? 'pass' : verdict.cls}</span> {verdict.words}
             </p>
           )}
+          {reading.ok && (
+            <Result label="Gauge reading as entered (N2-equivalent)" value={formatSi(reading.value, unit, 3)}
+              note={{ label: 'Analyser ion-gauge reading (N2-equivalent)', value: reading.value, unit, origin: 'entered', context: { gaugeGas: gas }, typeId: 'vacuum-high' }} />
+          )}
           <Result label={`True ${gas} pressure`} value={`${formatSi(truePressure, unit, 3)} = ${formatSi(convertPressure(truePa, 'Pa', 'mbar'), 'mbar', 3)} = ${formatSi(convertPressure(truePa, 'Pa', 'Torr'), 'Torr', 3)} = ${formatSi(truePa, 'Pa', 3)}`}
-            testId="true-pressure" note={{ label: `True ${gas} pressure from ion-gauge reading`, value: truePressure, unit, origin: 'calculator', context: ctx, typeId: 'analyser-pressure' }} />
+            testId="true-pressure" note={{ label: `True ${gas} pressure from ion-gauge reading`, value: truePressure, unit, origin: 'calculator', context: ctx }} />
           {scatter && (
             <>
               <Result label={`Mean free path (${pathGas}${pathGas !== gas ? `, standing in for ${gas}` : ''}, ${GAS_PRESETS[pathGas].diameter * 1e10} Å collision diameter)`}
