@@ -108,6 +108,22 @@ describe('Bench and Stability, offline on a phone-sized screen', () => {
     expect(session!.foreignRequests).toEqual([]);
   });
 
+  it('at 360 px wide nothing on the Bench and Stability screens runs off the side', async () => {
+    const page = session!.page;
+    await page.setViewportSize({ width: 360, height: 780 });
+    try {
+      for (const path of ['/bench', '/bench/vacuum', '/stability', '/stability/resolution']) {
+        await page.goto(origin + path);
+        await expect.poll(() => page.locator('main h1').first().textContent()).toMatch(/\S/);
+        await page.waitForTimeout(300);
+        const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+        expect(overflow, `${path} overflows by ${overflow} px`).toBeLessThanOrEqual(0);
+      }
+    } finally {
+      await page.setViewportSize({ width: 390, height: 844 });
+    }
+  });
+
   it('the expected voltages for Kestrel show m/z 69 at 100.91 V 0-p and 16.936 V DC with the HV caution', async () => {
     const page = session!.page;
     await page.goto(origin + '/bench');

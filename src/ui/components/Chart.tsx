@@ -101,7 +101,14 @@ export function Chart(props: ChartProps) {
   function reset() {
     const u = plot.current;
     if (!u) return;
-    u.setData(latest.current.data, true);
+    u.batch(() => {
+      u.setData(latest.current.data, true);
+      // Scales with a fixed range are not auto-ranged by setData: put them back explicitly.
+      for (const [key, scale] of Object.entries(latest.current.options.scales ?? {})) {
+        const range = scale?.range;
+        if (Array.isArray(range) && typeof range[0] === 'number' && typeof range[1] === 'number') u.setScale(key, { min: range[0], max: range[1] });
+      }
+    });
   }
 
   return (
