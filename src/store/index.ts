@@ -155,7 +155,10 @@ export interface Store {
   trendSeries(instrumentId: string, typeId: string): Promise<ReadingContext[]>;
 
   // ---- Diagnosis walks ----------------------------------------------------------------------------
-  /** Create (no id) or update a walk. startedAt is kept from the first save. */
+  /**
+   * Create (no id) or update a walk. startedAt is kept from the first save. A walk without a visit is
+   * attached to the instrument's open visit (the one "Note this" and the Visits screen use), if there is one.
+   */
   saveWalk(walk: Omit<WalkRecord, 'id' | 'startedAt' | 'updatedAt'> & { id?: string; startedAt?: string }): Promise<WalkRecord>;
   getWalk(id: string): Promise<WalkRecord | undefined>;
   listWalks(visitId: string): Promise<WalkRecord[]>;
@@ -684,18 +687,27 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
     // ---- Walks ----------------------------------------------------------------------------------
     saveWalk: (walk) =>
       guard('keep the diagnosis walk', async () => {
-        const tx = db.transaction('walks', 'readwrite');
-        const was = walk.id ? await tx.store.get(walk.id) : undefined;
+        const tx = db.transaction(['walks', 'visits', 'settings'], 'readwrite');
+        const was = walk.id ? await tx.objectStore('walks').get(walk.id) : undefined;
         const now = nowIso();
+        // A walk belongs to a visit: the one given, the one it already had, else the instrument's open visit.
+        let visitId = walk.visitId ?? was?.visitId;
+        if (!visitId && walk.instrumentId) {
+          const current = (await tx.objectStore('settings').get(`currentVisit:${walk.instrumentId}`))?.value;
+          const v = typeof current === 'string' ? await tx.objectStore('visits').get(current) : undefined;
+          if (v && v.instrumentId === walk.instrumentId) visitId = v.id;
+        }
         const record: WalkRecord = {
           ...walk,
           id: walk.id ?? newId('walk'),
+          ...(visitId ? { visitId } : {}),
           startedAt: was?.startedAt ?? walk.startedAt ?? now,
           updatedAt: now,
         };
+        if (record.visitId === undefined) delete record.visitId;
         const problems = walkProblems('walk', record);
         if (problems.length) throw new StoreError(`Could not keep the diagnosis walk: ${problems.join('; ')}.`);
-        await tx.store.put(record);
+        await tx.objectStore('walks').put(record);
         await tx.done;
         return record;
       }),

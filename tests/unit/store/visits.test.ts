@@ -127,8 +127,15 @@ describe('visits and readings', () => {
     expect((await store.latestInProgressWalk({ instrumentId }))?.id).toBe(w1.id);
     expect((await store.getWalk(w2.id))?.startedAt).toBe(w2.startedAt);
     await expect(store.saveWalk({ treeId: 'x', state: { f: Number.NaN }, status: 'in-progress' })).rejects.toThrow(/walk.state.f: expected a finite number/);
+    // Optional fields left undefined are fine (JSON drops them).
+    await store.saveWalk({ treeId: 'x', state: { note: undefined, list: [1, undefined] }, status: 'abandoned' });
+    // A walk saved without a visit joins the instrument's open visit.
+    await store.setCurrentVisit(instrumentId, v.id);
+    const w3 = await store.saveWalk({ instrumentId, treeId: 'noise', state: { at: 'N-1' }, status: 'in-progress' });
+    expect(w3.visitId).toBe(v.id);
+    expect((await store.saveWalk({ ...w3, state: { at: 'N-2' } })).visitId).toBe(v.id);
     const bundle = await store.deleteVisit(v.id);
-    expect(bundle?.walks).toHaveLength(2);
+    expect(bundle?.walks).toHaveLength(3);
     store.close();
   });
 
