@@ -21,7 +21,7 @@ export interface EngineFunctions {
 /** Apex U/V of the first stability region, a/(2q) = 0.23699/(2·0.70600) (Dawson 1976; domain F1). */
 export const APEX_DC_TO_RF = 0.16784;
 
-export type ExpectationBasis = 'baseline' | 'calculated' | 'set value' | 'published' | 'generic';
+export type ExpectationBasis = 'baseline' | 'maker limit' | 'calculated' | 'set value' | 'published' | 'generic';
 
 export interface Expectation {
   /** A single expected value, base units. */
@@ -69,11 +69,20 @@ function grade(rule: ToleranceRule, dev: number): Verdict {
   return 'fail';
 }
 
-function describe(rule: ToleranceRule, dev: number): string {
+const basisWords: Record<ExpectationBasis, string> = {
+  baseline: 'the baseline value',
+  'maker limit': 'the maker’s limit',
+  calculated: 'the calculated value',
+  'set value': 'the set value',
+  published: 'the published value',
+  generic: 'the generic value',
+};
+
+function describe(rule: ToleranceRule, dev: number, unit: string): string {
   if (!Number.isFinite(dev)) return 'off the scale';
   switch (rule.kind) {
     case 'absolute':
-      return `off by ${formatNumber(dev, 3)}`;
+      return `off by ${formatNumber(dev, 3)}${unit ? ` ${unit}` : ''}`;
     case 'relative':
       return `off by ${formatNumber(dev * 100, 3)} %`;
     case 'factor':
@@ -81,17 +90,20 @@ function describe(rule: ToleranceRule, dev: number): string {
   }
 }
 
-/** Judge a value (base units) against an expectation. Pure and total: every finite input gets a verdict. */
-export function judge(x: number, e: Expectation): Judgement {
+/**
+ * Judge a value (base units) against an expectation. Pure and total: every finite input gets a verdict.
+ * `unit` (the base unit) only makes the summary read better for absolute tolerances.
+ */
+export function judge(x: number, e: Expectation, unit = ''): Judgement {
   if (!Number.isFinite(x)) return { verdict: 'fail', deviation: Infinity, summary: 'not a finite number' };
   if (e.value !== undefined) {
     const ref = e.value;
     if ((e.badSide === 'high' && x <= ref) || (e.badSide === 'low' && x >= ref)) {
-      return { verdict: 'pass', deviation: 0, summary: `on the good side of the ${e.basis} value` };
+      return { verdict: 'pass', deviation: 0, summary: `on the good side of ${basisWords[e.basis]}` };
     }
     const dev = measure(e.tolerance, x, ref);
     const verdict = grade(e.tolerance, dev);
-    return { verdict, deviation: dev, summary: `${describe(e.tolerance, dev)} from the ${e.basis} value` };
+    return { verdict, deviation: dev, summary: `${describe(e.tolerance, dev, unit)} from ${basisWords[e.basis]}` };
   }
   const below = e.low !== undefined && x < e.low;
   const above = e.high !== undefined && x > e.high;
@@ -102,7 +114,7 @@ export function judge(x: number, e: Expectation): Judgement {
   const bound = below ? e.low! : e.high!;
   const dev = measure(e.tolerance, x, bound);
   const verdict = grade(e.tolerance, dev);
-  return { verdict, deviation: dev, summary: `${below ? 'below' : 'above'} the ${e.basis} range, ${describe(e.tolerance, dev)}` };
+  return { verdict, deviation: dev, summary: `${below ? 'below' : 'above'} the ${e.basis} range, ${describe(e.tolerance, dev, unit)}` };
 }
 
 export interface ExpectationInput {
@@ -118,6 +130,16 @@ function num(v: unknown): number | undefined {
   return typeof v === 'number' && Number.isFinite(v) ? v : undefined;
 }
 
+/** The engine refuses inputs outside its ranges by throwing; here that just means "no calculated value". */
+function safely(f: () => number): number | undefined {
+  try {
+    const v = f();
+    return Number.isFinite(v) ? v : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
 /** The calculated expectation of a type, or undefined when its inputs are missing. */
 function calculated(inp: ExpectationInput): Expectation | undefined {
   const { type, instrument, context, engine } = inp;
@@ -128,14 +150,14 @@ function calculated(inp: ExpectationInput): Expectation | undefined {
   switch (type.computed) {
     case 'rf-amplitude': {
       if (!engine || !instrument || mz === undefined) return undefined;
-      const v = engine.rfForMass({ mz, r0: instrument.rodFieldRadius, frequency: instrument.rfFrequency });
-      return Number.isFinite(v) ? { value: v, basis: 'calculated', source, tolerance, badSide: type.badSide } : undefined;
+      const v = safely(() => engine.rfForMass({ mz, r0: instrument.rodFieldRadius, frequency: instrument.rfFrequency }));
+      return v !== undefined ? { value: v, basis: 'calculated', source, tolerance, badSide: type.badSide } : undefined;
     }
     case 'dc-amplitude': {
       if (!engine || !instrument || mz === undefined) return undefined;
       const args = { mz, r0: instrument.rodFieldRadius, frequency: instrument.rfFrequency };
-      const u = engine.dcForMass ? engine.dcForMass(args) : APEX_DC_TO_RF * engine.rfForMass(args);
-      return Number.isFinite(u) ? { value: u, basis: 'calculated', source, tolerance, badSide: type.badSide } : undefined;
+      const u = safely(() => (engine.dcForMass ? engine.dcForMass(args) : APEX_DC_TO_RF * engine.rfForMass(args)));
+      return u !== undefined ? { value: u, basis: 'calculated', source, tolerance, badSide: type.badSide } : undefined;
     }
     case 'rf-frequency':
       if (!instrument) return undefined;
@@ -166,7 +188,9 @@ export function expectationFor(inp: ExpectationInput): Expectation | undefined {
   }
   const c = calculated(inp);
   if (c) return c;
-  const generic = type.generic?.find((g) => !g.kinds || (instrument && g.kinds.includes(instrument.kind)));
+  const generic = type.generic?.find((g) =>
+    (!g.kinds || (instrument && g.kinds.includes(instrument.kind))) &&
+    Object.entries(g.when ?? {}).every(([k, v]) => String(inp.context[k] ?? '') === v));
   if (generic) {
     return {
       low: generic.low, high: generic.high, basis: 'generic', source: generic.source, badSide: type.badSide,
@@ -245,4 +269,94 @@ export function checkEntry(type: ReadingType, text: string, unitId: string, cont
   // The convention travels with the value: "V peak-to-peak, one rod to ground" and so on.
   if (unit && type.units.length > 1) context.convention = unit.label;
   return { ok: true, value, context, unitId };
+}
+
+// ---- Instrument-specific limits --------------------------------------------------------------------
+
+/**
+ * A limit the instrument's maker (or the site) sets for a reading type, entered by the user with its source.
+ * Base units. It applies to every reading of the type on that instrument, whatever the context.
+ */
+export interface MakerLimit {
+  typeId: string;
+  low?: number;
+  high?: number;
+  source: string;
+}
+
+/** A maker's limit is hard: inside passes, outside fails, no borderline band. */
+export function limitExpectation(limit: MakerLimit): Expectation {
+  return {
+    low: limit.low, high: limit.high, basis: 'maker limit', source: `maker’s limit: ${limit.source}`,
+    tolerance: { kind: 'absolute', pass: 0, borderline: 0 }, badSide: 'both',
+  };
+}
+
+const rank: Record<Verdict, number> = { pass: 0, borderline: 1, fail: 2 };
+
+/**
+ * Combine the usual expectation with the instrument's own limit. A maker's limit replaces a generic range
+ * (the maker knows the instrument better); against a baseline or a calculation the worse verdict wins, so a
+ * reading inside its drift tolerance but outside the maker's limit still fails.
+ */
+export function judgeWithLimit(
+  value: number, unit: string, primary: Expectation | undefined, limit: MakerLimit | undefined,
+): { expectation: Expectation; judgement: Judgement } | undefined {
+  const fromLimit = limit ? { expectation: limitExpectation(limit), judgement: judge(value, limitExpectation(limit), unit) } : undefined;
+  if (!primary || primary.basis === 'generic') return fromLimit ?? (primary ? { expectation: primary, judgement: judge(value, primary, unit) } : undefined);
+  const usual = { expectation: primary, judgement: judge(value, primary, unit) };
+  if (!fromLimit) return usual;
+  return rank[fromLimit.judgement.verdict] > rank[usual.judgement.verdict] ? fromLimit : usual;
+}
+
+/** Limits read back from settings (they may come from an imported backup): keep only well-formed ones. */
+export function makerLimitsFrom(value: unknown): MakerLimit[] {
+  if (!Array.isArray(value)) return [];
+  return value.filter((l): l is MakerLimit => {
+    if (typeof l !== 'object' || l === null) return false;
+    const r = l as Record<string, unknown>;
+    const okNum = (x: unknown) => x === undefined || (typeof x === 'number' && Number.isFinite(x));
+    return typeof r.typeId === 'string' && typeof r.source === 'string' && okNum(r.low) && okNum(r.high) &&
+      (r.low !== undefined || r.high !== undefined) && !(typeof r.low === 'number' && typeof r.high === 'number' && r.high < r.low);
+  });
+}
+
+export function makerLimitsKey(instrumentId: string): string {
+  return `makerLimits:${instrumentId}`;
+}
+
+export interface MakerLimitDraft {
+  typeId: string;
+  unitId: string;
+  low: string;
+  high: string;
+  source: string;
+}
+
+/** Check the "maker's limit" form; values are typed in the chosen unit and stored in base units. */
+export function checkMakerLimit(type: ReadingType | undefined, d: MakerLimitDraft): { ok: true; limit: MakerLimit } | { ok: false; errors: Partial<Record<keyof MakerLimitDraft, string>> } {
+  const errors: Partial<Record<keyof MakerLimitDraft, string>> = {};
+  if (!type) return { ok: false, errors: { typeId: 'Reading is not chosen: pick the reading the limit is for.' } };
+  const unit = unitOf(type, d.unitId);
+  if (!unit) return { ok: false, errors: { unitId: `Unit “${d.unitId}” is not one of: ${type.units.map((u) => u.label).join('; ')}.` } };
+  const read = (k: 'low' | 'high', label: string): number | undefined => {
+    const t = d[k].trim();
+    if (t === '') return undefined;
+    const v = parseNumber(t);
+    if (v === null) { errors[k] = `${label} “${t}” is not a number: ${rangeText(type, unit.id).replace(/^between/, 'enter a value between')}.`; return undefined; }
+    const base = toBase(unit, v);
+    if (!(base >= type.plausible.min * (1 - 1e-12) && base <= type.plausible.max * (1 + 1e-12))) {
+      errors[k] = `${label} ${t} ${unit.label} is out of range: enter a value ${rangeText(type, unit.id)}.`;
+      return undefined;
+    }
+    return base;
+  };
+  const low = read('low', 'Lowest allowed');
+  const high = read('high', 'Highest allowed');
+  if (d.low.trim() === '' && d.high.trim() === '') errors.high = 'Enter the lowest allowed value, the highest, or both.';
+  if (low !== undefined && high !== undefined && high < low) errors.high = 'Highest allowed must not be below the lowest allowed.';
+  if (d.source.trim() === '') errors.source = 'Source is empty: say where the limit comes from (for example the maker’s site-preparation guide, section and edition).';
+  else if (d.source.length > 300) errors.source = `Source is ${d.source.length} characters long: keep it to 300.`;
+  if (Object.keys(errors).length) return { ok: false, errors };
+  return { ok: true, limit: { typeId: type.id, ...(low !== undefined ? { low } : {}), ...(high !== undefined ? { high } : {}), source: d.source.trim() } };
 }

@@ -171,6 +171,30 @@ const cases: Case[] = [
     valid: { mz: 1000, frequencyChange: 1e-4, r0Change: 0, rfChange: 0 },
     bad: { mz: POSITIVE, frequencyChange: [NaN, Infinity, 1], r0Change: [NaN, -1], rfChange: [Infinity] },
   },
+  // Bench additions: scan planning, proportionality check, hazardous-live levels.
+  {
+    name: 'scanPlan',
+    call: (p) => engine.scanPlan(p as never),
+    valid: { mzStart: 50, mzEnd: 550, step: 0.1, dwell: 0.002, scans: 4, settle: 0, countRate: 1000 },
+    bad: { mzStart: POSITIVE, mzEnd: [...NON_FINITE, 10], step: POSITIVE, dwell: POSITIVE, scans: [...NON_FINITE, 0, 2.5], settle: [NaN, -1, '0'], countRate: [NaN, 0, -5] },
+  },
+  { name: 'scansForGain', call: (p) => engine.scansForGain(p.gain as number), valid: { gain: 3 }, bad: { gain: [...NON_FINITE, 0.5, 1e5] } },
+  {
+    name: 'proportionalityCheck',
+    call: (p) => engine.proportionalityCheck(p.readings as never),
+    valid: { readings: [{ mz: 69, rf: 100.9 }, { mz: 502, rf: 734.1 }] },
+    bad: {
+      readings: [null, [], [{ mz: 69, rf: 100 }], [{ mz: -1, rf: 1 }, { mz: 2, rf: 2 }], [{ mz: 69, rf: 100 }, { mz: 219, rf: NaN }], [{ mz: 69, rf: 100 }, { mz: 69, rf: 120 }]],
+    },
+  },
+  { name: 'massError', call: (p) => engine.massError(p as never), valid: { setMz: 500, passedMz: 500.1 }, bad: { setMz: POSITIVE, passedMz: POSITIVE } },
+  { name: 'hazardousLive', call: (p) => engine.hazardousLive(p as never), valid: { dc: 16.9, rf: 100.9, location: 'dry' }, bad: { dc: [NaN, Infinity, '1', null], rf: [NaN, -1, '1'], location: ['damp', 1] } },
+  {
+    name: 'exceedsHazardousLevel',
+    call: (p) => engine.exceedsHazardousLevel(p as never),
+    valid: { volts: 50, kind: 'peak', location: 'wet' },
+    bad: { volts: NON_FINITE, kind: ['p-p', undefined], location: ['outdoors'] },
+  },
   // Leak check tools (src/engine/leak.ts).
   { name: 'airRatio', call: (p) => engine.airRatio(p.numeratorPercent as number, p.denominatorPercent as number), valid: { numeratorPercent: 78.084, denominatorPercent: 20.946 }, bad: { numeratorPercent: [...POSITIVE, 101], denominatorPercent: [...POSITIVE, 101] } },
   { name: 'leakIndication', call: (p) => engine.leakIndication(p as never), valid: { m18: 100, m28: 400, m32: 100, m40: 6, m44: 2 }, bad: { m28: [...NON_FINITE.filter((v) => v !== undefined), -1], m32: [NaN, -1, Infinity], m18: [NaN, -1] } },
