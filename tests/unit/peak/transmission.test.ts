@@ -184,3 +184,25 @@ describe('transmission: strongly unstable motion gives no spurious transmission'
     expect(transmission({ ...s, mz: 0.5 * (band.low + band.high) }).transmission).toBeGreaterThan(0.3);
   });
 });
+
+describe('transmission: seeded fuzz over the whole input range', () => {
+  it('60 random settings (n 0.6–5000 cycles, any a, q, beam 1e-4–0.99 r0, ε⊥ 0–100 eV): T in [0, 1], finite bound', async () => {
+    const { seededRandom } = await import('../../../src/engine/peakRandom');
+    const r = seededRandom(321);
+    for (let i = 0; i < 60; i++) {
+      const input = {
+        cycles: Math.exp(Math.log(0.6) + r.uniform() * Math.log(5000 / 0.6)),
+        a: (r.uniform() * 2 - 1) * 0.5,
+        q: r.uniform() * 1.2,
+        beamFraction: Math.exp(Math.log(1e-4) + r.uniform() * Math.log(0.99 / 1e-4)),
+        transverseEnergy: r.uniform() < 0.1 ? 0 : Math.exp(Math.log(1e-4) + r.uniform() * Math.log(100 / 1e-4)),
+      };
+      const result = transmission(settingsFor(input));
+      const label = JSON.stringify(input);
+      expect(result.transmission, label).toBeGreaterThanOrEqual(0);
+      expect(result.transmission, label).toBeLessThanOrEqual(1);
+      expect(Number.isFinite(result.errorBound), label).toBe(true);
+      expect(result.errorBound, label).toBeLessThan(0.01);
+    }
+  });
+});
