@@ -166,6 +166,13 @@ export function PeakSimulation(props: { client?: SimClient }) {
               note={Number.isFinite(result.resolution50) ? { label: `Simulated resolution (50 %) at m/z ${mzText}`, value: result.resolution50, unit: '', origin: 'calculator', context: ctx } : null} />
             <Result label="Resolution m/Δm at 10 % height" value={Number.isFinite(result.resolution10) ? formatNumber(result.resolution10, 4) : 'peak not inside the range'} testId="peak-r10"
               note={Number.isFinite(result.resolution10) ? { label: `Simulated resolution (10 %) at m/z ${mzText}`, value: result.resolution10, unit: '', origin: 'calculator', context: ctx } : null} />
+            {run && Number.isFinite(result.resolution10) && (
+              <p class="hint" data-testid="peak-k">
+                RF-cycles view: n²/(m/Δm at 10 %) = {formatNumber((run.cycles * run.cycles) / result.resolution10, 3)} for n = {formatNumber(run.cycles, 4)} cycles
+                {' '}(the n²/K rule quotes K ≈ 12–20 for the base width; Paul, Reinhard &amp; von Zahn 1958 via Dawson 1976 and later reviews, from memory).
+                Meaningful when the ideal band is much wider than the peak, i.e. when the flight, not U/V, sets the width.
+              </p>
+            )}
             {peakData && (
               <Chart key="peak" data={peakData} height={260} zoomButtons testId="peak-chart"
                 label={`Simulated transmission against m/z from ${formatNumber(peakData[0][0], 6)} to ${formatNumber(peakData[0][peakData[0].length - 1], 6)}; peak ${formatNumber(100 * result.peakTransmission, 3)} %`}
