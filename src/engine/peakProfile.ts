@@ -47,7 +47,10 @@ export interface PeakProfile {
   transmission: Float64Array;
   /** Error bound per point (sampling bracket + phase-rule estimate); deterministic, so no 1σ. */
   errorBound: Float64Array;
-  /** m/Δm at 50 % and 10 % of the highest sampled point; NaN when the peak does not fall to that level inside the range. */
+  /**
+   * m/Δm at 50 % and 10 % of the highest sampled point; NaN when the peak does not fall to that level inside the
+   * range, or when there is no measurable peak (height ≤ 10 × its error bound, or ≤ 1e-9).
+   */
   resolution50: number;
   resolution10: number;
   /** Highest sampled transmission and its m/z. */
@@ -56,7 +59,7 @@ export interface PeakProfile {
 }
 
 export interface PeakProfileOptions extends FastTransmissionOptions, RunControl {
-  /** Target error bound per point relative to the peak height (phases are doubled until met); default 1e-3. */
+  /** Target error bound per point relative to the peak height, at least 1e-7 absolute (phases are doubled until met); default 1e-3. */
   relativeTolerance?: number;
 }
 
@@ -102,7 +105,8 @@ export function peakProfile(p: PeakProfileParams, options: PeakProfileOptions = 
     report((0.6 * (i + 1)) / n);
   }
   // Pass 2: refine where the bound is too large for the peak height.
-  const target = relative * Math.max(peak, 1e-12);
+  // Absolute floor 1e-7: a window with no peak (T ≈ 0 everywhere) must not refine for ever.
+  const target = Math.max(relative * peak, 1e-7);
   const pending: number[] = [];
   for (let i = 0; i < n; i++) if (errorBound[i] > target) pending.push(i);
   pending.forEach((i, done) => {
@@ -117,6 +121,13 @@ export function peakProfile(p: PeakProfileParams, options: PeakProfileOptions = 
   });
   report(1);
   const widths = peakWidths(mz, transmission);
+  // A "peak" no taller than ten times its own error bound (or below 1e-9) has no measurable width.
+  let worstBound = 0;
+  for (let i = 0; i < n; i++) worstBound = Math.max(worstBound, errorBound[i]);
+  if (!(widths.peakTransmission > 10 * worstBound && widths.peakTransmission > 1e-9)) {
+    widths.resolution50 = Number.NaN;
+    widths.resolution10 = Number.NaN;
+  }
   return { mz, transmission, errorBound, ...widths };
 }
 

@@ -162,9 +162,9 @@ export function PeakSimulation(props: { client?: SimClient }) {
           <>
             <Result label="Peak transmission" value={`${formatNumber(100 * result.peakTransmission, 3)} % at m/z ${formatNumber(result.peakMz, 6)}`} testId="peak-transmission"
               note={{ label: `Simulated peak transmission at m/z ${mzText}`, value: 100 * result.peakTransmission, unit: '%', origin: 'calculator', context: ctx }} />
-            <Result label="Resolution m/Δm at 50 % height" value={Number.isFinite(result.resolution50) ? formatNumber(result.resolution50, 4) : 'peak not inside the range'} testId="peak-r50"
+            <Result label="Resolution m/Δm at 50 % height" value={Number.isFinite(result.resolution50) ? formatNumber(result.resolution50, 4) : 'no measurable width in this range'} testId="peak-r50"
               note={Number.isFinite(result.resolution50) ? { label: `Simulated resolution (50 %) at m/z ${mzText}`, value: result.resolution50, unit: '', origin: 'calculator', context: ctx } : null} />
-            <Result label="Resolution m/Δm at 10 % height" value={Number.isFinite(result.resolution10) ? formatNumber(result.resolution10, 4) : 'peak not inside the range'} testId="peak-r10"
+            <Result label="Resolution m/Δm at 10 % height" value={Number.isFinite(result.resolution10) ? formatNumber(result.resolution10, 4) : 'no measurable width in this range'} testId="peak-r10"
               note={Number.isFinite(result.resolution10) ? { label: `Simulated resolution (10 %) at m/z ${mzText}`, value: result.resolution10, unit: '', origin: 'calculator', context: ctx } : null} />
             {run && Number.isFinite(result.resolution10) && (
               <p class="hint" data-testid="peak-k">

@@ -128,6 +128,16 @@ describe('peakProfile: published behaviour', () => {
   });
 });
 
+describe('peakProfile: a window without a peak', () => {
+  it('reports no resolution (NaN, shown in words) and T ≈ 0 everywhere', () => {
+    const rf = rfFor(500, 0.706);
+    const p = peakProfile({ r0: R0, frequency: F, dc: 0.1677 * rf, rf, rodLength: 0.2, axialVoltage: 5, beamRadius: 4e-4, transverseEnergy: 0.2, mzFrom: 300, mzTo: 310, points: 41 });
+    expect(p.peakTransmission).toBeLessThan(1e-6);
+    expect(p.resolution50).toBeNaN();
+    expect(p.resolution10).toBeNaN();
+  });
+});
+
 describe('transmissionVsResolution', () => {
   it('stepping U/V towards the apex raises R50 and lowers the peak transmission', () => {
     const result = transmissionVsResolution(
