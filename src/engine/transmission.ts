@@ -317,7 +317,7 @@ export function constraintHull(axis: AxisFlight, entryPhase: number): Float64Arr
     axis.core && extraCount <= 24
       ? insertIntoHull(axis.core, pts.subarray(2 * coreCount), extraCount)
       : convexHull(pts, count);
-  if (maxAbs(hull) > COLLAPSE_LIMIT) return null;
+  // (Growth past the well-conditioned range in the last periods is caught by phaseAcceptance.)
   // c = r·Φ(ξ0)⁻¹, Φ⁻¹ = [[w', −w], [−u', u]] (det Φ = 1).
   const inverse = Float64Array.of(entry[3], -entry[1], -entry[2], entry[0]);
   const c = new Float64Array(hull.length);
