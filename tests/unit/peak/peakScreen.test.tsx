@@ -117,6 +117,28 @@ describe('PeakSimulation', () => {
     expect(h.root.textContent).toMatch(/random RF phase/);
   });
 
+  it('computes the transmission-against-resolution curve on request, in the worker', async () => {
+    const workers: ManualWorker[] = [];
+    const client = new SimClient(() => {
+      const w = new ManualWorker();
+      workers.push(w);
+      return w;
+    });
+    const k = demo('kestrel');
+    h = await mount(<PeakSimulation client={client} />, k, { [`inputs:peak:${k.id}`]: { mz: '100', resolution: '200', axialVoltage: '20' } });
+    await waitForDebounce();
+    await act(async () => workers[0].flush());
+    await settle();
+    const button = [...h.root.querySelectorAll('button')].find((b) => b.textContent === 'Compute the curve')!;
+    await act(async () => button.click());
+    expect(h.root.querySelector('[data-testid="peak-curve"] progress')).not.toBeNull();
+    await act(async () => workers[0].flush());
+    await settle();
+    const chart = h.root.querySelector('[data-testid="peak-curve-chart"]');
+    expect(chart).not.toBeNull();
+    expect(Number(chart!.getAttribute('data-points'))).toBeGreaterThanOrEqual(8);
+  });
+
   it('a bad value shows its message beside the field and starts no run', async () => {
     const workers: ManualWorker[] = [];
     const client = new SimClient(() => {
