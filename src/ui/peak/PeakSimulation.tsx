@@ -2,7 +2,7 @@
 // transmission, and the transmission-against-resolution curve. Runs in the worker; a moved slider cancels the
 // stale run (the worker is terminated and restarts on the next run).
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
-import { hazardousLive, type PeakProfile, type TransmissionVsResolution } from '../../engine';
+import { apexRatio, hazardousLive, type PeakProfile, type TransmissionVsResolution } from '../../engine';
 import { isAbortError, simClient, type SimClient } from '../../worker/client';
 import { Chart } from '../components/Chart';
 import { NumberField } from '../components/Field';
@@ -91,8 +91,9 @@ export function PeakSimulation(props: { client?: SimClient }) {
     const controller = new AbortController();
     curveController.current = controller;
     setCurve({ status: 'running', progress: 0 });
-    const apex = 0.16784;
-    const ratios = Array.from({ length: 10 }, (_, i) => apex - 0.126 / (20 * 1.6 ** i)); // ideal R ≈ 20 … 1370 (Dawson rule)
+    const apex = apexRatio();
+    // Ideal R from about 20 to 1400 (0.126/(apex − U/V) rule, Dawson 1976, from memory), geometric steps.
+    const ratios = Array.from({ length: 10 }, (_, i) => apex - 0.126 / (20 * 1.6 ** i));
     client
       .run(
         'transmissionVsResolution',
