@@ -3,7 +3,7 @@
 // stale run (the worker is terminated and restarts on the next run).
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { apexRatio, hazardousLive, type PeakProfile, type TransmissionVsResolution } from '../../engine';
-import { isAbortError, simClient, type SimClient } from '../../worker/client';
+import { isAbortError, simClient, SimClient } from '../../worker/client';
 import { Chart } from '../components/Chart';
 import { NumberField } from '../components/Field';
 import { useApp } from '../context';
@@ -23,9 +23,13 @@ type RunState<T> =
 /** Wait this long after the last slider move before starting a run (the previous run is cancelled at once). */
 const SETTLE_MS = 150;
 
-export function PeakSimulation(props: { client?: SimClient }) {
+/** The curve runs in a worker of its own, so a slider move (which terminates the peak worker) does not kill it. */
+let curveWorkerClient: SimClient | null = null;
+
+export function PeakSimulation(props: { client?: SimClient; curveClient?: SimClient }) {
   const { instrument } = useApp();
   const client = props.client ?? simClient();
+  const curveClient = props.curveClient ?? (curveWorkerClient ??= new SimClient());
   const [inputs, update] = usePersistentInputs<PeakInputs>('peak', peakDefaults);
   const [peak, setPeak] = useState<RunState<PeakProfile>>({ status: 'idle' });
   const [curve, setCurve] = useState<RunState<TransmissionVsResolution>>({ status: 'idle' });
@@ -94,7 +98,7 @@ export function PeakSimulation(props: { client?: SimClient }) {
     const apex = apexRatio();
     // Ideal R from about 20 to 1400 (0.126/(apex − U/V) rule, Dawson 1976, from memory), geometric steps.
     const ratios = Array.from({ length: 10 }, (_, i) => apex - 0.126 / (20 * 1.6 ** i));
-    client
+    curveClient
       .run(
         'transmissionVsResolution',
         {
@@ -112,7 +116,8 @@ export function PeakSimulation(props: { client?: SimClient }) {
       )
       .then((result) => setCurve({ status: 'done', result, key: '' }))
       .catch((error: unknown) => {
-        if (!isAbortError(error)) setCurve({ status: 'failed', message: error instanceof Error ? error.message : String(error) });
+        if (isAbortError(error) && controller.signal.aborted) return; // we cancelled it
+        setCurve({ status: 'failed', message: error instanceof Error ? error.message : String(error) });
       });
   }
 

@@ -87,9 +87,10 @@ describe('PeakSimulation', () => {
       workers.push(w);
       return w;
     });
+    const unusedCurve = new SimClient(() => new ManualWorker());
     const k = demo('kestrel');
     // A short, fast case: low resolution, high ion energy.
-    h = await mount(<PeakSimulation client={client} />, k, { [`inputs:peak:${k.id}`]: { mz: '100', resolution: '200', axialVoltage: '20' } });
+    h = await mount(<PeakSimulation client={client} curveClient={unusedCurve} />, k, { [`inputs:peak:${k.id}`]: { mz: '100', resolution: '200', axialVoltage: '20' } });
     await waitForDebounce();
     expect(workers.length).toBe(1);
     expect(h.root.querySelector('progress')).not.toBeNull();
@@ -125,14 +126,26 @@ describe('PeakSimulation', () => {
       return w;
     });
     const k = demo('kestrel');
-    h = await mount(<PeakSimulation client={client} />, k, { [`inputs:peak:${k.id}`]: { mz: '100', resolution: '200', axialVoltage: '20' } });
+    const curveWorkers: ManualWorker[] = [];
+    const curveClient = new SimClient(() => {
+      const w = new ManualWorker();
+      curveWorkers.push(w);
+      return w;
+    });
+    h = await mount(<PeakSimulation client={client} curveClient={curveClient} />, k, { [`inputs:peak:${k.id}`]: { mz: '100', resolution: '200', axialVoltage: '20' } });
     await waitForDebounce();
     await act(async () => workers[0].flush());
     await settle();
     const button = [...h.root.querySelectorAll('button')].find((b) => b.textContent === 'Compute the curve')!;
     await act(async () => button.click());
     expect(h.root.querySelector('[data-testid="peak-curve"] progress')).not.toBeNull();
-    await act(async () => workers[0].flush());
+    // The curve has its own worker: changing the resolution restarts the peak worker, not the curve's.
+    await typeInto(h.root, 'peak-resolution', '300');
+    await waitForDebounce(); // a peak run is now pending in the peak worker …
+    await typeInto(h.root, 'peak-resolution', '400'); // … and is cancelled by the next edit
+    expect(workers[0].terminated).toBe(true);
+    expect(curveWorkers[0].terminated).toBe(false);
+    await act(async () => curveWorkers[0].flush());
     await settle();
     const chart = h.root.querySelector('[data-testid="peak-curve-chart"]');
     expect(chart).not.toBeNull();
