@@ -64,9 +64,9 @@ function assess(dc: number, rf: number, levels: { rms: number; peak: number; dc:
  * @param location 'dry' (default) or 'wet'
  */
 export function hazardousLive(p: { dc?: number; rf?: number; location?: LocationCondition }): HazardousLiveResult {
-  const dc = checkNumber('dc', p?.dc ?? 0, { min: -1e7, max: 1e7, unit: 'V' });
-  const rf = checkNumber('rf', p?.rf ?? 0, { min: 0, max: 1e7, unit: 'V' });
-  const location = checkChoice('location', p?.location ?? 'dry', ['dry', 'wet'] as const);
+  const dc = checkNumber('dc', p?.dc === undefined ? 0 : p.dc, { min: -1e7, max: 1e7, unit: 'V' });
+  const rf = checkNumber('rf', p?.rf === undefined ? 0 : p.rf, { min: 0, max: 1e7, unit: 'V' });
+  const location = checkChoice('location', p?.location === undefined ? 'dry' : p.location, ['dry', 'wet'] as const);
   const levels = HAZARDOUS_LIVE_LEVELS[location];
   const exceeded: string[] = [];
   const perRod = assess(dc, rf, levels, 'one rod to ground', exceeded);
@@ -78,6 +78,6 @@ export function hazardousLive(p: { dc?: number; rf?: number; location?: Location
 export function exceedsHazardousLevel(p: { volts: number; kind: 'rms' | 'peak' | 'dc'; location?: LocationCondition }): boolean {
   const volts = checkNumber('volts', p?.volts, { min: -1e7, max: 1e7, unit: 'V' });
   const kind = checkChoice('kind', p?.kind, ['rms', 'peak', 'dc'] as const);
-  const location = checkChoice('location', p?.location ?? 'dry', ['dry', 'wet'] as const);
+  const location = checkChoice('location', p?.location === undefined ? 'dry' : p.location, ['dry', 'wet'] as const);
   return Math.abs(volts) > HAZARDOUS_LIVE_LEVELS[location][kind];
 }

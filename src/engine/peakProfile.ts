@@ -56,7 +56,7 @@ export interface PeakProfile {
 }
 
 export interface PeakProfileOptions extends FastTransmissionOptions, RunControl {
-  /** Target error per point relative to the peak height (phases are doubled until met); default 5e-4. */
+  /** Target error bound per point relative to the peak height (phases are doubled until met); default 1e-3. */
   relativeTolerance?: number;
 }
 
@@ -79,7 +79,7 @@ export function validateProfileParams(p: PeakProfileParams): void {
 export function peakProfile(p: PeakProfileParams, options: PeakProfileOptions = {}): PeakProfile {
   validateProfileParams(p);
   const resolved = resolveOptions(options);
-  const relative = requireFinite('relativeTolerance', options.relativeTolerance ?? 5e-4, 0, 1);
+  const relative = requireFinite('relativeTolerance', options.relativeTolerance ?? 1e-3, 0, 1);
   const n = p.points;
   const mz = new Float64Array(n);
   const transmission = new Float64Array(n);
@@ -125,12 +125,18 @@ export function peakProfile(p: PeakProfileParams, options: PeakProfileOptions = 
  * between samples) around the highest point; m = midpoint of the 50 % crossings. NaN when the profile does not
  * drop below the level on both sides within the range (the peak is cut off) or has no height.
  */
-export function peakWidths(mz: Float64Array, t: Float64Array): {
+export function peakWidths(mz: ArrayLike<number>, t: ArrayLike<number>): {
   resolution50: number;
   resolution10: number;
   peakTransmission: number;
   peakMz: number;
 } {
+  if (!mz || typeof mz.length !== 'number' || mz.length < 2) throw new InputRangeError('mz', mz, 'a list of at least 2 m/z values');
+  if (!t || t.length !== mz.length) throw new InputRangeError('transmission', t, `a list of ${mz.length} values (one per m/z)`);
+  for (let i = 0; i < mz.length; i++) {
+    if (!Number.isFinite(mz[i]) || (i > 0 && !(mz[i] > mz[i - 1]))) throw new InputRangeError(`mz[${i}]`, mz[i], 'finite, strictly increasing m/z values');
+    if (!Number.isFinite(t[i]) || t[i] < 0) throw new InputRangeError(`transmission[${i}]`, t[i], 'a finite number ≥ 0');
+  }
   let top = 0;
   for (let i = 1; i < t.length; i++) if (t[i] > t[top]) top = i;
   const height = t[top];
@@ -160,7 +166,13 @@ export function peakWidths(mz: Float64Array, t: Float64Array): {
  * found by bisection from a stable starting m/z. Returns null if `inside` is not stable.
  * (For windows only; the engine's passBand gives the published band edges.)
  */
-export function stableInterval(s: BeamSettings, inside: number): { low: number; high: number } | null {
+export function stableInterval(s: Pick<BeamSettings, 'r0' | 'frequency' | 'dc' | 'rf' | 'charge'>, inside: number): { low: number; high: number } | null {
+  if (s === null || typeof s !== 'object') throw new InputRangeError('settings', s, 'an object with r0, frequency, dc and rf');
+  requireFinite('r0', s.r0, 0, 0.1);
+  requireFinite('frequency', s.frequency, 0, 1e9);
+  requireFinite('dc', s.dc, -1e5, 1e5, 'none');
+  requireFinite('rf', s.rf, 0, 1e5);
+  requireFinite('inside', inside, 0, 1e7);
   const z = Math.abs(s.charge ?? 1);
   const omega = 2 * Math.PI * s.frequency;
   const stable = (mz: number): boolean => {

@@ -45,7 +45,7 @@ export function scanPlan(p: {
   const step = checkNumber('step', p?.step, { min: 0, minExclusive: true, max: 1e7, unit: 'u' });
   const dwell = checkNumber('dwell', p?.dwell, { min: 0, minExclusive: true, max: 3600, unit: 's' });
   const scans = checkNumber('scans', p?.scans, { min: 1, max: 1e7, integer: true });
-  const settle = checkNumber('settle', p?.settle ?? 0, { min: 0, max: 3600, unit: 's' });
+  const settle = checkNumber('settle', p?.settle === undefined ? 0 : p.settle, { min: 0, max: 3600, unit: 's' });
   // The small allowance keeps 1 → 100 in 0.1 u steps at 991 points despite binary rounding of 0.1.
   const points = Math.floor((mzEnd - mzStart) / step + 1e-9) + 1;
   checkNumber('points', points, { min: 1, max: 1e8, integer: true });

@@ -15,7 +15,7 @@ export interface Area {
 
 export const areas: readonly Area[] = [
   { id: 'home', path: '/', title: 'Overview', blurb: 'Current instrument, storage state and every area.', icon: IconHome, primary: true },
-  { id: 'bench', path: '/bench', title: 'Bench', blurb: 'Expected RF and DC for an m/z on this analyser, and read-back checks.', icon: IconBolt, primary: true },
+  { id: 'bench', path: '/bench', title: 'Bench', blurb: 'Expected RF and DC for an m/z on this analyser, read-back checks and the vacuum check.', icon: IconBolt, primary: true },
   { id: 'stability', path: '/stability', title: 'Stability', blurb: 'Operating points on the stability diagram, pass band and resolution planning.', icon: IconRegion, primary: true },
   { id: 'peak', path: '/peak', title: 'Peak', blurb: 'Simulated peak shape and transmission for these settings.', icon: IconPeak, primary: false },
   { id: 'diagnose', path: '/diagnose', title: 'Diagnose', blurb: 'Step-by-step fault finding, no signal first, with safety gates.', icon: IconWalk, primary: true },

@@ -4,7 +4,7 @@ import { convertRf, hazardousLive, massError, massForRf, massForScanRf, RF_FORMS
 import type { InstrumentProfile } from '../../store';
 import { NumberField, SelectField } from '../components/Field';
 import { formatNumber, formatSi } from '../format';
-import { rfFormWords } from './conventions';
+import { rfFormUnitId, rfFormWords } from './conventions';
 import { tryEngine, type FieldErrors } from './engineErrors';
 import { HvCaution } from './HvCaution';
 import { parseNumber } from './inputs';
@@ -39,7 +39,8 @@ export function InverseCheck(props: { inputs: BenchInputs; update: (p: Partial<B
   }
   if (passed !== null && setIn.ok) err = tryEngine(() => massError({ setMz: setIn.value, passedMz: passed! }), { setMz: 'invSetMz', passedMz: 'invRf' }, errors, 'invSetMz');
   const hazard = perRod !== null ? hazardousLive({ rf: perRod }) : null;
-  const ctx = { convention: rfFormWords[form], measured: inputs.invRf.trim() };
+  const ctx: Record<string, string | number> = { convention: rfFormWords[form], measured: inputs.invRf.trim() };
+  if (setIn.ok) ctx.mz = setIn.value;
 
   return (
     <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="inverse-title">
@@ -48,10 +49,14 @@ export function InverseCheck(props: { inputs: BenchInputs; update: (p: Partial<B
       <SelectField id="inv-form" label="Measured as" value={form} options={RF_FORMS.map((f) => ({ value: f, label: rfFormWords[f] }))} onChange={(v) => update({ invForm: v })} />
       <NumberField id="inv-set" label="Set m/z" unit="u" value={inputs.invSetMz} error={errors.invSetMz} onInput={(t) => update({ invSetMz: t })} />
       {!typed && <p class="hint">Enter a read-back or a probe reading to see the m/z it passes on the scan line above.</p>}
+      {perRod !== null && rfIn?.ok && (
+        <Result label={`Measured RF (${rfFormWords[form]})`} value={`${formatNumber(rfIn.value, 6)} V`}
+          note={{ label: `Measured RF at set m/z ${inputs.invSetMz.trim()} (${rfFormWords[form]})`, value: rfIn.value, unit: rfFormUnitId[form], origin: 'entered', context: ctx, typeId: 'rf-amplitude' }} />
+      )}
       {perRod !== null && (
         <Result label="Same amplitude, zero-to-peak per rod" value={formatSi(perRod, 'V 0-p', 5)}
           hint={perRod > profile.maxRfAmplitude ? `Above the supply's largest RF in this profile (${formatSi(profile.maxRfAmplitude, 'V 0-p')}).` : undefined}
-          note={{ label: 'Measured RF as zero-to-peak per rod', value: perRod, unit: 'V', origin: 'entered', context: ctx, typeId: 'rf-amplitude' }} />
+          note={{ label: 'Measured RF as zero-to-peak per rod', value: perRod, unit: 'V0p-rod', origin: 'entered', context: ctx, typeId: 'rf-amplitude' }} />
       )}
       {passed !== null && (
         <Result label="m/z passed (band centre on this scan line)" value={`m/z ${formatNumber(passed, 6)}`} testId="inverse-mz"

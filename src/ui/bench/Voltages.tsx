@@ -8,7 +8,7 @@ import { NumberField } from '../components/Field';
 import { useApp } from '../context';
 import { formatConvention, formatNumber, formatSi } from '../format';
 import { ionListsFor, defaultIons } from './calibrants';
-import { dcFormOf, dcFormWords, rfFormOf, rfFormUnit, rfFormWords } from './conventions';
+import { dcFormOf, dcFormUnitId, dcFormWords, rfFormOf, rfFormUnit, rfFormUnitId, rfFormWords } from './conventions';
 import { tryEngine, type FieldErrors } from './engineErrors';
 import { HvCaution } from './HvCaution';
 import { parseMzList, usePersistentInputs } from './inputs';
@@ -106,9 +106,9 @@ function ExpectedCard(props: { row: Expected; hazard: HazardousLiveResult; readF
         {hazard.hazardous && <span class="tag tag-hv">⚠ hazardous live</span>}
       </h3>
       <Result label={`V, ${rfFormWords[readForm]} (read-back form)`} value={`${formatNumber(rfRead, 5)} ${rfFormUnit[readForm]}`} testId="rf-readback"
-        note={{ label: `Expected RF at m/z ${mzText} (${rfFormWords[readForm]})`, value: rfRead, unit: rfFormUnit[readForm], origin: 'calculator', context: ctx, typeId: 'rf-amplitude' }} />
+        note={{ label: `Expected RF at m/z ${mzText} (${rfFormWords[readForm]})`, value: rfRead, unit: rfFormUnitId[readForm], origin: 'calculator', context: ctx, typeId: 'rf-amplitude' }} />
       <Result label={`U, ${dcFormWords[readDc]} (read-back form)`} value={`${formatNumber(dcRead, 5)} V DC`} testId="dc-readback"
-        note={{ label: `Expected DC at m/z ${mzText} (${dcFormWords[readDc]})`, value: dcRead, unit: 'V', origin: 'calculator', context: ctx }} />
+        note={{ label: `Expected DC at m/z ${mzText} (${dcFormWords[readDc]})`, value: dcRead, unit: dcFormUnitId[readDc], origin: 'calculator', context: ctx, typeId: 'dc-amplitude' }} />
       {row.band && (
         <Result label="Ideal pass band on this line" value={`${formatNumber(row.band.low, 6)}–${formatNumber(row.band.high, 6)} u (Δm ${formatNumber(row.band.width, 3)} u, m/Δm ${formatNumber(row.band.resolution, 4)})`}
           note={{ label: `Ideal peak width at m/z ${mzText}`, value: row.band.width, unit: 'u', origin: 'calculator', context: ctx }} />
@@ -120,7 +120,7 @@ function ExpectedCard(props: { row: Expected; hazard: HazardousLiveResult; readF
           const hot = form.endsWith('PerRod') ? hazard.perRod.hazardous : hazard.betweenPairs.hazardous;
           return (
             <Result key={form} label={`RF ${rfFormWords[form]}`} value={`${formatNumber(v, 5)} ${rfFormUnit[form]}${hot ? ' ⚠' : ''}`}
-              note={{ label: `Expected RF at m/z ${mzText} (${rfFormWords[form]})`, value: v, unit: rfFormUnit[form], origin: 'calculator', context: ctx }} />
+              note={{ label: `Expected RF at m/z ${mzText} (${rfFormWords[form]})`, value: v, unit: rfFormUnitId[form], origin: 'calculator', context: ctx, typeId: 'rf-amplitude' }} />
           );
         })}
         {DC_FORMS.map((form) => {
@@ -128,7 +128,7 @@ function ExpectedCard(props: { row: Expected; hazard: HazardousLiveResult; readF
           const hot = form === 'perRod' ? Math.abs(v) > hazard.levels.dc : hazard.betweenPairs.dc > hazard.levels.dc;
           return (
             <Result key={form} label={`DC ${dcFormWords[form]}`} value={`${formatNumber(v, 5)} V${hot ? ' ⚠' : ''}`}
-              note={{ label: `Expected DC at m/z ${mzText} (${dcFormWords[form]})`, value: v, unit: 'V', origin: 'calculator', context: ctx }} />
+              note={{ label: `Expected DC at m/z ${mzText} (${dcFormWords[form]})`, value: v, unit: dcFormUnitId[form], origin: 'calculator', context: ctx, typeId: 'dc-amplitude' }} />
           );
         })}
         <p class="hint">⚠ marks a value above a hazardous-live level.</p>

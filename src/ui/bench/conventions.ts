@@ -34,3 +34,14 @@ export const dcFormWords: Record<DcForm, string> = {
   perRod: 'one rod pair to ground',
   betweenPairs: 'between the pairs',
 };
+
+/** The visit log's unit ids for each form, so a noted RF or DC lands as a typed reading in that unit. */
+export const rfFormUnitId: Record<RfForm, string> = {
+  zeroToPeakPerRod: 'V0p-rod',
+  peakToPeakPerRod: 'Vpp-rod',
+  rmsPerRod: 'Vrms-rod',
+  zeroToPeakBetweenPairs: 'V0p-pairs',
+  peakToPeakBetweenPairs: 'Vpp-pairs',
+  rmsBetweenPairs: 'Vrms-pairs',
+};
+export const dcFormUnitId: Record<DcForm, string> = { perRod: 'V-rod', betweenPairs: 'V-pairs' };

@@ -13,14 +13,17 @@ export function usePersistentInputs<T extends Inputs>(screen: string, defaults: 
   const [state, setState] = useState<{ key: string; values: T }>(() => ({ key, values: defaults(instrument) }));
   const defaultsRef = useRef(defaults);
   defaultsRef.current = defaults;
+  // Typing before the kept values arrive wins over them: nothing typed is lost.
+  const typedSinceLoad = useRef(false);
 
   useEffect(() => {
     let cancelled = false;
     const base = defaultsRef.current(instrument);
+    typedSinceLoad.current = false;
     setState({ key, values: base });
     if (!store || !instrument) return;
     store.getSetting<Partial<T>>(key).then((kept) => {
-      if (!cancelled && kept && typeof kept === 'object') setState({ key, values: { ...base, ...kept } });
+      if (!cancelled && !typedSinceLoad.current && kept && typeof kept === 'object') setState({ key, values: { ...base, ...kept } });
     }).catch(() => undefined);
     return () => {
       cancelled = true;
@@ -29,6 +32,7 @@ export function usePersistentInputs<T extends Inputs>(screen: string, defaults: 
   }, [key, store]);
 
   function update(patch: Partial<T>) {
+    typedSinceLoad.current = true;
     setState((s) => {
       const values = { ...s.values, ...patch } as T;
       if (store && instrument) void store.setSetting(s.key, values).catch(() => undefined);

@@ -1,7 +1,7 @@
 // The one uPlot wrapper: create once, setData on change, resize with the container, destroy on unmount.
 // uPlot has no touch zoom, so the wrapper offers zoom buttons and reports taps (with a generous hit radius
 // left to the caller, which knows its series).
-import { useEffect, useRef } from 'preact/hooks';
+import { useEffect, useRef, useState } from 'preact/hooks';
 import uPlot from 'uplot';
 
 export interface ChartProps {
@@ -16,6 +16,12 @@ export interface ChartProps {
   yScaleForTap?: string;
   /** Show zoom in / zoom out / reset buttons for the x (and optionally y) scale. */
   zoomButtons?: boolean;
+  /** Scales the zoom buttons act on (default x only). */
+  zoomScales?: readonly string[];
+  /** A view set from outside (e.g. "close-up of the apex"); a new `key` applies it again. */
+  view?: { key: number; ranges: Record<string, [number, number]> } | null;
+  /** Redraw (e.g. for points drawn in a draw hook) when this value changes without new data. */
+  redrawKey?: unknown;
   testId?: string;
 }
 
@@ -25,8 +31,15 @@ export function Chart(props: ChartProps) {
   const latest = useRef(props);
   latest.current = props;
 
+  // Canvas can be missing (blocked by a privacy setting, or a DOM without 2D canvas): say so, keep the page.
+  const [noCanvas, setNoCanvas] = useState(false);
+
   useEffect(() => {
     const el = host.current!;
+    if (!document.createElement('canvas').getContext('2d')) {
+      setNoCanvas(true);
+      return;
+    }
     const width = Math.max(240, el.clientWidth || 320);
     const u = new uPlot({ ...props.options, width, height: props.height ?? 300 }, props.data, el);
     plot.current = u;
@@ -60,31 +73,55 @@ export function Chart(props: ChartProps) {
     plot.current?.setData(props.data);
   }, [props.data]);
 
+  useEffect(() => {
+    const u = plot.current;
+    if (!u || !props.view) return;
+    u.batch(() => {
+      for (const [scale, [min, max]] of Object.entries(props.view!.ranges)) u.setScale(scale, { min, max });
+    });
+  }, [props.view?.key]);
+
+  useEffect(() => {
+    plot.current?.redraw(false);
+  }, [props.redrawKey]);
+
   function zoom(factor: number) {
     const u = plot.current;
     if (!u) return;
-    const min = u.scales.x.min!;
-    const max = u.scales.x.max!;
-    const mid = (min + max) / 2;
-    const half = ((max - min) / 2) * factor;
-    u.setScale('x', { min: mid - half, max: mid + half });
+    u.batch(() => {
+      for (const scale of props.zoomScales ?? ['x']) {
+        const min = u.scales[scale].min!;
+        const max = u.scales[scale].max!;
+        const mid = (min + max) / 2;
+        const half = ((max - min) / 2) * factor;
+        u.setScale(scale, { min: mid - half, max: mid + half });
+      }
+    });
   }
   function reset() {
     const u = plot.current;
     if (!u) return;
-    u.setData(latest.current.data, true);
+    u.batch(() => {
+      u.setData(latest.current.data, true);
+      // Scales with a fixed range are not auto-ranged by setData: put them back explicitly.
+      for (const [key, scale] of Object.entries(latest.current.options.scales ?? {})) {
+        const range = scale?.range;
+        if (Array.isArray(range) && typeof range[0] === 'number' && typeof range[1] === 'number') u.setScale(key, { min: range[0], max: range[1] });
+      }
+    });
   }
 
   return (
     <figure class="chart-figure" data-testid={props.testId}>
       {props.zoomButtons && (
         <div class="chart-tools">
-          <button type="button" class="btn btn-small" onClick={() => zoom(0.5)} aria-label="Zoom in">＋</button>
-          <button type="button" class="btn btn-small" onClick={() => zoom(2)} aria-label="Zoom out">－</button>
+          <button type="button" class="btn btn-small" onClick={() => zoom(0.5)}>Zoom in</button>
+          <button type="button" class="btn btn-small" onClick={() => zoom(2)}>Zoom out</button>
           <button type="button" class="btn btn-small" onClick={reset}>Reset view</button>
         </div>
       )}
       <div class="chart" ref={host} role="img" aria-label={props.label} />
+      {noCanvas && <p class="notice">This browser does not allow drawing on a canvas, so the chart cannot be shown; the values below are complete without it.</p>}
     </figure>
   );
 }

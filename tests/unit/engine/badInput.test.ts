@@ -171,6 +171,30 @@ const cases: Case[] = [
     valid: { mz: 1000, frequencyChange: 1e-4, r0Change: 0, rfChange: 0 },
     bad: { mz: POSITIVE, frequencyChange: [NaN, Infinity, 1], r0Change: [NaN, -1], rfChange: [Infinity] },
   },
+  // Bench additions: scan planning, proportionality check, hazardous-live levels.
+  {
+    name: 'scanPlan',
+    call: (p) => engine.scanPlan(p as never),
+    valid: { mzStart: 50, mzEnd: 550, step: 0.1, dwell: 0.002, scans: 4, settle: 0, countRate: 1000 },
+    bad: { mzStart: POSITIVE, mzEnd: [...NON_FINITE, 10], step: POSITIVE, dwell: POSITIVE, scans: [...NON_FINITE, 0, 2.5], settle: [NaN, -1, '0'], countRate: [NaN, 0, -5] },
+  },
+  { name: 'scansForGain', call: (p) => engine.scansForGain(p.gain as number), valid: { gain: 3 }, bad: { gain: [...NON_FINITE, 0.5, 1e5] } },
+  {
+    name: 'proportionalityCheck',
+    call: (p) => engine.proportionalityCheck(p.readings as never),
+    valid: { readings: [{ mz: 69, rf: 100.9 }, { mz: 502, rf: 734.1 }] },
+    bad: {
+      readings: [null, [], [{ mz: 69, rf: 100 }], [{ mz: -1, rf: 1 }, { mz: 2, rf: 2 }], [{ mz: 69, rf: 100 }, { mz: 219, rf: NaN }], [{ mz: 69, rf: 100 }, { mz: 69, rf: 120 }]],
+    },
+  },
+  { name: 'massError', call: (p) => engine.massError(p as never), valid: { setMz: 500, passedMz: 500.1 }, bad: { setMz: POSITIVE, passedMz: POSITIVE } },
+  { name: 'hazardousLive', call: (p) => engine.hazardousLive(p as never), valid: { dc: 16.9, rf: 100.9, location: 'dry' }, bad: { dc: [NaN, Infinity, '1', null], rf: [NaN, -1, '1'], location: ['damp', 1] } },
+  {
+    name: 'exceedsHazardousLevel',
+    call: (p) => engine.exceedsHazardousLevel(p as never),
+    valid: { volts: 50, kind: 'peak', location: 'wet' },
+    bad: { volts: NON_FINITE, kind: ['p-p', undefined], location: ['outdoors'] },
+  },
   // Leak check tools (src/engine/leak.ts).
   { name: 'airRatio', call: (p) => engine.airRatio(p.numeratorPercent as number, p.denominatorPercent as number), valid: { numeratorPercent: 78.084, denominatorPercent: 20.946 }, bad: { numeratorPercent: [...POSITIVE, 101], denominatorPercent: [...POSITIVE, 101] } },
   { name: 'leakIndication', call: (p) => engine.leakIndication(p as never), valid: { m18: 100, m28: 400, m32: 100, m40: 6, m44: 2 }, bad: { m28: [...NON_FINITE.filter((v) => v !== undefined), -1], m32: [NaN, -1, Infinity], m18: [NaN, -1] } },
@@ -189,6 +213,11 @@ const cases: Case[] = [
     bad: { mzFrom: [...NON_FINITE, -1], mzTo: [NaN, 498], points: [NaN, 1, 2.5, -3], r0: POSITIVE, rodLength: POSITIVE, axialVoltage: POSITIVE },
   },
   { name: 'seededRandom', call: (p) => engine.seededRandom(p.seed as number), valid: { seed: 42 }, bad: { seed: [NaN, Infinity, '1', null, 1.5] } },
+  { name: 'peakWidths', call: (p) => engine.peakWidths(p.mz as never, p.transmission as never), valid: { mz: [1, 2, 3], transmission: [0, 1, 0] }, bad: { mz: [[], [1], null, [1, NaN, 3], [3, 2, 1]], transmission: [[0, 1], null, [0, -1, 0], [0, NaN, 0]] } },
+  { name: 'stableInterval', call: (p) => engine.stableInterval(p as never, p.inside as number), valid: { ...beam, rf: 577, dc: 96, inside: 500 }, bad: { r0: POSITIVE, frequency: POSITIVE, rf: [NaN, -1], dc: [NaN, Infinity], inside: POSITIVE } },
+  { name: 'sampleIons', call: (p) => engine.sampleIons(p.model as never, p.count as number, p.seed as number), valid: { model: { a: 0.2, q: 0.7, cycles: 10, beamRadius: 0.1, slopeSigma: 0.01 }, count: 3, seed: 1 }, bad: { count: [NaN, -1, 1.5], seed: [NaN, 1.5], model: [null] } },
+  { name: 'integrateIon', call: (p) => engine.integrateIon(p.a as number, p.q as number, p.cycles as number, p.ion as never), valid: { a: 0.2, q: 0.7, cycles: 5, ion: { phase: 0, x: 0.1, slopeX: 0, y: 0.1, slopeY: 0 } }, bad: { a: [NaN, Infinity], q: [NaN], cycles: POSITIVE, ion: [null] } },
+  { name: 'transmissionVsResolution', call: (p) => engine.transmissionVsResolution(p as never), valid: { mz: 100, r0: 4e-3, frequency: 1e6, rodLength: 0.2, axialVoltage: 10, beamRadius: 4e-4, transverseEnergy: 0.2, ratios: [0.16], points: 5 }, bad: { mz: POSITIVE, qOperating: [NaN, -1, 2], points: [NaN, 1, 2.5], ratios: [[], [NaN]], rodLength: POSITIVE } },
 ];
 
 describe('bad input: every public function', () => {

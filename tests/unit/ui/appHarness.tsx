@@ -20,11 +20,11 @@ export function demo(id: 'kestrel' | 'heron' | 'wren'): InstrumentProfile {
   return p;
 }
 
-export async function mount(children: ComponentChildren, instrument: InstrumentProfile, kept: Record<string, unknown> = {}): Promise<Harness> {
+export async function mount(children: ComponentChildren, instrument: InstrumentProfile, kept: Record<string, unknown> = {}, realStore?: Store): Promise<Harness> {
   const settings = new Map<string, unknown>(Object.entries(kept));
   const notes: unknown[] = [];
   const messages: string[] = [];
-  const store = {
+  const store = realStore ?? ({
     name: 'test',
     getSetting: async (key: string) => settings.get(key),
     setSetting: async (key: string, value: unknown) => void settings.set(key, value),
@@ -32,7 +32,7 @@ export async function mount(children: ComponentChildren, instrument: InstrumentP
       notes.push(n);
       return { visitLabel: 'the test visit' };
     },
-  } as unknown as Store;
+  } as unknown as Store);
   const ctx: AppContextValue = {
     store,
     storeProblem: null,

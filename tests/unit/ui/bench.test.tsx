@@ -1,5 +1,7 @@
 // @vitest-environment happy-dom
+import 'fake-indexeddb/auto';
 import { afterEach, describe, expect, it } from 'vitest';
+import { openStore } from '../../../src/store';
 import { act } from 'preact/test-utils';
 import {
   constantWidthScanLine, convertRf, dcForMass, hazardousLive, massForRf, massRangeTop, rfForMass, scanPoint,
@@ -120,9 +122,26 @@ describe('Bench · expected voltages (Kestrel: r0 4.5 mm, 1 MHz, read-backs 0-p 
     const btn = card(h.root, 69).querySelector<HTMLButtonElement>('[data-testid="rf-readback"] button')!;
     await act(async () => btn.click());
     await settle();
-    expect(h.notes[0]).toMatchObject({ label: expect.stringContaining('m/z 69'), unit: 'V 0-p', origin: 'calculator' });
+    expect(h.notes[0]).toMatchObject({ label: expect.stringContaining('m/z 69'), unit: 'V0p-rod', typeId: 'rf-amplitude', origin: 'calculator', context: { mz: 69 } });
     expect((h.notes[0] as { value: number }).value).toBeCloseTo(100.9055, 3);
     expect(h.messages).toEqual(['Noted in the test visit.']);
+  });
+
+  it('with the real store, a noted expected RF becomes a typed RF reading at m/z 69 in the current visit', async () => {
+    const store = await openStore(`bench-note-${Date.now()}`);
+    await store.loadDemo();
+    const k = demo('kestrel');
+    h = await mount(<Voltages />, k, {}, store);
+    const btn = card(h.root, 69).querySelector<HTMLButtonElement>('[data-testid="dc-readback"] button')!;
+    await act(async () => btn.click());
+    for (let i = 0; i < 20 && h.messages.length === 0; i++) await settle();
+    expect(h.messages[0]).toMatch(/^Noted in the visit of \d{4}-\d{2}-\d{2}\.$/);
+    const visits = await store.listVisits(k.id);
+    const readings = await store.listReadings(visits[0].id);
+    const dc = readings.find((r) => r.typeId === 'dc-amplitude' && r.origin === 'calculator');
+    expect(dc?.context?.mz).toBe(69);
+    expect(dc!.value).toBeCloseTo(dcForMass({ mz: 69, r0: k.rodFieldRadius, frequency: k.rfFrequency }), 9);
+    store.close();
   });
 
   it('restores the inputs kept for this profile', async () => {

@@ -1,0 +1,95 @@
+// The two scan laws across the mass range, as U/V against m/z: constant peak width (U/V climbs towards the
+// apex as m/z grows) and constant resolution (flat), with the apex ratio above both.
+import { useMemo } from 'preact/hooks';
+import { apexRatio, constantResolutionScanLine, constantWidthScanLine, scanPoint, type ScanLine } from '../../engine';
+import type { InstrumentProfile } from '../../store';
+import { Chart, type uPlot } from '../components/Chart';
+import { NumberField } from '../components/Field';
+import { formatNumber } from '../format';
+import { tryEngine, type FieldErrors } from '../bench/engineErrors';
+import { parseNumber, usePersistentInputs } from '../bench/inputs';
+import { Result } from '../bench/NoteButton';
+
+type LawInputs = { width: string; referenceMz: string; resolution: string };
+const lawDefaults = (p: InstrumentProfile | null): LawInputs => ({ width: '1', referenceMz: p?.kind === 'rga' ? '28' : '219', resolution: p?.kind === 'rga' ? '100' : '500' });
+
+const SAMPLES = 48;
+
+function ratioAlong(line: ScanLine | null, masses: number[], r0: number, frequency: number): (number | null)[] {
+  if (!line) return masses.map(() => null);
+  return masses.map((mz) => {
+    const p = scanPoint({ line, mz, r0, frequency });
+    return p && p.rf > 0 ? p.dc / p.rf : null;
+  });
+}
+
+export function ScanLawChart(props: { profile: InstrumentProfile; top: number }) {
+  const { profile, top } = props;
+  const [inputs, update] = usePersistentInputs<LawInputs>('scanlaw', lawDefaults);
+  const errors: FieldErrors = {};
+  const r0 = profile.rodFieldRadius;
+  const frequency = profile.rfFrequency;
+  const w = parseNumber(inputs.width, 'Peak width Δm', '1');
+  const ref = parseNumber(inputs.referenceMz, 'Reference m/z', '219');
+  const res = parseNumber(inputs.resolution, 'Resolution m/Δm', '500');
+  if (!w.ok) errors.width = w.message;
+  if (!ref.ok) errors.referenceMz = ref.message;
+  if (!res.ok) errors.resolution = res.message;
+  const widthLine = w.ok && ref.ok ? tryEngine(() => constantWidthScanLine({ width: w.value, referenceMz: ref.value, r0, frequency }), { width: 'width', referenceMz: 'referenceMz' }, errors, 'width') : null;
+  const resLine = res.ok ? tryEngine(() => constantResolutionScanLine(res.value), { resolution: 'resolution' }, errors, 'resolution') : null;
+
+  // ~100 band solutions: a few tens of ms on a phone, redone only when a setting changes.
+  const data = useMemo(() => {
+    const masses = Array.from({ length: SAMPLES }, (_, i) => (top * (i + 1)) / SAMPLES);
+    return [masses, ratioAlong(widthLine, masses, r0, frequency), ratioAlong(resLine, masses, r0, frequency), masses.map(() => apexRatio())] as unknown as uPlot.AlignedData;
+  }, [widthLine?.slope, widthLine?.offset, resLine?.slope, top, r0, frequency]);
+
+  const options = useMemo((): Omit<uPlot.Options, 'width' | 'height'> => {
+    const style = typeof getComputedStyle === 'function' ? getComputedStyle(document.documentElement) : null;
+    const c = (n: string, f: string) => style?.getPropertyValue(n).trim() || f;
+    const ink = c('--ink', '#1b2423');
+    const grid = c('--line', '#d8d2c4');
+    return {
+      legend: { show: false },
+      cursor: { drag: { x: false, y: false }, points: { show: false }, x: false, y: false },
+      scales: { x: { time: false } },
+      axes: [
+        { label: 'm/z (u)', stroke: ink, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid } },
+        { label: 'U/V', stroke: ink, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid }, size: 64, values: (_u, vals) => vals.map((v) => v.toFixed(4)) },
+      ],
+      series: [
+        {},
+        { label: 'constant Δm', stroke: c('--teal-2', '#2f6461'), width: 3, points: { show: false } },
+        { label: 'constant m/Δm', stroke: c('--amber', '#b36b00'), width: 3, dash: [7, 4], points: { show: false } },
+        { label: 'apex', stroke: ink, width: 1.5, dash: [2, 4], points: { show: false } },
+      ],
+    };
+  }, []);
+
+  return (
+    <div class="card">
+      <h2 class="card-title">Scan laws across the mass range</h2>
+      <div class="pair">
+        <NumberField id="law-width" label="Constant Δm" unit="u" value={inputs.width} error={errors.width} onInput={(t) => update({ width: t })} />
+        <NumberField id="law-ref" label="set at m/z" unit="u" value={inputs.referenceMz} error={errors.referenceMz} onInput={(t) => update({ referenceMz: t })} />
+      </div>
+      <NumberField id="law-res" label="Constant m/Δm" value={inputs.resolution} error={errors.resolution} onInput={(t) => update({ resolution: t })} />
+      <Chart data={data} options={options} height={260} zoomButtons testId="scanlaw-chart"
+        label={`U/V against m/z up to ${formatNumber(top, 4)}: the constant-width line rises towards the apex ratio with m/z; the constant-resolution line is flat below it.`} />
+      <ul class="legend" aria-label="Legend">
+        <li><svg width="36" height="12" aria-hidden="true"><line x1="2" y1="6" x2="34" y2="6" stroke="currentColor" stroke-width="3" /></svg> constant Δm (solid): U = λ·V − δ</li>
+        <li><svg width="36" height="12" aria-hidden="true"><line x1="2" y1="6" x2="34" y2="6" stroke="currentColor" stroke-width="3" stroke-dasharray="7 4" /></svg> constant m/Δm (dashed): U = λ·V</li>
+        <li><svg width="36" height="12" aria-hidden="true"><line x1="2" y1="6" x2="34" y2="6" stroke="currentColor" stroke-width="2" stroke-dasharray="2 4" /></svg> apex ratio (dotted): nothing passes above it</li>
+      </ul>
+      {widthLine && (
+        <Result label="Constant-Δm line" value={`U = ${formatNumber(widthLine.slope, 6)}·V − ${formatNumber(widthLine.offset, 4)} V`}
+          note={{ label: `Constant-width scan line offset δ (Δm ${inputs.width.trim()} u at m/z ${inputs.referenceMz.trim()})`, value: widthLine.offset, unit: 'V', origin: 'calculator', context: { slope: widthLine.slope } }} />
+      )}
+      {resLine && (
+        <Result label="Constant-m/Δm line" value={`U = ${formatNumber(resLine.slope, 7)}·V`}
+          note={{ label: `Constant-resolution scan line slope (m/Δm ${inputs.resolution.trim()})`, value: resLine.slope, unit: '', origin: 'calculator' }} />
+      )}
+      <p class="hint">Gaps in the constant-Δm line mark masses where the band cannot be that wide (Δm close to m).</p>
+    </div>
+  );
+}

@@ -1,0 +1,102 @@
+// Messages between the main thread and the peak-simulation worker, and the request runner the worker uses.
+// Pure: no DOM and no worker globals, so it is unit-tested in Node and compiled for both sides.
+import {
+  InputRangeError,
+  PeakCancelledError,
+  peakProfile,
+  transmission,
+  transmissionVsResolution,
+  type PeakProfile,
+  type PeakProfileParams,
+  type TransmissionParams,
+  type TransmissionResult,
+  type TransmissionVsResolution,
+  type TransmissionVsResolutionParams,
+} from '../engine/index';
+
+export interface SimKinds {
+  transmission: { params: TransmissionParams; result: TransmissionResult };
+  peakProfile: { params: PeakProfileParams; result: PeakProfile };
+  transmissionVsResolution: { params: TransmissionVsResolutionParams; result: TransmissionVsResolution };
+}
+export type SimKind = keyof SimKinds;
+
+export interface SimRequest<K extends SimKind = SimKind> {
+  id: number;
+  kind: K;
+  params: SimKinds[K]['params'];
+}
+
+/** A refusal or failure, flattened so it survives structured cloning; field/range set for bad input. */
+export interface SimErrorInfo {
+  name: string;
+  message: string;
+  field?: string;
+  range?: string;
+  /** The refused value when it is a number or string. */
+  value?: number | string;
+}
+
+export type SimResponse =
+  | { id: number; type: 'progress'; fraction: number }
+  | { id: number; type: 'result'; result: unknown }
+  | { id: number; type: 'error'; error: SimErrorInfo };
+
+/** Every ArrayBuffer behind a typed array in the result (transferred, not copied). */
+export function transferables(result: unknown): ArrayBuffer[] {
+  const buffers: ArrayBuffer[] = [];
+  if (result && typeof result === 'object') {
+    for (const value of Object.values(result as Record<string, unknown>)) {
+      if (ArrayBuffer.isView(value) && value.buffer instanceof ArrayBuffer && !buffers.includes(value.buffer)) buffers.push(value.buffer);
+    }
+  }
+  return buffers;
+}
+
+export function errorInfo(error: unknown): SimErrorInfo {
+  if (error instanceof InputRangeError) {
+    const value = typeof error.value === 'number' || typeof error.value === 'string' ? error.value : undefined;
+    return { name: error.name, message: error.message, field: error.field, range: error.range, value };
+  }
+  if (error instanceof Error) return { name: error.name, message: error.message };
+  return { name: 'Error', message: String(error) };
+}
+
+/**
+ * Run one request and report through `post` (progress at most every 1 % or 100 ms; then one result or error).
+ * `post` receives the transfer list for result messages.
+ */
+export function runRequest(request: SimRequest, post: (message: SimResponse, transfer?: ArrayBuffer[]) => void, now: () => number = Date.now): void {
+  const { id } = request;
+  let lastFraction = -1;
+  let lastTime = -Infinity;
+  const onProgress = (fraction: number): void => {
+    const t = now();
+    if (fraction >= 1 || fraction - lastFraction >= 0.01 || t - lastTime >= 100) {
+      lastFraction = fraction;
+      lastTime = t;
+      post({ id, type: 'progress', fraction });
+    }
+  };
+  try {
+    let result: unknown;
+    switch (request.kind) {
+      case 'transmission':
+        result = transmission(request.params as TransmissionParams);
+        onProgress(1);
+        break;
+      case 'peakProfile':
+        result = peakProfile(request.params as PeakProfileParams, { onProgress });
+        break;
+      case 'transmissionVsResolution':
+        result = transmissionVsResolution(request.params as TransmissionVsResolutionParams, { onProgress });
+        break;
+      default:
+        throw new Error(`Unknown simulation kind: ${String((request as { kind: unknown }).kind)}`);
+    }
+    post({ id, type: 'result', result }, transferables(result));
+  } catch (error) {
+    if (error instanceof PeakCancelledError) return;
+    post({ id, type: 'error', error: errorInfo(error) });
+  }
+}

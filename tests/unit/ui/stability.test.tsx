@@ -1,0 +1,61 @@
+// @vitest-environment happy-dom
+import { afterEach, describe, expect, it } from 'vitest';
+import { act } from 'preact/test-utils';
+import { constantWidthScanLine, operatingPoint, passBandDetail, scanPoint } from '../../../src/engine';
+import { StabilityDiagram } from '../../../src/ui/stability/StabilityDiagram';
+import { formatNumber } from '../../../src/ui/format';
+import { demo, mount, settle, texts, typeInto, type Harness } from './appHarness';
+
+let h: Harness | null = null;
+afterEach(() => {
+  h?.unmount();
+  h = null;
+});
+
+describe('Stability · diagram (Kestrel)', () => {
+  it('pass band and operating points at the constant-width line through m/z 69 match the engine', async () => {
+    const k = demo('kestrel');
+    h = await mount(<StabilityDiagram />, k);
+    const g = { r0: k.rodFieldRadius, frequency: k.rfFrequency };
+    const line = constantWidthScanLine({ width: 1, referenceMz: 219, ...g });
+    const sp = scanPoint({ line, mz: 69, ...g })!;
+    const band = passBandDetail({ dc: sp.dc, rf: sp.rf, ...g })!;
+    expect(texts(h.root, '[data-testid="band-interval"] .result-value')[0]).toBe(`${formatNumber(band.low, 6)} – ${formatNumber(band.high, 6)} u`);
+    const list = texts(h.root, '[data-testid="op-list"] li');
+    expect(list[0]).toBe('m/z 69 (set): ✓ passes');
+    for (const mz of [68, 70, 219]) {
+      const op = operatingPoint({ mz, ...g, dc: sp.dc, rf: sp.rf });
+      expect(op.firstRegion).toBe(false);
+      expect(list).toContain(`m/z ${mz}: ✗ does not pass — ${op.cutSide}`);
+    }
+  });
+
+  it('choosing a point from the list opens its panel with a, q, β and the nearest edge from the engine', async () => {
+    const k = demo('kestrel');
+    h = await mount(<StabilityDiagram />, k);
+    const g = { r0: k.rodFieldRadius, frequency: k.rfFrequency };
+    const line = constantWidthScanLine({ width: 1, referenceMz: 219, ...g });
+    const sp = scanPoint({ line, mz: 69, ...g })!;
+    const op = operatingPoint({ mz: 69, ...g, dc: sp.dc, rf: sp.rf });
+    const button = [...h.root.querySelectorAll<HTMLButtonElement>('[data-testid="op-list"] button')][0];
+    await act(async () => button.click());
+    await settle();
+    const panel = h.root.querySelector('[data-testid="point-panel"]')!;
+    expect(texts(panel, '[data-testid="panel-a"] .result-value')[0]).toBe(formatNumber(op.a, 6));
+    expect(texts(panel, '[data-testid="panel-q"] .result-value')[0]).toBe(formatNumber(op.q, 6));
+    expect(texts(panel, '[data-testid="panel-bx"] .result-value')[0]).toBe(formatNumber(op.betaX!, 5));
+    expect(texts(panel, '[data-testid="panel-by"] .result-value')[0]).toBe(formatNumber(op.betaY!, 5));
+    const nearest = Math.abs(op.marginX) <= Math.abs(op.marginY) ? /x edge b₁/ : /y edge −a₀/;
+    expect(texts(panel, '[data-testid="panel-edge"] .result-value')[0]).toMatch(nearest);
+  });
+
+  it('measured read-backs: U/V above the apex passes nothing, said in words', async () => {
+    h = await mount(<StabilityDiagram />, demo('kestrel'));
+    await typeInto(h.root, 'stab-source', 'measured');
+    await typeInto(h.root, 'stab-u', '17.2');
+    await typeInto(h.root, 'stab-v', '100.9');
+    expect(h.root.querySelector('[data-testid="band-interval"]')?.textContent).toMatch(/✗ nothing passes/);
+    await typeInto(h.root, 'stab-u', 'x');
+    expect(h.root.querySelector('#stab-u-error')?.textContent).toMatch(/Measured U: “x” is not a number/);
+  });
+});
