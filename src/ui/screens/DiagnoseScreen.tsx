@@ -5,6 +5,7 @@ import { activeReadings, back, start, treeById, trees, WALK_FORMAT, type Tree, t
 import { noteThis } from '../noteThis';
 import { useApp } from '../context';
 import { formatNumber } from '../format';
+import { markSaved, markUnsaved } from '../offline';
 import { navigate, usePath } from '../router';
 import { LeakCheckPanel, type LeakTyped } from './diagnose/LeakCheckPanel';
 import { NodeView, TREE_TITLE, type Typed } from './diagnose/NodeView';
@@ -12,6 +13,7 @@ import { VerdictWord } from './diagnose/VerdictWord';
 
 /** Walks live in the store's walks records; this older draft key is only read once to carry a walk over. */
 export const WALK_DRAFT_KEY = 'diagnose:walk';
+const WALK_UNSAVED_KEY = 'diagnose-walk';
 export const LEAK_DRAFT_KEY = 'diagnose:leak-check';
 
 export interface WalkDraft {
@@ -76,6 +78,9 @@ function Walk() {
   // The walk's record id in the store, and a queue so saves land in order and never create two records.
   const walkId = useRef<string | null>(null);
   const saving = useRef<Promise<void>>(Promise.resolve());
+  const pending = useRef(0);
+  const [saveState, setSaveState] = useState<'saved' | 'saving' | 'failed'>('saved');
+  useEffect(() => () => markSaved(WALK_UNSAVED_KEY), []);
 
   useEffect(() => {
     if (!store || loaded) return;
@@ -106,7 +111,12 @@ function Walk() {
     latest.current = next;
     setDraft(next);
     if (!store) return;
+    // While a save is on its way, an app update must not reload the page under it.
+    pending.current += 1;
+    setSaveState('saving');
+    markUnsaved(WALK_UNSAVED_KEY, 'the diagnosis walk');
     saving.current = saving.current.then(async () => {
+      let ok = true;
       try {
         if (next === null) {
           walkId.current = null;
@@ -122,7 +132,15 @@ function Walk() {
         walkId.current = rec.id;
         await store.clearDraft(WALK_DRAFT_KEY).catch(() => undefined);
       } catch (err) {
+        ok = false;
         notify((err as { userMessage?: string }).userMessage ?? `The walk could not be kept on this device: ${String(err)}`);
+      } finally {
+        pending.current -= 1;
+        if (!ok) setSaveState('failed');
+        else if (pending.current === 0) {
+          setSaveState('saved');
+          markSaved(WALK_UNSAVED_KEY);
+        }
       }
     });
   }
@@ -245,7 +263,12 @@ function Walk() {
         </p>
       )}
       <div class="walk-head">
-        <p class="walk-tree"><strong>{tree.title}</strong> · step {walk.steps.length + 1}</p>
+        <p class="walk-tree">
+          <strong>{tree.title}</strong> · step {walk.steps.length + 1} ·{' '}
+          <span class={`save-state save-${saveState}`} data-testid="save-state" role="status">
+            {saveState === 'saved' ? '✓ kept on this device' : saveState === 'saving' ? '… saving' : '✗ not saved — keep this tab open'}
+          </span>
+        </p>
         <p class="hint">
           {walk.instrument ? `Expected values for ${walk.instrument.name}` : 'No instrument: expected values that need geometry are not shown'}
           {walk.queue.length > 0 && ` · then: ${walk.queue.map(TREE_TITLE).join(', ')}`}

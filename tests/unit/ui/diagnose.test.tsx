@@ -77,6 +77,7 @@ describe('DiagnoseScreen', () => {
     await act(async () => button(host, 'Start a walk').click());
     await settle();
     expect(nodeOf(host)).toBe('E1');
+    expect(host.querySelector('[data-testid="save-state"]')?.textContent).toMatch(/✓ kept on this device/);
     expect(saves[0]).toMatchObject({ status: 'in-progress', treeId: 'entry', instrumentId: demoInstruments[0].id });
     expect(saves[0].id).toBeUndefined();
     // Refusing the gate is always possible and leads to the stop leaf.
@@ -126,6 +127,7 @@ describe('DiagnoseScreen', () => {
     await settle();
     expect(nodeOf(host)).toBe('E1');
     expect(notify).toHaveBeenCalledWith('The device is full: the walk could not be kept.');
+    expect(host.querySelector('[data-testid="save-state"]')?.textContent).toMatch(/✗ not saved/);
   });
 
   it('the leak check panel names a bad height and calls an air leak from good ones', async () => {
