@@ -290,7 +290,7 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
   function submit() {
     setProblem(null);
     if (!measured || !measured.ok) {
-      setProblem(measured && !measured.ok ? measured.message : `Enter the ${node.measure.quantity.toLowerCase()}.`);
+      setProblem(measured && !measured.ok ? measured.message : `Enter the measured value: ${node.measure.quantity}.`);
       return;
     }
     if (Object.keys(inputErrors).length) {
@@ -350,7 +350,7 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
       )}
       <div class="row measure-row">
         <div class={measured && !measured.ok ? 'field has-error grow' : 'field grow'}>
-          <label for="walk-value">Measured {node.measure.quantity.toLowerCase()}</label>
+          <label for="walk-value">Measured: {node.measure.quantity}</label>
           <input id="walk-value" type="text" inputMode="decimal" autoComplete="off" value={measuredText}
             onInput={(e) => props.onTyped({ ...typed, value: (e.target as HTMLInputElement).value })} />
           {measured && !measured.ok && <p class="field-error" role="alert">{measured.message}</p>}
