@@ -176,6 +176,12 @@ describe('diagnose offline', () => {
     // The walk's readings go into the instrument's visit log (six: the withdrawn one stays out).
     await pick(page, 'Add 6 readings to the visit log');
     await expect.poll(() => page.getByRole('button', { name: 'Readings are in the visit log' }).count()).toBe(1);
+    await kept(page);
+    // The visit log shows the readings and lists the walk under the same visit.
+    await page.goto(origin + '/visits');
+    await page.locator('[data-testid="visit-item"]').first().click();
+    await expect.poll(() => page.locator('[data-testid="reading-row"]').count()).toBe(6);
+    await expect.poll(() => page.locator('main').textContent()).toMatch(/Diagnosis walks[\s\S]*no-signal — finished/);
 
     foreign.push(...session.foreignRequests);
     expect(session.pageErrors).toEqual([]);

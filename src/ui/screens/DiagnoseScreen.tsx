@@ -79,6 +79,8 @@ function Walk() {
   const walkId = useRef<string | null>(null);
   const saving = useRef<Promise<void>>(Promise.resolve());
   const pending = useRef(0);
+  // The visit this walk belongs to (the instrument's open visit), so the visit log lists it.
+  const visitId = useRef<string | null>(null);
   const [saveState, setSaveState] = useState<'saved' | 'saving' | 'failed'>('saved');
   useEffect(() => () => markSaved(WALK_UNSAVED_KEY), []);
 
@@ -92,6 +94,7 @@ function Walk() {
         if (kept === undefined) return;
         if (isWalkDraft(kept) && trees.some((t) => t.id === kept.walk.treeId)) {
           walkId.current = rec?.id ?? null;
+          visitId.current = rec?.visitId ?? null;
           setDraft(kept);
           setResumed(true);
         } else {
@@ -125,6 +128,7 @@ function Walk() {
         const rec = await store.saveWalk({
           ...(walkId.current ? { id: walkId.current } : {}),
           ...(next.walk.instrument ? { instrumentId: next.walk.instrument.id } : {}),
+          ...(visitId.current ? { visitId: visitId.current } : {}),
           treeId: next.walk.treeId,
           state: next,
           status: status ?? (next.finished ? 'finished' : 'in-progress'),
@@ -151,6 +155,7 @@ function Walk() {
     if (d) save({ ...d, finished: true }, status);
     saving.current = saving.current.then(() => {
       walkId.current = null;
+      visitId.current = null;
     });
     latest.current = null;
     setDraft(null);
@@ -182,13 +187,34 @@ function Walk() {
     if (problem) notify(`${done} readings added; then: ${problem}`);
     else {
       notify(`${done} readings added to the visit log.`);
+      // The readings went into the instrument's open visit: the walk belongs to it too.
+      visitId.current = (await openVisitOf(d.walk.instrument?.id)) ?? visitId.current;
       save({ ...d, notedToVisit: true });
+    }
+  }
+
+  /** The instrument's open visit, if the visit log has one (the same one "Note this" writes to). */
+  async function openVisitOf(instrumentId: string | undefined): Promise<string | null> {
+    if (!store || !instrumentId) return null;
+    try {
+      const id = await store.getSetting<string>(`currentVisit:${instrumentId}`);
+      if (typeof id !== 'string') return null;
+      const v = await store.getVisit(id);
+      return v && v.instrumentId === instrumentId ? v.id : null;
+    } catch {
+      return null;
     }
   }
 
   function begin(tree: Tree) {
     const walk = start(tree, instrument ?? null);
     setResumed(false);
+    walkId.current = null;
+    visitId.current = null;
+    // Link to the open visit before the first save is queued, so the walk record carries it from the start.
+    saving.current = saving.current.then(async () => {
+      visitId.current = await openVisitOf(walk.instrument?.id);
+    });
     save({ walk, typed: {}, finished: false });
   }
 
@@ -239,6 +265,7 @@ function Walk() {
     return (
       <div class="walk-done">
         <h2>Walk finished</h2>
+        <p><SaveState state={saveState} /></p>
         <WalkSummary walk={walk} />
         <button type="button" class="btn btn-block" disabled={!!draft.notedToVisit || activeReadings(walk).length === 0} onClick={copyToVisit}>
           {draft.notedToVisit ? 'Readings are in the visit log' : `Add ${activeReadings(walk).length} readings to the visit log`}
@@ -265,9 +292,7 @@ function Walk() {
       <div class="walk-head">
         <p class="walk-tree">
           <strong>{tree.title}</strong> · step {walk.steps.length + 1} ·{' '}
-          <span class={`save-state save-${saveState}`} data-testid="save-state" role="status">
-            {saveState === 'saved' ? '✓ kept on this device' : saveState === 'saving' ? '… saving' : '✗ not saved — keep this tab open'}
-          </span>
+          <SaveState state={saveState} />
         </p>
         <p class="hint">
           {walk.instrument ? `Expected values for ${walk.instrument.name}` : 'No instrument: expected values that need geometry are not shown'}
@@ -310,6 +335,14 @@ function Walk() {
         <WalkSummary walk={walk} />
       </details>
     </div>
+  );
+}
+
+function SaveState(props: { state: 'saved' | 'saving' | 'failed' }) {
+  return (
+    <span class={`save-state save-${props.state}`} data-testid="save-state" role="status">
+      {props.state === 'saved' ? '✓ kept on this device' : props.state === 'saving' ? '… saving' : '✗ not saved — keep this tab open'}
+    </span>
   );
 }
 
