@@ -3,6 +3,7 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
 import { activeReadings, back, start, treeById, trees, WALK_FORMAT, type Tree, type TreeId, type WalkState } from '../../diagnose';
 import { noteThis } from '../noteThis';
+import { plainNote, visitNote } from './diagnose/toVisit';
 import { useApp } from '../context';
 import { formatNumber } from '../format';
 import { markSaved, markUnsaved } from '../offline';
@@ -169,15 +170,9 @@ function Walk() {
     let done = 0;
     let problem: string | null = null;
     for (const r of activeReadings(d.walk)) {
-      const context: Record<string, string | number> = { walkStep: `${r.treeId}/${r.nodeId}`, verdict: r.verdict, tool: r.tool.slice(0, 200) };
-      if (r.expected !== null) context.expected = r.expected;
-      const res = await noteThis(store, profile, {
-        label: `${r.quantity}${r.phase === 'as-left' ? ' (as-left)' : ''} — diagnosis walk`,
-        value: r.value,
-        unit: r.unit,
-        context,
-        origin: 'entered',
-      });
+      // As a catalogue reading where the step names one; if the visit log refuses that, as a plain noted value.
+      let res = await noteThis(store, profile, visitNote(r, d.walk.instrument));
+      if (!res.ok) res = await noteThis(store, profile, plainNote(r));
       if (!res.ok) {
         problem = res.message;
         break;
