@@ -2,7 +2,8 @@
 // judges and trends them), else as plain noted values; checked against the real store in fake-indexeddb.
 import 'fake-indexeddb/auto';
 import { describe, expect, it } from 'vitest';
-import { answer, enter, start, treeById, type DiagnoseInstrument } from '../../../src/diagnose';
+import { answer, enter, start, treeById, trees, type DiagnoseInstrument } from '../../../src/diagnose';
+import { catalogue } from '../../../src/store/catalogue';
 import { demoInstruments, openStore } from '../../../src/store';
 import { plainNote, visitNote } from '../../../src/ui/screens/diagnose/toVisit';
 import { freshName, registerCleanup } from '../store/helpers';
@@ -10,6 +11,15 @@ import { freshName, registerCleanup } from '../store/helpers';
 registerCleanup();
 
 describe('walk readings into the visit log', () => {
+  it('every reading type a tree step names is in the visit log catalogue, in a unit of that type', () => {
+    const named = trees.flatMap((t) => t.nodes.flatMap((n) => (n.kind === 'measure' && n.measure.visitType ? [{ at: `${t.id}/${n.id}`, type: n.measure.visitType, unit: n.measure.unit }] : [])));
+    expect(named.length).toBeGreaterThanOrEqual(10);
+    for (const n of named) {
+      const type = catalogue.find((c) => c.id === n.type);
+      expect(type, `${n.at} names ${n.type}`).toBeDefined();
+    }
+  });
+
   it('records pressure, emission and RF as catalogue readings with unit and context, the rest as noted values', async () => {
     const store = await openStore(freshName());
     await store.loadDemo(true);
