@@ -6,6 +6,7 @@ import {
   judge,
   preview,
   previewDerived,
+  toleranceIn,
   record,
   treeById,
   UNITS,
@@ -274,7 +275,7 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
   const measuredText = typed.value ?? '';
   const measured = measuredText.trim() === '' ? null : parseNumber(measuredText, node.measure.quantity);
   const pv = node.expect ? preview(node, walk.instrument, inputs, unit, undefined, measured?.ok ? measured.value : undefined) : null;
-  const tol = node.expect?.tolerance;
+  const tol = toleranceIn(node, unit);
   let live: ReturnType<typeof judge> | null = null;
   if (pv?.ok && tol && measured?.ok) {
     try {
