@@ -2,7 +2,7 @@
  * Expected values by NAME. Tree nodes refer to these names; treeProblems() checks that each name exists.
  *
  * Each entry: function(instrument, inputs) → { value, unit, low?, high?, basis }, inputs in SI.
- * The physics comes from the engine's public face (rfForMass, dcForMass, massForRf, passBand, meanFreePath,
+ * The physics comes from the engine's public face (rfForMass, dcForMass, massForRf, rfOnlyLowMassCutoff, meanFreePath,
  * firstRegionApex) and from engine/leak.ts; nothing here re-derives those formulas. Voltages come back in the
  * selected instrument's read-back convention so that the number can be compared with what the engineer reads.
  */
@@ -10,13 +10,21 @@ import { expectedPressure, gasLoad, rateOfRise } from '../engine/leak';
 import { engineFace } from './engineLink';
 import type { DiagnoseInstrument } from './types';
 
-/** The engine's public face, as agreed (SI; mz in u/e; V zero-to-peak per rod to ground). */
+type RfForm = 'zeroToPeakPerRod' | 'peakToPeakPerRod' | 'rmsPerRod' | 'zeroToPeakBetweenPairs' | 'peakToPeakBetweenPairs' | 'rmsBetweenPairs';
+
+/** The parts of the engine's public face the registry uses (SI; mz in u/e; V zero-to-peak per rod to ground). */
 export interface EngineFace {
   rfForMass(p: { mz: number; r0: number; frequency: number; q?: number }): number;
   dcForMass(p: { mz: number; r0: number; frequency: number; a?: number }): number;
   massForRf(p: { rf: number; r0: number; frequency: number; q?: number }): number;
-  passBand(p: { dc: number; rf: number; r0: number; frequency: number }): { low: number; high: number } | null;
+  rfOnlyLowMassCutoff(p: { rf: number; r0: number; frequency: number }): number;
   meanFreePath(p: { pressure: number; temperature: number; diameter: number }): number;
+  scatteringAlongRods(p: { gas: 'air'; pressure: number; temperature: number; rodLength: number }): { meanFreePath: number; unscatteredFraction: number };
+  apparentMassShift(p: { mz: number; frequencyChange?: number }): number;
+  convertRf(value: number, from: RfForm, to: RfForm): number;
+  convertDc(value: number, from: 'perRod' | 'betweenPairs', to: 'perRod' | 'betweenPairs'): number;
+  /** Collision diameter of air that reproduces λ[cm] ≈ 5×10⁻³/p[Torr] (engine vacuum presets). */
+  airDiameter: number;
 }
 
 export interface ExpectedValue {
@@ -50,7 +58,7 @@ export const EXPECTATION_INFO: Record<string, ExpectationInfo> = {
   rfFrequencyNominal: { label: 'RF frequency of this instrument', unit: 'Hz', inputs: [], needsInstrument: true },
   apparentMassShift: { label: 'Apparent m/z shift from the measured frequency', unit: 'u', inputs: ['mz', 'frequency'], needsInstrument: true },
   meanFreePath: { label: 'Mean free path at the pressure read', unit: 'm', inputs: ['pressure', 'temperature', 'diameter'], needsInstrument: true },
-  scatteringLoss: { label: 'Share of ions scattered along the rods', unit: '1', inputs: ['pressure', 'temperature', 'diameter'], needsInstrument: true },
+  scatteringLoss: { label: 'Share of ions scattered along the rods', unit: '1', inputs: ['pressure', 'temperature'], needsInstrument: true },
   gaugeReadingForCarrier: { label: 'Ion-gauge reading expected from the carrier flow', unit: 'Pa', inputs: ['flow', 'pumpingSpeed', 'relativeSensitivity'], needsInstrument: false },
   truePressureFromGauge: { label: 'True pressure of the carrier gas', unit: 'Pa', inputs: ['reading', 'relativeSensitivity'], needsInstrument: false },
   throughputFromRise: { label: 'Gas throughput from a pressure rise', unit: 'Pa·m³/s', inputs: ['volume', 'interval', 'rise'], needsInstrument: false },
@@ -77,12 +85,11 @@ function input(inputs: Record<string, number>, key: string, min: number, max: nu
   return v;
 }
 
-/** Factor from V zero-to-peak per rod to the instrument's read-back convention (domain notes §0.2). */
-export function readbackFactor(instrument: DiagnoseInstrument): number {
+/** The engine's name for an instrument's RF read-back form. */
+export function rfFormOf(instrument: DiagnoseInstrument): RfForm {
   const { amplitude, reference } = instrument.readbackConvention;
-  const a = amplitude === 'zero-to-peak' ? 1 : amplitude === 'peak-to-peak' ? 2 : Math.SQRT1_2;
-  const r = reference === 'per-rod' ? 1 : 2;
-  return a * r;
+  const a = amplitude === 'zero-to-peak' ? 'zeroToPeak' : amplitude === 'peak-to-peak' ? 'peakToPeak' : 'rms';
+  return `${a}${reference === 'per-rod' ? 'PerRod' : 'BetweenPairs'}` as RfForm;
 }
 
 export function readbackName(instrument: DiagnoseInstrument): string {
@@ -93,9 +100,6 @@ export function readbackName(instrument: DiagnoseInstrument): string {
 const geometry = (i: DiagnoseInstrument) =>
   `r0 ${fmt(i.rodFieldRadius * 1e3)} mm, f ${fmt(i.rfFrequency / 1e6)} MHz`;
 
-/** Diameter of N2 for kinetic-theory mean free path, m (gives λ·p ≈ 6.7×10⁻³ mbar·cm for air; common practice). */
-const DEFAULT_DIAMETER = 3.7e-10;
-
 /** Build the registry on an engine face. */
 export function makeRegistry(engine: EngineFace): Record<string, ExpectationFn> {
   return {
@@ -103,22 +107,23 @@ export function makeRegistry(engine: EngineFace): Record<string, ExpectationFn> 
       const i = need(instrument, 'rfAtMass');
       const mz = input(inputs, 'mz', 1, 10000, 'u');
       const v0p = engine.rfForMass({ mz, r0: i.rodFieldRadius, frequency: i.rfFrequency });
-      const k = readbackFactor(i);
+      const shown = engine.convertRf(v0p, 'zeroToPeakPerRod', rfFormOf(i));
       return {
-        value: v0p * k,
+        value: shown,
         unit: 'V',
-        basis: `RF for m/z ${fmt(mz)} at the first-region apex (${geometry(i)}): ${fmt(v0p)} V zero-to-peak per rod; shown ${readbackName(i)} (× ${fmt(k, 3)}). Formula q = 4eV/(m r0² Ω²), Dawson 1976.`,
+        basis: `RF for m/z ${fmt(mz)} at the first-region apex (${geometry(i)}): ${fmt(v0p)} V zero-to-peak per rod${shown !== v0p ? `, shown ${readbackName(i)}` : ''}. Formula q = 4eV/(m r0² Ω²), Dawson 1976.`,
       };
     },
     dcAtMass(instrument, inputs) {
       const i = need(instrument, 'dcAtMass');
       const mz = input(inputs, 'mz', 1, 10000, 'u');
       const u = engine.dcForMass({ mz, r0: i.rodFieldRadius, frequency: i.rfFrequency });
-      const k = i.readbackConvention.reference === 'per-rod' ? 1 : 2;
+      const pairs = i.readbackConvention.reference === 'between-pairs';
+      const shown = pairs ? engine.convertDc(u, 'perRod', 'betweenPairs') : u;
       return {
-        value: u * k,
+        value: shown,
         unit: 'V',
-        basis: `DC for m/z ${fmt(mz)} at the apex (${geometry(i)}): ${fmt(u)} V per rod to ground${k === 2 ? ', × 2 between the rod pairs' : ''}. A resolving scan line sits slightly below the apex. Formula a = 8eU/(m r0² Ω²), Dawson 1976.`,
+        basis: `DC for m/z ${fmt(mz)} at the apex (${geometry(i)}): ${fmt(u)} V per rod to ground${pairs ? `, ${fmt(shown)} V between the rod pairs` : ''}. A resolving scan line sits slightly below the apex. Formula a = 8eU/(m r0² Ω²), Dawson 1976.`,
       };
     },
     rfProportional(_instrument, inputs) {
@@ -134,13 +139,12 @@ export function makeRegistry(engine: EngineFace): Record<string, ExpectationFn> 
     rfOnlyCutoff(instrument, inputs) {
       const i = need(instrument, 'rfOnlyCutoff');
       const rfRead = input(inputs, 'rf', 1e-3, 1e5, 'V');
-      const v0p = rfRead / readbackFactor(i);
-      const band = engine.passBand({ dc: 0, rf: v0p, r0: i.rodFieldRadius, frequency: i.rfFrequency });
-      if (!band) throw new RangeError('rf gives no pass band for this instrument; check the reading and its convention');
+      const v0p = engine.convertRf(rfRead, rfFormOf(i), 'zeroToPeakPerRod');
+      const low = engine.rfOnlyLowMassCutoff({ rf: v0p, r0: i.rodFieldRadius, frequency: i.rfFrequency });
       return {
-        value: band.low,
+        value: low,
         unit: 'u',
-        basis: `With DC off, ions below the RF-only edge are unstable: read-back ${fmt(rfRead)} V (${readbackName(i)}) is ${fmt(v0p)} V zero-to-peak per rod; lowest stable m/z ${fmt(band.low)} (${geometry(i)}; edge q ≈ 0.908, Dawson 1976).`,
+        basis: `With DC off, ions below the RF-only edge are unstable: read-back ${fmt(rfRead)} V (${readbackName(i)}) is ${fmt(v0p)} V zero-to-peak per rod; lowest stable m/z ${fmt(low)} (${geometry(i)}; edge q ≈ 0.908, Dawson 1976).`,
       };
     },
     topMass(instrument) {
@@ -160,19 +164,19 @@ export function makeRegistry(engine: EngineFace): Record<string, ExpectationFn> 
       const i = need(instrument, 'apparentMassShift');
       const mz = input(inputs, 'mz', 1, 10000, 'u');
       const f = input(inputs, 'frequency', 1e3, 1e8, 'Hz');
-      const v = engine.rfForMass({ mz, r0: i.rodFieldRadius, frequency: i.rfFrequency });
-      const seen = engine.massForRf({ rf: v, r0: i.rodFieldRadius, frequency: f });
+      const change = (f - i.rfFrequency) / i.rfFrequency;
+      const shift = engine.apparentMassShift({ mz, frequencyChange: change });
       return {
-        value: seen - mz,
+        value: shift,
         unit: 'u',
-        basis: `The RF set for m/z ${fmt(mz)} at ${fmt(i.rfFrequency / 1e6)} MHz transmits m/z ${fmt(seen)} at the measured ${fmt(f / 1e6, 6)} MHz (δm/m ≈ 2δf/f, Dawson 1976).`,
+        basis: `A frequency change of ${fmt(change * 100, 3)} % from the stored ${fmt(i.rfFrequency / 1e6, 6)} MHz moves m/z ${fmt(mz)} by ${fmt(shift, 3)} u (δm/m ≈ 2δf/f, Dawson 1976).`,
       };
     },
     meanFreePath(instrument, inputs) {
       const i = need(instrument, 'meanFreePath');
       const p = input(inputs, 'pressure', 1e-12, 1e6, 'Pa');
       const t = inputs.temperature === undefined ? 293.15 : input(inputs, 'temperature', 1, 2000, 'K');
-      const d = inputs.diameter === undefined ? DEFAULT_DIAMETER : input(inputs, 'diameter', 1e-11, 1e-8, 'm');
+      const d = inputs.diameter === undefined ? engine.airDiameter : input(inputs, 'diameter', 1e-11, 1e-8, 'm');
       const lambda = engine.meanFreePath({ pressure: p, temperature: t, diameter: d });
       return {
         value: lambda,
@@ -185,13 +189,12 @@ export function makeRegistry(engine: EngineFace): Record<string, ExpectationFn> 
       const i = need(instrument, 'scatteringLoss');
       const p = input(inputs, 'pressure', 1e-12, 1e6, 'Pa');
       const t = inputs.temperature === undefined ? 293.15 : input(inputs, 'temperature', 1, 2000, 'K');
-      const d = inputs.diameter === undefined ? DEFAULT_DIAMETER : input(inputs, 'diameter', 1e-11, 1e-8, 'm');
-      const lambda = engine.meanFreePath({ pressure: p, temperature: t, diameter: d });
-      const loss = 1 - Math.exp(-i.rodLength / lambda);
+      const r = engine.scatteringAlongRods({ gas: 'air', pressure: p, temperature: t, rodLength: i.rodLength });
+      const loss = 1 - r.unscatteredFraction;
       return {
         value: loss,
         unit: '1',
-        basis: `Fraction scattered over the rod length: 1 − exp(−L/λ) with L ${fmt(i.rodLength * 1e3)} mm, λ ${fmt(lambda)} m (molecule-sized collision partner; large ions scatter more).`,
+        basis: `Fraction scattered over the rod length: 1 − exp(−L/λ) with L ${fmt(i.rodLength * 1e3)} mm, λ ${fmt(r.meanFreePath)} m for air (molecule-sized collision partner; large ions scatter more).`,
       };
     },
     gaugeReadingForCarrier(_instrument, inputs) {

@@ -2,7 +2,7 @@
 export { trees, treeById } from './trees/index';
 export { treeProblems } from './check';
 export { SAFETY_CARDS, HAZARD_CARD, DEFERRAL, cardProblems } from './safety';
-export { EXPECTATION_INFO, expectations, makeRegistry, readbackFactor, readbackName } from './expectations';
+export { EXPECTATION_INFO, expectations, makeRegistry, rfFormOf, readbackName } from './expectations';
 export type { EngineFace, ExpectedValue, ExpectationFn } from './expectations';
 export { judge, describeLimits } from './judge';
 export * from './walker';

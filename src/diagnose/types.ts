@@ -97,6 +97,8 @@ export interface Option {
   tree?: TreeId;
   /** A deliberate bounded loop back to an earlier node: taken at most `max` times in one walk. */
   loop?: { max: number };
+  /** Instrument kinds this answer usually fits (a hint on screen; the engineer still chooses). */
+  fits?: InstrumentKind[];
 }
 
 export interface QuestionNode extends NodeBase {

@@ -75,7 +75,8 @@ export interface Reading {
   expected: number | null;
   low: number | null;
   high: number | null;
-  tolerance: (Tolerance & { passLow: number; passHigh: number; borderLow: number; borderHigh: number }) | null;
+  /** Limits used, in `unit`; null where a side is open (kept finite so the state stays plain JSON). */
+  tolerance: (Tolerance & { passLow: number | null; passHigh: number | null; borderLow: number | null; borderHigh: number | null }) | null;
   verdict: Verdict | 'recorded';
   side?: 'low' | 'high';
   judgedBy: 'expected' | 'engineer' | 'none';
@@ -137,6 +138,8 @@ export interface WalkState {
 const defaultRegistry: Registry = expectations;
 
 const now = (o?: WalkOptions) => o?.at ?? new Date().toISOString();
+/** Open limits (±∞) are stored as null: JSON has no infinity. */
+const fin = (x: number): number | null => (Number.isFinite(x) ? x : null);
 
 function nodeOf(tree: Tree, id: string): DiagnoseNode {
   const n = tree.nodes.find((x) => x.id === id);
@@ -308,12 +311,23 @@ function derivedFigures(node: MeasureNode, instrument: DiagnoseInstrument | null
     try {
       const { si } = siInputs(d, inputs, measured);
       const r = fn(instrument, si);
-      out.push({ calc: d.calc, value: r.value, unit: r.unit, basis: r.basis });
+      out.push({ calc: d.calc, value: fin(r.value), unit: r.unit, basis: r.basis });
     } catch (err) {
       out.push({ calc: d.calc, value: null, unit: '', basis: (err as Error).message });
     }
   }
   return out;
+}
+
+/** Figures computed from a reading and shown beside it (e.g. mean free path at the pressure read). Never throws. */
+export function previewDerived(
+  node: MeasureNode,
+  instrument: DiagnoseInstrument | null,
+  inputs: Record<string, number> | undefined,
+  measured: { value: number; unit: string },
+  registry?: Registry | null,
+): DerivedFigure[] {
+  return derivedFigures(node, instrument, inputs, measured, registry === undefined ? defaultRegistry : registry);
 }
 
 function makeReading(
@@ -390,7 +404,7 @@ function makeReading(
     expected: pv.expected,
     low: pv.low,
     high: pv.high,
-    tolerance: { ...tolInUnit, passLow: j.passLow, passHigh: j.passHigh, borderLow: j.borderLow, borderHigh: j.borderHigh },
+    tolerance: { ...tolInUnit, passLow: fin(j.passLow), passHigh: fin(j.passHigh), borderLow: fin(j.borderLow), borderHigh: fin(j.borderHigh) },
     verdict: j.verdict,
     ...(j.side ? { side: j.side } : {}),
     judgedBy: 'expected',

@@ -4,14 +4,14 @@
  * - Peak-ratio indication from residual-gas peaks (m/z 4, 17, 18, 28, 32, 40, 44).
  * - Rate-of-rise: throughput Q = V·Δp/Δt and a linear-versus-levelling judgement.
  * - Outgassing or leak: least-squares fit of p(t) = A/t + B to a pump-down series.
- * - Gas load from a flow at reference conditions, expected pressure p = Q/S_eff,
- *   and the Bayard–Alpert ion-gauge gas correction.
+ * - Gas load from a flow at reference conditions and expected pressure p = Q/S_eff (the ion-gauge gas
+ *   correction is in ionGauge.ts).
  *
  * No DOM, no storage, nothing of ours imported: this file belongs to the engine.
  */
 
-import { checkNumber, InputRangeError } from './validate';
 import { ION_GAUGE_SENSITIVITY } from './ionGauge';
+import { checkNumber, InputRangeError } from './validate';
 
 // Input checks through the engine's validation helper: messages name the field, the value and the range.
 const positive = (field: string, value: unknown, unit: string): number =>
@@ -343,7 +343,7 @@ export function fitOutgassing(samples: PressureSample[]): OutgassingFit {
 }
 
 // ---------------------------------------------------------------------------
-// Gas load, expected pressure, ion-gauge correction.
+// Gas load and expected pressure.
 
 /** Standard atmosphere, Pa (ISO 2533). The usual reference pressure of "standard" flows. */
 export const STANDARD_PRESSURE = 101_325;

@@ -56,8 +56,12 @@ export interface FastTransmissionOptions {
 
 export const FAST_DEFAULTS = { samplesPerPeriod: 128, phases: 16, quadratureOrder: 4, substeps: 2 } as const;
 
-/** A c-space hull beyond this size means the acceptance is thinner than 1e-80 of the beam: T = 0 (documented). */
-const COLLAPSE_LIMIT = 1e80;
+/**
+ * Rows r(ξ) beyond this size make the hull a needle whose orientation tests lose their digits (aspect ratio
+ * 1e10 leaves ~1e-6 of them): the axis is then treated as collapsed, and every phase is bounded by the strip
+ * argument of phaseAcceptance using the actual sample rows kept in `collapsedRows`.
+ */
+const COLLAPSE_LIMIT = 1e10;
 
 /** Everything about one transverse axis that does not depend on the entry phase. */
 export interface AxisFlight {
@@ -69,8 +73,10 @@ export interface AxisFlight {
   /** Fast inside test for the core hull (points inside it cannot be vertices of a window's hull). */
   coreIndex: ConvexIndex | null;
   coreEnd: number;
-  /** The motion grows so fast that nothing survives (see COLLAPSE_LIMIT). */
+  /** The motion grows so fast that the acceptance is negligible (see COLLAPSE_LIMIT). */
   collapsed: boolean;
+  /** When collapsed: actual sample rows (phase-0 frame) of periods ≥ 1, for the strip bound. */
+  collapsedRows: Float64Array | null;
   /** Relative overshoot bound ε = h²G/8 between samples. */
   epsilon: number;
   /**
@@ -96,6 +102,7 @@ export function prepareAxis(A: number, Q: number, cycles: number, samples: numbe
   const h1 = convexHull(one, 2 * (samples + 1));
   const coreEnd = Math.floor(cycles) - 1;
   let core: Float64Array | null = null;
+  let collapsedRows: Float64Array | null = null;
   let collapsed = false;
   if (coreEnd >= 1) {
     // D_k = hull of periods 0..k−1; binary doubling from the top bit of coreEnd.
@@ -111,15 +118,14 @@ export function prepareAxis(A: number, Q: number, cycles: number, samples: numbe
       }
       if (maxAbs(mk) > COLLAPSE_LIMIT || maxAbs(d) > COLLAPSE_LIMIT) collapsed = true;
     }
-    if (!collapsed) {
-      const shifted = new Float64Array(d.length);
-      transformRows(d, d.length / 2, m, shifted, 0);
-      core = convexHull(shifted, shifted.length / 2);
-    }
+    const shifted = new Float64Array(d.length);
+    transformRows(d, d.length / 2, m, shifted, 0);
+    if (collapsed) collapsedRows = shifted;
+    else core = convexHull(shifted, shifted.length / 2);
   }
   const coreIndex = core && core.length >= 6 ? new ConvexIndex(core) : null;
   const candidates = windowCandidates(table, m, coreEnd, cycles, coreIndex);
-  return { table, monodromy: m, cycles, core, coreIndex, coreEnd, collapsed, epsilon, candidates };
+  return { table, monodromy: m, cycles, core, coreIndex, coreEnd, collapsed, collapsedRows, epsilon, candidates };
 }
 
 function windowCandidates(
@@ -183,6 +189,53 @@ function maxAbs(v: Float64Array): number {
 export function acceptancePolygon(axis: AxisFlight, entryPhase: number): Float64Array | null {
   const c = constraintHull(axis, entryPhase);
   return c ? polarPolygon(c) : null;
+}
+
+/**
+ * Above this |c| the motion has grown so much that the accepted sliver is thinner than 1e-10 of r0 and its
+ * polar vertices would be lost to rounding (the hull would mix vectors 1e10 apart in size): such a phase is
+ * counted as transmitting nothing, and the strip bound below is added to the error bound instead.
+ */
+const WELL_CONDITIONED = 1e10;
+
+/**
+ * Accepted polygon for one axis and phase, or `polygon: null` with `bound` ≥ the transmission of that phase
+ * when the acceptance is negligible. Bound: the accepted set lies in the strip |c·z| < 1 of the longest hull
+ * vector c (width 2/|c|); the density of ĉ·z is at most √2·max(2/(πb), 1/(s√(2π))) (disc marginal and Gaussian,
+ * one of |ĉ_x|, |ĉ_y| ≥ 1/√2), and with s = 0 only the x part counts: P ≤ (2/max|c_x|)·2/(πb).
+ */
+export function phaseAcceptance(
+  axis: AxisFlight,
+  entryPhase: number,
+  beamRadius: number,
+  slopeSigma: number,
+): { polygon: Float64Array | null; bound: number } {
+  let c = constraintHull(axis, entryPhase);
+  if (!c) {
+    if (!axis.collapsedRows) return { polygon: null, bound: 0 };
+    // Collapsed axis: the kept rows seen from this entry phase, c = r·Φ(ξ0)⁻¹.
+    const entry = new Float64Array(4);
+    fundamentalAt(axis.table, entryPhase, entry);
+    c = new Float64Array(axis.collapsedRows.length);
+    transformRows(axis.collapsedRows, c.length / 2, Float64Array.of(entry[3], -entry[1], -entry[2], entry[0]), c, 0);
+  }
+  let longest = 0;
+  let longestX = 0;
+  for (let i = 0; i < c.length; i += 2) {
+    longest = Math.max(longest, Math.sqrt(c[i] * c[i] + c[i + 1] * c[i + 1]));
+    longestX = Math.max(longestX, Math.abs(c[i]));
+  }
+  if (longest > WELL_CONDITIONED) {
+    const disc = 2 / (Math.PI * beamRadius);
+    const bound =
+      slopeSigma > 0
+        ? (2 / longest) * Math.SQRT2 * Math.max(disc, 1 / (slopeSigma * Math.sqrt(2 * Math.PI)))
+        : longestX > 0
+          ? (2 / longestX) * disc
+          : 1;
+    return { polygon: null, bound: Math.min(1, bound) };
+  }
+  return { polygon: polarPolygon(c), bound: 0 };
 }
 
 /**
@@ -527,16 +580,13 @@ export function prepareFlight(model: FlightModel, options: Required<FastTransmis
   };
 }
 
-/** Outer (sampled) and inner ((1 − ε)-scaled) transmission at one entry phase. */
+/** Outer (sampled) and inner ((1 − ε)-scaled) transmission at one entry phase (0 for a negligible phase). */
 export function phaseBracket(ctx: FastContext, entryPhase: number): { outer: number; inner: number } {
-  const px = acceptancePolygon(ctx.x, entryPhase);
-  const py = px ? acceptancePolygon(ctx.y, entryPhase) : null;
-  if (!px || !py) return { outer: 0, inner: 0 };
+  const chains = phaseChains(ctx, entryPhase);
+  if ('bound' in chains) return { outer: 0, inner: 0 };
   const { beamRadius, slopeSigma } = ctx.model;
-  const order = ctx.options.quadratureOrder;
-  const outer = phaseTransmission(upperChain(px), upperChain(py), beamRadius, slopeSigma, order);
-  const inner = phaseTransmission(upperChain(px, 1 - ctx.x.epsilon), upperChain(py, 1 - ctx.y.epsilon), beamRadius, slopeSigma, order);
-  return { outer, inner };
+  const outer = phaseTransmission(chains.x, chains.y, beamRadius, slopeSigma, ctx.options.quadratureOrder);
+  return { outer, inner: innerTransmission(ctx, chains) };
 }
 
 /**
@@ -547,52 +597,69 @@ export interface PhaseValues {
   phases: number;
   outer: Float64Array;
   inner: Float64Array;
+  /** Per phase: bound on T where an axis's acceptance was negligible (counted as 0), else 0. */
+  negligible: Float64Array;
+}
+
+interface PhaseChains {
+  x: UpperChain;
+  y: UpperChain;
+  px: Float64Array;
+  py: Float64Array;
+}
+
+/** The acceptance polygons of both axes at one phase, or the bound of a negligible phase. */
+function phaseChains(ctx: FastContext, entry: number): PhaseChains | { bound: number } {
+  const { beamRadius, slopeSigma } = ctx.model;
+  const ax = phaseAcceptance(ctx.x, entry, beamRadius, slopeSigma);
+  if (!ax.polygon) return { bound: ax.bound };
+  const ay = phaseAcceptance(ctx.y, entry, beamRadius, slopeSigma);
+  if (!ay.polygon) return { bound: ay.bound };
+  return { x: upperChain(ax.polygon), y: upperChain(ay.polygon), px: ax.polygon, py: ay.polygon };
+}
+
+function innerTransmission(ctx: FastContext, chains: PhaseChains): number {
+  const { beamRadius, slopeSigma } = ctx.model;
+  return phaseTransmission(
+    upperChain(chains.px, 1 - ctx.x.epsilon),
+    upperChain(chains.py, 1 - ctx.y.epsilon),
+    beamRadius,
+    slopeSigma,
+    ctx.options.quadratureOrder,
+  );
 }
 
 /** Evaluate (or refine to) P phases, reusing the P/2 values of `previous`. */
 export function evaluatePhases(ctx: FastContext, phases: number, previous: PhaseValues | null = null): PhaseValues {
   const outer = new Float64Array(phases);
   const inner = new Float64Array(phases).fill(Number.NaN);
-  const collapsed = ctx.x.collapsed || ctx.y.collapsed;
+  const negligible = new Float64Array(phases);
   const reuse = previous && previous.phases * 2 === phases ? previous : null;
+  const { beamRadius, slopeSigma } = ctx.model;
   for (let k = 0; k < phases; k++) {
-    if (collapsed) {
-      outer[k] = 0;
-      inner[k] = 0;
-      continue;
-    }
     if (reuse && k % 2 === 0) {
       outer[k] = reuse.outer[k / 2];
-      if (k % 4 === 0) inner[k] = reuse.inner[k / 2];
-      continue;
+      negligible[k] = reuse.negligible[k / 2];
+      if (k % 4 === 0) {
+        inner[k] = reuse.inner[k / 2];
+        continue;
+      }
+      if (negligible[k] > 0 || outer[k] === 0) {
+        inner[k] = 0;
+        continue;
+      }
     }
-    const entry = (k * Math.PI) / phases;
-    const px = acceptancePolygon(ctx.x, entry);
-    const py = px ? acceptancePolygon(ctx.y, entry) : null;
-    if (!px || !py) {
+    const chains = phaseChains(ctx, (k * Math.PI) / phases);
+    if ('bound' in chains) {
       outer[k] = 0;
       inner[k] = 0;
+      negligible[k] = chains.bound;
       continue;
     }
-    const { beamRadius, slopeSigma } = ctx.model;
-    const order = ctx.options.quadratureOrder;
-    outer[k] = phaseTransmission(upperChain(px), upperChain(py), beamRadius, slopeSigma, order);
-    if (k % 2 === 0 && Number.isNaN(inner[k])) {
-      inner[k] = phaseTransmission(upperChain(px, 1 - ctx.x.epsilon), upperChain(py, 1 - ctx.y.epsilon), beamRadius, slopeSigma, order);
-    }
+    if (!(reuse && k % 2 === 0)) outer[k] = phaseTransmission(chains.x, chains.y, beamRadius, slopeSigma, ctx.options.quadratureOrder);
+    if (k % 2 === 0) inner[k] = innerTransmission(ctx, chains);
   }
-  // Inner values of the even phases that were reused from a coarser grid where they were odd: fill them now.
-  for (let k = 0; k < phases; k += 2) {
-    if (Number.isNaN(inner[k])) {
-      const entry = (k * Math.PI) / phases;
-      const px = acceptancePolygon(ctx.x, entry);
-      const py = px ? acceptancePolygon(ctx.y, entry) : null;
-      inner[k] = px && py
-        ? phaseTransmission(upperChain(px, 1 - ctx.x.epsilon), upperChain(py, 1 - ctx.y.epsilon), ctx.model.beamRadius, ctx.model.slopeSigma, ctx.options.quadratureOrder)
-        : 0;
-    }
-  }
-  return { phases, outer, inner };
+  return { phases, outer, inner, negligible };
 }
 
 /**
@@ -617,10 +684,13 @@ export function summarisePhases(values: PhaseValues): TransmissionResult & { pha
   outer /= P;
   outerEven /= half;
   innerEven /= half;
+  let negligible = 0;
+  for (let k = 0; k < P; k++) negligible += values.negligible[k];
+  negligible /= P;
   const samplingError = 0.5 * Math.max(0, outerEven - innerEven);
   const phaseError = P >= 2 ? Math.abs(outer - outerEven) : outer;
   const transmission = Math.min(1, Math.max(0, outer - samplingError));
-  return { transmission, uncertainty: 0, errorBound: samplingError + phaseError, phaseError, samplingError };
+  return { transmission, uncertainty: 0, errorBound: samplingError + phaseError + negligible, phaseError, samplingError };
 }
 
 /** Phase-averaged transmission, doubling the phases from 16 until the error estimate meets `tolerance`. */

@@ -197,8 +197,9 @@ export async function importBackupText(db: IDBPDatabase<RodsideSchema>, text: un
       const store = tx.objectStore(s);
       for (const rec of incoming[s]) {
         const was = existing[s].get(rec[keyOf[s]] as string);
+        // Same key order is the usual case (a backup of this device), so the cheap comparison goes first.
         if (was === undefined) result.added++;
-        else if (canonicalJson(was) === canonicalJson(rec)) { result.unchanged++; continue; }
+        else if (JSON.stringify(was) === JSON.stringify(rec) || canonicalJson(was) === canonicalJson(rec)) { result.unchanged++; continue; }
         else result.updated++;
         writes.push(store.put(rec as never));
       }

@@ -31,6 +31,8 @@ export interface GenericRange {
   high?: number;
   /** Where the numbers come from, with their class. */
   source: string;
+  /** Context the range assumes (e.g. an N2-equivalent gauge reading); it does not apply otherwise. */
+  when?: Readonly<Record<string, string>>;
 }
 
 export interface ContextField {
@@ -103,7 +105,7 @@ const ionMz = (label: string): ContextField => ({
 
 const setpoint = (unit: string, min: number, max: number): ContextField => ({
   key: 'setpoint', label: 'Set value', kind: 'number', unit, min, max,
-  help: 'The value the instrument was set to (in the base unit shown); the reading is judged against it.',
+  help: 'The value the instrument was set to, in the same unit as the reading; the reading is judged against it.',
 });
 
 /** Calibrant ions with a published M+1/M, for the isotope-ratio check (C15). */
@@ -125,8 +127,8 @@ export const catalogue: readonly ReadingType[] = [
     baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
     generic: [
       { kinds: gcKinds, low: 5e-6 * (101325 / 760), high: 5e-5 * (101325 / 760),
-        source: 'EI GC-MS with about 1 mL/min helium, N2-equivalent: 5e-6 to 5e-5 Torr (common practice)' },
-      { kinds: ['rga'], high: 1e-2, source: 'RGA operation: below 1e-4 mbar (common practice)' },
+        source: 'EI GC-MS with about 1 mL/min helium, N2-equivalent: 5e-6 to 5e-5 Torr (common practice)', when: { gaugeGas: 'N2-equivalent' } },
+      { kinds: ['rga'], high: 1e-2, source: 'RGA operation: below 1e-4 mbar (common practice)', when: { gaugeGas: 'N2-equivalent' } },
     ],
     genericMargin: { kind: 'factor', pass: 1, borderline: 2 },
     context: [gaugeGas], matchContext: ['gaugeGas'], trendScale: 'log',
@@ -137,8 +139,8 @@ export const catalogue: readonly ReadingType[] = [
     defaultUnit: 'mbar', plausible: { min: 1e-6, max: 1.2e5 }, badSide: 'high',
     baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
     generic: [
-      { kinds: [...gcKinds, 'rga'], low: 1e-2 * 100, high: 1e-1 * 100, source: 'GC-MS fore-vacuum about 1e-2 to 1e-1 mbar (from memory)' },
-      { kinds: lcKinds, low: 1 * 100, high: 10 * 100, source: 'API first stage about 1 to 10 mbar (from memory)' },
+      { kinds: [...gcKinds, 'rga'], low: 1e-2 * 100, high: 1e-1 * 100, source: 'GC-MS fore-vacuum about 1e-2 to 1e-1 mbar (from memory)', when: { gaugeGas: 'N2-equivalent' } },
+      { kinds: lcKinds, low: 1 * 100, high: 10 * 100, source: 'API first stage about 1 to 10 mbar (from memory)', when: { gaugeGas: 'N2-equivalent' } },
     ],
     genericMargin: { kind: 'factor', pass: 1, borderline: 3 },
     context: [gaugeGas], matchContext: ['gaugeGas'], trendScale: 'log',
@@ -303,4 +305,26 @@ export function catalogueType(id: string): ReadingType | undefined {
 
 export function unitOf(type: ReadingType, unitId: string): UnitDef | undefined {
   return type.units.find((u) => u.id === unitId);
+}
+
+/** Other names other parts of the app use for catalogue types. */
+export const typeAliases: Readonly<Record<string, string>> = { 'analyser-pressure': 'vacuum-high', 'analyzer-pressure': 'vacuum-high' };
+
+/**
+ * Find the unit a value from elsewhere in the app is in: its exact id or label, else (RF and DC) from the
+ * short form ("V 0-p", "V p-p", "V rms", "V") and the convention words ("between the pairs"), else a
+ * case-insensitive id or label match. Undefined when nothing fits.
+ */
+export function resolveUnit(type: ReadingType, unitText: string, conventionText = ''): UnitDef | undefined {
+  const exact = type.units.find((u) => u.id === unitText || u.label === unitText);
+  if (exact) return exact;
+  const words = `${unitText} ${conventionText}`.toLowerCase();
+  if ((type.id === 'rf-amplitude' || type.id === 'dc-amplitude') && /^\s*v\b/i.test(unitText)) {
+    const pairs = /between/.test(words);
+    if (type.id === 'dc-amplitude') return unitOf(type, pairs ? 'V-pairs' : 'V-rod');
+    const form = /p-p|peak-to-peak/.test(words) ? 'Vpp' : /rms/.test(words) ? 'Vrms' : 'V0p';
+    return unitOf(type, `${form}-${pairs ? 'pairs' : 'rod'}`);
+  }
+  const t = unitText.trim().toLowerCase();
+  return type.units.find((u) => u.id.toLowerCase() === t || u.label.toLowerCase() === t);
 }

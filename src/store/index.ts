@@ -1,7 +1,8 @@
 // The store: the only module that talks to IndexedDB. Everything the app keeps goes through here.
 import { deleteDB, openDB, type IDBPDatabase, type IDBPTransaction } from 'idb';
+import { dcForMass, rfForMass } from '../engine';
 import { exportBackupText, importBackupText, type ImportResult } from './backup';
-import { catalogue, type ReadingType } from './catalogue';
+import { catalogue, resolveUnit, typeAliases, type ReadingType } from './catalogue';
 import { readingsCsv } from './csv';
 import { demoInstruments, demoReadings, demoVisits, DEMO_LAB } from './demo';
 import { describeStorageError, StoreError } from './errors';
@@ -67,7 +68,7 @@ export interface NoteInput {
 }
 
 export interface StoreOptions {
-  /** Physics for expected RF and DC values; injected so the store runs and tests without the engine. */
+  /** Physics for expected RF and DC values (default: the engine's scan law); injectable for tests. */
   engine?: EngineFunctions;
 }
 
@@ -190,7 +191,11 @@ async function guard<T>(action: string, fn: () => Promise<T>): Promise<T> {
   }
 }
 
-export async function openStore(name: string = DB_NAME, events: StoreEvents = {}, options: StoreOptions = {}): Promise<Store> {
+/** The engine's scan law: V and U at the apex of the first stability region, per rod to ground. */
+export const defaultEngine: EngineFunctions = { rfForMass, dcForMass };
+
+export async function openStore(name: string = DB_NAME, events: StoreEvents = {}, given: StoreOptions = {}): Promise<Store> {
+  const options: StoreOptions = { engine: defaultEngine, ...given };
   const db = await guard('open the database', () =>
     openDB<RodsideSchema>(name, DB_VERSION, {
       upgrade: (database, oldVersion, _newVersion, tx) => upgrade(database, oldVersion, tx),
@@ -491,7 +496,7 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         const ctx = await judgingContext(tx, visitId, typeId);
         await tx.done;
         const e = expectationFromRecord(ctx.type, ctx.instrument, context, ctx.baseline, visitId);
-        return e ? { expectation: e, judgement: judge(value, e) } : {};
+        return e ? { expectation: e, judgement: judge(value, e, ctx.type.baseUnit) } : {};
       }),
 
     addReading: (input) =>
@@ -715,9 +720,22 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         }
         await store.setCurrentVisit(instrument.id, visit.id);
         const types = await store.listReadingTypes();
-        const type = note.typeId ? types.find((t) => t.id === note.typeId) : undefined;
-        const unit = type?.units.find((u) => u.label === note.unit || u.id === note.unit);
-        const context: ReadingContext = { ...(note.context ?? {}) };
+        const typeId = note.typeId ? typeAliases[note.typeId] ?? note.typeId : undefined;
+        const type = typeId ? types.find((t) => t.id === typeId) : undefined;
+        const context: ReadingContext = {};
+        for (const [k, v] of Object.entries(note.context ?? {})) {
+          // Keep only what a reading can hold: short text or finite numbers under plain keys.
+          if (!/^[A-Za-z][A-Za-z0-9_-]{0,39}$/.test(k)) continue;
+          if (typeof v === 'number' && Number.isFinite(v)) context[k] = v;
+          else if (typeof v === 'string') context[k] = v.slice(0, 200);
+        }
+        if (type && 'gaugeGas' in context) {
+          // A gas name from a calculator: N2 means the gauge's own scale; others mean corrected for that gas.
+          const g = String(context.gaugeGas);
+          context.gaugeGas = /^n2/i.test(g) ? 'N2-equivalent' : ['He', 'H2', 'Ar'].includes(g) ? g : 'other';
+        }
+        const unit = type ? resolveUnit(type, note.unit, `${String(context.convention ?? '')} ${note.label}`) : undefined;
+        if (type && unit && type.units.length > 1) context.convention = unit.label;
         let reading: Reading;
         const text = String(Number(note.value.toPrecision(8)));
         if (type && unit) {

@@ -69,11 +69,19 @@ function grade(rule: ToleranceRule, dev: number): Verdict {
   return 'fail';
 }
 
-function describe(rule: ToleranceRule, dev: number): string {
+const basisWords: Record<ExpectationBasis, string> = {
+  baseline: 'the baseline value',
+  calculated: 'the calculated value',
+  'set value': 'the set value',
+  published: 'the published value',
+  generic: 'the generic value',
+};
+
+function describe(rule: ToleranceRule, dev: number, unit: string): string {
   if (!Number.isFinite(dev)) return 'off the scale';
   switch (rule.kind) {
     case 'absolute':
-      return `off by ${formatNumber(dev, 3)}`;
+      return `off by ${formatNumber(dev, 3)}${unit ? ` ${unit}` : ''}`;
     case 'relative':
       return `off by ${formatNumber(dev * 100, 3)} %`;
     case 'factor':
@@ -81,17 +89,20 @@ function describe(rule: ToleranceRule, dev: number): string {
   }
 }
 
-/** Judge a value (base units) against an expectation. Pure and total: every finite input gets a verdict. */
-export function judge(x: number, e: Expectation): Judgement {
+/**
+ * Judge a value (base units) against an expectation. Pure and total: every finite input gets a verdict.
+ * `unit` (the base unit) only makes the summary read better for absolute tolerances.
+ */
+export function judge(x: number, e: Expectation, unit = ''): Judgement {
   if (!Number.isFinite(x)) return { verdict: 'fail', deviation: Infinity, summary: 'not a finite number' };
   if (e.value !== undefined) {
     const ref = e.value;
     if ((e.badSide === 'high' && x <= ref) || (e.badSide === 'low' && x >= ref)) {
-      return { verdict: 'pass', deviation: 0, summary: `on the good side of the ${e.basis} value` };
+      return { verdict: 'pass', deviation: 0, summary: `on the good side of ${basisWords[e.basis]}` };
     }
     const dev = measure(e.tolerance, x, ref);
     const verdict = grade(e.tolerance, dev);
-    return { verdict, deviation: dev, summary: `${describe(e.tolerance, dev)} from the ${e.basis} value` };
+    return { verdict, deviation: dev, summary: `${describe(e.tolerance, dev, unit)} from ${basisWords[e.basis]}` };
   }
   const below = e.low !== undefined && x < e.low;
   const above = e.high !== undefined && x > e.high;
@@ -102,7 +113,7 @@ export function judge(x: number, e: Expectation): Judgement {
   const bound = below ? e.low! : e.high!;
   const dev = measure(e.tolerance, x, bound);
   const verdict = grade(e.tolerance, dev);
-  return { verdict, deviation: dev, summary: `${below ? 'below' : 'above'} the ${e.basis} range, ${describe(e.tolerance, dev)}` };
+  return { verdict, deviation: dev, summary: `${below ? 'below' : 'above'} the ${e.basis} range, ${describe(e.tolerance, dev, unit)}` };
 }
 
 export interface ExpectationInput {
@@ -118,6 +129,16 @@ function num(v: unknown): number | undefined {
   return typeof v === 'number' && Number.isFinite(v) ? v : undefined;
 }
 
+/** The engine refuses inputs outside its ranges by throwing; here that just means "no calculated value". */
+function safely(f: () => number): number | undefined {
+  try {
+    const v = f();
+    return Number.isFinite(v) ? v : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
 /** The calculated expectation of a type, or undefined when its inputs are missing. */
 function calculated(inp: ExpectationInput): Expectation | undefined {
   const { type, instrument, context, engine } = inp;
@@ -128,14 +149,14 @@ function calculated(inp: ExpectationInput): Expectation | undefined {
   switch (type.computed) {
     case 'rf-amplitude': {
       if (!engine || !instrument || mz === undefined) return undefined;
-      const v = engine.rfForMass({ mz, r0: instrument.rodFieldRadius, frequency: instrument.rfFrequency });
-      return Number.isFinite(v) ? { value: v, basis: 'calculated', source, tolerance, badSide: type.badSide } : undefined;
+      const v = safely(() => engine.rfForMass({ mz, r0: instrument.rodFieldRadius, frequency: instrument.rfFrequency }));
+      return v !== undefined ? { value: v, basis: 'calculated', source, tolerance, badSide: type.badSide } : undefined;
     }
     case 'dc-amplitude': {
       if (!engine || !instrument || mz === undefined) return undefined;
       const args = { mz, r0: instrument.rodFieldRadius, frequency: instrument.rfFrequency };
-      const u = engine.dcForMass ? engine.dcForMass(args) : APEX_DC_TO_RF * engine.rfForMass(args);
-      return Number.isFinite(u) ? { value: u, basis: 'calculated', source, tolerance, badSide: type.badSide } : undefined;
+      const u = safely(() => (engine.dcForMass ? engine.dcForMass(args) : APEX_DC_TO_RF * engine.rfForMass(args)));
+      return u !== undefined ? { value: u, basis: 'calculated', source, tolerance, badSide: type.badSide } : undefined;
     }
     case 'rf-frequency':
       if (!instrument) return undefined;
@@ -166,7 +187,9 @@ export function expectationFor(inp: ExpectationInput): Expectation | undefined {
   }
   const c = calculated(inp);
   if (c) return c;
-  const generic = type.generic?.find((g) => !g.kinds || (instrument && g.kinds.includes(instrument.kind)));
+  const generic = type.generic?.find((g) =>
+    (!g.kinds || (instrument && g.kinds.includes(instrument.kind))) &&
+    Object.entries(g.when ?? {}).every(([k, v]) => String(inp.context[k] ?? '') === v));
   if (generic) {
     return {
       low: generic.low, high: generic.high, basis: 'generic', source: generic.source, badSide: type.badSide,

@@ -189,7 +189,7 @@ export function assess(
   }
   const e = expectationFor({ type, instrument, context, baseline: base, engine });
   if (!e) return {};
-  const j = judge(value, e);
+  const j = judge(value, e, type.baseUnit);
   const expected: NonNullable<Reading['expected']> = { basis: e.basis, source: e.source, summary: j.summary };
   if (e.value !== undefined) expected.value = e.value;
   if (e.low !== undefined) expected.low = e.low;

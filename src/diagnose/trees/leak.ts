@@ -13,7 +13,7 @@ export const leakTree: Tree = {
       kind: 'choice',
       title: 'Which kind of instrument?',
       text: 'A spray source admits air by design, so air ratios do not apply there.',
-      options: [opt('ei', 'EI GC-MS or residual gas analyser', 'HB2'), opt('api', 'Spray-source LC-MS', 'HBAPI')],
+      options: [{ ...opt('ei', 'EI GC-MS or residual gas analyser', 'HB2'), fits: ['gc-ms-single', 'gc-ms-triple', 'rga'] }, { ...opt('api', 'Spray-source LC-MS', 'HBAPI'), fits: ['lc-ms-single', 'lc-ms-triple'] }],
     },
     {
       id: 'HBAPI',

@@ -83,7 +83,10 @@ export const noSignalTree: Tree = {
       kind: 'choice',
       title: 'Which ion source?',
       text: 'The checks differ for electron ionisation and spray sources.',
-      options: [opt('ei', 'Electron ionisation or chemical ionisation (GC-MS, residual gas analyser)', 'NS3E1'), opt('spray', 'Electrospray or APCI (LC-MS)', 'NS3A1')],
+      options: [
+        { ...opt('ei', 'Electron ionisation or chemical ionisation (GC-MS, residual gas analyser)', 'NS3E1'), fits: ['gc-ms-single', 'gc-ms-triple', 'rga'] },
+        { ...opt('spray', 'Electrospray or APCI (LC-MS)', 'NS3A1'), fits: ['lc-ms-single', 'lc-ms-triple'] },
+      ],
     },
     {
       id: 'NS3E1',
@@ -395,8 +398,8 @@ export const noSignalTree: Tree = {
       text: 'Ion polarity, lens and ion-guide polarities, conversion-dynode and detector polarity, the method and the tune file must agree.',
       options: [
         opt('mismatch', 'Something does not match', 'NS7-fix'),
-        opt('tandem', 'All consistent; tandem instrument', 'NS8'),
-        opt('single', 'All consistent; single quadrupole or residual gas analyser', 'NS9'),
+        { ...opt('tandem', 'All consistent; tandem instrument', 'NS8'), fits: ['gc-ms-triple', 'lc-ms-triple'] },
+        { ...opt('single', 'All consistent; single quadrupole or residual gas analyser', 'NS9'), fits: ['gc-ms-single', 'lc-ms-single', 'rga'] },
       ],
     },
     leaf('NS7-fix', 'Polarity or mode mismatch', 'Set the right polarity and load the matching tune.', ['Re-test with the calibrant.'], 'a calibrant scan in the intended polarity'),

@@ -92,10 +92,10 @@ export const noiseTree: Tree = {
       title: 'Which source?',
       text: 'The beam itself fluctuates: look at the source.',
       options: [
-        opt('ei', 'Electron ionisation', 'NU6-ei'),
-        opt('esi', 'Electrospray', 'NU6-esi'),
-        opt('apci', 'APCI', 'NU6-apci'),
-        opt('rga', 'Residual gas analyser', 'NU6-rga'),
+        { ...opt('ei', 'Electron ionisation', 'NU6-ei'), fits: ['gc-ms-single', 'gc-ms-triple'] },
+        { ...opt('esi', 'Electrospray', 'NU6-esi'), fits: ['lc-ms-single', 'lc-ms-triple'] },
+        { ...opt('apci', 'APCI', 'NU6-apci'), fits: ['lc-ms-single', 'lc-ms-triple'] },
+        { ...opt('rga', 'Residual gas analyser', 'NU6-rga'), fits: ['rga'] },
       ],
     },
     leaf('NU6-ei', 'EI source', 'Filament near end of life, emission regulation, carrier pressure or flow oscillating, source temperature cycling, or charging of contaminated insulators or lenses.', [

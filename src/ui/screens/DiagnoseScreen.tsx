@@ -1,7 +1,8 @@
 // Diagnose: walk a decision tree step by step, with expected values for the selected instrument, safety cards
 // and gates, and every reading kept. The walk is saved after every change so a reload resumes it.
 import { useEffect, useRef, useState } from 'preact/hooks';
-import { back, start, treeById, trees, WALK_FORMAT, type Tree, type TreeId, type WalkState } from '../../diagnose';
+import { activeReadings, back, start, treeById, trees, WALK_FORMAT, type Tree, type TreeId, type WalkState } from '../../diagnose';
+import { noteThis } from '../noteThis';
 import { useApp } from '../context';
 import { formatNumber } from '../format';
 import { navigate, usePath } from '../router';
@@ -9,9 +10,8 @@ import { LeakCheckPanel, type LeakTyped } from './diagnose/LeakCheckPanel';
 import { NodeView, TREE_TITLE, type Typed } from './diagnose/NodeView';
 import { VerdictWord } from './diagnose/VerdictWord';
 
-/** Draft keys in the store (drafts survive reloads and crashes). */
+/** Walks live in the store's walks records; this older draft key is only read once to carry a walk over. */
 export const WALK_DRAFT_KEY = 'diagnose:walk';
-export const LAST_WALK_DRAFT_KEY = 'diagnose:last-walk';
 export const LEAK_DRAFT_KEY = 'diagnose:leak-check';
 
 export interface WalkDraft {
@@ -19,6 +19,8 @@ export interface WalkDraft {
   /** Typed but not yet submitted input, per tree/node. */
   typed: Record<string, Typed>;
   finished: boolean;
+  /** Set once the walk's readings were copied into the visit log, so they are not copied twice. */
+  notedToVisit?: boolean;
 }
 
 function isWalkDraft(x: unknown): x is WalkDraft {
@@ -44,10 +46,13 @@ export function DiagnoseScreen() {
 function LeakCheck() {
   const { store } = useApp();
   const [typed, setTyped] = useState<LeakTyped | null>(null);
+  const { storeProblem } = useApp();
   useEffect(() => {
-    if (!store || typed) return;
-    void store.getDraft<LeakTyped>(LEAK_DRAFT_KEY).then((t) => setTyped(t ?? {})).catch(() => setTyped({}));
-  }, [store, typed]);
+    if (!store) return;
+    // Never let a late read overwrite what was typed meanwhile.
+    void store.getDraft<LeakTyped>(LEAK_DRAFT_KEY).then((t) => setTyped((cur) => cur ?? t ?? {})).catch(() => setTyped((cur) => cur ?? {}));
+  }, [store]);
+  if (!typed && store && !storeProblem) return <p>Loading…</p>;
   const current = typed ?? {};
   return (
     <LeakCheckPanel
@@ -68,31 +73,99 @@ function Walk() {
   const [unreadable, setUnreadable] = useState(false);
   const latest = useRef<WalkDraft | null>(null);
   latest.current = draft;
+  // The walk's record id in the store, and a queue so saves land in order and never create two records.
+  const walkId = useRef<string | null>(null);
+  const saving = useRef<Promise<void>>(Promise.resolve());
 
   useEffect(() => {
     if (!store || loaded) return;
-    void store
-      .getDraft<unknown>(WALK_DRAFT_KEY)
-      .then((kept) => {
+    void (async () => {
+      try {
+        const rec = await store.latestInProgressWalk();
+        // An older build kept the walk as a form draft: pick it up once, then keep it in the walks store.
+        const kept: unknown = rec ? rec.state : await store.getDraft<unknown>(WALK_DRAFT_KEY);
         if (kept === undefined) return;
         if (isWalkDraft(kept) && trees.some((t) => t.id === kept.walk.treeId)) {
+          walkId.current = rec?.id ?? null;
           setDraft(kept);
           setResumed(true);
         } else {
-          // Keep the unreadable draft where it is: nothing recorded is ever thrown away silently.
+          // Keep the unreadable record where it is: nothing recorded is ever thrown away silently.
           setUnreadable(true);
         }
-      })
-      .catch(() => undefined)
-      .finally(() => setLoaded(true));
+      } catch (err) {
+        notify((err as { userMessage?: string }).userMessage ?? `The last walk could not be read: ${String(err)}`);
+      } finally {
+        setLoaded(true);
+      }
+    })();
   }, [store, loaded]);
 
-  function save(next: WalkDraft | null) {
+  /** Keep the walk: every answer, reading and keystroke goes to the walks store at once. */
+  function save(next: WalkDraft | null, status?: 'finished' | 'abandoned') {
     latest.current = next;
     setDraft(next);
     if (!store) return;
-    const p = next ? store.putDraft(WALK_DRAFT_KEY, next) : store.clearDraft(WALK_DRAFT_KEY);
-    void p.catch((err: { userMessage?: string }) => notify(err.userMessage ?? 'The walk could not be saved on this device; keep this tab open.'));
+    saving.current = saving.current.then(async () => {
+      try {
+        if (next === null) {
+          walkId.current = null;
+          return;
+        }
+        const rec = await store.saveWalk({
+          ...(walkId.current ? { id: walkId.current } : {}),
+          ...(next.walk.instrument ? { instrumentId: next.walk.instrument.id } : {}),
+          treeId: next.walk.treeId,
+          state: next,
+          status: status ?? (next.finished ? 'finished' : 'in-progress'),
+        });
+        walkId.current = rec.id;
+        await store.clearDraft(WALK_DRAFT_KEY).catch(() => undefined);
+      } catch (err) {
+        notify((err as { userMessage?: string }).userMessage ?? `The walk could not be kept on this device: ${String(err)}`);
+      }
+    });
+  }
+
+  /** Close the current walk record (finished or stopped) and clear the screen for a new one. */
+  function close(status: 'finished' | 'abandoned') {
+    const d = latest.current;
+    if (d) save({ ...d, finished: true }, status);
+    saving.current = saving.current.then(() => {
+      walkId.current = null;
+    });
+    latest.current = null;
+    setDraft(null);
+  }
+
+  /** Copy the walk's readings (not those withdrawn by Back) into the instrument's current visit. */
+  async function copyToVisit() {
+    const d = latest.current;
+    if (!d) return;
+    const profile = instruments.find((p) => p.id === d.walk.instrument?.id) ?? null;
+    let done = 0;
+    let problem: string | null = null;
+    for (const r of activeReadings(d.walk)) {
+      const context: Record<string, string | number> = { walkStep: `${r.treeId}/${r.nodeId}`, verdict: r.verdict, tool: r.tool.slice(0, 200) };
+      if (r.expected !== null) context.expected = r.expected;
+      const res = await noteThis(store, profile, {
+        label: `${r.quantity}${r.phase === 'as-left' ? ' (as-left)' : ''} — diagnosis walk`,
+        value: r.value,
+        unit: r.unit,
+        context,
+        origin: 'entered',
+      });
+      if (!res.ok) {
+        problem = res.message;
+        break;
+      }
+      done += 1;
+    }
+    if (problem) notify(`${done} readings added; then: ${problem}`);
+    else {
+      notify(`${done} readings added to the visit log.`);
+      save({ ...d, notedToVisit: true });
+    }
   }
 
   function begin(tree: Tree) {
@@ -149,13 +222,13 @@ function Walk() {
       <div class="walk-done">
         <h2>Walk finished</h2>
         <WalkSummary walk={walk} />
+        <button type="button" class="btn btn-block" disabled={!!draft.notedToVisit || activeReadings(walk).length === 0} onClick={copyToVisit}>
+          {draft.notedToVisit ? 'Readings are in the visit log' : `Add ${activeReadings(walk).length} readings to the visit log`}
+        </button>
         <button
           type="button"
           class="btn btn-primary btn-block"
-          onClick={() => {
-            void store?.putDraft(LAST_WALK_DRAFT_KEY, draft).catch(() => undefined);
-            save(null);
-          }}
+          onClick={() => close('finished')}
         >
           Start a new walk
         </button>
@@ -201,9 +274,8 @@ function Walk() {
           type="button"
           class="btn btn-danger"
           onClick={() => {
-            if (!confirm('Stop this walk? Its readings are kept as the last walk on this device.')) return;
-            void store?.putDraft(LAST_WALK_DRAFT_KEY, { ...draft, finished: true }).catch(() => undefined);
-            save(null);
+            if (!confirm('Stop this walk? It is kept on this device, marked as stopped, with all its readings.')) return;
+            close('abandoned');
             navigate('/diagnose');
           }}
         >
@@ -231,31 +303,31 @@ function WalkSummary(props: { walk: WalkState }) {
       {walk.readings.length === 0 ? (
         <p class="hint">No readings yet.</p>
       ) : (
-        <div class="scroll-x">
-          <table class="values" data-testid="walk-readings">
-            <thead>
-              <tr><th>Step</th><th>Reading</th><th>Value</th><th>Expected</th><th>Verdict</th></tr>
-            </thead>
-            <tbody>
-              {walk.readings.map((r) => (
-                <tr key={r.id} class={r.withdrawn ? 'withdrawn' : ''}>
-                  <td>{r.treeId}/{r.nodeId}{r.phase === 'as-left' ? ' (as-left)' : ''}</td>
-                  <td>{r.quantity}{r.withdrawn ? ' — withdrawn by Back' : ''}</td>
-                  <td>{formatNumber(r.value)} {r.unit}</td>
-                  <td>
-                    {r.expected !== null
-                      ? `${formatNumber(r.expected)} ${r.unit}`
-                      : r.low !== null || r.high !== null
-                        ? `${r.low !== null ? formatNumber(r.low) : '…'} to ${r.high !== null ? formatNumber(r.high) : '…'} ${r.unit}`
-                        : '—'}
-                    {r.judgedBy === 'engineer' ? ' (judged by the engineer)' : ''}
-                  </td>
-                  <td><VerdictWord verdict={r.verdict} side={r.side} /></td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <ul class="reading-list" data-testid="walk-readings">
+          {walk.readings.map((r) => (
+            <li key={r.id} class={r.withdrawn ? 'reading withdrawn' : 'reading'}>
+              <p class="reading-head">
+                <strong>{r.quantity}</strong>
+                {r.phase === 'as-left' ? ' (as-left)' : ''}
+                {r.withdrawn ? ' — withdrawn by Back' : ''}
+              </p>
+              <p class="reading-line">
+                <span class="reading-value">{formatNumber(r.value)} {r.unit}</span>{' '}
+                <VerdictWord verdict={r.verdict} side={r.side} />
+              </p>
+              <p class="hint">
+                {r.expected !== null
+                  ? `Expected ${formatNumber(r.expected)} ${r.unit}`
+                  : r.low !== null || r.high !== null
+                    ? `Expected ${r.low !== null ? formatNumber(r.low) : '…'} to ${r.high !== null ? formatNumber(r.high) : '…'} ${r.unit}`
+                    : 'No expected value'}
+                {r.tolerance ? `; pass ${r.tolerance.passLow === null ? '…' : formatNumber(r.tolerance.passLow)} to ${r.tolerance.passHigh === null ? '…' : formatNumber(r.tolerance.passHigh)} ${r.unit}` : ''}
+                {r.judgedBy === 'engineer' ? '; judged by the engineer' : ''}
+                {` · step ${r.treeId}/${r.nodeId} · ${new Date(r.at).toLocaleTimeString()}`}
+              </p>
+            </li>
+          ))}
+        </ul>
       )}
     </div>
   );

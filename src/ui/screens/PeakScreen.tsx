@@ -1,5 +1,12 @@
-import { Pending } from '../components/Pending';
+// Peak: simulated peak shape and transmission for the selected instrument and settings.
+import { PeakSimulation } from '../peak/PeakSimulation';
 
 export function PeakScreen() {
-  return <Pending title="Peak" what="Simulated peak shape and transmission for the selected instrument and settings." />;
+  return (
+    <section class="screen">
+      <h1>Peak · simulated shape and transmission</h1>
+      <p class="lede">How the peak of an ideal filter looks for this analyser: transmission across m/z, resolution at 50 % and 10 % height, and what resolution costs in transmission.</p>
+      <PeakSimulation />
+    </section>
+  );
 }

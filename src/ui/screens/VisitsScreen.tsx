@@ -12,6 +12,7 @@ import { errorText, shareOrDownload, canShareFiles, showDate } from '../visits/f
 import { ReadingEntry } from '../visits/ReadingEntry';
 import { TrendPanel } from '../visits/TrendPanel';
 import { VerdictBadge } from '../visits/Verdict';
+import { OwnTypeForm } from '../visits/OwnTypeForm';
 import { VisitForm } from '../visits/VisitForm';
 import '../visits/visits.css';
 
@@ -26,18 +27,19 @@ export function VisitsScreen() {
 
 const reasonLabel = (r: string) => visitReasons.find((x) => x.value === r)?.label ?? r;
 
-function useReadingTypes(): ReadingType[] {
+function useReadingTypes(): [ReadingType[], () => void] {
   const { store } = useApp();
   const [types, setTypes] = useState<ReadingType[]>([]);
-  useEffect(() => {
+  const reload = useCallback(() => {
     if (store) void store.listReadingTypes().then(setTypes).catch(() => undefined);
   }, [store]);
-  return types;
+  useEffect(reload, [reload]);
+  return [types, reload];
 }
 
 function VisitList() {
   const { store, instrument } = useApp();
-  const types = useReadingTypes();
+  const [types, reloadTypes] = useReadingTypes();
   const [visits, setVisits] = useState<Visit[] | null>(null);
   const [counts, setCounts] = useState<Record<string, { n: number; fail: number; borderline: number }>>({});
   const [problem, setProblem] = useState<string | null>(null);
@@ -98,6 +100,7 @@ function VisitList() {
             </ul>
           )}
           {types.length > 0 && <TrendPanel instrumentId={instrument.id} types={types} />}
+          <OwnTypeForm onAdded={reloadTypes} />
         </>
       )}
       <BackupPanel />
@@ -124,7 +127,7 @@ function NewVisit() {
 
 function VisitPage(props: { id: string; sub?: string }) {
   const { store, instruments, notify } = useApp();
-  const types = useReadingTypes();
+  const [types] = useReadingTypes();
   const [visit, setVisit] = useState<Visit | null | undefined>(undefined);
   const [readings, setReadings] = useState<Reading[]>([]);
   const [walks, setWalks] = useState<WalkRecord[]>([]);
@@ -286,7 +289,7 @@ function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: 
       ) : (
         <div class="scroll-x">
           <table class="values reading-table" data-testid={`readings-${props.title === 'As found' ? 'as-found' : 'as-left'}`}>
-            <thead><tr><th>Reading</th><th>Value</th><th>Expected</th><th>Verdict</th><th>Note</th>{props.onDelete && <th><span class="visually-hidden">Actions</span></th>}</tr></thead>
+            <thead><tr><th>Reading</th><th>Value</th><th>Verdict</th><th>Expected</th><th>Note</th>{props.onDelete && <th><span class="visually-hidden">Actions</span></th>}</tr></thead>
             <tbody>
               {props.readings.map((r) => {
                 const t = props.typeOf(r.typeId);
@@ -295,8 +298,8 @@ function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: 
                   <tr key={r.id} data-testid="reading-row">
                     <td>{r.typeId === 'noted-value' ? String(r.context?.label ?? 'Noted value') : t?.label ?? r.typeId}{ctx && <span class="ctx">{ctx}</span>}</td>
                     <td class="value">{shownValue(r, t)}</td>
-                    <td>{expectedText(r, t)}{r.expected?.summary && <span class="ctx">{r.expected.summary}</span>}</td>
                     <td><VerdictBadge verdict={r.verdict} /></td>
+                    <td>{expectedText(r, t)}{r.expected?.summary && <span class="ctx">{r.expected.summary}</span>}</td>
                     <td class="note">{r.note}</td>
                     {props.onDelete && <td><button type="button" class="btn btn-small no-print" onClick={() => props.onDelete!(r)} aria-label={`Delete ${t?.label ?? 'reading'}`}>Delete</button></td>}
                   </tr>

@@ -4,12 +4,18 @@ import type { BackupReminder, ImportResult } from '../../store';
 import { useApp } from '../context';
 import { canShareFiles, errorText, shareOrDownload, stamp } from './files';
 
+/** Fired on window after a backup was saved or shared, so every reminder on screen updates. */
+const BACKUP_SAVED_EVENT = 'rodside:backup-saved';
+
 export function BackupReminderNote() {
   const { store } = useApp();
   const [status, setStatus] = useState<BackupReminder | null>(null);
   useEffect(() => {
     if (!store) return;
-    void store.backupStatus().then(setStatus).catch(() => setStatus(null));
+    const refresh = () => void store.backupStatus().then(setStatus).catch(() => setStatus(null));
+    refresh();
+    window.addEventListener(BACKUP_SAVED_EVENT, refresh);
+    return () => window.removeEventListener(BACKUP_SAVED_EVENT, refresh);
   }, [store]);
   if (!status?.due) return null;
   return (
@@ -40,6 +46,7 @@ export function BackupPanel() {
       const outcome = await shareOrDownload(`rodside-backup-${stamp()}.json`, 'application/json', text, viaShare);
       if (outcome !== 'cancelled') {
         await store.noteBackupSaved();
+        window.dispatchEvent(new Event(BACKUP_SAVED_EVENT));
         notify(outcome === 'shared' ? 'Backup shared.' : 'Backup downloaded. Keep the file somewhere other than this device.');
         refresh();
       }

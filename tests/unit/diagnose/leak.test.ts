@@ -140,7 +140,7 @@ describe('fitOutgassing', () => {
   });
 });
 
-describe('gas load and ion-gauge correction', () => {
+describe('gas load and expected pressure', () => {
   it('1 mL/min at 101.325 kPa = 0.016887 mbar·L/s (domain notes F9; common practice reference conditions)', () => {
     const q = gasLoad(1e-6 / 60); // Pa·m³/s
     close(q * 10, 0.016887, 1e-4, 'gas load, mbar·L/s');
@@ -155,7 +155,8 @@ describe('gas load and ion-gauge correction', () => {
   it('dry-air constants are the CRC / USSA 1976 values', () => {
     expect(DRY_AIR_PERCENT).toEqual({ nitrogen: 78.084, oxygen: 20.946, argon: 0.934 });
   });
-  it('rejects a zero pumping speed', () => {
-    expect(() => expectedPressure(1, 0)).toThrow(/pumpingSpeed/);
+  it('rejects bad speeds and conductances', () => {
+    expect(() => expectedPressure(1, 0)).toThrow(/pumpingSpeed = 0 is out of range/);
+    expect(() => expectedPressure(1, 0.1, -1)).toThrow(/conductance = -1 is out of range/);
   });
 });

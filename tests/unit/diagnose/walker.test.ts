@@ -239,6 +239,22 @@ describe('walker', () => {
     expect(resumed.path.map((p) => p.nodeId)).toEqual(['E1', 'E2', 'E3', 'E4', 'E5', 'E5', 'NS1', 'NS2', 'NS3']);
   });
 
+  it('a long walk with readings, gates, hand-overs and Back stays plain JSON (no undefined, no infinity)', () => {
+    let s = enter(throughEntry(['vacuum', 'no-signal']), vacuum);
+    s = answer(s, vacuum, { kind: 'option', optionId: 'hv' });
+    s = answer(s, vacuum, { kind: 'measure', value: 3e-4, unit: 'mbar', inputs: { flow: 1, pumpingSpeed: 200, relativeSensitivity: 0.18 } });
+    s = back(s);
+    s = answer(s, vacuum, { kind: 'measure', value: 1.5e-5, unit: 'mbar', inputs: { flow: 1, pumpingSpeed: 200, relativeSensitivity: 0.18 } });
+    expect(s.nodeId).toBe('VF5-flow');
+    s = record(s, vacuum, { kind: 'measure', value: 1.4e-5, unit: 'mbar', quantity: 'Analyser pressure after set-point fix' });
+    s = enter(s, noSignal);
+    s = answer(s, noSignal, { kind: 'option', optionId: 'nothing' });
+    s = answer(s, noSignal, { kind: 'measure', value: 1.6e-5, unit: 'Torr' });
+    expect(JSON.parse(JSON.stringify(s))).toStrictEqual(s);
+    expect(s.readings.map((r) => r.verdict)).toEqual(['recorded', 'fail', 'pass', 'recorded', 'pass']);
+    expect(s.readings[1].withdrawn).toBe(true);
+  });
+
   it('refuses answers that do not fit the node, and a state from another format', () => {
     const s = start(entry, heron);
     expect(() => answer(s, entry, { kind: 'option', optionId: 'x' })).toThrow(/acknowledgement gate/);

@@ -160,3 +160,27 @@ describe('transmission: bad input is refused with the field and the accepted ran
     });
   }
 });
+
+describe('transmission: strongly unstable motion gives no spurious transmission', () => {
+  it('a sweep outside a wide band (R ≈ 20, n ≈ 180) stays ≤ 1e-6 with a bound ≤ 1e-6; direct MC sees no survivor', async () => {
+    // Regression: growth ~1e15 over the flight once made needle-shaped hulls lose their orientation digits.
+    const { stableInterval } = await import('../../../src/engine/peakProfile');
+    const { monteCarloTransmission } = await import('../../../src/engine/trajectoryDirect');
+    const rf = 364.513;
+    const s = { r0: 4e-3, frequency: 1.2e6, rodLength: 0.2, axialVoltage: 2, beamRadius: 0.4e-3, transverseEnergy: 1.2, dc: 0.16154 * rf, rf };
+    const band = stableInterval(s, 220)!;
+    const outside: number[] = [];
+    for (let i = 0; i < 12; i++) {
+      outside.push(band.low * (0.99 - 0.002 * i));
+      outside.push(band.high * (1.01 + 0.002 * i));
+    }
+    for (const mz of outside) {
+      const r = transmission({ ...s, mz });
+      expect(r.transmission, `m/z ${mz}`).toBeLessThanOrEqual(1e-6);
+      expect(r.errorBound, `m/z ${mz}`).toBeLessThanOrEqual(1e-6);
+    }
+    expect(monteCarloTransmission({ ...s, mz: 215.53 }, { ions: 200, seed: 5 }).transmitted).toBe(0);
+    // And inside the band it is substantial.
+    expect(transmission({ ...s, mz: 0.5 * (band.low + band.high) }).transmission).toBeGreaterThan(0.3);
+  });
+});

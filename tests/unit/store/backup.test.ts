@@ -119,6 +119,21 @@ describe('hostile and malformed backups are refused, and the database is left ex
       s.close();
     });
   }
+  it('refuses to move a visit already here to another instrument, and a walk on a missing visit', async () => {
+    const s = await openStore(freshName());
+    await s.importBackup(backup);
+    const before = await dump(s);
+    const moved = await rewrite(backup, (d) => {
+      const v = d.data.visits.find((x: { id: string }) => x.id === 'demo-visit-w3');
+      v.instrumentId = 'demo-gcms-kestrel';
+      for (const r of d.data.readings) if (r.visitId === 'demo-visit-w3') r.instrumentId = 'demo-gcms-kestrel';
+    });
+    await expect(s.importBackup(moved)).rejects.toThrow(/visits\[\d+\]\.instrumentId: the visit "demo-visit-w3" already on this device belongs to another instrument/);
+    const orphanWalk = await rewrite(backup, (d) => { d.data.walks[0].visitId = 'demo-visit-none'; });
+    await expect(s.importBackup(orphanWalk)).rejects.toThrow(/walks\[0\]\.visitId: no visit "demo-visit-none"/);
+    expect(canonicalJson(await dump(s))).toBe(canonicalJson(before));
+    s.close();
+  });
   it('refuses a file larger than the limit before parsing it', async () => {
     const s = await openStore(freshName());
     await expect(s.importBackup(' '.repeat(64 * 1024 * 1024 + 1))).rejects.toThrow(/larger than the 64 MB a backup may be/);

@@ -161,9 +161,12 @@ describe('expected values', () => {
   it('generic ranges follow the instrument kind: an RGA at 1e-5 mbar passes, a GC-MS at 1e-3 Torr fails', () => {
     const rga = demoInstruments[2];
     const vh = type('vacuum-high');
-    expect(judge(1e-3, expectationFor({ type: vh, instrument: rga, context: {} })!).verdict).toBe('pass');
-    expect(judge(1e-3 * PASCAL_PER_TORR, expectationFor({ type: vh, instrument: kestrel, context: {} })!).verdict).toBe('fail');
-    expect(judge(2e-5 * PASCAL_PER_TORR, expectationFor({ type: vh, instrument: kestrel, context: {} })!).verdict).toBe('pass');
+    const n2 = { gaugeGas: 'N2-equivalent' };
+    expect(judge(1e-3, expectationFor({ type: vh, instrument: rga, context: n2 })!).verdict).toBe('pass');
+    expect(judge(1e-3 * PASCAL_PER_TORR, expectationFor({ type: vh, instrument: kestrel, context: n2 })!).verdict).toBe('fail');
+    expect(judge(2e-5 * PASCAL_PER_TORR, expectationFor({ type: vh, instrument: kestrel, context: n2 })!).verdict).toBe('pass');
+    // The ranges are N2-equivalent: a pressure corrected for helium is not judged by them.
+    expect(expectationFor({ type: vh, instrument: kestrel, context: { gaugeGas: 'He' } })).toBeUndefined();
   });
 });
 
@@ -182,5 +185,46 @@ describe('catalogue', () => {
       'emission-current', 'source-temperature', 'peak-width', 'relative-abundance', 'leak-water-18', 'leak-nitrogen-28']) {
       expect(ids.has(id), id).toBe(true);
     }
+  });
+});
+
+describe('expected RF and DC from the engine itself', () => {
+  it('agrees with the worked values: m/z 69 → 100.91 V and 16.94 V; m/z 502 → 734.13 V (r0 4.5 mm, 1 MHz; domain F3, Dawson 1976 formula with CODATA 2018 constants, computed; ±0.05 %)', async () => {
+    const { defaultEngine } = await import('../../../src/store');
+    const kestrel = demoInstruments[0];
+    const rf69 = expectationFor({ type: type('rf-amplitude'), instrument: kestrel, context: { mz: 69 }, engine: defaultEngine })!.value!;
+    const dc69 = expectationFor({ type: type('dc-amplitude'), instrument: kestrel, context: { mz: 69 }, engine: defaultEngine })!.value!;
+    const rf502 = expectationFor({ type: type('rf-amplitude'), instrument: kestrel, context: { mz: 502 }, engine: defaultEngine })!.value!;
+    expect(Math.abs(rf69 / 100.91 - 1)).toBeLessThan(5e-4);
+    expect(Math.abs(dc69 / 16.94 - 1)).toBeLessThan(5e-4);
+    expect(Math.abs(rf502 / 734.13 - 1)).toBeLessThan(5e-4);
+  });
+  it('an m/z the engine refuses gives no calculated value instead of an error', async () => {
+    const { defaultEngine } = await import('../../../src/store');
+    expect(expectationFor({ type: type('rf-amplitude'), instrument: demoInstruments[0], context: { mz: 1e12 }, engine: defaultEngine })).toBeUndefined();
+  });
+});
+
+describe('verdict properties (fast-check)', () => {
+  it('a reading never gets a better verdict by straying further from the expected value', async () => {
+    const fc = (await import('fast-check')).default;
+    const rank = { pass: 0, borderline: 1, fail: 2 } as const;
+    fc.assert(fc.property(
+      fc.double({ min: 1e-6, max: 1e6, noNaN: true }), fc.double({ min: 0, max: 0.5, noNaN: true }), fc.double({ min: 0, max: 0.5, noNaN: true }),
+      fc.double({ min: 0, max: 2, noNaN: true }), fc.double({ min: 0, max: 2, noNaN: true }), fc.constantFrom('relative', 'factor'),
+      (ref, a, b, d1, d2, kind) => {
+        const pass = Math.min(a, b), borderline = Math.max(a, b);
+        const tol = kind === 'factor' ? { kind, pass: 1 + pass, borderline: 1 + borderline } as const : { kind, pass, borderline } as const;
+        const e: Expectation = { value: ref, basis: 'baseline', source: 'property', tolerance: tol, badSide: 'both' };
+        const near = Math.min(d1, d2), far = Math.max(d1, d2);
+        for (const sign of [1, -1]) {
+          const x1 = kind === 'factor' ? ref * (1 + near) ** sign : ref * (1 + sign * near);
+          const x2 = kind === 'factor' ? ref * (1 + far) ** sign : ref * (1 + sign * far);
+          if (!(x1 > 0 && x2 > 0) && kind === 'factor') continue;
+          if (rank[judge(x2, e).verdict] < rank[judge(x1, e).verdict]) return false;
+        }
+        return judge(ref, e).verdict === 'pass';
+      },
+    ), { numRuns: 500, seed: 7 });
   });
 });

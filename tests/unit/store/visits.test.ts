@@ -284,4 +284,22 @@ describe('note this', () => {
     await expect(store.noteReading(instrument, { label: 'x', value: Number.NaN, unit: 'V', origin: 'entered' })).rejects.toThrow(/not a finite number/);
     store.close();
   });
+
+  it('understands the short unit forms and gas names other screens use', async () => {
+    const { store, instrumentId } = await storeWithInstrument();
+    const instrument = (await store.getInstrument(instrumentId))!;
+    const pairs = await store.noteReading(instrument, { typeId: 'rf-amplitude', label: 'Expected RF at m/z 69 (peak-to-peak, between the pairs)', value: 403.6, unit: 'V p-p', context: { mz: 69, scanLine: 'apex' }, origin: 'calculator' });
+    expect(pairs.reading.value).toBeCloseTo(100.9, 6);
+    expect(pairs.reading.context).toMatchObject({ mz: 69, convention: 'V peak-to-peak, between the rod pairs', scanLine: 'apex' });
+    const measured = await store.noteReading(instrument, { typeId: 'rf-amplitude', label: 'Measured RF as zero-to-peak per rod', value: 100.5, unit: 'V', context: { convention: 'zero-to-peak, one rod to ground', mz: 69 }, origin: 'entered' });
+    expect(measured.reading.value).toBe(100.5);
+    const he = await store.noteReading(instrument, { typeId: 'analyser-pressure', label: 'True He pressure from ion-gauge reading', value: 8.3e-5, unit: 'mbar', context: { gaugeGas: 'He', reading: '1.5e-5 mbar' }, origin: 'calculator' });
+    expect(he.reading).toMatchObject({ typeId: 'vacuum-high', context: { gaugeGas: 'He' } });
+    expect(he.reading.value).toBeCloseTo(8.3e-3, 12);
+    // The generic range assumes an N2-equivalent reading, so a helium-corrected pressure is not judged by it.
+    expect(he.reading.verdict).toBeUndefined();
+    const n2 = await store.noteReading(instrument, { typeId: 'analyser-pressure', label: 'N2 reading', value: 1.5e-5, unit: 'Torr', context: { gaugeGas: 'N2' }, origin: 'entered' });
+    expect(n2.reading).toMatchObject({ context: { gaugeGas: 'N2-equivalent' }, verdict: 'pass', expected: { basis: 'generic' } });
+    store.close();
+  });
 });

@@ -2,8 +2,10 @@ import { useState } from 'preact/hooks';
 import {
   answer,
   enter,
+  EXPECTATION_INFO,
   judge,
   preview,
+  previewDerived,
   record,
   treeById,
   UNITS,
@@ -155,6 +157,7 @@ function ChoiceView(props: NodeViewProps & { node: QuestionNode | ChoiceNode }) 
               <button key={o.id} type="button" class="btn btn-block" disabled={spent} onClick={() => choose(o.id)}>
                 {o.label}
                 {o.loop && <span class="hint"> ({loopUsed(o.id)} of {o.loop.max} used)</span>}
+                {o.fits && walk.instrument && o.fits.includes(walk.instrument.kind) && <span class="tag fits-tag">fits this instrument</span>}
               </button>
             );
           })}
@@ -242,6 +245,14 @@ function describeTolerance(t: Tolerance, unit: string): string {
   }
 }
 
+/** An SI figure in the unit an engineer reads it in. */
+function showSi(value: number, unit: string): string {
+  if (unit === 'Pa') return `${formatNumber(value / 100)} mbar`;
+  if (unit === '1') return `${formatNumber(value * 100, 3)} %`;
+  if (unit === 'Pa·m³/s') return `${formatNumber(value * 10)} mbar·L/s`;
+  return `${formatNumber(value)} ${unit}`;
+}
+
 function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
   const { node, walk, tree, typed } = props;
   const units = [node.measure.unit, ...(node.measure.altUnits ?? [])];
@@ -272,6 +283,7 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
       live = null;
     }
   }
+  const derived = node.derived && measured?.ok ? previewDerived(node, walk.instrument, inputs, { value: measured.value, unit }) : [];
   const needManual = !!node.expect && !pv?.ok;
   const manual = typed.verdict ?? '';
 
@@ -358,6 +370,18 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
         <p data-testid="live-verdict">
           This reading would be: <VerdictWord verdict={live.verdict} side={live.side} />
         </p>
+      )}
+      {derived.length > 0 && (
+        <div class="card derived" data-testid="derived">
+          {derived.map((d) => (
+            <div key={d.calc}>
+              <p>
+                <strong>{EXPECTATION_INFO[d.calc]?.label ?? d.calc}:</strong> {d.value === null ? 'not available' : showSi(d.value, d.unit)}
+              </p>
+              <p class="hint">{d.basis}</p>
+            </div>
+          ))}
+        </div>
       )}
       {needManual && (
         <fieldset class="fieldset">

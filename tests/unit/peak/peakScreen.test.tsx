@@ -1,0 +1,136 @@
+// @vitest-environment happy-dom
+// Peak screen: inputs → engine parameters, results shown as the engine computes them, a moved slider cancels the
+// stale worker run, bad input named beside its field, assumptions stated on screen.
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { act } from 'preact/test-utils';
+import { passBand, peakProfile, ratioForExactResolution, rfForMass } from '../../../src/engine';
+import { PeakSimulation } from '../../../src/ui/peak/PeakSimulation';
+import { buildPeakRun, peakDefaults } from '../../../src/ui/peak/peakInputs';
+import { SimClient, type WorkerLike } from '../../../src/worker/client';
+import { runRequest, type SimRequest, type SimResponse } from '../../../src/worker/simProtocol';
+import { formatNumber } from '../../../src/ui/format';
+import { demo, mount, settle, texts, typeInto, type Harness } from '../ui/appHarness';
+
+// uPlot needs a real canvas; the chart wrapper has its own tests upstream. Here a stand-in records the data.
+vi.mock('../../../src/ui/components/Chart', () => ({
+  Chart: (props: { data: number[][]; testId?: string; label: string }) => (
+    <figure data-testid={props.testId} data-points={props.data[0].length} aria-label={props.label} />
+  ),
+}));
+
+class ManualWorker implements WorkerLike {
+  onmessage: ((event: { data: SimResponse }) => void) | null = null;
+  onerror: ((event: { message?: string }) => void) | null = null;
+  terminated = false;
+  queue: SimRequest[] = [];
+  postMessage(message: unknown): void {
+    this.queue.push(message as SimRequest);
+  }
+  terminate(): void {
+    this.terminated = true;
+  }
+  /** Run everything queued, as the real worker would. */
+  flush(): void {
+    for (const request of this.queue.splice(0)) {
+      runRequest(request, (response) => {
+        if (!this.terminated) this.onmessage?.({ data: response });
+      });
+    }
+  }
+}
+
+let h: Harness | null = null;
+afterEach(() => {
+  h?.unmount();
+  h = null;
+});
+
+async function waitForDebounce(): Promise<void> {
+  await act(async () => {
+    await new Promise((r) => setTimeout(r, 200));
+  });
+}
+
+describe('peakInputs.buildPeakRun', () => {
+  it('sets U/V from the exact edges (engine ratioForExactResolution), V at the apex for the m/z, window around the passBand', () => {
+    const k = demo('kestrel');
+    const errors = {};
+    const run = buildPeakRun({ ...peakDefaults(k), mz: '219', resolution: '1000' }, k, errors)!;
+    expect(errors).toEqual({});
+    const rf = rfForMass({ mz: 219, r0: k.rodFieldRadius, frequency: k.rfFrequency });
+    expect(run.rf).toBeCloseTo(rf, 9);
+    expect(run.ratio).toBeCloseTo(ratioForExactResolution(1000), 12);
+    const band = passBand({ dc: run.dc, rf, r0: k.rodFieldRadius, frequency: k.rfFrequency })!;
+    expect(run.params.mzFrom).toBeLessThan(band.low);
+    expect(run.params.mzTo).toBeGreaterThan(band.high);
+    expect(run.params.points).toBe(101);
+  });
+
+  it('files bad values under their fields', () => {
+    const k = demo('kestrel');
+    const errors: Record<string, string> = {};
+    expect(buildPeakRun({ ...peakDefaults(k), beamRadiusMm: '9', transverseEnergy: 'abc', resolution: '1' }, k, errors)).toBeNull();
+    expect(errors.beamRadiusMm).toMatch(/field radius/);
+    expect(errors.transverseEnergy).toMatch(/not a number/);
+    expect(errors.resolution).toMatch(/2 to 100 000/);
+    const engineErrors: Record<string, string> = {};
+    expect(buildPeakRun({ ...peakDefaults(k), transverseEnergy: '-1' }, k, engineErrors)).toBeNull();
+    expect(engineErrors.transverseEnergy).toMatch(/transverseEnergy/);
+  });
+});
+
+describe('PeakSimulation', () => {
+  it('shows the engine peak, R50/R10 and peak transmission; a slider move terminates the stale run', async () => {
+    const workers: ManualWorker[] = [];
+    const client = new SimClient(() => {
+      const w = new ManualWorker();
+      workers.push(w);
+      return w;
+    });
+    const k = demo('kestrel');
+    // A short, fast case: low resolution, high ion energy.
+    h = await mount(<PeakSimulation client={client} />, k, { [`inputs:peak:${k.id}`]: { mz: '100', resolution: '200', axialVoltage: '20' } });
+    await waitForDebounce();
+    expect(workers.length).toBe(1);
+    expect(h.root.querySelector('progress')).not.toBeNull();
+    // Move the beam-radius slider while the first run is still pending: the first worker is terminated.
+    const slider = h.root.querySelector<HTMLInputElement>('#peak-beam-slider')!;
+    await act(async () => {
+      slider.value = '0.3';
+      slider.dispatchEvent(new Event('input', { bubbles: true }));
+    });
+    await settle();
+    expect(workers[0].terminated).toBe(true);
+    await waitForDebounce();
+    expect(workers.length).toBe(2);
+    await act(async () => workers[1].flush());
+    await settle();
+    const run = buildPeakRun({ ...peakDefaults(k), mz: '100', resolution: '200', axialVoltage: '20', beamRadiusMm: '0.3' }, k, {})!;
+    const expected = peakProfile(run.params);
+    const value = (id: string) => texts(h!.root, `[data-testid="${id}"] .result-value`)[0];
+    expect(value('peak-r50')).toBe(formatNumber(expected.resolution50, 4));
+    expect(value('peak-r10')).toBe(formatNumber(expected.resolution10, 4));
+    expect(value('peak-transmission')).toContain(`${formatNumber(100 * expected.peakTransmission, 3)} %`);
+    expect(h.root.querySelector('[data-testid="peak-chart"]')?.getAttribute('data-points')).toBe('101');
+    // Assumptions are on screen.
+    expect(h.root.textContent).toMatch(/no fringe fields/);
+    expect(h.root.textContent).toMatch(/random RF phase/);
+  });
+
+  it('a bad value shows its message beside the field and starts no run', async () => {
+    const workers: ManualWorker[] = [];
+    const client = new SimClient(() => {
+      const w = new ManualWorker();
+      workers.push(w);
+      return w;
+    });
+    h = await mount(<PeakSimulation client={client} />, demo('kestrel'));
+    await typeInto(h.root, 'peak-transverse', 'lots');
+    await waitForDebounce();
+    const before = workers.length;
+    expect(texts(h.root, '.field-error').join(' ')).toMatch(/Transverse energy/);
+    await typeInto(h.root, 'peak-axial', '0');
+    await waitForDebounce();
+    expect(workers.length).toBe(before);
+  });
+});
