@@ -10,7 +10,7 @@ import { Chart, type uPlot } from '../components/Chart';
 import { NumberField, SelectField } from '../components/Field';
 import { useApp } from '../context';
 import { formatNumber, formatSi } from '../format';
-import { dcFormOf, dcFormWords, rfFormOf, rfFormUnit, rfFormWords } from '../bench/conventions';
+import { dcFormOf, dcFormUnitId, dcFormWords, rfFormOf, rfFormUnit, rfFormUnitId, rfFormWords } from '../bench/conventions';
 import { tryEngine, type FieldErrors } from '../bench/engineErrors';
 import { parseMzList, parseNumber, usePersistentInputs } from '../bench/inputs';
 import { Result } from '../bench/NoteButton';
@@ -156,15 +156,31 @@ export function StabilityDiagram() {
       {dc !== null && rf !== null && (
         <div class="card" data-testid="pass-band">
           <h2 class="card-title">Pass band</h2>
-          <p class="muted">U = {formatSi(dc, 'V', 5)}, V = {formatSi(rf, 'V 0-p', 5)} per rod{lineDescription ? ` (${lineDescription})` : ''}; U/V = {formatNumber(dc / rf, 6)}.</p>
+          {lineDescription && <p class="hint">From {lineDescription}.</p>}
+          <Result label={`U, ${dcFormWords[readDc]} (read-back form)`} value={formatSi(convertDc(dc, 'perRod', readDc), 'V DC', 5)}
+            note={{ label: `DC at the current setting (set m/z ${inputs.setMz.trim()})`, value: convertDc(dc, 'perRod', readDc), unit: dcFormUnitId[readDc], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'dc-amplitude' }} />
+          <Result label={`V, ${rfFormWords[readForm]} (read-back form)`} value={`${formatNumber(convertRf(rf, 'zeroToPeakPerRod', readForm), 5)} ${rfFormUnit[readForm]}`}
+            note={{ label: `RF at the current setting (set m/z ${inputs.setMz.trim()})`, value: convertRf(rf, 'zeroToPeakPerRod', readForm), unit: rfFormUnitId[readForm], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'rf-amplitude' }} />
+          <Result label="U/V (per rod, V zero-to-peak)" value={formatNumber(dc / rf, 6)} testId="band-ratio"
+            note={{ label: 'DC/RF ratio U/V at the current setting', value: dc / rf, unit: '', origin: 'calculator' }} />
           {band ? (
             <>
-              <Result label="m/z passed (ideal field)" testId="band-interval"
-                value={Number.isFinite(band.high) ? `${formatNumber(band.low, 6)} – ${formatNumber(band.high, 6)} u` : `above ${formatNumber(band.low, 6)} u (RF only)`}
-                note={{ label: 'Pass band low edge', value: band.low, unit: 'u', origin: 'calculator', context: { dc, rf, high: band.high } }} />
+              <p class="big" data-testid="band-interval">
+                {Number.isFinite(band.high) ? `m/z ${formatNumber(band.low, 6)} – ${formatNumber(band.high, 6)} passes` : `m/z above ${formatNumber(band.low, 6)} passes (RF only)`}
+              </p>
+              <Result label="Lowest m/z passed (x edge, low-mass cut-off)" value={`${formatNumber(band.low, 6)} u`} testId="band-low"
+                note={{ label: 'Pass band low-mass edge', value: band.low, unit: 'u', origin: 'calculator', context: { dc, rf } }} />
+              {Number.isFinite(band.high) && (
+                <Result label="Highest m/z passed (y edge, high-mass cut-off)" value={`${formatNumber(band.high, 6)} u`} testId="band-high"
+                  note={{ label: 'Pass band high-mass edge', value: band.high, unit: 'u', origin: 'calculator', context: { dc, rf } }} />
+              )}
               {Number.isFinite(band.width) && (
-                <Result label="Width and resolution" value={`Δm ${formatNumber(band.width, 4)} u, m/Δm ${formatNumber(band.resolution, 4)}`}
-                  note={{ label: 'Ideal pass-band width', value: band.width, unit: 'u', origin: 'calculator', context: { dc, rf, resolution: band.resolution } }} />
+                <>
+                  <Result label="Ideal band width Δm" value={`${formatNumber(band.width, 4)} u`}
+                    note={{ label: 'Ideal pass-band width', value: band.width, unit: 'u', origin: 'calculator', context: { dc, rf } }} />
+                  <Result label="Ideal resolution m/Δm" value={formatNumber(band.resolution, 4)}
+                    note={{ label: 'Ideal resolution of the pass band', value: band.resolution, unit: '', origin: 'calculator', context: { dc, rf } }} />
+                </>
               )}
             </>
           ) : (
@@ -231,7 +247,12 @@ function PointPanel(props: { point: PlottedPoint }) {
         value={`${xNearer ? 'x edge b₁ (low-mass cut-off)' : 'y edge −a₀ (high-mass cut-off)'}: ${nearestMargin >= 0 ? 'inside by' : 'outside by'} Δa = ${formatNumber(Math.abs(nearestMargin), 3)}`}
         note={{ label: `Distance in a to the nearest first-region edge at m/z ${mzText}`, value: nearestMargin, unit: '', origin: 'calculator', context: ctx }} />
       {op.stable && (
-        <p class="hint">Secular frequencies: x {formatSi(op.secularFrequencyX / 1e3, 'kHz', 4)}, y {formatSi(op.secularFrequencyY / 1e3, 'kHz', 4)}.</p>
+        <>
+          <Result label="Secular frequency x (β_x·f/2)" value={formatSi(op.secularFrequencyX / 1e3, 'kHz', 4)}
+            note={{ label: `Secular frequency x at m/z ${mzText}`, value: op.secularFrequencyX, unit: 'Hz', origin: 'calculator', context: ctx }} />
+          <Result label="Secular frequency y (β_y·f/2)" value={formatSi(op.secularFrequencyY / 1e3, 'kHz', 4)}
+            note={{ label: `Secular frequency y at m/z ${mzText}`, value: op.secularFrequencyY, unit: 'Hz', origin: 'calculator', context: ctx }} />
+        </>
       )}
     </div>
   );
