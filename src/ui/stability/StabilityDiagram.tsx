@@ -16,18 +16,18 @@ import { parseMzList, parseNumber, usePersistentInputs } from '../bench/inputs';
 import { Result } from '../bench/NoteButton';
 import { buildScanLine, expectedFor } from '../bench/scanLine';
 import { ScanLineFields } from '../bench/ScanLineFields';
-import { diagramColumns, Q_MAX } from './diagramData';
+import { diagramColumns, ISO_BETAS, Q_MAX } from './diagramData';
 
 type StabilityInputs = {
   setMz: string; mzList: string; mode: string; width: string; referenceMz: string; resolution: string;
-  source: string; measuredU: string; measuredV: string;
+  source: string; measuredU: string; measuredV: string; isoBeta: string;
 };
 
 function stabilityDefaults(p: InstrumentProfile | null): StabilityInputs {
   const rga = p?.kind === 'rga';
   return {
     setMz: rga ? '28' : '69', mzList: rga ? '27, 28, 29, 32, 44' : '68, 69, 70, 219', mode: 'constant-width', width: '1',
-    referenceMz: rga ? '28' : '219', resolution: rga ? '100' : '500', source: 'scan-line', measuredU: '', measuredV: '',
+    referenceMz: rga ? '28' : '219', resolution: rga ? '100' : '500', source: 'scan-line', measuredU: '', measuredV: '', isoBeta: 'no',
   };
 }
 
@@ -109,7 +109,8 @@ export function StabilityDiagram() {
   const band = dc !== null && rf !== null && rf > 0 ? tryEngine(() => passBandDetail({ dc: dc!, rf: rf!, r0, frequency }), { dc: 'measuredU', rf: 'measuredV' }, errors, 'measuredV') : null;
   const setPoint = points.find((p) => p.set) ?? null;
   const slope = setPoint && setPoint.op.q > 0 ? setPoint.op.a / setPoint.op.q : null;
-  const data = diagramColumns(slope) as unknown as uPlot.AlignedData;
+  const showIso = inputs.isoBeta === 'yes';
+  const data = diagramColumns(slope, showIso) as unknown as uPlot.AlignedData;
   const apex = firstRegionApex();
   const chosen = selected !== null ? points.find((p) => p.mz === selected) ?? null : null;
   const redrawKey = points.map((p) => `${p.mz}:${p.op.q}:${p.op.a}`).join('|') + `#${selected}`;
@@ -199,10 +200,16 @@ export function StabilityDiagram() {
         <Chart data={data} options={options} height={320} zoomButtons zoomScales={['x', 'y']} view={view} redrawKey={redrawKey}
           onTap={onTap} testId="stability-chart"
           label={`Stability diagram, a against q: the first region bounded by the y edge on the left and the x edge on the right, apex at q ${apex.q.toFixed(4)}, a ${apex.a.toFixed(5)}; ${points.length} operating points, listed below.`} />
+        <label class="check">
+          <input type="checkbox" checked={showIso} onChange={(e) => update({ isoBeta: (e.target as HTMLInputElement).checked ? 'yes' : 'no' })} />
+          Show iso-β lines (β = {ISO_BETAS.join(', ')})
+        </label>
         <ul class="legend" aria-label="Legend">
           <li><LineSample dash="" width={3} /> x edge b₁(q), solid: right of the apex, the low-mass cut-off</li>
           <li><LineSample dash="7 4" width={3} /> y edge −a₀(q), dashed: left of the apex, the high-mass cut-off</li>
           <li><LineSample dash="2 4" width={2} /> operating line: every m/z at the current U and V</li>
+          {showIso && <li><LineSample dash="" width={1} /> thin solid: β_x = {ISO_BETAS.join(', ')} (β_x reaches 1 on the x edge)</li>}
+          {showIso && <li><LineSample dash="1 3" width={1} /> thin dotted: β_y = {ISO_BETAS.join(', ')} (β_y is 0 on the y edge and grows away from it)</li>}
           <li><Marker kind="pass" /> passes (filled circle)</li>
           <li><Marker kind="fail" /> does not pass (open square with a cross)</li>
           <li><Marker kind="apex" /> apex</li>
@@ -296,6 +303,8 @@ function chartOptions(pointsRef: { current: PlottedPoint[] }, selectedRef: { cur
       { label: 'y edge −a₀', stroke: yColour, width: 3, dash: [7, 4], points: { show: false } },
       { label: 'x edge b₁', stroke: xColour, width: 3, points: { show: false } },
       { label: 'operating line', stroke: ink, width: 1.5, dash: [2, 4], points: { show: false } },
+      ...ISO_BETAS.map((b) => ({ label: `β_x ${b}`, stroke: xColour, width: 1, spanGaps: true, points: { show: false } })),
+      ...ISO_BETAS.map((b) => ({ label: `β_y ${b}`, stroke: yColour, width: 1, dash: [1, 3], spanGaps: true, points: { show: false } })),
     ],
     hooks: {
       draw: [
