@@ -7,7 +7,10 @@ import { readingsCsv } from './csv';
 import { demoInstruments, demoReadings, demoVisits, DEMO_LAB } from './demo';
 import { describeStorageError, StoreError } from './errors';
 import { newId, nowIso } from './ids';
-import { checkEntry, expectationFor, type EngineFunctions, type Expectation, type Judgement, judge, type ReadingContext } from './judge';
+import {
+  checkEntry, checkMakerLimit, judgeWithLimit, makerLimitsFrom, makerLimitsKey, type EngineFunctions, type Expectation, type Judgement,
+  type MakerLimit, type MakerLimitDraft, type ReadingContext,
+} from './judge';
 import { profileRecordProblems, type ProfileFields } from './profile';
 import { readingProblems, visitProblems, walkProblems } from './records';
 import { backupReminder, type BackupReminder } from './reminder';
@@ -16,7 +19,7 @@ import { DB_NAME, DB_VERSION, upgrade, type RodsideSchema } from './schema';
 import { buildTrend, DEFAULT_MULTIPLIER_LIMIT, seriesOf, type TrendData, type TrendOptions } from './trends';
 import type { DraftRecord, InstrumentProfile, Reading, ReadingPhase, Visit, WalkRecord } from './types';
 import {
-  allTypes, assess, OWN_TYPES_SETTING, ownTypeFromDraft, ownTypesFrom, pickBaselineVisit, type BaselineSet, type OwnTypeDraft,
+  allTypes, assess, expectationOf, OWN_TYPES_SETTING, ownTypeFromDraft, ownTypesFrom, pickBaselineVisit, type BaselineSet, type OwnTypeDraft,
   type VisitFields,
 } from './visits';
 
@@ -134,6 +137,13 @@ export interface Store {
   /** Refused (StoreError) while readings of that type exist. */
   deleteOwnReadingType(id: string): Promise<void>;
 
+  // ---- Maker's limits -----------------------------------------------------------------------------
+  /** Limits the maker (or site) sets for this instrument, one per reading type, with their source. */
+  listMakerLimits(instrumentId: string): Promise<MakerLimit[]>;
+  /** Add or replace the limit for a reading type; messages name the field and the accepted range. */
+  saveMakerLimit(instrumentId: string, draft: MakerLimitDraft): Promise<{ ok: true; limit: MakerLimit } | { ok: false; errors: Partial<Record<keyof MakerLimitDraft, string>> }>;
+  deleteMakerLimit(instrumentId: string, typeId: string): Promise<void>;
+
   // ---- Baseline -----------------------------------------------------------------------------------
   /** Mark a visit's as-left readings as the instrument's baseline (clears any earlier mark), or unmark it. */
   markBaseline(visitId: string, on?: boolean): Promise<Visit>;
@@ -145,7 +155,10 @@ export interface Store {
   trendSeries(instrumentId: string, typeId: string): Promise<ReadingContext[]>;
 
   // ---- Diagnosis walks ----------------------------------------------------------------------------
-  /** Create (no id) or update a walk. startedAt is kept from the first save. */
+  /**
+   * Create (no id) or update a walk. startedAt is kept from the first save. A walk without a visit is
+   * attached to the instrument's open visit (the one "Note this" and the Visits screen use), if there is one.
+   */
   saveWalk(walk: Omit<WalkRecord, 'id' | 'startedAt' | 'updatedAt'> & { id?: string; startedAt?: string }): Promise<WalkRecord>;
   getWalk(id: string): Promise<WalkRecord | undefined>;
   listWalks(visitId: string): Promise<WalkRecord[]>;
@@ -239,17 +252,8 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
     const baseline = baselineVisit
       ? { visit: baselineVisit, readings: (await tx.objectStore('readings').index('byVisit').getAll(baselineVisit.id)).filter((r) => r.typeId === typeId) }
       : undefined;
-    return { visit, instrument, type, baseline };
-  }
-
-  function expectationFromRecord(type: ReadingType, instrument: InstrumentProfile | undefined, context: ReadingContext, baseline: BaselineSet | undefined, visitId: string): Expectation | undefined {
-    let base: { value: number; visitStartedAt: string } | undefined;
-    if (baseline && baseline.visit.id !== visitId) {
-      const m = baseline.readings.filter((r) => r.typeId === type.id && r.phase === 'as-left' && type.matchContext.every((k) => String(r.context?.[k] ?? '') === String(context[k] ?? '')))
-        .sort((a, b) => (a.takenAt < b.takenAt ? 1 : -1))[0];
-      if (m) base = { value: m.value, visitStartedAt: baseline.visit.startedAt };
-    }
-    return expectationFor({ type, instrument, context, baseline: base, engine: options.engine });
+    const limit = makerLimitsFrom((await tx.objectStore('settings').get(makerLimitsKey(visit.instrumentId)))?.value).find((l) => l.typeId === typeId);
+    return { visit, instrument, type, baseline, limit };
   }
 
   function checkReading(r: Reading, type: ReadingType): void {
@@ -495,8 +499,8 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         const tx = db.transaction(['visits', 'instruments', 'readings', 'settings'], 'readonly');
         const ctx = await judgingContext(tx, visitId, typeId);
         await tx.done;
-        const e = expectationFromRecord(ctx.type, ctx.instrument, context, ctx.baseline, visitId);
-        return e ? { expectation: e, judgement: judge(value, e, ctx.type.baseUnit) } : {};
+        const r = judgeWithLimit(value, ctx.type.baseUnit, expectationOf(ctx.type, ctx.instrument, visitId, context, ctx.baseline, options.engine), ctx.limit);
+        return r ?? {};
       }),
 
     addReading: (input) =>
@@ -504,7 +508,7 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         const tx = db.transaction(['visits', 'instruments', 'readings', 'settings'], 'readwrite');
         const ctx = await judgingContext(tx, input.visitId, input.typeId);
         const now = nowIso();
-        const judged = assess(ctx.type, ctx.instrument, input.visitId, input.value, input.context ?? {}, ctx.baseline, options.engine);
+        const judged = assess(ctx.type, ctx.instrument, input.visitId, input.value, input.context ?? {}, ctx.baseline, options.engine, ctx.limit);
         const reading: Reading = {
           id: newId('rdg'),
           visitId: input.visitId,
@@ -538,7 +542,7 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         if (changes.context && Object.keys(changes.context).length === 0) delete next.context;
         delete next.expected;
         delete next.verdict;
-        Object.assign(next, assess(ctx.type, ctx.instrument, was.visitId, next.value, next.context ?? {}, ctx.baseline, options.engine));
+        Object.assign(next, assess(ctx.type, ctx.instrument, was.visitId, next.value, next.context ?? {}, ctx.baseline, options.engine, ctx.limit));
         checkReading(next, ctx.type);
         await tx.objectStore('readings').put(next);
         await tx.objectStore('visits').put({ ...ctx.visit, updatedAt: now });
@@ -594,6 +598,32 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         }
         if (used) throw new StoreError(`Could not delete the reading type: ${used} reading${used === 1 ? '' : 's'} use it. Delete those first.`);
         await tx.objectStore('settings').put({ key: OWN_TYPES_SETTING, value: own.filter((t) => t.id !== id) });
+        await tx.done;
+      }),
+
+
+    // ---- Maker's limits -------------------------------------------------------------------------
+    listMakerLimits: (instrumentId) =>
+      guard('read the instrument’s limits', async () => makerLimitsFrom((await db.get('settings', makerLimitsKey(instrumentId)))?.value)),
+
+    saveMakerLimit: (instrumentId, draft) =>
+      guard('save the instrument’s limit', async () => {
+        const types = await store.listReadingTypes();
+        const r = checkMakerLimit(types.find((t) => t.id === draft.typeId), draft);
+        if (!r.ok) return r;
+        const tx = db.transaction(['settings', 'instruments'], 'readwrite');
+        if (!(await tx.objectStore('instruments').get(instrumentId))) throw new StoreError('Could not save the limit: the instrument profile no longer exists.');
+        const list = makerLimitsFrom((await tx.objectStore('settings').get(makerLimitsKey(instrumentId)))?.value).filter((l) => l.typeId !== r.limit.typeId);
+        await tx.objectStore('settings').put({ key: makerLimitsKey(instrumentId), value: [...list, r.limit] });
+        await tx.done;
+        return r;
+      }),
+
+    deleteMakerLimit: (instrumentId, typeId) =>
+      guard('delete the instrument’s limit', async () => {
+        const tx = db.transaction('settings', 'readwrite');
+        const list = makerLimitsFrom((await tx.store.get(makerLimitsKey(instrumentId)))?.value);
+        await tx.store.put({ key: makerLimitsKey(instrumentId), value: list.filter((l) => l.typeId !== typeId) });
         await tx.done;
       }),
 
@@ -657,18 +687,27 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
     // ---- Walks ----------------------------------------------------------------------------------
     saveWalk: (walk) =>
       guard('keep the diagnosis walk', async () => {
-        const tx = db.transaction('walks', 'readwrite');
-        const was = walk.id ? await tx.store.get(walk.id) : undefined;
+        const tx = db.transaction(['walks', 'visits', 'settings'], 'readwrite');
+        const was = walk.id ? await tx.objectStore('walks').get(walk.id) : undefined;
         const now = nowIso();
+        // A walk belongs to a visit: the one given, the one it already had, else the instrument's open visit.
+        let visitId = walk.visitId ?? was?.visitId;
+        if (!visitId && walk.instrumentId) {
+          const current = (await tx.objectStore('settings').get(`currentVisit:${walk.instrumentId}`))?.value;
+          const v = typeof current === 'string' ? await tx.objectStore('visits').get(current) : undefined;
+          if (v && v.instrumentId === walk.instrumentId) visitId = v.id;
+        }
         const record: WalkRecord = {
           ...walk,
           id: walk.id ?? newId('walk'),
+          ...(visitId ? { visitId } : {}),
           startedAt: was?.startedAt ?? walk.startedAt ?? now,
           updatedAt: now,
         };
+        if (record.visitId === undefined) delete record.visitId;
         const problems = walkProblems('walk', record);
         if (problems.length) throw new StoreError(`Could not keep the diagnosis walk: ${problems.join('; ')}.`);
-        await tx.store.put(record);
+        await tx.objectStore('walks').put(record);
         await tx.done;
         return record;
       }),

@@ -21,7 +21,7 @@ export interface EngineFunctions {
 /** Apex U/V of the first stability region, a/(2q) = 0.23699/(2·0.70600) (Dawson 1976; domain F1). */
 export const APEX_DC_TO_RF = 0.16784;
 
-export type ExpectationBasis = 'baseline' | 'calculated' | 'set value' | 'published' | 'generic';
+export type ExpectationBasis = 'baseline' | 'maker limit' | 'calculated' | 'set value' | 'published' | 'generic';
 
 export interface Expectation {
   /** A single expected value, base units. */
@@ -71,6 +71,7 @@ function grade(rule: ToleranceRule, dev: number): Verdict {
 
 const basisWords: Record<ExpectationBasis, string> = {
   baseline: 'the baseline value',
+  'maker limit': 'the maker’s limit',
   calculated: 'the calculated value',
   'set value': 'the set value',
   published: 'the published value',
@@ -268,4 +269,94 @@ export function checkEntry(type: ReadingType, text: string, unitId: string, cont
   // The convention travels with the value: "V peak-to-peak, one rod to ground" and so on.
   if (unit && type.units.length > 1) context.convention = unit.label;
   return { ok: true, value, context, unitId };
+}
+
+// ---- Instrument-specific limits --------------------------------------------------------------------
+
+/**
+ * A limit the instrument's maker (or the site) sets for a reading type, entered by the user with its source.
+ * Base units. It applies to every reading of the type on that instrument, whatever the context.
+ */
+export interface MakerLimit {
+  typeId: string;
+  low?: number;
+  high?: number;
+  source: string;
+}
+
+/** A maker's limit is hard: inside passes, outside fails, no borderline band. */
+export function limitExpectation(limit: MakerLimit): Expectation {
+  return {
+    low: limit.low, high: limit.high, basis: 'maker limit', source: `maker’s limit: ${limit.source}`,
+    tolerance: { kind: 'absolute', pass: 0, borderline: 0 }, badSide: 'both',
+  };
+}
+
+const rank: Record<Verdict, number> = { pass: 0, borderline: 1, fail: 2 };
+
+/**
+ * Combine the usual expectation with the instrument's own limit. A maker's limit replaces a generic range
+ * (the maker knows the instrument better); against a baseline or a calculation the worse verdict wins, so a
+ * reading inside its drift tolerance but outside the maker's limit still fails.
+ */
+export function judgeWithLimit(
+  value: number, unit: string, primary: Expectation | undefined, limit: MakerLimit | undefined,
+): { expectation: Expectation; judgement: Judgement } | undefined {
+  const fromLimit = limit ? { expectation: limitExpectation(limit), judgement: judge(value, limitExpectation(limit), unit) } : undefined;
+  if (!primary || primary.basis === 'generic') return fromLimit ?? (primary ? { expectation: primary, judgement: judge(value, primary, unit) } : undefined);
+  const usual = { expectation: primary, judgement: judge(value, primary, unit) };
+  if (!fromLimit) return usual;
+  return rank[fromLimit.judgement.verdict] > rank[usual.judgement.verdict] ? fromLimit : usual;
+}
+
+/** Limits read back from settings (they may come from an imported backup): keep only well-formed ones. */
+export function makerLimitsFrom(value: unknown): MakerLimit[] {
+  if (!Array.isArray(value)) return [];
+  return value.filter((l): l is MakerLimit => {
+    if (typeof l !== 'object' || l === null) return false;
+    const r = l as Record<string, unknown>;
+    const okNum = (x: unknown) => x === undefined || (typeof x === 'number' && Number.isFinite(x));
+    return typeof r.typeId === 'string' && typeof r.source === 'string' && okNum(r.low) && okNum(r.high) &&
+      (r.low !== undefined || r.high !== undefined) && !(typeof r.low === 'number' && typeof r.high === 'number' && r.high < r.low);
+  });
+}
+
+export function makerLimitsKey(instrumentId: string): string {
+  return `makerLimits:${instrumentId}`;
+}
+
+export interface MakerLimitDraft {
+  typeId: string;
+  unitId: string;
+  low: string;
+  high: string;
+  source: string;
+}
+
+/** Check the "maker's limit" form; values are typed in the chosen unit and stored in base units. */
+export function checkMakerLimit(type: ReadingType | undefined, d: MakerLimitDraft): { ok: true; limit: MakerLimit } | { ok: false; errors: Partial<Record<keyof MakerLimitDraft, string>> } {
+  const errors: Partial<Record<keyof MakerLimitDraft, string>> = {};
+  if (!type) return { ok: false, errors: { typeId: 'Reading is not chosen: pick the reading the limit is for.' } };
+  const unit = unitOf(type, d.unitId);
+  if (!unit) return { ok: false, errors: { unitId: `Unit “${d.unitId}” is not one of: ${type.units.map((u) => u.label).join('; ')}.` } };
+  const read = (k: 'low' | 'high', label: string): number | undefined => {
+    const t = d[k].trim();
+    if (t === '') return undefined;
+    const v = parseNumber(t);
+    if (v === null) { errors[k] = `${label} “${t}” is not a number: ${rangeText(type, unit.id).replace(/^between/, 'enter a value between')}.`; return undefined; }
+    const base = toBase(unit, v);
+    if (!(base >= type.plausible.min * (1 - 1e-12) && base <= type.plausible.max * (1 + 1e-12))) {
+      errors[k] = `${label} ${t} ${unit.label} is out of range: enter a value ${rangeText(type, unit.id)}.`;
+      return undefined;
+    }
+    return base;
+  };
+  const low = read('low', 'Lowest allowed');
+  const high = read('high', 'Highest allowed');
+  if (d.low.trim() === '' && d.high.trim() === '') errors.high = 'Enter the lowest allowed value, the highest, or both.';
+  if (low !== undefined && high !== undefined && high < low) errors.high = 'Highest allowed must not be below the lowest allowed.';
+  if (d.source.trim() === '') errors.source = 'Source is empty: say where the limit comes from (for example the maker’s site-preparation guide, section and edition).';
+  else if (d.source.length > 300) errors.source = `Source is ${d.source.length} characters long: keep it to 300.`;
+  if (Object.keys(errors).length) return { ok: false, errors };
+  return { ok: true, limit: { typeId: type.id, ...(low !== undefined ? { low } : {}), ...(high !== undefined ? { high } : {}), source: d.source.trim() } };
 }

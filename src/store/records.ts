@@ -94,7 +94,8 @@ export function jsonValueProblems(path: string, v: unknown): string[] {
   const walk = (x: unknown, where: string, depth: number): void => {
     if (p.length) return;
     if (depth > LIMITS.jsonDepth) { p.push(`${where}: nested more than ${LIMITS.jsonDepth} levels deep`); return; }
-    if (x === null || typeof x === 'string' || typeof x === 'boolean') return;
+    // undefined is dropped by JSON (null inside arrays) and compared that way on restore.
+    if (x === null || x === undefined || typeof x === 'string' || typeof x === 'boolean') return;
     if (typeof x === 'number') { if (!Number.isFinite(x)) p.push(`${where}: expected a finite number, got ${x}`); return; }
     if (Array.isArray(x)) { x.forEach((y, i) => walk(y, `${where}[${i}]`, depth + 1)); return; }
     if (isObj(x)) { for (const [k, y] of Object.entries(x)) walk(y, `${where}.${k.slice(0, 40)}`, depth + 1); return; }

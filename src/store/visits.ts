@@ -1,7 +1,7 @@
 // Visit form rules, user-defined reading types, and the pure part of judging a reading against the
 // instrument's baseline. No storage here.
 import { catalogue, catalogueType, type BadSide, type ReadingType, type ToleranceRule } from './catalogue';
-import { contextMatches, expectationFor, judge, type EngineFunctions, type ReadingContext } from './judge';
+import { contextMatches, expectationFor, judgeWithLimit, type EngineFunctions, type Expectation, type MakerLimit, type ReadingContext } from './judge';
 import { parseNumber } from './profile';
 import { LIMITS, shown, visitReasons } from './records';
 import type { InstrumentProfile, Reading, Verdict, Visit, VisitReason } from './types';
@@ -172,13 +172,13 @@ export function pickBaselineVisit(visits: readonly Visit[]): Visit | undefined {
 }
 
 /**
- * Expected value and verdict for a value (base units). The baseline is not used for readings of the
- * baseline visit itself (a visit is not compared with itself).
+ * The usual expectation for a reading: the instrument's baseline (its as-left value of the same type and
+ * matching context), else a calculation, else a generic range. A visit is never compared with itself.
  */
-export function assess(
-  type: ReadingType, instrument: InstrumentProfile | undefined, visitId: string, value: number, context: ReadingContext,
+export function expectationOf(
+  type: ReadingType, instrument: InstrumentProfile | undefined, visitId: string, context: ReadingContext,
   baseline: BaselineSet | undefined, engine: EngineFunctions | undefined,
-): { expected?: Reading['expected']; verdict?: Verdict } {
+): Expectation | undefined {
   let base: { value: number; visitStartedAt: string } | undefined;
   if (baseline && baseline.visit.id !== visitId) {
     let match: Reading | undefined;
@@ -187,14 +187,22 @@ export function assess(
     }
     if (match) base = { value: match.value, visitStartedAt: baseline.visit.startedAt };
   }
-  const e = expectationFor({ type, instrument, context, baseline: base, engine });
-  if (!e) return {};
-  const j = judge(value, e, type.baseUnit);
-  const expected: NonNullable<Reading['expected']> = { basis: e.basis, source: e.source, summary: j.summary };
+  return expectationFor({ type, instrument, context, baseline: base, engine });
+}
+
+/** Expected value and verdict for a value (base units), with the instrument's own limit taken into account. */
+export function assess(
+  type: ReadingType, instrument: InstrumentProfile | undefined, visitId: string, value: number, context: ReadingContext,
+  baseline: BaselineSet | undefined, engine: EngineFunctions | undefined, limit?: MakerLimit,
+): { expected?: Reading['expected']; verdict?: Verdict } {
+  const r = judgeWithLimit(value, type.baseUnit, expectationOf(type, instrument, visitId, context, baseline, engine), limit);
+  if (!r) return {};
+  const e = r.expectation;
+  const expected: NonNullable<Reading['expected']> = { basis: e.basis, source: e.source, summary: r.judgement.summary };
   if (e.value !== undefined) expected.value = e.value;
   if (e.low !== undefined) expected.low = e.low;
   if (e.high !== undefined) expected.high = e.high;
-  return { expected, verdict: j.verdict };
+  return { expected, verdict: r.judgement.verdict };
 }
 
 export function describeType(typeId: string, types: readonly ReadingType[]): string {

@@ -12,6 +12,7 @@ import { errorText, shareOrDownload, canShareFiles, showDate } from '../visits/f
 import { ReadingEntry } from '../visits/ReadingEntry';
 import { TrendPanel } from '../visits/TrendPanel';
 import { VerdictBadge } from '../visits/Verdict';
+import { MakerLimits } from '../visits/MakerLimits';
 import { OwnTypeForm } from '../visits/OwnTypeForm';
 import { VisitForm } from '../visits/VisitForm';
 import '../visits/visits.css';
@@ -100,6 +101,7 @@ function VisitList() {
             </ul>
           )}
           {types.length > 0 && <TrendPanel instrumentId={instrument.id} types={types} />}
+          {types.length > 0 && <MakerLimits key={instrument.id} instrument={instrument} types={types} />}
           <OwnTypeForm onAdded={reloadTypes} />
         </>
       )}

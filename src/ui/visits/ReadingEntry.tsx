@@ -213,7 +213,7 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
       <div class="expect-box" aria-live="polite" data-testid="reading-preview">
         {e && preview?.judgement ? (
           <>
-            <p>Expected: <strong>{shownExpected}</strong> — from {e.basis === 'generic' ? 'a generic range' : `the ${e.basis} value`}</p>
+            <p>Expected: <strong>{shownExpected}</strong> — from {e.basis === 'generic' ? 'a generic range' : e.basis === 'maker limit' ? 'the maker’s limit' : `the ${e.basis} value`}</p>
             <p class="hint">{e.source}</p>
             <p>Verdict if saved: <span class={`verdict verdict-${preview.judgement.verdict}`}>{verdictWords[preview.judgement.verdict].symbol} {verdictWords[preview.judgement.verdict].word}</span> ({preview.judgement.summary})</p>
           </>

@@ -127,8 +127,15 @@ describe('visits and readings', () => {
     expect((await store.latestInProgressWalk({ instrumentId }))?.id).toBe(w1.id);
     expect((await store.getWalk(w2.id))?.startedAt).toBe(w2.startedAt);
     await expect(store.saveWalk({ treeId: 'x', state: { f: Number.NaN }, status: 'in-progress' })).rejects.toThrow(/walk.state.f: expected a finite number/);
+    // Optional fields left undefined are fine (JSON drops them).
+    await store.saveWalk({ treeId: 'x', state: { note: undefined, list: [1, undefined] }, status: 'abandoned' });
+    // A walk saved without a visit joins the instrument's open visit.
+    await store.setCurrentVisit(instrumentId, v.id);
+    const w3 = await store.saveWalk({ instrumentId, treeId: 'noise', state: { at: 'N-1' }, status: 'in-progress' });
+    expect(w3.visitId).toBe(v.id);
+    expect((await store.saveWalk({ ...w3, state: { at: 'N-2' } })).visitId).toBe(v.id);
     const bundle = await store.deleteVisit(v.id);
-    expect(bundle?.walks).toHaveLength(2);
+    expect(bundle?.walks).toHaveLength(3);
     store.close();
   });
 
@@ -300,6 +307,39 @@ describe('note this', () => {
     expect(he.reading.verdict).toBeUndefined();
     const n2 = await store.noteReading(instrument, { typeId: 'analyser-pressure', label: 'N2 reading', value: 1.5e-5, unit: 'Torr', context: { gaugeGas: 'N2' }, origin: 'entered' });
     expect(n2.reading).toMatchObject({ context: { gaugeGas: 'N2-equivalent' }, verdict: 'pass', expected: { basis: 'generic' } });
+    store.close();
+  });
+});
+
+describe('maker’s limits for an instrument', () => {
+  it('replace the generic range, and beat a baseline pass when the reading is outside them', async () => {
+    const { store, instrumentId } = await storeWithInstrument();
+    const bad = await store.saveMakerLimit(instrumentId, { typeId: 'multiplier-voltage', unitId: 'kV', low: '', high: '9', source: '' });
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) {
+      expect(bad.errors.high).toMatch(/Highest allowed 9 kV is out of range: enter a value between 0 and 6 kV/);
+      expect(bad.errors.source).toMatch(/Source is empty/);
+    }
+    const ok = await store.saveMakerLimit(instrumentId, { typeId: 'multiplier-voltage', unitId: 'kV', low: '', high: '3', source: 'maker’s detector specification (invented for this test)' });
+    expect(ok.ok && ok.limit).toEqual({ typeId: 'multiplier-voltage', high: 3000, source: 'maker’s detector specification (invented for this test)' });
+    expect(await store.listMakerLimits(instrumentId)).toHaveLength(1);
+
+    const first = await store.saveVisit(visitFields(instrumentId, '2025-01-01T09:00:00.000Z'));
+    const r1 = await addTyped(store, first.id, 'multiplier-voltage', 'as-left', '2900', 'V');
+    // No baseline yet: the maker's limit replaces the generic 1000–3000 V range.
+    expect(r1.expected).toMatchObject({ basis: 'maker limit', high: 3000 });
+    expect(r1.verdict).toBe('pass');
+    await store.markBaseline(first.id);
+    const later = await store.saveVisit(visitFields(instrumentId, '2026-01-01T09:00:00.000Z'));
+    // +6.9 % is a pass against the baseline, but above the maker's 3000 V: the worse verdict wins.
+    const r2 = await addTyped(store, later.id, 'multiplier-voltage', 'as-found', '3100', 'V');
+    expect(r2.expected?.basis).toBe('maker limit');
+    expect(r2.verdict).toBe('fail');
+    const r3 = await addTyped(store, later.id, 'multiplier-voltage', 'as-found', '2950', 'V');
+    expect(r3.expected?.basis).toBe('baseline');
+    expect(r3.verdict).toBe('pass');
+    await store.deleteMakerLimit(instrumentId, 'multiplier-voltage');
+    expect(await store.listMakerLimits(instrumentId)).toEqual([]);
     store.close();
   });
 });
