@@ -71,7 +71,16 @@ export const EXPECTATION_INFO: Record<string, ExpectationInfo> = {
 
 // ---------------------------------------------------------------------------
 
-const fmt = (x: number, digits = 4) => (Math.abs(x) >= 1e4 || (Math.abs(x) < 1e-2 && x !== 0) ? x.toExponential(digits - 1) : x.toPrecision(digits));
+const SUPERSCRIPT: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' };
+/** A number for a sentence: 4 significant figures, very large or small ones as m×10ⁿ. */
+const fmt = (x: number, digits = 4): string => {
+  if (!Number.isFinite(x)) return '—';
+  if (Math.abs(x) >= 1e4 || (Math.abs(x) < 1e-2 && x !== 0)) {
+    const [m, e] = x.toExponential(digits - 1).split('e');
+    return `${m}×10${[...String(Number(e))].map((c) => SUPERSCRIPT[c] ?? c).join('')}`;
+  }
+  return String(Number(x.toPrecision(digits)));
+};
 
 function need(instrument: DiagnoseInstrument | null, name: string): DiagnoseInstrument {
   if (!instrument) throw new RangeError(`${name} needs an instrument: pick one to see the expected value`);

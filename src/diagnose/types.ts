@@ -177,6 +177,8 @@ export interface MeasureSpec {
   altUnits?: string[];
   tool: string;
   how: string;
+  /** Reading type in the visit log's catalogue this measurement is recorded as, when one fits. */
+  visitType?: string;
 }
 
 export type VerdictBranch = 'pass' | 'borderline' | 'low' | 'high';

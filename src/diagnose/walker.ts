@@ -319,6 +319,19 @@ function derivedFigures(node: MeasureNode, instrument: DiagnoseInstrument | null
   return out;
 }
 
+/**
+ * A measure node's tolerance for a reading entered in `unit`: absolute tolerances and explicit borderline ends
+ * are stated in the node's own unit and are converted; relative and decade tolerances need no change.
+ */
+export function toleranceIn(node: MeasureNode, unit: string): Tolerance | null {
+  const tol = node.expect?.tolerance;
+  if (!tol) return null;
+  if (unit === node.measure.unit) return tol;
+  if (tol.kind === 'absolute') return { ...tol, pass: convert(tol.pass, node.measure.unit, unit), borderline: convert(tol.borderline, node.measure.unit, unit) };
+  if (tol.kind === 'range' && tol.outer) return { ...tol, outer: { low: convert(tol.outer.low, node.measure.unit, unit), high: convert(tol.outer.high, node.measure.unit, unit) } };
+  return tol;
+}
+
 /** Figures computed from a reading and shown beside it (e.g. mean free path at the pressure read). Never throws. */
 export function previewDerived(
   node: MeasureNode,
@@ -388,12 +401,7 @@ function makeReading(
       basis: `Judged by the engineer: ${pv.error}`,
     };
   }
-  const tol = e.tolerance;
-  // Tolerances in absolute terms are stated in the node's unit; convert when another unit is used.
-  const tolInUnit: Tolerance =
-    tol.kind === 'absolute' && unit !== node.measure.unit
-      ? { ...tol, pass: convert(tol.pass, node.measure.unit, unit), borderline: convert(tol.borderline, node.measure.unit, unit) }
-      : tol;
+  const tolInUnit = toleranceIn(node, unit) as Tolerance;
   const j: Judgement = judge(
     input.value,
     { value: pv.expected ?? undefined, low: pv.low ?? undefined, high: pv.high ?? undefined },

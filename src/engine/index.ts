@@ -62,3 +62,4 @@ export * from './leak';
 export * from './scanPlanning';
 export * from './proportionality';
 export * from './hazardousLive';
+export * from './isoBeta';

@@ -42,6 +42,11 @@ async function atNode(page: Page, id: string) {
   await expect.poll(() => nodeId(page), { timeout: 15_000 }).toBe(id);
 }
 
+/** The screen says the walk is kept in the database (saves are asynchronous). */
+async function kept(page: Page) {
+  await expect.poll(() => page.locator('[data-testid="save-state"]').textContent(), { timeout: 15_000 }).toMatch(/kept on this device/);
+}
+
 async function pick(page: Page, label: string | RegExp) {
   await page.getByRole('button', { name: label }).click();
 }
@@ -117,7 +122,8 @@ describe('diagnose offline', () => {
     await measure(page, '50', { setPoint: '50' });
     await atNode(page, 'NS3E3');
 
-    // Reload in the middle of the walk: it resumes at the same step.
+    // Reload in the middle of the walk, once the screen says the step is kept: it resumes at the same step.
+    await kept(page);
     await page.reload();
     await atNode(page, 'NS3E3');
     await expect.poll(() => page.locator('[data-testid="resumed"]').count()).toBe(1);
@@ -143,6 +149,7 @@ describe('diagnose offline', () => {
     await expect.poll(() => page.locator('[data-testid="closing"]').textContent()).toMatch(/re-measure and record/i);
 
     // Cold restart on the same profile, still offline: the walk is where we left it.
+    await kept(page);
     foreign.push(...session.foreignRequests);
     await session.close();
     session = await openBrowser(profile);
@@ -169,6 +176,12 @@ describe('diagnose offline', () => {
     // The walk's readings go into the instrument's visit log (six: the withdrawn one stays out).
     await pick(page, 'Add 6 readings to the visit log');
     await expect.poll(() => page.getByRole('button', { name: 'Readings are in the visit log' }).count()).toBe(1);
+    await kept(page);
+    // The visit log shows the readings and lists the walk under the same visit.
+    await page.goto(origin + '/visits');
+    await page.locator('[data-testid="visit-item"]').first().click();
+    await expect.poll(() => page.locator('[data-testid="reading-row"]').count()).toBe(6);
+    await expect.poll(() => page.locator('main').textContent()).toMatch(/Diagnosis walks[\s\S]*no-signal — finished/);
 
     foreign.push(...session.foreignRequests);
     expect(session.pageErrors).toEqual([]);

@@ -33,7 +33,7 @@ export const entryTree: Tree = {
         'Attach the last tune or calibration report values if you have them.',
       ],
       measure: {
-        quantity: 'Analyser pressure (as found)',
+        visitType: 'vacuum-high', quantity: 'Analyser pressure (as found)',
         unit: 'mbar',
         altUnits: ['Torr', 'Pa'],
         tool: 'Instrument ion-gauge read-back',

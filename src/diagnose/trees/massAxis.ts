@@ -55,7 +55,7 @@ export const massAxisTree: Tree = {
       access: 'energised',
       hazards: ['rf', 'high-voltage'],
       cards: ['rf', 'high-voltage'],
-      measure: { quantity: 'RF frequency', unit: 'MHz', altUnits: ['kHz', 'Hz'], tool: 'Frequency counter or oscilloscope with a pickup loop', how: 'Hold the loop near the RF circuit, not touching; read to at least 6 digits.' },
+      measure: { visitType: 'rf-frequency', quantity: 'RF frequency', unit: 'MHz', altUnits: ['kHz', 'Hz'], tool: 'Frequency counter or oscilloscope with a pickup loop', how: 'Hold the loop near the RF circuit, not touching; read to at least 6 digits.' },
       expect: { calc: 'rfFrequencyNominal', tolerance: { kind: 'relative', pass: 2e-5, borderline: 1e-4 } },
       derived: [
         {

@@ -56,7 +56,7 @@ export const noSignalTree: Tree = {
         'EI GC-MS analyser: about 5×10⁻⁶ to 5×10⁻⁵ Torr N2-equivalent with about 1 mL/min helium (common practice).',
       ],
       measure: {
-        quantity: 'Analyser pressure, N2-equivalent',
+        visitType: 'vacuum-high', quantity: 'Analyser pressure, N2-equivalent',
         unit: 'mbar',
         altUnits: ['Torr', 'Pa'],
         tool: 'Instrument ion-gauge read-back',
@@ -94,7 +94,7 @@ export const noSignalTree: Tree = {
       title: 'Is the emission current at its set point?',
       text: 'Read the emission current and note which filament is active.',
       points: ['Analytical EI set points run from tens to a few hundred µA; residual gas analysers about 0.1–2 mA (common practice / from memory).'],
-      measure: { quantity: 'Emission current', unit: 'µA', altUnits: ['mA'], tool: 'Instrument read-back', how: 'Read actual and set values with the filament on.' },
+      measure: { visitType: 'emission-current', quantity: 'Emission current', unit: 'µA', altUnits: ['mA'], tool: 'Instrument read-back', how: 'Read actual and set values with the filament on.' },
       expect: {
         calc: 'setPoint',
         inputs: [{ key: 'setPoint', label: 'Emission set point', unit: 'µA', min: 0.1, max: 10000 }],
@@ -286,7 +286,7 @@ export const noSignalTree: Tree = {
       access: 'energised',
       hazards: ['rf', 'high-voltage'],
       cards: ['rf', 'high-voltage'],
-      measure: { quantity: 'RF amplitude at the parked m/z', unit: 'V', altUnits: ['kV'], tool: 'RF monitor point, or a rated low-capacitance RF probe and oscilloscope', how: 'Park the mass; read the amplitude in the instrument’s convention (zero-to-peak, peak-to-peak or rms; per rod or between pairs).' },
+      measure: { visitType: 'rf-amplitude', quantity: 'RF amplitude at the parked m/z', unit: 'V', altUnits: ['kV'], tool: 'RF monitor point, or a rated low-capacitance RF probe and oscilloscope', how: 'Park the mass; read the amplitude in the instrument’s convention (zero-to-peak, peak-to-peak or rms; per rod or between pairs).' },
       expect: {
         calc: 'rfAtMass',
         inputs: [{ key: 'mz', label: 'Parked m/z', unit: 'u', default: 69, min: 1, max: 10000 }],
@@ -311,7 +311,7 @@ export const noSignalTree: Tree = {
       access: 'energised',
       hazards: ['rf', 'high-voltage'],
       cards: ['rf', 'high-voltage'],
-      measure: { quantity: 'RF amplitude at the second m/z', unit: 'V', altUnits: ['kV'], tool: 'Same monitor point and probe as before', how: 'Same convention as the first reading.' },
+      measure: { visitType: 'rf-amplitude', quantity: 'RF amplitude at the second m/z', unit: 'V', altUnits: ['kV'], tool: 'Same monitor point and probe as before', how: 'Same convention as the first reading.' },
       expect: {
         calc: 'rfProportional',
         inputs: [

@@ -72,7 +72,7 @@ export const peakShapeTree: Tree = {
       title: 'Too wide everywhere: is the resolving DC right?',
       text: 'Park at a calibrant m/z and read the DC of one rod pair. It should sit just below the apex value for that m/z.',
       points: ['Resolution R ≈ 0.126/(0.16784 − U/V) (Miller and Denton 1986): a DC/RF ratio error of about 1×10⁻⁴ changes the width noticeably.'],
-      measure: { quantity: 'DC read-back at the parked m/z', unit: 'V', tool: 'Instrument read-back', how: 'Park the mass; read the DC of one pair in the instrument’s convention. No meter on the rods while RF is present.' },
+      measure: { visitType: 'dc-amplitude', quantity: 'DC read-back at the parked m/z', unit: 'V', tool: 'Instrument read-back', how: 'Park the mass; read the DC of one pair in the instrument’s convention. No meter on the rods while RF is present.' },
       expect: {
         calc: 'dcAtMass',
         inputs: [{ key: 'mz', label: 'Parked m/z', unit: 'u', default: 219, min: 1, max: 10000 }],

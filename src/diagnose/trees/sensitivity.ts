@@ -43,7 +43,7 @@ export const sensitivityTree: Tree = {
       title: 'Is the detector gain where it should be?',
       text: 'Read the multiplier voltage the tune needed now and compare it with its history and the supply maximum.',
       points: ['On a residual gas analyser, gain = multiplier current ÷ Faraday current on a steady peak (m/z 28 or 40).', 'A slow upward trend is normal (common practice).'],
-      measure: { quantity: 'Multiplier voltage at tune', unit: 'V', altUnits: ['kV'], tool: 'Tune report or read-back', how: 'Take the value from the latest tune.' },
+      measure: { visitType: 'multiplier-voltage', quantity: 'Multiplier voltage at tune', unit: 'V', altUnits: ['kV'], tool: 'Tune report or read-back', how: 'Take the value from the latest tune.' },
       expect: {
         calc: 'multiplierHeadroom',
         inputs: [{ key: 'supplyMaximum', label: 'Multiplier supply maximum', unit: 'V', default: 3000, min: 100, max: 10000 }],
@@ -60,7 +60,7 @@ export const sensitivityTree: Tree = {
       kind: 'measure',
       title: 'Is the analyser pressure normal?',
       text: 'Read the high-vacuum gauge and compare with the gas load. High pressure scatters ions, large ones first.',
-      measure: { quantity: 'Analyser pressure, N2-equivalent', unit: 'mbar', altUnits: ['Torr', 'Pa'], tool: 'Instrument ion-gauge read-back', how: 'Usual carrier flow, system settled.' },
+      measure: { visitType: 'vacuum-high', quantity: 'Analyser pressure, N2-equivalent', unit: 'mbar', altUnits: ['Torr', 'Pa'], tool: 'Instrument ion-gauge read-back', how: 'Usual carrier flow, system settled.' },
       expect: { calc: 'gaugeReadingForCarrier', inputs: CARRIER_INPUTS, tolerance: { kind: 'range', borderline: 0.5, log: true } },
       derived: [{ calc: 'scatteringLoss', inputs: [PRESSURE_FROM_READING] }, { calc: 'meanFreePath', inputs: [PRESSURE_FROM_READING] }],
       branches: { pass: 'LS5', borderline: 'LS5', high: 'LS4-high', low: 'LS4-low' },

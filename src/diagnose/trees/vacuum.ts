@@ -110,7 +110,7 @@ export const vacuumTree: Tree = {
       kind: 'measure',
       title: 'High vacuum high: what should the gas load give?',
       text: 'Read the high-vacuum gauge and compare with the pressure the deliberate flows (carrier, collision gas, spray inlet) should give.',
-      measure: { quantity: 'Analyser pressure, N2-equivalent', unit: 'mbar', altUnits: ['Torr', 'Pa'], tool: 'Instrument ion-gauge read-back', how: 'Flows at their usual set points, system settled.' },
+      measure: { visitType: 'vacuum-high', quantity: 'Analyser pressure, N2-equivalent', unit: 'mbar', altUnits: ['Torr', 'Pa'], tool: 'Instrument ion-gauge read-back', how: 'Flows at their usual set points, system settled.' },
       expect: { calc: 'gaugeReadingForCarrier', inputs: CARRIER_INPUTS, tolerance: { kind: 'range', borderline: 0.5, log: true } },
       derived: [{ calc: 'meanFreePath', inputs: [PRESSURE_FROM_READING] }],
       source: "p = Q/S_eff (O'Hanlon 2003); N2-equivalent reading = true pressure × relative sensitivity (CRC Bayard–Alpert table).",
@@ -149,7 +149,7 @@ export const vacuumTree: Tree = {
       kind: 'measure',
       title: 'Pump-down against the as-installed curve',
       text: 'Log the time to rough-pump crossover, the time for the turbo to reach full speed, and the high vacuum at 1 h, 4 h and 24 h. Enter the latest high-vacuum value and the baseline at the same time since pump-down.',
-      measure: { quantity: 'High vacuum at the milestone', unit: 'mbar', altUnits: ['Torr', 'Pa'], tool: 'Instrument ion-gauge read-back and a clock', how: 'Same gauge and flows as the baseline curve.' },
+      measure: { visitType: 'vacuum-high', quantity: 'High vacuum at the milestone', unit: 'mbar', altUnits: ['Torr', 'Pa'], tool: 'Instrument ion-gauge read-back and a clock', how: 'Same gauge and flows as the baseline curve.' },
       expect: {
         calc: 'baseline',
         inputs: [{ key: 'baseline', label: 'Baseline at the same time since pump-down', unit: 'mbar', min: 1e-12, max: 2000 }],

@@ -3,8 +3,10 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
 import { activeReadings, back, start, treeById, trees, WALK_FORMAT, type Tree, type TreeId, type WalkState } from '../../diagnose';
 import { noteThis } from '../noteThis';
+import { plainNote, visitNote } from './diagnose/toVisit';
 import { useApp } from '../context';
 import { formatNumber } from '../format';
+import { markSaved, markUnsaved } from '../offline';
 import { navigate, usePath } from '../router';
 import { LeakCheckPanel, type LeakTyped } from './diagnose/LeakCheckPanel';
 import { NodeView, TREE_TITLE, type Typed } from './diagnose/NodeView';
@@ -12,6 +14,7 @@ import { VerdictWord } from './diagnose/VerdictWord';
 
 /** Walks live in the store's walks records; this older draft key is only read once to carry a walk over. */
 export const WALK_DRAFT_KEY = 'diagnose:walk';
+const WALK_UNSAVED_KEY = 'diagnose-walk';
 export const LEAK_DRAFT_KEY = 'diagnose:leak-check';
 
 export interface WalkDraft {
@@ -76,6 +79,11 @@ function Walk() {
   // The walk's record id in the store, and a queue so saves land in order and never create two records.
   const walkId = useRef<string | null>(null);
   const saving = useRef<Promise<void>>(Promise.resolve());
+  const pending = useRef(0);
+  // The visit this walk belongs to (the instrument's open visit), so the visit log lists it.
+  const visitId = useRef<string | null>(null);
+  const [saveState, setSaveState] = useState<'saved' | 'saving' | 'failed'>('saved');
+  useEffect(() => () => markSaved(WALK_UNSAVED_KEY), []);
 
   useEffect(() => {
     if (!store || loaded) return;
@@ -87,6 +95,7 @@ function Walk() {
         if (kept === undefined) return;
         if (isWalkDraft(kept) && trees.some((t) => t.id === kept.walk.treeId)) {
           walkId.current = rec?.id ?? null;
+          visitId.current = rec?.visitId ?? null;
           setDraft(kept);
           setResumed(true);
         } else {
@@ -106,7 +115,12 @@ function Walk() {
     latest.current = next;
     setDraft(next);
     if (!store) return;
+    // While a save is on its way, an app update must not reload the page under it.
+    pending.current += 1;
+    setSaveState('saving');
+    markUnsaved(WALK_UNSAVED_KEY, 'the diagnosis walk');
     saving.current = saving.current.then(async () => {
+      let ok = true;
       try {
         if (next === null) {
           walkId.current = null;
@@ -115,6 +129,7 @@ function Walk() {
         const rec = await store.saveWalk({
           ...(walkId.current ? { id: walkId.current } : {}),
           ...(next.walk.instrument ? { instrumentId: next.walk.instrument.id } : {}),
+          ...(visitId.current ? { visitId: visitId.current } : {}),
           treeId: next.walk.treeId,
           state: next,
           status: status ?? (next.finished ? 'finished' : 'in-progress'),
@@ -122,7 +137,15 @@ function Walk() {
         walkId.current = rec.id;
         await store.clearDraft(WALK_DRAFT_KEY).catch(() => undefined);
       } catch (err) {
+        ok = false;
         notify((err as { userMessage?: string }).userMessage ?? `The walk could not be kept on this device: ${String(err)}`);
+      } finally {
+        pending.current -= 1;
+        if (!ok) setSaveState('failed');
+        else if (pending.current === 0) {
+          setSaveState('saved');
+          markSaved(WALK_UNSAVED_KEY);
+        }
       }
     });
   }
@@ -133,6 +156,7 @@ function Walk() {
     if (d) save({ ...d, finished: true }, status);
     saving.current = saving.current.then(() => {
       walkId.current = null;
+      visitId.current = null;
     });
     latest.current = null;
     setDraft(null);
@@ -146,15 +170,9 @@ function Walk() {
     let done = 0;
     let problem: string | null = null;
     for (const r of activeReadings(d.walk)) {
-      const context: Record<string, string | number> = { walkStep: `${r.treeId}/${r.nodeId}`, verdict: r.verdict, tool: r.tool.slice(0, 200) };
-      if (r.expected !== null) context.expected = r.expected;
-      const res = await noteThis(store, profile, {
-        label: `${r.quantity}${r.phase === 'as-left' ? ' (as-left)' : ''} — diagnosis walk`,
-        value: r.value,
-        unit: r.unit,
-        context,
-        origin: 'entered',
-      });
+      // As a catalogue reading where the step names one; if the visit log refuses that, as a plain noted value.
+      let res = await noteThis(store, profile, visitNote(r, d.walk.instrument));
+      if (!res.ok) res = await noteThis(store, profile, plainNote(r));
       if (!res.ok) {
         problem = res.message;
         break;
@@ -164,13 +182,34 @@ function Walk() {
     if (problem) notify(`${done} readings added; then: ${problem}`);
     else {
       notify(`${done} readings added to the visit log.`);
+      // The readings went into the instrument's open visit: the walk belongs to it too.
+      visitId.current = (await openVisitOf(d.walk.instrument?.id)) ?? visitId.current;
       save({ ...d, notedToVisit: true });
+    }
+  }
+
+  /** The instrument's open visit, if the visit log has one (the same one "Note this" writes to). */
+  async function openVisitOf(instrumentId: string | undefined): Promise<string | null> {
+    if (!store || !instrumentId) return null;
+    try {
+      const id = await store.getSetting<string>(`currentVisit:${instrumentId}`);
+      if (typeof id !== 'string') return null;
+      const v = await store.getVisit(id);
+      return v && v.instrumentId === instrumentId ? v.id : null;
+    } catch {
+      return null;
     }
   }
 
   function begin(tree: Tree) {
     const walk = start(tree, instrument ?? null);
     setResumed(false);
+    walkId.current = null;
+    visitId.current = null;
+    // Link to the open visit before the first save is queued, so the walk record carries it from the start.
+    saving.current = saving.current.then(async () => {
+      visitId.current = await openVisitOf(walk.instrument?.id);
+    });
     save({ walk, typed: {}, finished: false });
   }
 
@@ -221,6 +260,7 @@ function Walk() {
     return (
       <div class="walk-done">
         <h2>Walk finished</h2>
+        <p><SaveState state={saveState} /></p>
         <WalkSummary walk={walk} />
         <button type="button" class="btn btn-block" disabled={!!draft.notedToVisit || activeReadings(walk).length === 0} onClick={copyToVisit}>
           {draft.notedToVisit ? 'Readings are in the visit log' : `Add ${activeReadings(walk).length} readings to the visit log`}
@@ -245,7 +285,10 @@ function Walk() {
         </p>
       )}
       <div class="walk-head">
-        <p class="walk-tree"><strong>{tree.title}</strong> · step {walk.steps.length + 1}</p>
+        <p class="walk-tree">
+          <strong>{tree.title}</strong> · step {walk.steps.length + 1} ·{' '}
+          <SaveState state={saveState} />
+        </p>
         <p class="hint">
           {walk.instrument ? `Expected values for ${walk.instrument.name}` : 'No instrument: expected values that need geometry are not shown'}
           {walk.queue.length > 0 && ` · then: ${walk.queue.map(TREE_TITLE).join(', ')}`}
@@ -287,6 +330,14 @@ function Walk() {
         <WalkSummary walk={walk} />
       </details>
     </div>
+  );
+}
+
+function SaveState(props: { state: 'saved' | 'saving' | 'failed' }) {
+  return (
+    <span class={`save-state save-${props.state}`} data-testid="save-state" role="status">
+      {props.state === 'saved' ? '✓ kept on this device' : props.state === 'saving' ? '… saving' : '✗ not saved — keep this tab open'}
+    </span>
   );
 }
 

@@ -10,24 +10,24 @@ import { Chart, type uPlot } from '../components/Chart';
 import { NumberField, SelectField } from '../components/Field';
 import { useApp } from '../context';
 import { formatNumber, formatSi } from '../format';
-import { dcFormOf, dcFormWords, rfFormOf, rfFormUnit, rfFormWords } from '../bench/conventions';
+import { dcFormOf, dcFormUnitId, dcFormWords, rfFormOf, rfFormUnit, rfFormUnitId, rfFormWords } from '../bench/conventions';
 import { tryEngine, type FieldErrors } from '../bench/engineErrors';
 import { parseMzList, parseNumber, usePersistentInputs } from '../bench/inputs';
 import { Result } from '../bench/NoteButton';
 import { buildScanLine, expectedFor } from '../bench/scanLine';
 import { ScanLineFields } from '../bench/ScanLineFields';
-import { diagramColumns, Q_MAX } from './diagramData';
+import { diagramColumns, ISO_BETAS, Q_MAX } from './diagramData';
 
 type StabilityInputs = {
   setMz: string; mzList: string; mode: string; width: string; referenceMz: string; resolution: string;
-  source: string; measuredU: string; measuredV: string;
+  source: string; measuredU: string; measuredV: string; isoBeta: string;
 };
 
 function stabilityDefaults(p: InstrumentProfile | null): StabilityInputs {
   const rga = p?.kind === 'rga';
   return {
     setMz: rga ? '28' : '69', mzList: rga ? '27, 28, 29, 32, 44' : '68, 69, 70, 219', mode: 'constant-width', width: '1',
-    referenceMz: rga ? '28' : '219', resolution: rga ? '100' : '500', source: 'scan-line', measuredU: '', measuredV: '',
+    referenceMz: rga ? '28' : '219', resolution: rga ? '100' : '500', source: 'scan-line', measuredU: '', measuredV: '', isoBeta: 'no',
   };
 }
 
@@ -109,7 +109,8 @@ export function StabilityDiagram() {
   const band = dc !== null && rf !== null && rf > 0 ? tryEngine(() => passBandDetail({ dc: dc!, rf: rf!, r0, frequency }), { dc: 'measuredU', rf: 'measuredV' }, errors, 'measuredV') : null;
   const setPoint = points.find((p) => p.set) ?? null;
   const slope = setPoint && setPoint.op.q > 0 ? setPoint.op.a / setPoint.op.q : null;
-  const data = diagramColumns(slope) as unknown as uPlot.AlignedData;
+  const showIso = inputs.isoBeta === 'yes';
+  const data = diagramColumns(slope, showIso) as unknown as uPlot.AlignedData;
   const apex = firstRegionApex();
   const chosen = selected !== null ? points.find((p) => p.mz === selected) ?? null : null;
   const redrawKey = points.map((p) => `${p.mz}:${p.op.q}:${p.op.a}`).join('|') + `#${selected}`;
@@ -156,15 +157,31 @@ export function StabilityDiagram() {
       {dc !== null && rf !== null && (
         <div class="card" data-testid="pass-band">
           <h2 class="card-title">Pass band</h2>
-          <p class="muted">U = {formatSi(dc, 'V', 5)}, V = {formatSi(rf, 'V 0-p', 5)} per rod{lineDescription ? ` (${lineDescription})` : ''}; U/V = {formatNumber(dc / rf, 6)}.</p>
+          {lineDescription && <p class="hint">From {lineDescription}.</p>}
+          <Result label={`U, ${dcFormWords[readDc]} (read-back form)`} value={formatSi(convertDc(dc, 'perRod', readDc), 'V DC', 5)}
+            note={{ label: `DC at the current setting (set m/z ${inputs.setMz.trim()})`, value: convertDc(dc, 'perRod', readDc), unit: dcFormUnitId[readDc], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'dc-amplitude' }} />
+          <Result label={`V, ${rfFormWords[readForm]} (read-back form)`} value={`${formatNumber(convertRf(rf, 'zeroToPeakPerRod', readForm), 5)} ${rfFormUnit[readForm]}`}
+            note={{ label: `RF at the current setting (set m/z ${inputs.setMz.trim()})`, value: convertRf(rf, 'zeroToPeakPerRod', readForm), unit: rfFormUnitId[readForm], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'rf-amplitude' }} />
+          <Result label="U/V (per rod, V zero-to-peak)" value={formatNumber(dc / rf, 6)} testId="band-ratio"
+            note={{ label: 'DC/RF ratio U/V at the current setting', value: dc / rf, unit: '', origin: 'calculator' }} />
           {band ? (
             <>
-              <Result label="m/z passed (ideal field)" testId="band-interval"
-                value={Number.isFinite(band.high) ? `${formatNumber(band.low, 6)} – ${formatNumber(band.high, 6)} u` : `above ${formatNumber(band.low, 6)} u (RF only)`}
-                note={{ label: 'Pass band low edge', value: band.low, unit: 'u', origin: 'calculator', context: { dc, rf, high: band.high } }} />
+              <p class="big" data-testid="band-interval">
+                {Number.isFinite(band.high) ? `m/z ${formatNumber(band.low, 6)} – ${formatNumber(band.high, 6)} passes` : `m/z above ${formatNumber(band.low, 6)} passes (RF only)`}
+              </p>
+              <Result label="Lowest m/z passed (x edge, low-mass cut-off)" value={`${formatNumber(band.low, 6)} u`} testId="band-low"
+                note={{ label: 'Pass band low-mass edge', value: band.low, unit: 'u', origin: 'calculator', context: { dc, rf } }} />
+              {Number.isFinite(band.high) && (
+                <Result label="Highest m/z passed (y edge, high-mass cut-off)" value={`${formatNumber(band.high, 6)} u`} testId="band-high"
+                  note={{ label: 'Pass band high-mass edge', value: band.high, unit: 'u', origin: 'calculator', context: { dc, rf } }} />
+              )}
               {Number.isFinite(band.width) && (
-                <Result label="Width and resolution" value={`Δm ${formatNumber(band.width, 4)} u, m/Δm ${formatNumber(band.resolution, 4)}`}
-                  note={{ label: 'Ideal pass-band width', value: band.width, unit: 'u', origin: 'calculator', context: { dc, rf, resolution: band.resolution } }} />
+                <>
+                  <Result label="Ideal band width Δm" value={`${formatNumber(band.width, 4)} u`}
+                    note={{ label: 'Ideal pass-band width', value: band.width, unit: 'u', origin: 'calculator', context: { dc, rf } }} />
+                  <Result label="Ideal resolution m/Δm" value={formatNumber(band.resolution, 4)}
+                    note={{ label: 'Ideal resolution of the pass band', value: band.resolution, unit: '', origin: 'calculator', context: { dc, rf } }} />
+                </>
               )}
             </>
           ) : (
@@ -183,10 +200,16 @@ export function StabilityDiagram() {
         <Chart data={data} options={options} height={320} zoomButtons zoomScales={['x', 'y']} view={view} redrawKey={redrawKey}
           onTap={onTap} testId="stability-chart"
           label={`Stability diagram, a against q: the first region bounded by the y edge on the left and the x edge on the right, apex at q ${apex.q.toFixed(4)}, a ${apex.a.toFixed(5)}; ${points.length} operating points, listed below.`} />
+        <label class="check">
+          <input type="checkbox" checked={showIso} onChange={(e) => update({ isoBeta: (e.target as HTMLInputElement).checked ? 'yes' : 'no' })} />
+          Show iso-β lines (β = {ISO_BETAS.join(', ')})
+        </label>
         <ul class="legend" aria-label="Legend">
           <li><LineSample dash="" width={3} /> x edge b₁(q), solid: right of the apex, the low-mass cut-off</li>
           <li><LineSample dash="7 4" width={3} /> y edge −a₀(q), dashed: left of the apex, the high-mass cut-off</li>
           <li><LineSample dash="2 4" width={2} /> operating line: every m/z at the current U and V</li>
+          {showIso && <li><LineSample dash="" width={1} /> thin solid: β_x = {ISO_BETAS.join(', ')} (β_x reaches 1 on the x edge)</li>}
+          {showIso && <li><LineSample dash="1 3" width={1} /> thin dotted: β_y = {ISO_BETAS.join(', ')} (β_y is 0 on the y edge and grows away from it)</li>}
           <li><Marker kind="pass" /> passes (filled circle)</li>
           <li><Marker kind="fail" /> does not pass (open square with a cross)</li>
           <li><Marker kind="apex" /> apex</li>
@@ -231,7 +254,12 @@ function PointPanel(props: { point: PlottedPoint }) {
         value={`${xNearer ? 'x edge b₁ (low-mass cut-off)' : 'y edge −a₀ (high-mass cut-off)'}: ${nearestMargin >= 0 ? 'inside by' : 'outside by'} Δa = ${formatNumber(Math.abs(nearestMargin), 3)}`}
         note={{ label: `Distance in a to the nearest first-region edge at m/z ${mzText}`, value: nearestMargin, unit: '', origin: 'calculator', context: ctx }} />
       {op.stable && (
-        <p class="hint">Secular frequencies: x {formatSi(op.secularFrequencyX / 1e3, 'kHz', 4)}, y {formatSi(op.secularFrequencyY / 1e3, 'kHz', 4)}.</p>
+        <>
+          <Result label="Secular frequency x (β_x·f/2)" value={formatSi(op.secularFrequencyX / 1e3, 'kHz', 4)}
+            note={{ label: `Secular frequency x at m/z ${mzText}`, value: op.secularFrequencyX, unit: 'Hz', origin: 'calculator', context: ctx }} />
+          <Result label="Secular frequency y (β_y·f/2)" value={formatSi(op.secularFrequencyY / 1e3, 'kHz', 4)}
+            note={{ label: `Secular frequency y at m/z ${mzText}`, value: op.secularFrequencyY, unit: 'Hz', origin: 'calculator', context: ctx }} />
+        </>
       )}
     </div>
   );
@@ -275,6 +303,8 @@ function chartOptions(pointsRef: { current: PlottedPoint[] }, selectedRef: { cur
       { label: 'y edge −a₀', stroke: yColour, width: 3, dash: [7, 4], points: { show: false } },
       { label: 'x edge b₁', stroke: xColour, width: 3, points: { show: false } },
       { label: 'operating line', stroke: ink, width: 1.5, dash: [2, 4], points: { show: false } },
+      ...ISO_BETAS.map((b) => ({ label: `β_x ${b}`, stroke: xColour, width: 1, spanGaps: true, points: { show: false } })),
+      ...ISO_BETAS.map((b) => ({ label: `β_y ${b}`, stroke: yColour, width: 1, dash: [1, 3], spanGaps: true, points: { show: false } })),
     ],
     hooks: {
       draw: [

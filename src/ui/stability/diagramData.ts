@@ -1,6 +1,6 @@
 // Chart-ready columns for the stability diagram: the first region's two edges, told apart, and the operating
 // line a = 2(U/V)·q on which every m/z sits at the current U and V. The boundary comes from the engine once.
-import { firstRegionBoundary, type FirstRegionBoundary } from '../../engine';
+import { firstRegionBoundary, isoBetaCurve, type FirstRegionBoundary } from '../../engine';
 
 let boundary: FirstRegionBoundary | null = null;
 
@@ -14,15 +14,45 @@ export function boundaryOnce(): FirstRegionBoundary {
 export const Q_MAX = 1.0;
 
 /**
- * [q, yEdge (left of apex), xEdge (right of apex), operating line]; null marks where a series is not drawn.
+ * [q, yEdge (left of apex), xEdge (right of apex), operating line, β_x lines…, β_y lines…]; null marks where a
+ * series is not drawn.
  * `slope` is a/q of an engine operating point at the current U and V: every m/z lies on that ray.
  */
-type Columns = [number[], (number | null)[], (number | null)[], (number | null)[]];
-let lastColumns: { slope: number | null; columns: Columns } | null = null;
+/** β values of the optional iso-β lines, for x and for y. */
+export const ISO_BETAS = [0.25, 0.5, 0.75] as const;
+/** Every STRIDE-th boundary sample carries an iso-β point; the chart spans the gaps. */
+const STRIDE = 8;
 
-export function diagramColumns(slope: number | null): Columns {
-  // Same slope, same arrays: the chart only calls setData when something changed.
-  if (lastColumns && lastColumns.slope === slope) return lastColumns.columns;
+type Series = (number | null)[];
+type Columns = Series[];
+let lastColumns: { key: string; columns: Columns } | null = null;
+let isoCache: Series[] | null = null;
+
+/** Iso-β lines on the chart's q samples, kept only inside the first region (a few tens of ms, once). */
+function isoLines(q: number[]): Series[] {
+  if (isoCache) return isoCache;
+  const b = boundaryOnce();
+  const indices = q.map((_, i) => i).filter((i) => i < b.q.length && (i % STRIDE === 0 || i === b.apexIndex || i === b.q.length - 1));
+  const lines: Series[] = [];
+  for (const direction of ['x', 'y'] as const) {
+    for (const beta of ISO_BETAS) {
+      const curve = isoBetaCurve({ beta, direction, q: indices.map((i) => q[i]) });
+      const column: Series = q.map(() => null);
+      indices.forEach((i, k) => {
+        const a = curve.a[k];
+        if (Math.abs(a) <= b.upper[i]) column[i] = a;
+      });
+      lines.push(column);
+    }
+  }
+  isoCache = lines;
+  return lines;
+}
+
+export function diagramColumns(slope: number | null, withIsoBeta = false): Columns {
+  // Same inputs, same arrays: the chart only calls setData when something changed.
+  const key = `${slope}|${withIsoBeta}`;
+  if (lastColumns && lastColumns.key === key) return lastColumns.columns;
   const b = boundaryOnce();
   const q: number[] = Array.from(b.q);
   const last = q[q.length - 1];
@@ -30,7 +60,8 @@ export function diagramColumns(slope: number | null): Columns {
   const yEdge = q.map((_, i) => (i <= b.apexIndex ? b.yEdge[i] : null));
   const xEdge = q.map((_, i) => (i >= b.apexIndex && i < b.q.length ? b.xEdge[i] : null));
   const line = q.map((qi) => (slope === null ? null : slope * qi));
-  const columns: Columns = [q, yEdge, xEdge, line];
-  lastColumns = { slope, columns };
+  const iso = withIsoBeta ? isoLines(q) : ISO_BETAS.flatMap(() => [q.map(() => null), q.map(() => null)]);
+  const columns: Columns = [q, yEdge, xEdge, line, ...iso];
+  lastColumns = { key, columns };
   return columns;
 }

@@ -255,6 +255,27 @@ describe('walker', () => {
     expect(s.readings[1].withdrawn).toBe(true);
   });
 
+  it('an absolute tolerance stated in V still holds when the reading is entered in kV', () => {
+    const tree = {
+      id: 'noise' as const, title: 't', summary: 's', entry: 'M',
+      nodes: [
+        {
+          id: 'M', kind: 'measure' as const, title: 'm', text: 't',
+          measure: { quantity: 'Lens voltage', unit: 'V', altUnits: ['kV'], tool: 'read-back', how: 'read' },
+          expect: { calc: 'setPoint', inputs: [{ key: 'setPoint', label: 'Set', unit: 'V', min: -1e4, max: 1e4 }], tolerance: { kind: 'absolute' as const, pass: 1, borderline: 2 } },
+          branches: { otherwise: 'L' },
+        },
+        { id: 'L', kind: 'action' as const, title: 'l', text: 'l', steps: ['s'], closing: { kind: 're-measure-and-record' as const, what: 'v' } },
+      ],
+    };
+    const s = start(tree, null);
+    const r = answer(s, tree, { kind: 'measure', value: 0.1015, unit: 'kV', inputs: { setPoint: 100 } }).readings[0];
+    expect(r).toMatchObject({ verdict: 'borderline', side: 'high', unit: 'kV' });
+    expect(r.expected).toBeCloseTo(0.1, 12);
+    expect(r.tolerance!.passHigh).toBeCloseTo(0.101, 12);
+    expect(answer(s, tree, { kind: 'measure', value: 100.5, inputs: { setPoint: 100 } }).readings[0].verdict).toBe('pass');
+  });
+
   it('refuses answers that do not fit the node, and a state from another format', () => {
     const s = start(entry, heron);
     expect(() => answer(s, entry, { kind: 'option', optionId: 'x' })).toThrow(/acknowledgement gate/);

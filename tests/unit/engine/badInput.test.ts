@@ -187,6 +187,12 @@ const cases: Case[] = [
       readings: [null, [], [{ mz: 69, rf: 100 }], [{ mz: -1, rf: 1 }, { mz: 2, rf: 2 }], [{ mz: 69, rf: 100 }, { mz: 219, rf: NaN }], [{ mz: 69, rf: 100 }, { mz: 69, rf: 120 }]],
     },
   },
+  {
+    name: 'isoBetaCurve',
+    call: (p) => engine.isoBetaCurve(p as never),
+    valid: { beta: 0.5, direction: 'x', q: [0, 0.5] },
+    bad: { beta: [...NON_FINITE, 0, 1], direction: ['z', undefined], q: [null, [], [NaN], [-0.1], [6], 'q'] },
+  },
   { name: 'massError', call: (p) => engine.massError(p as never), valid: { setMz: 500, passedMz: 500.1 }, bad: { setMz: POSITIVE, passedMz: POSITIVE } },
   { name: 'hazardousLive', call: (p) => engine.hazardousLive(p as never), valid: { dc: 16.9, rf: 100.9, location: 'dry' }, bad: { dc: [NaN, Infinity, '1', null], rf: [NaN, -1, '1'], location: ['damp', 1] } },
   {

@@ -59,6 +59,15 @@ describe('Bench · expected voltages (Kestrel: r0 4.5 mm, 1 MHz, read-backs 0-p 
     expect(all.length).toBe(8);
   });
 
+  it('a profile reading back rms between the pairs: V shown as √2·V0p and U as 2·U (domain.md §0.2 conventions)', async () => {
+    const k = { ...demo('kestrel'), id: 'between-pairs-rms', readbackConvention: { amplitude: 'rms' as const, reference: 'between-pairs' as const } };
+    h = await mount(<Voltages />, k);
+    const v = rfForMass({ mz: 69, r0: k.rodFieldRadius, frequency: k.rfFrequency });
+    const u = dcForMass({ mz: 69, r0: k.rodFieldRadius, frequency: k.rfFrequency });
+    expect(value(card(h.root, 69), 'rf-readback')).toBe(`${formatNumber(Math.SQRT2 * v, 5)} V rms`);
+    expect(value(card(h.root, 69), 'dc-readback')).toBe(`${formatNumber(2 * u, 5)} V DC`);
+  });
+
   it('Wren (RGA) offers the residual-gas list; a low m/z like 2 stays below the hazardous levels per rod', async () => {
     const p = demo('wren');
     h = await mount(<Voltages />, p);

@@ -20,7 +20,12 @@ describe('Stability · diagram (Kestrel)', () => {
     const line = constantWidthScanLine({ width: 1, referenceMz: 219, ...g });
     const sp = scanPoint({ line, mz: 69, ...g })!;
     const band = passBandDetail({ dc: sp.dc, rf: sp.rf, ...g })!;
-    expect(texts(h.root, '[data-testid="band-interval"] .result-value')[0]).toBe(`${formatNumber(band.low, 6)} – ${formatNumber(band.high, 6)} u`);
+    expect(texts(h.root, '[data-testid="band-interval"]')[0]).toBe(`m/z ${formatNumber(band.low, 6)} – ${formatNumber(band.high, 6)} passes`);
+    expect(texts(h.root, '[data-testid="band-low"] .result-value')[0]).toBe(`${formatNumber(band.low, 6)} u`);
+    expect(texts(h.root, '[data-testid="band-high"] .result-value')[0]).toBe(`${formatNumber(band.high, 6)} u`);
+    expect(texts(h.root, '[data-testid="band-ratio"] .result-value')[0]).toBe(formatNumber(sp.dc / sp.rf, 6));
+    // The band is centred on the set m/z and is 1 u wide at the reference m/z 219 (constant-width line).
+    expect(Math.abs((band.low + band.high) / 2 - 69)).toBeLessThan(1e-6);
     const list = texts(h.root, '[data-testid="op-list"] li');
     expect(list[0]).toBe('m/z 69 (set): ✓ passes');
     for (const mz of [68, 70, 219]) {

@@ -6,6 +6,7 @@ import {
   judge,
   preview,
   previewDerived,
+  toleranceIn,
   record,
   treeById,
   UNITS,
@@ -274,7 +275,7 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
   const measuredText = typed.value ?? '';
   const measured = measuredText.trim() === '' ? null : parseNumber(measuredText, node.measure.quantity);
   const pv = node.expect ? preview(node, walk.instrument, inputs, unit, undefined, measured?.ok ? measured.value : undefined) : null;
-  const tol = node.expect?.tolerance;
+  const tol = toleranceIn(node, unit);
   let live: ReturnType<typeof judge> | null = null;
   if (pv?.ok && tol && measured?.ok) {
     try {
@@ -290,7 +291,7 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
   function submit() {
     setProblem(null);
     if (!measured || !measured.ok) {
-      setProblem(measured && !measured.ok ? measured.message : `Enter the ${node.measure.quantity.toLowerCase()}.`);
+      setProblem(measured && !measured.ok ? measured.message : `Enter the measured value: ${node.measure.quantity}.`);
       return;
     }
     if (Object.keys(inputErrors).length) {
@@ -350,7 +351,7 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
       )}
       <div class="row measure-row">
         <div class={measured && !measured.ok ? 'field has-error grow' : 'field grow'}>
-          <label for="walk-value">Measured {node.measure.quantity.toLowerCase()}</label>
+          <label for="walk-value">Measured: {node.measure.quantity}</label>
           <input id="walk-value" type="text" inputMode="decimal" autoComplete="off" value={measuredText}
             onInput={(e) => props.onTyped({ ...typed, value: (e.target as HTMLInputElement).value })} />
           {measured && !measured.ok && <p class="field-error" role="alert">{measured.message}</p>}

@@ -1,0 +1,66 @@
+// Walk readings go into the visit log as catalogue readings where the step names a type (so the visit log
+// judges and trends them), else as plain noted values; checked against the real store in fake-indexeddb.
+import 'fake-indexeddb/auto';
+import { describe, expect, it } from 'vitest';
+import { answer, enter, start, treeById, trees, type DiagnoseInstrument } from '../../../src/diagnose';
+import { catalogue } from '../../../src/store/catalogue';
+import { demoInstruments, openStore } from '../../../src/store';
+import { plainNote, visitNote } from '../../../src/ui/screens/diagnose/toVisit';
+import { freshName, registerCleanup } from '../store/helpers';
+
+registerCleanup();
+
+describe('walk readings into the visit log', () => {
+  it('every reading type a tree step names is in the visit log catalogue, in a unit of that type', () => {
+    const named = trees.flatMap((t) => t.nodes.flatMap((n) => (n.kind === 'measure' && n.measure.visitType ? [{ at: `${t.id}/${n.id}`, type: n.measure.visitType, unit: n.measure.unit }] : [])));
+    expect(named.length).toBeGreaterThanOrEqual(10);
+    for (const n of named) {
+      const type = catalogue.find((c) => c.id === n.type);
+      expect(type, `${n.at} names ${n.type}`).toBeDefined();
+    }
+  });
+
+  it('records pressure, emission and RF as catalogue readings with unit and context, the rest as noted values', async () => {
+    const store = await openStore(freshName());
+    await store.loadDemo(true);
+    const heron = demoInstruments.find((p) => p.id === 'demo-lcms-heron')!; // read-backs peak-to-peak per rod
+    const instrument: DiagnoseInstrument = heron;
+    const entry = treeById('entry');
+    const ns = treeById('no-signal');
+    let s = start(entry, instrument);
+    s = answer(s, entry, { kind: 'gate', role: 'field-engineer', confirmed: ['procedure', 'permit', 'ppe', 'lockout'] });
+    s = answer(s, entry, { kind: 'measure', value: 2e-5, unit: 'mbar' });
+    s = answer(s, entry, { kind: 'option', optionId: 'none' });
+    s = answer(s, entry, { kind: 'option', optionId: 'gradual' });
+    s = answer(s, entry, { kind: 'options', optionIds: ['no-signal'] });
+    s = enter(s, ns);
+    s = answer(s, ns, { kind: 'option', optionId: 'nothing' });
+    s = answer(s, ns, { kind: 'option', optionId: 'no-flow-ok' });
+    s = answer(s, ns, { kind: 'option', optionId: 'ei' });
+    s = answer(s, ns, { kind: 'measure', value: 48, unit: 'µA', inputs: { setPoint: 50 } });
+    s = answer(s, ns, { kind: 'option', optionId: 'plausible' });
+    s = answer(s, ns, { kind: 'option', optionId: 'output' });
+    s = answer(s, ns, { kind: 'gate', role: 'field-engineer', confirmed: ['lockout', 'ppe', 'procedure'] });
+    s = answer(s, ns, { kind: 'measure', value: 0.4, unit: 'kV', inputs: { mz: 69 } });
+
+    const notes = s.readings.map((r) => visitNote(r, instrument));
+    expect(notes.map((n) => n.typeId)).toEqual(['vacuum-high', 'emission-current', 'rf-amplitude']);
+    expect(notes[2]).toMatchObject({ unit: 'Vpp-rod', value: 400, context: { mz: 69 } });
+    for (const n of notes) await store.noteReading(heron, n);
+    const visit = (await store.listVisits(heron.id))[0];
+    const kept = await store.listReadings(visit.id);
+    const byType = Object.fromEntries(kept.map((r) => [r.typeId, r]));
+    // Base units of the catalogue: Pa; A; V zero-to-peak per rod (400 V peak-to-peak = 200 V zero-to-peak).
+    expect(byType['vacuum-high'].value).toBeCloseTo(2e-3, 12);
+    expect(byType['emission-current'].value).toBeCloseTo(48e-6, 15);
+    expect(byType['rf-amplitude'].value).toBeCloseTo(200, 9);
+    expect(byType['rf-amplitude'].context).toMatchObject({ mz: 69 });
+    // A step without a catalogue type, or an as-left value, is kept as a noted value with its own unit.
+    const plain = plainNote({ ...s.readings[1], phase: 'as-left' });
+    expect(visitNote({ ...s.readings[1], phase: 'as-left' }, instrument)).toEqual(plain);
+    const r = await store.noteReading(heron, plain);
+    expect(r.reading.typeId).toBe('noted-value');
+    expect(r.reading.context).toMatchObject({ unit: 'µA', walkStep: 'no-signal/NS3E1' });
+    store.close();
+  });
+});
