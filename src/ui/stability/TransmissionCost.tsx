@@ -5,12 +5,17 @@ import { InputRangeError } from '../../engine';
 import type { InstrumentProfile } from '../../store';
 import { isAbortError, simClient } from '../../worker/client';
 import { NumberField } from '../components/Field';
+import { peakDefaults } from '../peak/peakInputs';
 import { formatNumber } from '../format';
 import { parseNumber, usePersistentInputs } from '../bench/inputs';
 import { Result } from '../bench/NoteButton';
 
 type BeamInputs = { beamRadius: string; transverseEnergy: string };
-const beamDefaults = (_p: InstrumentProfile | null): BeamInputs => ({ beamRadius: '0.5', transverseEnergy: '0.1' });
+// The same beam the Peak area starts from, so the two areas agree until someone changes one.
+const beamDefaults = (p: InstrumentProfile | null): BeamInputs => {
+  const peak = peakDefaults(p);
+  return { beamRadius: peak.beamRadiusMm, transverseEnergy: peak.transverseEnergy };
+};
 
 type State =
   | { status: 'idle' }
