@@ -10,7 +10,7 @@ import { checkChoice, checkNumber, InputRangeError } from './validate';
 
 export interface IsoBetaCurve {
   q: Float64Array;
-  /** a on the line for each q (NaN where q is not a finite number ≥ 0 below the sample limit). */
+  /** a on the line at each q (every q is checked first, so every a is finite). */
   a: Float64Array;
 }
 
