@@ -131,6 +131,13 @@ describe('Bench and Stability, offline on a phone-sized screen', () => {
     await expect.poll(() => card69.locator('[data-testid="rf-readback"] .result-value').textContent()).toBe('100.91 V 0-p');
     expect(await card69.locator('[data-testid="dc-readback"] .result-value').textContent()).toBe('16.936 V DC');
     expect(await page.locator('[data-testid="hv-caution"]').textContent()).toMatch(/maker's procedures/);
+    // One tap notes the value in the instrument's current visit, offline.
+    await card69.locator('[data-testid="rf-readback"] button').click();
+    await expect.poll(() => page.locator('.toast').textContent()).toMatch(/^Noted in the visit of \d{4}-\d{2}-\d{2}\./);
+    // The vacuum check is one tap away in the Bench area's own navigation.
+    await page.getByRole('link', { name: 'Vacuum check' }).click();
+    await expect.poll(() => page.url()).toBe(origin + '/bench/vacuum');
+    await expect.poll(() => page.locator('[data-testid="vacuum-verdict"]').textContent()).toMatch(/^[✓~✗] (pass|borderline|fail)/);
   });
 
   it('the stability chart draws; a tap near the set m/z point shows a, q, β_x, β_y and the nearest edge', async () => {
