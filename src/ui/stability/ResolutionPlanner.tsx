@@ -2,7 +2,7 @@
 // rule, RF cycles, the n²/K limit, the largest ion energy for a wanted Δm), reverse (target m/Δm → U/V, U
 // and V), the two scan laws across the mass range, and scan planning (time and S/N gain).
 import {
-  APEX_RULE, apexRatio, CYCLE_LIMIT_CONSTANTS, constantResolutionScanLine, cycleLimitedResolution, massRangeTop,
+  APEX_RULE, apexRatio, CYCLE_LIMIT_CONSTANTS, constantResolutionScanLine, cycleLimitedResolution, hazardousLive, massRangeTop,
   maxAxialEnergy, ratioForResolution, resolutionAtRatio, scanPoint, type CycleLimitChoice,
 } from '../../engine';
 import type { InstrumentProfile } from '../../store';
@@ -14,6 +14,7 @@ import { tryEngine, type FieldErrors } from '../bench/engineErrors';
 import { parseNumber, usePersistentInputs } from '../bench/inputs';
 import { Result } from '../bench/NoteButton';
 import { convertRf } from '../../engine';
+import { HvCaution } from '../bench/HvCaution';
 import { ScanLawChart } from './ScanLawChart';
 import { ScanPlanning } from './ScanPlanning';
 import { TransmissionCost } from './TransmissionCost';
@@ -135,6 +136,10 @@ export function ResolutionPlanner() {
                   note={{ label: `DC for m/Δm ${inputs.targetR.trim()} at m/z ${mz}`, value: reversePoint.dc, unit: 'V', origin: 'calculator' }} />
               </>
             )}
+            {reversePoint && (() => {
+              const hz = hazardousLive({ dc: reversePoint.dc, rf: reversePoint.rf });
+              return hz.hazardous ? <HvCaution exceeded={hz.exceeded} /> : null;
+            })()}
             {cycles && target !== null && target > cycles.resolution && (
               <p class="notice">m/Δm {formatNumber(target, 4)} is above the RF-cycle limit n²/K ≈ {formatNumber(cycles.resolution, 4)} for these ions: the band will not close that far in practice.</p>
             )}

@@ -3,8 +3,9 @@
 // pass / not pass), zoom to the apex, tap a point to read its values, and the pass band as an m/z interval.
 import { useMemo, useRef, useState } from 'preact/hooks';
 import {
-  convertDc, convertRf, firstRegionApex, operatingPoint, passBandDetail, type OperatingPoint,
+  convertDc, convertRf, firstRegionApex, hazardousLive, operatingPoint, passBandDetail, type OperatingPoint,
 } from '../../engine';
+import { HvCaution } from '../bench/HvCaution';
 import type { InstrumentProfile } from '../../store';
 import { Chart, type uPlot } from '../components/Chart';
 import { NumberField, SelectField } from '../components/Field';
@@ -164,6 +165,10 @@ export function StabilityDiagram() {
             note={{ label: `RF at the current setting (set m/z ${inputs.setMz.trim()})`, value: convertRf(rf, 'zeroToPeakPerRod', readForm), unit: rfFormUnitId[readForm], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'rf-amplitude' }} />
           <Result label="U/V (per rod, V zero-to-peak)" value={formatNumber(dc / rf, 6)} testId="band-ratio"
             note={{ label: 'DC/RF ratio U/V at the current setting', value: dc / rf, unit: '', origin: 'calculator' }} />
+          {(() => {
+            const hz = hazardousLive({ dc, rf });
+            return hz.hazardous ? <HvCaution exceeded={hz.exceeded} /> : null;
+          })()}
           {band ? (
             <>
               <p class="big" data-testid="band-interval">
