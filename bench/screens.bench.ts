@@ -3,7 +3,7 @@
 // Figures only, no asserts.
 import {
   constantWidthScanLine, dcForMass, firstRegionBoundary, hazardousLive, operatingPoint, passBandDetail, rfForMass, scanPoint,
-  constantResolutionScanLine, resolutionAtRatio, ratioForResolution, cycleLimitedResolution,
+  constantResolutionScanLine, resolutionAtRatio, ratioForResolution, cycleLimitedResolution, massForScanRf, isoBetaCurve,
 } from '../src/engine/index';
 import { medianMs, report } from './timing';
 
@@ -19,6 +19,10 @@ export function run(): void {
     for (const mz of [69, 219, 502]) scanPoint({ line, mz, ...g });
   }), 'ms', '< 50 ms');
   report('Stability: boundary (400 points, once per session)', medianMs(() => firstRegionBoundary(400)), 'ms', '< 50 ms');
+  report('Stability: iso-β lines, 6 × 52 points (once, when shown)', medianMs(() => {
+    const qs = Array.from(firstRegionBoundary(400).q).filter((_, i) => i % 8 === 0);
+    for (const beta of [0.25, 0.5, 0.75]) for (const direction of ['x', 'y'] as const) isoBetaCurve({ beta, direction, q: qs });
+  }, 3, 1), 'ms', '< 50 ms');
   report('Stability: 5 operating points + pass band', medianMs(() => {
     for (const mz of [68, 69, 70, 219, 502]) operatingPoint({ mz, ...g, dc: 16.67, rf: 100.42 });
     passBandDetail({ dc: 16.67, rf: 100.42, ...g });
@@ -29,12 +33,8 @@ export function run(): void {
     cycleLimitedResolution({ mz: 219, rodLength: 0.15, frequency: 1e6, axialEnergy: 5 });
     scanPoint({ line: constantResolutionScanLine(1000), mz: 219, ...g });
   }), 'ms', '< 50 ms');
-  report('Resolution: scan-law chart (2 lines × 48 masses)', medianMs(() => {
+  report('Resolution: scan-law chart (64 inverse band solutions)', medianMs(() => {
     const w = constantWidthScanLine({ width: 1, referenceMz: 219, ...g });
-    const r = constantResolutionScanLine(500);
-    for (let i = 1; i <= 48; i++) {
-      scanPoint({ line: w, mz: (1096 * i) / 48, ...g });
-      scanPoint({ line: r, mz: (1096 * i) / 48, ...g });
-    }
-  }, 5, 1), 'ms', '< 50 ms');
+    for (let i = 1; i <= 64; i++) massForScanRf({ line: w, rf: (1600 * i) / 64, ...g });
+  }), 'ms', '< 50 ms');
 }

@@ -1,7 +1,7 @@
 // The two scan laws across the mass range, as U/V against m/z: constant peak width (U/V climbs towards the
 // apex as m/z grows) and constant resolution (flat), with the apex ratio above both.
 import { useMemo } from 'preact/hooks';
-import { apexRatio, constantResolutionScanLine, constantWidthScanLine, scanPoint, type ScanLine } from '../../engine';
+import { apexRatio, constantResolutionScanLine, constantWidthScanLine, massForScanRf, type ScanLine } from '../../engine';
 import type { InstrumentProfile } from '../../store';
 import { Chart, type uPlot } from '../components/Chart';
 import { NumberField } from '../components/Field';
@@ -13,14 +13,34 @@ import { Result } from '../bench/NoteButton';
 type LawInputs = { width: string; referenceMz: string; resolution: string };
 const lawDefaults = (p: InstrumentProfile | null): LawInputs => ({ width: '1', referenceMz: p?.kind === 'rga' ? '28' : '219', resolution: p?.kind === 'rga' ? '100' : '500' });
 
-const SAMPLES = 48;
+const SAMPLES = 64;
 
-function ratioAlong(line: ScanLine | null, masses: number[], r0: number, frequency: number): (number | null)[] {
-  if (!line) return masses.map(() => null);
-  return masses.map((mz) => {
-    const p = scanPoint({ line, mz, r0, frequency });
-    return p && p.rf > 0 ? p.dc / p.rf : null;
-  });
+/**
+ * Columns [m/z, U/V constant Δm, U/V constant m/Δm, apex]. Sampled in V (up to the supply's largest RF): the
+ * engine's inverse scan law gives the m/z centred at each V (one band solution each, cheap), and on a line
+ * U = λV − δ the ratio is U/V = λ − δ/V. The constant-resolution line has U/V = λ everywhere.
+ */
+export function lawColumns(widthLine: ScanLine | null, resLine: ScanLine | null, maxRf: number, top: number, r0: number, frequency: number): (number | null)[][] {
+  const masses: number[] = [];
+  const widthRatio: (number | null)[] = [];
+  if (widthLine) {
+    for (let i = 1; i <= SAMPLES; i++) {
+      const rf = (maxRf * i) / SAMPLES;
+      const mz = massForScanRf({ line: widthLine, rf, r0, frequency });
+      if (mz === null || !(mz > (masses[masses.length - 1] ?? 0))) continue;
+      masses.push(mz);
+      widthRatio.push(widthLine.slope - widthLine.offset / rf);
+    }
+  }
+  if (masses.length < 2) {
+    masses.length = 0;
+    widthRatio.length = 0;
+    for (let i = 1; i <= SAMPLES; i++) {
+      masses.push((top * i) / SAMPLES);
+      widthRatio.push(null);
+    }
+  }
+  return [masses, widthRatio, masses.map(() => resLine?.slope ?? null), masses.map(() => apexRatio())];
 }
 
 export function ScanLawChart(props: { profile: InstrumentProfile; top: number }) {
@@ -38,11 +58,11 @@ export function ScanLawChart(props: { profile: InstrumentProfile; top: number })
   const widthLine = w.ok && ref.ok ? tryEngine(() => constantWidthScanLine({ width: w.value, referenceMz: ref.value, r0, frequency }), { width: 'width', referenceMz: 'referenceMz' }, errors, 'width') : null;
   const resLine = res.ok ? tryEngine(() => constantResolutionScanLine(res.value), { resolution: 'resolution' }, errors, 'resolution') : null;
 
-  // ~100 band solutions: a few tens of ms on a phone, redone only when a setting changes.
-  const data = useMemo(() => {
-    const masses = Array.from({ length: SAMPLES }, (_, i) => (top * (i + 1)) / SAMPLES);
-    return [masses, ratioAlong(widthLine, masses, r0, frequency), ratioAlong(resLine, masses, r0, frequency), masses.map(() => apexRatio())] as unknown as uPlot.AlignedData;
-  }, [widthLine?.slope, widthLine?.offset, resLine?.slope, top, r0, frequency]);
+  // 64 inverse band solutions: a few ms, redone only when a setting changes.
+  const data = useMemo(
+    () => lawColumns(widthLine, resLine, profile.maxRfAmplitude, top, r0, frequency) as unknown as uPlot.AlignedData,
+    [widthLine?.slope, widthLine?.offset, resLine?.slope, top, r0, frequency, profile.maxRfAmplitude],
+  );
 
   const options = useMemo((): Omit<uPlot.Options, 'width' | 'height'> => {
     const style = typeof getComputedStyle === 'function' ? getComputedStyle(document.documentElement) : null;
@@ -89,7 +109,7 @@ export function ScanLawChart(props: { profile: InstrumentProfile; top: number })
         <Result label="Constant-m/Δm line" value={`U = ${formatNumber(resLine.slope, 7)}·V`}
           note={{ label: `Constant-resolution scan line slope (m/Δm ${inputs.resolution.trim()})`, value: resLine.slope, unit: '', origin: 'calculator' }} />
       )}
-      <p class="hint">Gaps in the constant-Δm line mark masses where the band cannot be that wide (Δm close to m).</p>
+      <p class="hint">The constant-Δm line starts where its DC turns positive (U = λ·V − δ &gt; 0); below that m/z it cannot give that width.</p>
     </div>
   );
 }

@@ -66,3 +66,26 @@ describe('Stability · diagram (Kestrel)', () => {
     expect(h.root.querySelector('#stab-u-error')?.textContent).toMatch(/Measured U: “x” is not a number/);
   });
 });
+
+describe('Resolution · scan-law columns', () => {
+  it('U/V on the constant-Δm line at each sampled m/z agrees with the engine’s forward scan point there', async () => {
+    const { lawColumns } = await import('../../../src/ui/stability/ScanLawChart');
+    const { constantResolutionScanLine, massRangeTop, apexRatio } = await import('../../../src/engine');
+    const k = demo('kestrel');
+    const g = { r0: k.rodFieldRadius, frequency: k.rfFrequency };
+    const width = constantWidthScanLine({ width: 1, referenceMz: 219, ...g });
+    const res = constantResolutionScanLine(500);
+    const top = massRangeTop({ maxRf: k.maxRfAmplitude, ...g });
+    const [mz, widthRatio, resRatio, apex] = lawColumns(width, res, k.maxRfAmplitude, top, g.r0, g.frequency);
+    expect(mz.length).toBeGreaterThan(40);
+    for (let i = 0; i < mz.length; i += 7) {
+      const p = scanPoint({ line: width, mz: mz[i]!, ...g })!;
+      expect(Math.abs(p.dc / p.rf - widthRatio[i]!)).toBeLessThan(1e-9);
+      expect(resRatio[i]).toBe(res.slope);
+      expect(apex[i]).toBe(apexRatio());
+    }
+    // m/z rises along the samples and ends near the top of the mass range.
+    for (let i = 1; i < mz.length; i++) expect(mz[i]!).toBeGreaterThan(mz[i - 1]!);
+    expect(Math.abs(mz[mz.length - 1]! - top) / top).toBeLessThan(0.01);
+  });
+});
