@@ -6,7 +6,8 @@ import { HAZARDOUS_LIVE_LEVELS, HAZARDOUS_LIVE_SOURCE } from '../../engine';
 import { IconCaution } from '../components/icons';
 import { SafetyCards } from '../screens/diagnose/SafetyCards';
 
-export function HvCaution(props: { exceeded?: string[] }) {
+/** `compact` keeps the levels, the deferral and the cards (for screens where the voltages are not the main answer). */
+export function HvCaution(props: { exceeded?: string[]; compact?: boolean }) {
   const dry = HAZARDOUS_LIVE_LEVELS.dry;
   const wet = HAZARDOUS_LIVE_LEVELS.wet;
   return (
@@ -15,12 +16,12 @@ export function HvCaution(props: { exceeded?: string[] }) {
       <p>
         Above {dry.rms} V rms, {dry.peak} V peak or {dry.dc} V DC (dry; wet: {wet.rms} V rms, {wet.peak} V peak, {wet.dc} V DC) a part is
         treated as hazardous live ({HAZARDOUS_LIVE_SOURCE}).
-        {props.exceeded && props.exceeded.length > 0 && <> Exceeded here: {props.exceeded.join('; ')}.</>}
+        {!props.compact && props.exceeded && props.exceeded.length > 0 && <> Exceeded here: {props.exceeded.join('; ')}.</>}
       </p>
-      <ul>
+      {!props.compact && <ul>
         <li>Read RF at the instrument's monitor point, or with a low-capacitance probe rated for the voltage at that frequency, clipped on with the power off.</li>
         <li>RF near 1 MHz burns with little warning; keep hands clear while energised. Supplies and RF tanks hold charge after switch-off: verify before touching.</li>
-      </ul>
+      </ul>}
       <p class="safety-deferral">{DEFERRAL}</p>
       <SafetyCards ids={['high-voltage', 'rf', 'stored-charge']} />
     </div>

@@ -138,7 +138,7 @@ export function ResolutionPlanner() {
             )}
             {reversePoint && (() => {
               const hz = hazardousLive({ dc: reversePoint.dc, rf: reversePoint.rf });
-              return hz.hazardous ? <HvCaution exceeded={hz.exceeded} /> : null;
+              return hz.hazardous ? <HvCaution compact /> : null;
             })()}
             {cycles && target !== null && target > cycles.resolution && (
               <p class="notice">m/Δm {formatNumber(target, 4)} is above the RF-cycle limit n²/K ≈ {formatNumber(cycles.resolution, 4)} for these ions: the band will not close that far in practice.</p>

@@ -165,10 +165,6 @@ export function StabilityDiagram() {
             note={{ label: `RF at the current setting (set m/z ${inputs.setMz.trim()})`, value: convertRf(rf, 'zeroToPeakPerRod', readForm), unit: rfFormUnitId[readForm], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'rf-amplitude' }} />
           <Result label="U/V (per rod, V zero-to-peak)" value={formatNumber(dc / rf, 6)} testId="band-ratio"
             note={{ label: 'DC/RF ratio U/V at the current setting', value: dc / rf, unit: '', origin: 'calculator' }} />
-          {(() => {
-            const hz = hazardousLive({ dc, rf });
-            return hz.hazardous ? <HvCaution exceeded={hz.exceeded} /> : null;
-          })()}
           {band ? (
             <>
               <p class="big" data-testid="band-interval">
@@ -192,6 +188,7 @@ export function StabilityDiagram() {
           ) : (
             <p data-testid="band-interval"><span class="verdict verdict-fail">✗ nothing passes</span> U/V is at or above the apex ratio: no m/z is stable in both directions.</p>
           )}
+          {hazardousLive({ dc, rf }).hazardous && <HvCaution compact />}
         </div>
       )}
 
