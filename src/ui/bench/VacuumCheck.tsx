@@ -69,13 +69,13 @@ export function VacuumCheck() {
       <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="vac-title">
         <h2 class="card-title" id="vac-title">Vacuum check {instrument && <span class="muted">· {instrument.name}</span>}</h2>
         <div class="pair">
-          <NumberField id="vac-reading" label="Ion-gauge reading (N2-equivalent)" value={inputs.reading} error={errors.reading} onInput={(t) => update({ reading: t })} hint="e.g. 1.5e-5" />
+          <NumberField id="vac-reading" inputMode="text" label="Ion-gauge reading (N2-equivalent)" value={inputs.reading} error={errors.reading} onInput={(t) => update({ reading: t })} hint="e.g. 1.5e-5" />
           <SelectField id="vac-unit" label="Unit" value={unit} options={PRESSURE_UNITS.map((u) => ({ value: u, label: u }))} onChange={(v) => update({ unit: v })} />
         </div>
         <SelectField id="vac-gas" label="Gas in the analyser" value={gas}
           options={GAUGE_GASES.map((g) => ({ value: g, label: `${g} (gauge sensitivity ${ION_GAUGE_SENSITIVITY[g]})` }))} onChange={(v) => update({ gas: v })} />
         <div class="pair">
-          <NumberField id="vac-temp" label="Gas temperature" unit="°C" value={inputs.temperature} error={errors.temperature} onInput={(t) => update({ temperature: t })} />
+          <NumberField id="vac-temp" inputMode="text" label="Gas temperature" unit="°C" value={inputs.temperature} error={errors.temperature} onInput={(t) => update({ temperature: t })} />
           <NumberField id="vac-length" label="Rod length" unit="mm" value={inputs.rodLength} error={errors.rodLength} onInput={(t) => update({ rodLength: t })} />
         </div>
         <p class="hint">Hot-cathode gauges read N2-equivalent: true pressure = reading / relative sensitivity ({ION_GAUGE_SOURCE}; gauges differ by up to ±15 %). Pirani gauges follow a different pattern: use the gauge's own curve.</p>

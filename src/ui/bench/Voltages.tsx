@@ -66,7 +66,7 @@ export function Voltages() {
 
       <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="expected-title">
         <h2 class="card-title" id="expected-title">Expected voltages</h2>
-        <NumberField id="bench-mz" label="m/z (one or a list)" value={inputs.mzList} error={errors.mz} onInput={(t) => update({ mzList: t })}
+        <NumberField id="bench-mz" inputMode="text" label="m/z (one or a list)" value={inputs.mzList} error={errors.mz} onInput={(t) => update({ mzList: t })}
           hint="Separate values with commas or spaces." />
         <div class="row" role="group" aria-label="Ion lists">
           {ionListsFor(profile).map((l) => (

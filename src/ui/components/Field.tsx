@@ -16,6 +16,8 @@ export function NumberField(props: {
   error?: string | null;
   hint?: ComponentChildren;
   name?: string;
+  /** Keyboard on phones: 'decimal' (default) has no minus, exponent or list separators; use 'text' for those. */
+  inputMode?: 'decimal' | 'text' | 'numeric';
 }) {
   const errorId = `${props.id}-error`;
   const hintId = `${props.id}-hint`;
@@ -30,7 +32,7 @@ export function NumberField(props: {
         id={props.id}
         name={props.name ?? props.id}
         type="text"
-        inputMode="decimal"
+        inputMode={props.inputMode ?? 'decimal'}
         autoComplete="off"
         spellcheck={false}
         value={props.value}

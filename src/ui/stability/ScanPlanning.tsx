@@ -47,7 +47,7 @@ export function ScanPlanning() {
       )
     : null;
   const field = (key: keyof PlanInputs, id: string, unit?: string) => (
-    <NumberField id={id} label={labels[key][0]} unit={unit} value={inputs[key]} error={errors[key]} onInput={(t) => update({ [key]: t } as Partial<PlanInputs>)} />
+    <NumberField id={id} inputMode={key === 'countRate' ? 'text' : 'decimal'} label={labels[key][0]} unit={unit} value={inputs[key]} error={errors[key]} onInput={(t) => update({ [key]: t } as Partial<PlanInputs>)} />
   );
   const ctx = { from: inputs.mzStart.trim(), to: inputs.mzEnd.trim(), step: inputs.step.trim(), dwellMs: inputs.dwell.trim(), scans: inputs.scans.trim() };
   return (

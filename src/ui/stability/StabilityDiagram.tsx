@@ -144,13 +144,13 @@ export function StabilityDiagram() {
         <NumberField id="stab-set" label="Set m/z" unit="u" value={inputs.setMz} error={errors.setMz} onInput={(t) => update({ setMz: t })} />
         {inputs.source === 'measured' ? (
           <div class="pair">
-            <NumberField id="stab-u" label={`U (${dcFormWords[readDc]})`} unit="V" value={inputs.measuredU} error={errors.measuredU} onInput={(t) => update({ measuredU: t })} />
+            <NumberField id="stab-u" inputMode="text" label={`U (${dcFormWords[readDc]})`} unit="V" value={inputs.measuredU} error={errors.measuredU} onInput={(t) => update({ measuredU: t })} />
             <NumberField id="stab-v" label={`V (${rfFormWords[readForm]})`} unit={rfFormUnit[readForm]} value={inputs.measuredV} error={errors.measuredV} onInput={(t) => update({ measuredV: t })} />
           </div>
         ) : (
           <ScanLineFields idPrefix="stab" values={inputs} errors={errors} onChange={update} />
         )}
-        <NumberField id="stab-list" label="Other m/z to place on the diagram" value={inputs.mzList} error={errors.mzList} onInput={(t) => update({ mzList: t })}
+        <NumberField id="stab-list" inputMode="text" label="Other m/z to place on the diagram" value={inputs.mzList} error={errors.mzList} onInput={(t) => update({ mzList: t })}
           hint="Neighbours of the set m/z show which side of the band they fall on." />
         {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
       </form>
