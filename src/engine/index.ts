@@ -63,3 +63,4 @@ export * from './scanPlanning';
 export * from './proportionality';
 export * from './hazardousLive';
 export * from './isoBeta';
+export { leastSquares, type LinearFit } from './linearFit';

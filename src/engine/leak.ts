@@ -11,6 +11,7 @@
  */
 
 import { ION_GAUGE_SENSITIVITY } from './ionGauge';
+import { leastSquares } from './linearFit';
 import { checkNumber, InputRangeError } from './validate';
 
 // Input checks through the engine's validation helper: messages name the field, the value and the range.
@@ -230,21 +231,10 @@ export interface RateOfRiseResult {
   reason: string;
 }
 
-/** Least-squares slope and intercept of y on x. */
+/** Least-squares slope, intercept and r² of y on x (times are checked to increase, so x always varies). */
 function linearFit(xs: number[], ys: number[]): { slope: number; intercept: number; rSquared: number } {
-  const n = xs.length;
-  let sx = 0, sy = 0;
-  for (let i = 0; i < n; i++) { sx += xs[i]; sy += ys[i]; }
-  const mx = sx / n, my = sy / n;
-  let sxx = 0, sxy = 0, syy = 0;
-  for (let i = 0; i < n; i++) {
-    const dx = xs[i] - mx, dy = ys[i] - my;
-    sxx += dx * dx; sxy += dx * dy; syy += dy * dy;
-  }
-  const slope = sxy / sxx;
-  const intercept = my - slope * mx;
-  const rSquared = syy === 0 ? 1 : (sxy * sxy) / (sxx * syy);
-  return { slope, intercept, rSquared };
+  const fit = leastSquares(xs, ys)!;
+  return { slope: fit.slope, intercept: fit.intercept, rSquared: fit.r2 };
 }
 
 function checkSeries(field: string, samples: PressureSample[], minCount: number, strictlyPositiveTime: boolean): PressureSample[] {

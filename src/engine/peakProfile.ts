@@ -48,7 +48,7 @@ export interface PeakProfile {
   /** Error bound per point (sampling bracket + phase-rule estimate); deterministic, so no 1σ. */
   errorBound: Float64Array;
   /**
-   * m/Δm at 50 % and 10 % of the highest sampled point; NaN when the peak does not fall to that level inside the
+   * m/Δm at 50 % and 10 % of the highest sampled point; 0 (no width can be measured — never NaN) when the peak does not fall to that level inside the
    * range, or when there is no measurable peak (height ≤ 10 × its error bound, or ≤ 1e-9).
    */
   resolution50: number;
@@ -125,15 +125,15 @@ export function peakProfile(p: PeakProfileParams, options: PeakProfileOptions = 
   let worstBound = 0;
   for (let i = 0; i < n; i++) worstBound = Math.max(worstBound, errorBound[i]);
   if (!(widths.peakTransmission > 10 * worstBound && widths.peakTransmission > 1e-9)) {
-    widths.resolution50 = Number.NaN;
-    widths.resolution10 = Number.NaN;
+    widths.resolution50 = 0;
+    widths.resolution10 = 0;
   }
   return { mz, transmission, errorBound, ...widths };
 }
 
 /**
  * Resolution m/Δm from a sampled peak: Δm between the outermost crossings of the level (linear interpolation
- * between samples) around the highest point; m = midpoint of the 50 % crossings. NaN when the profile does not
+ * between samples) around the highest point; m = midpoint of the 50 % crossings. 0 (not measurable) when the profile does not
  * drop below the level on both sides within the range (the peak is cut off) or has no height.
  */
 export function peakWidths(mz: ArrayLike<number>, t: ArrayLike<number>): {
@@ -160,13 +160,13 @@ export function peakWidths(mz: ArrayLike<number>, t: ArrayLike<number>): {
     const at = (a: number, b: number): number => mz[a] + ((level - t[a]) / (t[b] - t[a])) * (mz[b] - mz[a]);
     return [at(left, left + 1), at(right, right - 1)];
   };
-  if (!(height > 0)) return { resolution50: Number.NaN, resolution10: Number.NaN, peakTransmission: 0, peakMz: mz[top] };
+  if (!(height > 0)) return { resolution50: 0, resolution10: 0, peakTransmission: 0, peakMz: mz[top] };
   const half = crossing(0.5 * height);
   const tenth = crossing(0.1 * height);
   const centre = half ? 0.5 * (half[0] + half[1]) : mz[top];
   return {
-    resolution50: half ? centre / (half[1] - half[0]) : Number.NaN,
-    resolution10: tenth ? centre / (tenth[1] - tenth[0]) : Number.NaN,
+    resolution50: half ? centre / (half[1] - half[0]) : 0,
+    resolution10: tenth ? centre / (tenth[1] - tenth[0]) : 0,
     peakTransmission: height,
     peakMz: mz[top],
   };
@@ -237,7 +237,7 @@ export interface TransmissionVsResolution {
 
 /**
  * Step U/V towards the apex at fixed V and record the highest transmission of the peak against its resolution.
- * Ratios past the apex (no stable band) give T = 0 and R = NaN. Each peak's window is its stable band widened by
+ * Ratios past the apex (no stable band) give T = 0 and R = 0 (not measurable). Each peak's window is its stable band widened by
  * half its width plus the finite-flight tail m·20/n² on each side.
  */
 export function transmissionVsResolution(
@@ -258,8 +258,8 @@ export function transmissionVsResolution(
     ratio: Float64Array.from(ratios),
     dc: new Float64Array(k),
     rf: new Float64Array(k).fill(rf),
-    resolution50: new Float64Array(k).fill(Number.NaN),
-    resolution10: new Float64Array(k).fill(Number.NaN),
+    resolution50: new Float64Array(k).fill(0),
+    resolution10: new Float64Array(k).fill(0),
     peakTransmission: new Float64Array(k),
   };
   // Flight length at the nominal m/z (for the window's tail allowance); validates the beam settings too.

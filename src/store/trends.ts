@@ -11,43 +11,9 @@ export const SECONDS_PER_MONTH = (365.2425 / 12) * 86400;
 /** Used when a profile does not state its multiplier supply's limit: top of the usual discrete-dynode range (common practice). */
 export const DEFAULT_MULTIPLIER_LIMIT = 3000;
 
-export interface LinearFit {
-  n: number;
-  slope: number;
-  intercept: number;
-  /** Coefficient of determination; 1 for a perfect line, NaN-free (0 when y does not vary). */
-  r2: number;
-  /** Residual standard deviation, √(SSres/(n−2)); 0 for n = 2. */
-  residualStd: number;
-}
-
-/**
- * Ordinary least squares y = intercept + slope·x. x is centred before summing, because epoch seconds
- * (~1.7e9) squared lose digits in double precision. Returns undefined for fewer than two points or when
- * all x are equal (no line is defined).
- */
-export function leastSquares(xs: ArrayLike<number>, ys: ArrayLike<number>): LinearFit | undefined {
-  const n = Math.min(xs.length, ys.length);
-  if (n < 2) return undefined;
-  let sx = 0, sy = 0;
-  for (let i = 0; i < n; i++) { sx += xs[i]; sy += ys[i]; }
-  const mx = sx / n, my = sy / n;
-  let sxx = 0, sxy = 0, syy = 0;
-  for (let i = 0; i < n; i++) {
-    const dx = xs[i] - mx, dy = ys[i] - my;
-    sxx += dx * dx; sxy += dx * dy; syy += dy * dy;
-  }
-  if (!(sxx > 0)) return undefined;
-  const slope = sxy / sxx;
-  const intercept = my - slope * mx;
-  let ssRes = 0;
-  for (let i = 0; i < n; i++) {
-    const r = ys[i] - (intercept + slope * xs[i]);
-    ssRes += r * r;
-  }
-  const r2 = syy > 0 ? Math.max(0, 1 - ssRes / syy) : 0;
-  return { n, slope, intercept, r2, residualStd: n > 2 ? Math.sqrt(ssRes / (n - 2)) : 0 };
-}
+export { leastSquares, type LinearFit } from '../engine/linearFit';
+import type { LinearFit } from '../engine/linearFit';
+import { leastSquares } from '../engine/linearFit';
 
 export interface Projection {
   limit: number;

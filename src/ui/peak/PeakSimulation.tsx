@@ -81,7 +81,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     const rows: Array<[number, number]> = [];
     const r = curve.result;
     for (let i = 0; i < r.ratio.length; i++) {
-      if (Number.isFinite(r.resolution50[i]) && r.peakTransmission[i] > 0) rows.push([r.resolution50[i], 100 * r.peakTransmission[i]]);
+      if (r.resolution50[i] > 0 && r.peakTransmission[i] > 0) rows.push([r.resolution50[i], 100 * r.peakTransmission[i]]);
     }
     rows.sort((a, b) => a[0] - b[0]);
     return [rows.map((x) => x[0]), rows.map((x) => x[1])] as [number[], number[]];
@@ -168,11 +168,11 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
           <>
             <Result label="Peak transmission" value={`${formatNumber(100 * result.peakTransmission, 3)} % at m/z ${formatNumber(result.peakMz, 6)}`} testId="peak-transmission"
               note={{ label: `Simulated peak transmission at m/z ${mzText}`, value: 100 * result.peakTransmission, unit: '%', origin: 'calculator', context: ctx }} />
-            <Result label="Resolution m/Δm at 50 % height" value={Number.isFinite(result.resolution50) ? formatNumber(result.resolution50, 4) : 'no measurable width in this range'} testId="peak-r50"
-              note={Number.isFinite(result.resolution50) ? { label: `Simulated resolution (50 %) at m/z ${mzText}`, value: result.resolution50, unit: '', origin: 'calculator', context: ctx } : null} />
-            <Result label="Resolution m/Δm at 10 % height" value={Number.isFinite(result.resolution10) ? formatNumber(result.resolution10, 4) : 'no measurable width in this range'} testId="peak-r10"
-              note={Number.isFinite(result.resolution10) ? { label: `Simulated resolution (10 %) at m/z ${mzText}`, value: result.resolution10, unit: '', origin: 'calculator', context: ctx } : null} />
-            {run && Number.isFinite(result.resolution10) && (
+            <Result label="Resolution m/Δm at 50 % height" value={result.resolution50 > 0 ? formatNumber(result.resolution50, 4) : 'no measurable width in this range'} testId="peak-r50"
+              note={result.resolution50 > 0 ? { label: `Simulated resolution (50 %) at m/z ${mzText}`, value: result.resolution50, unit: '', origin: 'calculator', context: ctx } : null} />
+            <Result label="Resolution m/Δm at 10 % height" value={result.resolution10 > 0 ? formatNumber(result.resolution10, 4) : 'no measurable width in this range'} testId="peak-r10"
+              note={result.resolution10 > 0 ? { label: `Simulated resolution (10 %) at m/z ${mzText}`, value: result.resolution10, unit: '', origin: 'calculator', context: ctx } : null} />
+            {run && result.resolution10 > 0 && (
               <p class="hint" data-testid="peak-k">
                 RF-cycles view: n²/(m/Δm at 10 %) = {formatNumber((run.cycles * run.cycles) / result.resolution10, 3)} for n = {formatNumber(run.cycles, 4)} cycles
                 {' '}(the n²/K rule quotes K ≈ 12–20 for the base width; Paul, Reinhard &amp; von Zahn 1958 via Dawson 1976 and later reviews, from memory).

@@ -60,9 +60,13 @@ function LeakCheck() {
   return (
     <LeakCheckPanel
       typed={current}
-      onTyped={(t) => {
-        setTyped(t);
-        void store?.putDraft(LEAK_DRAFT_KEY, t).catch(() => undefined);
+      onTyped={(patch) => {
+        // Merge into the latest copy: two inputs in one frame must not overwrite each other.
+        setTyped((cur) => {
+          const next = { ...(cur ?? {}), ...patch };
+          void store?.putDraft(LEAK_DRAFT_KEY, next).catch(() => undefined);
+          return next;
+        });
       }}
     />
   );
@@ -298,9 +302,9 @@ function Walk() {
         walk={walk}
         tree={tree}
         typed={typed}
-        onTyped={(t) => {
+        onTyped={(patch) => {
           const d = latest.current!;
-          save({ ...d, typed: { ...d.typed, [key]: t } });
+          save({ ...d, typed: { ...d.typed, [key]: { ...(d.typed[key] ?? {}), ...patch } } });
         }}
         onWalk={(w) => {
           setResumed(false);

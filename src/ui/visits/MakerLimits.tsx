@@ -33,7 +33,7 @@ export function MakerLimits(props: { instrument: InstrumentProfile; types: Readi
       const r = await store.saveMakerLimit(props.instrument.id, draft);
       if (!r.ok) { setErrors(r.errors); return; }
       setErrors({});
-      setDraft({ ...draft, low: '', high: '', source: '' });
+      setDraft((d) => ({ ...d, low: '', high: '', source: '' }));
       notify('Limit saved: new readings of this type are judged against it.');
       load();
     } catch (err) {
@@ -55,7 +55,7 @@ export function MakerLimits(props: { instrument: InstrumentProfile; types: Readi
     <div class={errors[key] ? 'field has-error' : 'field'}>
       <label for={`limit-${key}`}>{label}</label>
       <input id={`limit-${key}`} type="text" inputMode={numeric ? 'decimal' : 'text'} autoComplete="off" value={draft[key]}
-        aria-invalid={errors[key] ? 'true' : 'false'} onInput={(e) => setDraft({ ...draft, [key]: (e.target as HTMLInputElement).value })} />
+        aria-invalid={errors[key] ? 'true' : 'false'} onInput={(e) => setDraft((d) => ({ ...d, [key]: (e.target as HTMLInputElement).value }))} />
       {errors[key] && <p class="field-error" role="alert">{errors[key]}</p>}
     </div>
   );
@@ -79,14 +79,14 @@ export function MakerLimits(props: { instrument: InstrumentProfile; types: Readi
           <label for="limit-type">Reading</label>
           <select id="limit-type" value={draft.typeId} onChange={(e) => {
             const t = types.find((x) => x.id === (e.target as HTMLSelectElement).value)!;
-            setDraft({ ...draft, typeId: t.id, unitId: t.defaultUnit });
+            setDraft((d) => ({ ...d, typeId: t.id, unitId: t.defaultUnit }));
           }}>
             {types.map((t) => <option key={t.id} value={t.id}>{t.label}</option>)}
           </select>
         </div>
         <div class="field">
           <label for="limit-unit">Unit</label>
-          <select id="limit-unit" value={draft.unitId} onChange={(e) => setDraft({ ...draft, unitId: (e.target as HTMLSelectElement).value })}>
+          <select id="limit-unit" value={draft.unitId} onChange={(e) => setDraft((d) => ({ ...d, unitId: (e.target as HTMLSelectElement).value }))}>
             {type?.units.map((u) => <option key={u.id} value={u.id}>{u.label}</option>)}
           </select>
         </div>

@@ -48,21 +48,21 @@ export function OwnTypeForm(props: { onAdded: (t: ReadingType) => void }) {
           <div key={f.key} class={errors[f.key] ? 'field has-error' : 'field'}>
             <label for={`own-${f.key}`}>{f.label}{(f.key === 'pass' || f.key === 'borderline') && <span class="unit"> ({unitWord})</span>}</label>
             <input id={`own-${f.key}`} type="text" inputMode={f.numeric ? 'decimal' : 'text'} autoComplete="off" value={draft[f.key]}
-              aria-invalid={errors[f.key] ? 'true' : 'false'} onInput={(e) => setDraft({ ...draft, [f.key]: (e.target as HTMLInputElement).value })} />
+              aria-invalid={errors[f.key] ? 'true' : 'false'} onInput={(e) => setDraft((d) => ({ ...d, [f.key]: (e.target as HTMLInputElement).value }))} />
             {f.hint && <p class="hint">{f.hint}</p>}
             {errors[f.key] && <p class="field-error" role="alert">{errors[f.key]}</p>}
           </div>
         ))}
         <div class="field">
           <label for="own-toleranceKind">Tolerance is</label>
-          <select id="own-toleranceKind" value={draft.toleranceKind} onChange={(e) => setDraft({ ...draft, toleranceKind: (e.target as HTMLSelectElement).value })}>
+          <select id="own-toleranceKind" value={draft.toleranceKind} onChange={(e) => setDraft((d) => ({ ...d, toleranceKind: (e.target as HTMLSelectElement).value }))}>
             <option value="relative">a percentage of the expected value</option>
             <option value="absolute">an amount in the reading’s unit</option>
           </select>
         </div>
         <div class="field">
           <label for="own-badSide">Which way is bad</label>
-          <select id="own-badSide" value={draft.badSide} onChange={(e) => setDraft({ ...draft, badSide: (e.target as HTMLSelectElement).value })}>
+          <select id="own-badSide" value={draft.badSide} onChange={(e) => setDraft((d) => ({ ...d, badSide: (e.target as HTMLSelectElement).value }))}>
             <option value="both">too high or too low</option>
             <option value="high">only too high</option>
             <option value="low">only too low</option>

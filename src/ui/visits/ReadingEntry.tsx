@@ -194,13 +194,13 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
             {f.label}{f.key === 'setpoint' ? <span class="unit"> ({unit.label})</span> : f.unit ? <span class="unit"> ({f.unit})</span> : null}
           </label>
           {f.kind === 'choice' ? (
-            <select id={`reading-${f.key}`} value={draft.context[f.key] ?? ''} onChange={(ev) => update({ context: { ...draft.context, [f.key]: (ev.target as HTMLSelectElement).value } })}>
+            <select id={`reading-${f.key}`} value={draft.context[f.key] ?? ''} onChange={(ev) => update({ context: { ...latest.current!.context, [f.key]: (ev.target as HTMLSelectElement).value } })}>
               {f.choices!.map((c) => <option key={c.value} value={c.value}>{c.label}</option>)}
             </select>
           ) : (
             <input id={`reading-${f.key}`} type="text" inputMode={f.kind === 'number' ? 'decimal' : 'text'} autoComplete="off"
               value={draft.context[f.key] ?? ''} aria-invalid={errors[f.key] ? 'true' : 'false'}
-              onInput={(ev) => update({ context: { ...draft.context, [f.key]: (ev.target as HTMLInputElement).value } })} />
+              onInput={(ev) => update({ context: { ...latest.current!.context, [f.key]: (ev.target as HTMLInputElement).value } })} />
           )}
           {f.help && <p class="hint">{f.help}</p>}
           {errors[f.key] && <p class="field-error" role="alert">{errors[f.key]}</p>}

@@ -218,6 +218,7 @@ const cases: Case[] = [
     valid: { ...beam, mzFrom: 499, mzTo: 501, points: 5 },
     bad: { mzFrom: [...NON_FINITE, -1], mzTo: [NaN, 498], points: [NaN, 1, 2.5, -3], r0: POSITIVE, rodLength: POSITIVE, axialVoltage: POSITIVE },
   },
+  { name: 'leastSquares', call: (p) => engine.leastSquares(p.xs as number[], p.ys as number[]), valid: { xs: [0, 1, 2], ys: [1, 2, 4] }, bad: { xs: [null, [0, NaN, 2], [0, Infinity, 2], [0, '1', 2]], ys: [undefined, [1, NaN, 4]] } },
   { name: 'seededRandom', call: (p) => engine.seededRandom(p.seed as number), valid: { seed: 42 }, bad: { seed: [NaN, Infinity, '1', null, 1.5] } },
   { name: 'peakWidths', call: (p) => engine.peakWidths(p.mz as never, p.transmission as never), valid: { mz: [1, 2, 3], transmission: [0, 1, 0] }, bad: { mz: [[], [1], null, [1, NaN, 3], [3, 2, 1]], transmission: [[0, 1], null, [0, -1, 0], [0, NaN, 0]] } },
   { name: 'stableInterval', call: (p) => engine.stableInterval(p as never, p.inside as number), valid: { ...beam, rf: 577, dc: 96, inside: 500 }, bad: { r0: POSITIVE, frequency: POSITIVE, rf: [NaN, -1], dc: [NaN, Infinity], inside: POSITIVE } },

@@ -58,9 +58,10 @@ function attempt<T>(fn: () => T): { ok: true; value: T } | { ok: false; message:
 }
 
 /** Leak check: ratios from peak heights, rate of rise, and the outgassing-or-leak fit. Typed values live in the caller's draft. */
-export function LeakCheckPanel(props: { typed: LeakTyped; onTyped: (t: LeakTyped) => void }) {
+/** `onTyped` receives only the fields that changed; the owner merges them into its latest copy. */
+export function LeakCheckPanel(props: { typed: LeakTyped; onTyped: (patch: LeakTyped) => void }) {
   const { typed, onTyped } = props;
-  const set = (k: string) => (e: Event) => onTyped({ ...typed, [k]: (e.target as HTMLInputElement | HTMLTextAreaElement).value });
+  const set = (k: string) => (e: Event) => onTyped({ [k]: (e.target as HTMLInputElement | HTMLTextAreaElement).value });
 
   // Peak ratios.
   const peakErrors: Record<string, string> = {};

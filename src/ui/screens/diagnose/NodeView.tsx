@@ -34,7 +34,8 @@ export interface NodeViewProps {
   walk: WalkState;
   tree: Tree;
   typed: Typed;
-  onTyped: (t: Typed) => void;
+  /** A change to some of this step's typed fields; the screen merges it into the latest copy. */
+  onTyped: (patch: Typed) => void;
   onWalk: (w: WalkState) => void;
   onFinish: () => void;
 }
@@ -129,7 +130,7 @@ function ChoiceView(props: NodeViewProps & { node: QuestionNode | ChoiceNode }) 
                 onChange={(e) => {
                   const on = (e.target as HTMLInputElement).checked;
                   const next = on ? [...picked, o.id] : picked.filter((x) => x !== o.id);
-                  props.onTyped({ ...props.typed, picked: next.join(',') });
+                  props.onTyped({ picked: next.join(',') });
                 }}
               />
               <span>{o.label}</span>
@@ -170,11 +171,11 @@ function ChoiceView(props: NodeViewProps & { node: QuestionNode | ChoiceNode }) 
   );
 }
 
-function NoteField(props: { typed: Typed; onTyped: (t: Typed) => void }) {
+function NoteField(props: { typed: Typed; onTyped: (patch: Typed) => void }) {
   return (
     <div class="field">
       <label for="walk-note">Note (optional)</label>
-      <textarea id="walk-note" rows={2} value={props.typed.note ?? ''} onInput={(e) => props.onTyped({ ...props.typed, note: (e.target as HTMLTextAreaElement).value })} />
+      <textarea id="walk-note" rows={2} value={props.typed.note ?? ''} onInput={(e) => props.onTyped({ note: (e.target as HTMLTextAreaElement).value })} />
     </div>
   );
 }
@@ -197,7 +198,7 @@ function GateView(props: NodeViewProps & { node: GateNode }) {
         <legend>Your role</legend>
         {allRoles.map((r) => (
           <label key={r} class="check-row">
-            <input type="radio" name={`role-${node.id}`} checked={role === r} onChange={() => props.onTyped({ ...typed, role: r })} />
+            <input type="radio" name={`role-${node.id}`} checked={role === r} onChange={() => props.onTyped({ role: r })} />
             <span>{ROLE_LABEL[r]}{!node.roles.includes(r) && <span class="hint"> — not for this step</span>}</span>
           </label>
         ))}
@@ -212,7 +213,7 @@ function GateView(props: NodeViewProps & { node: GateNode }) {
               onChange={(e) => {
                 const on = (e.target as HTMLInputElement).checked;
                 const next = on ? [...confirmed, a] : confirmed.filter((x) => x !== a);
-                props.onTyped({ ...typed, confirmed: next.join(',') });
+                props.onTyped({ confirmed: next.join(',') });
               }}
             />
             <span>{ASK_LABEL[a]}</span>
@@ -327,7 +328,7 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
         <div key={i.key} class={inputErrors[i.key] ? 'field has-error' : 'field'}>
           <label for={`in-${i.key}`}>{i.label}<span class="unit"> ({i.unit})</span></label>
           <input id={`in-${i.key}`} type="text" inputMode="decimal" autoComplete="off" value={inputText(i.key, i.default)}
-            onInput={(e) => props.onTyped({ ...typed, [`in:${i.key}`]: (e.target as HTMLInputElement).value })} />
+            onInput={(e) => props.onTyped({ [`in:${i.key}`]: (e.target as HTMLInputElement).value })} />
           {inputErrors[i.key] && <p class="field-error" role="alert">{inputErrors[i.key]}</p>}
         </div>
       ))}
@@ -353,13 +354,13 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
         <div class={measured && !measured.ok ? 'field has-error grow' : 'field grow'}>
           <label for="walk-value">Measured: {node.measure.quantity}</label>
           <input id="walk-value" type="text" inputMode="decimal" autoComplete="off" value={measuredText}
-            onInput={(e) => props.onTyped({ ...typed, value: (e.target as HTMLInputElement).value })} />
+            onInput={(e) => props.onTyped({ value: (e.target as HTMLInputElement).value })} />
           {measured && !measured.ok && <p class="field-error" role="alert">{measured.message}</p>}
         </div>
         {units.length > 1 ? (
           <div class="field">
             <label for="walk-unit">Unit</label>
-            <select id="walk-unit" value={unit} onChange={(e) => props.onTyped({ ...typed, unit: (e.target as HTMLSelectElement).value })}>
+            <select id="walk-unit" value={unit} onChange={(e) => props.onTyped({ unit: (e.target as HTMLSelectElement).value })}>
               {units.map((u) => <option key={u} value={u}>{u}</option>)}
             </select>
           </div>
@@ -389,7 +390,7 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
           <legend>Your verdict (no expected value could be computed)</legend>
           {(['pass', 'borderline:low', 'borderline:high', 'fail:low', 'fail:high'] as const).map((v) => (
             <label key={v} class="check-row">
-              <input type="radio" name={`verdict-${node.id}`} checked={manual === v} onChange={() => props.onTyped({ ...typed, verdict: v })} />
+              <input type="radio" name={`verdict-${node.id}`} checked={manual === v} onChange={() => props.onTyped({ verdict: v })} />
               <span>{v === 'pass' ? 'Pass' : `${v.startsWith('fail') ? 'Fail' : 'Borderline'}, ${v.endsWith('low') ? 'low' : 'high'}`}</span>
             </label>
           ))}
@@ -428,7 +429,7 @@ function ActionView(props: NodeViewProps & { node: ActionNode }) {
     if (!quantity) return setProblem('Say what you re-measured.');
     try {
       props.onWalk(record(walk, tree, { kind: 'measure', value: v.value, unit: leftUnit, quantity, ...(typed.note ? { note: typed.note } : {}) }));
-      props.onTyped({ ...typed, leftValue: '' });
+      props.onTyped({ leftValue: '' });
     } catch (err) {
       setProblem((err as Error).message);
     }
@@ -444,16 +445,16 @@ function ActionView(props: NodeViewProps & { node: ActionNode }) {
         <p>{node.closing.what}; record it as-left and compare with the as-found value and the baseline.</p>
         <div class="field">
           <label for="left-quantity">What you re-measured</label>
-          <input id="left-quantity" type="text" value={typed.leftQuantity ?? ''} onInput={(e) => props.onTyped({ ...typed, leftQuantity: (e.target as HTMLInputElement).value })} />
+          <input id="left-quantity" type="text" value={typed.leftQuantity ?? ''} onInput={(e) => props.onTyped({ leftQuantity: (e.target as HTMLInputElement).value })} />
         </div>
         <div class="row measure-row">
           <div class="field grow">
             <label for="left-value">As-left value</label>
-            <input id="left-value" type="text" inputMode="decimal" autoComplete="off" value={typed.leftValue ?? ''} onInput={(e) => props.onTyped({ ...typed, leftValue: (e.target as HTMLInputElement).value })} />
+            <input id="left-value" type="text" inputMode="decimal" autoComplete="off" value={typed.leftValue ?? ''} onInput={(e) => props.onTyped({ leftValue: (e.target as HTMLInputElement).value })} />
           </div>
           <div class="field">
             <label for="left-unit">Unit</label>
-            <select id="left-unit" value={leftUnit} onChange={(e) => props.onTyped({ ...typed, leftUnit: (e.target as HTMLSelectElement).value })}>
+            <select id="left-unit" value={leftUnit} onChange={(e) => props.onTyped({ leftUnit: (e.target as HTMLSelectElement).value })}>
               {unitList.map((u) => <option key={u} value={u}>{u}</option>)}
             </select>
           </div>

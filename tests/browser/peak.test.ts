@@ -1,0 +1,65 @@
+// Peak simulation in a real browser, offline: the run happens in a Web Worker, so the page keeps handling input
+// while it computes; a newer input cancels the stale run and the result that lands belongs to the newest input.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { PreviewServer } from 'vite';
+import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session } from './harness';
+
+const PORT = 4331;
+const origin = `http://127.0.0.1:${PORT}`;
+let server: PreviewServer | null = null;
+const profile = freshProfileDir();
+let session: Session | null = null;
+
+beforeAll(async () => {
+  server = await startPreview(distDir, PORT);
+});
+afterAll(async () => {
+  await session?.close().catch(() => undefined);
+  await stopPreview(server).catch(() => undefined);
+  removeDir(profile);
+});
+
+describe('peak simulation keeps the page responsive', () => {
+  it('handles typing while a simulation runs, cancels the stale run and shows the newest result', async () => {
+    session = await openBrowser(profile);
+    const { page } = session;
+    await page.goto(origin + '/');
+    await waitForServiceWorkerControl(page);
+    await page.locator('.picker select').selectOption('demo-gcms-kestrel');
+    await session.context.setOffline(true);
+    await stopPreview(server);
+    server = null;
+
+    await page.goto(origin + '/peak');
+    await page.getByTestId('peak-transmission').waitFor({ timeout: 60_000 });
+
+    // Record, for every input event, whether a simulation was in progress when the page handled it.
+    await page.evaluate(() => {
+      const w = window as unknown as { inputsDuringRun: boolean[] };
+      w.inputsDuringRun = [];
+      document.addEventListener('input', () => {
+        w.inputsDuringRun.push(!!document.querySelector('progress[aria-label="Simulation progress"]'));
+      }, true);
+    });
+
+    // A slow setting: low ion energy (many RF cycles) at high resolution.
+    await page.locator('#peak-resolution').fill('3000');
+    await page.locator('#peak-axial').fill('0.5');
+    await page.locator('progress[aria-label="Simulation progress"]').waitFor({ timeout: 30_000 });
+    // While it runs, the engineer changes the m/z, one key at a time.
+    await page.locator('#peak-mz').fill('');
+    await page.locator('#peak-mz').pressSequentially('502');
+    expect(await page.locator('#peak-mz').inputValue()).toBe('502');
+    const during = await page.evaluate(() => (window as unknown as { inputsDuringRun: boolean[] }).inputsDuringRun);
+    // At least one keystroke was handled while a run was in progress: the main thread was free.
+    expect(during.some(Boolean)).toBe(true);
+
+    // The result that lands is the one for m/z 502, not a stale one.
+    await expect.poll(() => page.getByTestId('peak-transmission').textContent(), { timeout: 120_000 }).toMatch(/at m\/z 50[12]\./);
+    await expect.poll(() => page.locator('progress[aria-label="Simulation progress"]').count(), { timeout: 120_000 }).toBe(0);
+    expect(await page.getByTestId('peak-r50').textContent()).toMatch(/\d/);
+    await screenshot(page, 'peak-after-input');
+    expect(session.foreignRequests).toEqual([]);
+    expect(session.pageErrors).toEqual([]);
+  });
+});
