@@ -1,6 +1,7 @@
 // Proportionality check without geometry (domain.md C5): two or three read-backs at parked m/z values give
 // the instrument constant V/m and the deviation from a straight line through the origin.
-import { convertRf, proportionalityCheck, rfForMass, type ProportionalityReading } from '../../engine';
+import { convertRf, hazardousLive, proportionalityCheck, rfForMass, type ProportionalityReading } from '../../engine';
+import { HvCaution } from './HvCaution';
 import type { InstrumentProfile } from '../../store';
 import { NumberField } from '../components/Field';
 import { formatNumber } from '../format';
@@ -39,6 +40,8 @@ export function Proportionality(props: { inputs: BenchInputs; update: (p: Partia
   const result = enough ? tryEngine(() => proportionalityCheck(readings), map, errors, 'p2mz') : null;
   const form = rfFormOf(profile.readbackConvention);
   const unit = rfFormUnit[form];
+  // Read-backs of this size mean the rods carry them: the caution goes with the readings too.
+  const hazardous = readings.some((r) => r.rf >= 0 && hazardousLive({ rf: convertRf(r.rf, form, 'zeroToPeakPerRod') }).hazardous);
   const expectedK = convertRf(rfForMass({ mz: 1, r0: profile.rodFieldRadius, frequency: profile.rfFrequency }), 'zeroToPeakPerRod', form);
 
   return (
@@ -73,6 +76,7 @@ export function Proportionality(props: { inputs: BenchInputs; update: (p: Partia
             note={{ label: 'Expected V/m from profile geometry (apex line)', value: expectedK, unit: `${unit}/u`, origin: 'calculator' }} />
         </div>
       )}
+      {hazardous && <HvCaution compact />}
     </form>
   );
 }
