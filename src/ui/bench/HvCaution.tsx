@@ -2,7 +2,7 @@
 // precautions that matter at the bench, the shared deferral, and the full high-voltage, RF and stored-charge
 // cards of the one card set (domain.md §4 S-HV, S-RF, S-STORED) one tap away.
 import { DEFERRAL } from '../../diagnose';
-import { HAZARDOUS_LIVE_LEVELS, HAZARDOUS_LIVE_SOURCE } from '../../engine';
+import { HAZARDOUS_LIVE_LEVELS, HAZARDOUS_LIVE_SOURCE, hazardousLive } from '../../engine';
 import { IconCaution } from '../components/icons';
 import { SafetyCards } from '../screens/diagnose/SafetyCards';
 
@@ -26,4 +26,13 @@ export function HvCaution(props: { exceeded?: string[]; compact?: boolean }) {
       <SafetyCards ids={['high-voltage', 'rf', 'stored-charge']} />
     </div>
   );
+}
+
+/** Whether rod voltages U, V (per rod, V zero-to-peak) are hazardous live; values beyond the engine's range are. */
+export function isHazardousLive(dc: number, rf: number): boolean {
+  try {
+    return hazardousLive({ dc, rf }).hazardous;
+  } catch {
+    return true;
+  }
 }

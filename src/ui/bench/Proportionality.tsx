@@ -41,7 +41,10 @@ export function Proportionality(props: { inputs: BenchInputs; update: (p: Partia
   const form = rfFormOf(profile.readbackConvention);
   const unit = rfFormUnit[form];
   // Read-backs of this size mean the rods carry them: the caution goes with the readings too.
-  const hazardous = readings.some((r) => r.rf >= 0 && hazardousLive({ rf: convertRf(r.rf, form, 'zeroToPeakPerRod') }).hazardous);
+  const hazardous = readings.some((r) => {
+    const perRod = tryEngine(() => convertRf(r.rf, form, 'zeroToPeakPerRod'), {}, {}, 'ignored');
+    return perRod !== null && hazardousLive({ rf: perRod }).hazardous;
+  });
   const expectedK = convertRf(rfForMass({ mz: 1, r0: profile.rodFieldRadius, frequency: profile.rfFrequency }), 'zeroToPeakPerRod', form);
 
   return (

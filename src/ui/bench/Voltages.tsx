@@ -8,7 +8,7 @@ import { NumberField } from '../components/Field';
 import { useApp } from '../context';
 import { formatConvention, formatNumber, formatSi } from '../format';
 import { ionListsFor, defaultIons } from './calibrants';
-import { dcFormOf, dcFormUnitId, dcFormWords, rfFormOf, rfFormUnit, rfFormUnitId, rfFormWords } from './conventions';
+import { dcAs, dcFormOf, dcFormUnitId, dcFormWords, rfAs, rfFormOf, rfFormUnit, rfFormUnitId, rfFormWords } from './conventions';
 import { tryEngine, type FieldErrors } from './engineErrors';
 import { HvCaution } from './HvCaution';
 import { parseMzList, usePersistentInputs } from './inputs';
@@ -46,7 +46,10 @@ export function Voltages() {
   const top = tryEngine(() => massRangeTop({ maxRf: profile.maxRfAmplitude, r0: profile.rodFieldRadius, frequency: profile.rfFrequency }), { maxRf: 'profile', r0: 'profile', frequency: 'profile' }, errors, 'profile');
   const readForm = rfFormOf(profile.readbackConvention);
   const readDc = dcFormOf(profile.readbackConvention);
-  const good = rows.filter((r): r is Expected => !!r && 'rf' in r);
+  // Far beyond any supply (tens of megavolts) there is nothing useful to convert: say so instead.
+  const shown = rows.map((r) => (r && 'rf' in r && (rfAs('peakToPeakBetweenPairs', r.rf) === null || dcAs('betweenPairs', r.dc) === null)
+    ? { mz: r.mz, reason: 'the voltages for this m/z are tens of megavolts, far beyond any RF supply' } : r));
+  const good = shown.filter((r): r is Expected => !!r && 'rf' in r);
   const hazards = good.map((r) => hazardousLive({ dc: r.dc, rf: r.rf }));
   const anyHazard = hazards.some((h) => h.hazardous);
   const exceeded = [...new Set(hazards.flatMap((h) => h.exceeded))];
@@ -80,10 +83,10 @@ export function Voltages() {
       {anyHazard && <HvCaution exceeded={exceeded} />}
 
       <ul class="cards" aria-label="Expected voltages per m/z" data-testid="expected-list">
-        {rows.map((r, i) => r === null ? null : 'reason' in r ? (
+        {shown.map((r, i) => r === null ? null : 'reason' in r ? (
           <li key={i} class="card"><h3 class="card-title">m/z {formatNumber(r.mz, 6)}</h3><p>{r.reason}.</p></li>
         ) : (
-          <ExpectedCard key={i} row={r} hazard={hazards[good.indexOf(r)]} readForm={readForm} readDc={readDc} built={built!} />
+          <ExpectedCard key={i} row={r} hazard={hazards[good.indexOf(r)]} readForm={readForm} readDc={readDc} built={built!} maxRf={profile.maxRfAmplitude} />
         ))}
       </ul>
 
@@ -93,7 +96,7 @@ export function Voltages() {
   );
 }
 
-function ExpectedCard(props: { row: Expected; hazard: HazardousLiveResult; readForm: (typeof RF_FORMS)[number]; readDc: (typeof DC_FORMS)[number]; built: BuiltLine }) {
+function ExpectedCard(props: { row: Expected; hazard: HazardousLiveResult; readForm: (typeof RF_FORMS)[number]; readDc: (typeof DC_FORMS)[number]; built: BuiltLine; maxRf: number }) {
   const { row, hazard, readForm, readDc } = props;
   const mzText = formatNumber(row.mz, 6);
   const ctx = { mz: row.mz, scanLine: props.built.description };
@@ -105,6 +108,9 @@ function ExpectedCard(props: { row: Expected; hazard: HazardousLiveResult; readF
         m/z {mzText}
         {hazard.hazardous && <span class="tag tag-hv">⚠ hazardous live</span>}
       </h3>
+      {row.rf > props.maxRf && (
+        <p class="notice" data-testid="beyond-supply">Above this supply's largest RF ({formatSi(props.maxRf, 'V 0-p')} per rod): the instrument cannot reach m/z {mzText} at this frequency.</p>
+      )}
       <Result label={`V, ${rfFormWords[readForm]} (read-back form)`} value={`${formatNumber(rfRead, 5)} ${rfFormUnit[readForm]}`} testId="rf-readback"
         note={{ label: `Expected RF at m/z ${mzText} (${rfFormWords[readForm]})`, value: rfRead, unit: rfFormUnitId[readForm], origin: 'calculator', context: ctx, typeId: 'rf-amplitude' }} />
       <Result label={`U, ${dcFormWords[readDc]} (read-back form)`} value={`${formatNumber(dcRead, 5)} V DC`} testId="dc-readback"

@@ -1,5 +1,5 @@
 // The instrument's read-back convention in the engine's names, and words for every form.
-import type { DcForm, RfForm } from '../../engine';
+import { convertDc, convertRf, type DcForm, type RfForm } from '../../engine';
 import type { ReadbackConvention } from '../../store';
 
 export function rfFormOf(c: ReadbackConvention): RfForm {
@@ -45,3 +45,21 @@ export const rfFormUnitId: Record<RfForm, string> = {
   rmsBetweenPairs: 'Vrms-pairs',
 };
 export const dcFormUnitId: Record<DcForm, string> = { perRod: 'V-rod', betweenPairs: 'V-pairs' };
+
+/** V zero-to-peak per rod in another form; null beyond the engine's conversion range (tens of megavolts). */
+export function rfAs(form: RfForm, zeroToPeakPerRod: number): number | null {
+  try {
+    return convertRf(zeroToPeakPerRod, 'zeroToPeakPerRod', form);
+  } catch {
+    return null;
+  }
+}
+
+/** U per rod in another form; null beyond the engine's conversion range. */
+export function dcAs(form: DcForm, perRod: number): number | null {
+  try {
+    return convertDc(perRod, 'perRod', form);
+  } catch {
+    return null;
+  }
+}

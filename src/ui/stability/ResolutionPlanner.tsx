@@ -2,19 +2,18 @@
 // rule, RF cycles, the n²/K limit, the largest ion energy for a wanted Δm), reverse (target m/Δm → U/V, U
 // and V), the two scan laws across the mass range, and scan planning (time and S/N gain).
 import {
-  APEX_RULE, apexRatio, CYCLE_LIMIT_CONSTANTS, constantResolutionScanLine, cycleLimitedResolution, hazardousLive, massRangeTop,
+  APEX_RULE, apexRatio, CYCLE_LIMIT_CONSTANTS, constantResolutionScanLine, cycleLimitedResolution, massRangeTop,
   maxAxialEnergy, ratioForResolution, resolutionAtRatio, scanPoint, type CycleLimitChoice,
 } from '../../engine';
 import type { InstrumentProfile } from '../../store';
 import { NumberField, SelectField } from '../components/Field';
 import { useApp } from '../context';
 import { formatNumber, formatSi } from '../format';
-import { rfFormOf, rfFormUnit } from '../bench/conventions';
+import { rfAs, rfFormOf, rfFormUnit, rfFormUnitId } from '../bench/conventions';
 import { tryEngine, type FieldErrors } from '../bench/engineErrors';
 import { parseNumber, usePersistentInputs } from '../bench/inputs';
 import { Result } from '../bench/NoteButton';
-import { convertRf } from '../../engine';
-import { HvCaution } from '../bench/HvCaution';
+import { HvCaution, isHazardousLive } from '../bench/HvCaution';
 import { ScanLawChart } from './ScanLawChart';
 import { ScanPlanning } from './ScanPlanning';
 import { TransmissionCost } from './TransmissionCost';
@@ -128,18 +127,15 @@ export function ResolutionPlanner() {
               note={{ label: `U/V for m/Δm ${inputs.targetR.trim()} (exact)`, value: reverse.exact, unit: '', origin: 'calculator' }} />
             <Result label="U/V by the rule 0.16784 − 0.126/R" value={formatNumber(reverse.rule, 7)} testId="rev-rule"
               note={{ label: `U/V for m/Δm ${inputs.targetR.trim()} (apex rule)`, value: reverse.rule, unit: '', origin: 'calculator' }} />
-            {reversePoint && mz !== null && (
+            {reversePoint && mz !== null && rfAs(form, reversePoint.rf) !== null && (
               <>
-                <Result label={`V at m/z ${formatNumber(mz, 6)} (read-back form)`} value={`${formatNumber(convertRf(reversePoint.rf, 'zeroToPeakPerRod', form), 5)} ${rfFormUnit[form]}`}
-                  note={{ label: `RF for m/Δm ${inputs.targetR.trim()} at m/z ${mz}`, value: convertRf(reversePoint.rf, 'zeroToPeakPerRod', form), unit: rfFormUnit[form], origin: 'calculator' }} />
+                <Result label={`V at m/z ${formatNumber(mz, 6)} (read-back form)`} value={`${formatNumber(rfAs(form, reversePoint.rf)!, 5)} ${rfFormUnit[form]}`}
+                  note={{ label: `RF for m/Δm ${inputs.targetR.trim()} at m/z ${mz}`, value: rfAs(form, reversePoint.rf)!, unit: rfFormUnitId[form], origin: 'calculator', context: { mz }, typeId: 'rf-amplitude' }} />
                 <Result label={`U at m/z ${formatNumber(mz, 6)}, per rod`} value={formatSi(reversePoint.dc, 'V', 5)}
-                  note={{ label: `DC for m/Δm ${inputs.targetR.trim()} at m/z ${mz}`, value: reversePoint.dc, unit: 'V', origin: 'calculator' }} />
+                  note={{ label: `DC for m/Δm ${inputs.targetR.trim()} at m/z ${mz}`, value: reversePoint.dc, unit: 'V-rod', origin: 'calculator', context: { mz }, typeId: 'dc-amplitude' }} />
               </>
             )}
-            {reversePoint && (() => {
-              const hz = hazardousLive({ dc: reversePoint.dc, rf: reversePoint.rf });
-              return hz.hazardous ? <HvCaution compact /> : null;
-            })()}
+            {reversePoint && isHazardousLive(reversePoint.dc, reversePoint.rf) && <HvCaution compact />}
             {cycles && target !== null && target > cycles.resolution && (
               <p class="notice">m/Δm {formatNumber(target, 4)} is above the RF-cycle limit n²/K ≈ {formatNumber(cycles.resolution, 4)} for these ions: the band will not close that far in practice.</p>
             )}

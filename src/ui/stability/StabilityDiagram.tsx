@@ -3,15 +3,15 @@
 // pass / not pass), zoom to the apex, tap a point to read its values, and the pass band as an m/z interval.
 import { useMemo, useRef, useState } from 'preact/hooks';
 import {
-  convertDc, convertRf, firstRegionApex, hazardousLive, operatingPoint, passBandDetail, type OperatingPoint,
+  convertDc, convertRf, firstRegionApex, operatingPoint, passBandDetail, type OperatingPoint,
 } from '../../engine';
-import { HvCaution } from '../bench/HvCaution';
+import { HvCaution, isHazardousLive } from '../bench/HvCaution';
 import type { InstrumentProfile } from '../../store';
 import { Chart, type uPlot } from '../components/Chart';
 import { NumberField, SelectField } from '../components/Field';
 import { useApp } from '../context';
 import { formatNumber, formatSi } from '../format';
-import { dcFormOf, dcFormUnitId, dcFormWords, rfFormOf, rfFormUnit, rfFormUnitId, rfFormWords } from '../bench/conventions';
+import { dcAs, dcFormOf, dcFormUnitId, dcFormWords, rfAs, rfFormOf, rfFormUnit, rfFormUnitId, rfFormWords } from '../bench/conventions';
 import { tryEngine, type FieldErrors } from '../bench/engineErrors';
 import { parseMzList, parseNumber, usePersistentInputs } from '../bench/inputs';
 import { Result } from '../bench/NoteButton';
@@ -98,16 +98,20 @@ export function StabilityDiagram() {
     }
   }
 
+  // Voltage errors belong to the measured fields, or to the set m/z when U and V come from the scan line.
+  const measured = inputs.source === 'measured';
+  const uField = measured ? 'measuredU' : 'setMz';
+  const vField = measured ? 'measuredV' : 'setMz';
   const points: PlottedPoint[] = [];
   if (dc !== null && rf !== null && list.ok && setMz.ok) {
     const masses = [setMz.value, ...list.values.filter((m) => m !== setMz.value)];
     for (const mz of masses) {
-      const op = tryEngine(() => operatingPoint({ mz, r0, frequency, dc: dc!, rf: rf! }), { mz: mz === setMz.value ? 'setMz' : 'mzList', dc: 'measuredU', rf: 'measuredV' }, errors, 'mzList');
+      const op = tryEngine(() => operatingPoint({ mz, r0, frequency, dc: dc!, rf: rf! }), { mz: mz === setMz.value ? 'setMz' : 'mzList', dc: uField, rf: vField }, errors, 'mzList');
       if (op) points.push({ mz, set: mz === setMz.value, op });
     }
   }
   pointsRef.current = points;
-  const band = dc !== null && rf !== null && rf > 0 ? tryEngine(() => passBandDetail({ dc: dc!, rf: rf!, r0, frequency }), { dc: 'measuredU', rf: 'measuredV' }, errors, 'measuredV') : null;
+  const band = dc !== null && rf !== null && rf > 0 ? tryEngine(() => passBandDetail({ dc: dc!, rf: rf!, r0, frequency }), { dc: uField, rf: vField }, errors, vField) : null;
   const setPoint = points.find((p) => p.set) ?? null;
   const slope = setPoint && setPoint.op.q > 0 ? setPoint.op.a / setPoint.op.q : null;
   const showIso = inputs.isoBeta === 'yes';
@@ -159,10 +163,10 @@ export function StabilityDiagram() {
         <div class="card" data-testid="pass-band">
           <h2 class="card-title">Pass band</h2>
           {lineDescription && <p class="hint">From {lineDescription}.</p>}
-          <Result label={`U, ${dcFormWords[readDc]} (read-back form)`} value={formatSi(convertDc(dc, 'perRod', readDc), 'V DC', 5)}
-            note={{ label: `DC at the current setting (set m/z ${inputs.setMz.trim()})`, value: convertDc(dc, 'perRod', readDc), unit: dcFormUnitId[readDc], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'dc-amplitude' }} />
-          <Result label={`V, ${rfFormWords[readForm]} (read-back form)`} value={`${formatNumber(convertRf(rf, 'zeroToPeakPerRod', readForm), 5)} ${rfFormUnit[readForm]}`}
-            note={{ label: `RF at the current setting (set m/z ${inputs.setMz.trim()})`, value: convertRf(rf, 'zeroToPeakPerRod', readForm), unit: rfFormUnitId[readForm], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'rf-amplitude' }} />
+          <Result label={`U, ${dcFormWords[readDc]} (read-back form)`} value={formatSi(dcAs(readDc, dc) ?? NaN, 'V DC', 5)}
+            note={{ label: `DC at the current setting (set m/z ${inputs.setMz.trim()})`, value: dcAs(readDc, dc) ?? NaN, unit: dcFormUnitId[readDc], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'dc-amplitude' }} />
+          <Result label={`V, ${rfFormWords[readForm]} (read-back form)`} value={`${formatNumber(rfAs(readForm, rf) ?? NaN, 5)} ${rfFormUnit[readForm]}`}
+            note={{ label: `RF at the current setting (set m/z ${inputs.setMz.trim()})`, value: rfAs(readForm, rf) ?? NaN, unit: rfFormUnitId[readForm], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'rf-amplitude' }} />
           <Result label="U/V (per rod, V zero-to-peak)" value={formatNumber(dc / rf, 6)} testId="band-ratio"
             note={{ label: 'DC/RF ratio U/V at the current setting', value: dc / rf, unit: '', origin: 'calculator' }} />
           {band ? (
@@ -188,7 +192,7 @@ export function StabilityDiagram() {
           ) : (
             <p data-testid="band-interval"><span class="verdict verdict-fail">✗ nothing passes</span> U/V is at or above the apex ratio: no m/z is stable in both directions.</p>
           )}
-          {hazardousLive({ dc, rf }).hazardous && <HvCaution compact />}
+          {isHazardousLive(dc, rf) && <HvCaution compact />}
         </div>
       )}
 

@@ -76,6 +76,9 @@ export function TransmissionCost(props: { mz: number; dc: number; rf: number; r0
         </>
       )}
       {state.status === 'failed' && !state.field && <p class="notice">{state.message} Transmission cost: see the Peak area.</p>}
+      {state.status === 'failed' && state.field && state.field !== 'beamRadius' && state.field !== 'transverseEnergy' && (
+        <p class="notice">The peak simulation refused these settings: {state.message}</p>
+      )}
       <p class="hint">Ideal field, no fringe fields, a uniformly filled entrance disc; the Peak area shows the whole peak for these settings.</p>
     </div>
   );

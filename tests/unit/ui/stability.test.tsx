@@ -89,3 +89,25 @@ describe('Resolution · scan-law columns', () => {
     expect(Math.abs(mz[mz.length - 1]! - top) / top).toBeLessThan(0.01);
   });
 });
+
+describe('extreme input never breaks a screen or shows NaN', () => {
+  it('m/z far beyond any supply on the Bench, Stability and Resolution screens', async () => {
+    const { Voltages } = await import('../../../src/ui/bench/Voltages');
+    const { ResolutionPlanner } = await import('../../../src/ui/stability/ResolutionPlanner');
+    h = await mount(<Voltages />, demo('kestrel'));
+    await typeInto(h.root, 'bench-mz', '69, 5000, 9e6');
+    expect(h.root.querySelector('[data-mz="5000"] [data-testid="beyond-supply"]')?.textContent).toMatch(/Above this supply's largest RF/);
+    expect(h.root.textContent).toMatch(/tens of megavolts/);
+    expect(h.root.textContent).not.toMatch(/NaN|undefined/);
+    h.unmount();
+    h = await mount(<StabilityDiagram />, demo('kestrel'));
+    await typeInto(h.root, 'stab-set', '9e6');
+    await typeInto(h.root, 'stab-list', '1e7');
+    expect(h.root.textContent).not.toMatch(/NaN|undefined/);
+    expect(h.root.querySelector('.field-error')).not.toBeNull();
+    h.unmount();
+    h = await mount(<ResolutionPlanner />, demo('kestrel'));
+    await typeInto(h.root, 'res-mz', '9e6');
+    expect(h.root.textContent).not.toMatch(/NaN|undefined/);
+  });
+});
