@@ -5,7 +5,7 @@
 // (P. E. Miller & M. B. Denton, J. Chem. Educ. 63 (1986) 617; Dawson 1976 — from memory.)
 import { a0Unchecked, b1Unchecked } from './characteristicValues';
 import { exponentUnchecked, MAX_ABS_A_EXPONENT, MAX_ABS_Q_EXPONENT } from './characteristicExponent';
-import { LIMITS, qMassPerVolt } from './mathieuScale';
+import { LIMITS, mathieuParameters, qMassPerVolt } from './mathieuScale';
 import { brentRoot } from './rootFinding';
 import { apexRatio, firstRegionApex, firstRegionMargin, rfOnlyEdgeQ } from './stabilityRegions';
 import { checkNumber, InputRangeError } from './validate';
@@ -51,14 +51,11 @@ export interface OperatingPoint {
  * ground, either sign) and RF V = rf (V zero-to-peak per rod, ≥ 0).
  */
 export function operatingPoint(p: { mz: number; r0: number; frequency: number; dc: number; rf: number }): OperatingPoint {
-  const mz = checkNumber('mz', p?.mz, LIMITS.mz);
-  const r0 = checkNumber('r0', p?.r0, LIMITS.r0);
-  const frequency = checkNumber('frequency', p?.frequency, LIMITS.frequency);
-  const dc = checkNumber('dc', p?.dc, LIMITS.dc);
-  const rf = checkNumber('rf', p?.rf, LIMITS.rf);
-  const k = qMassPerVolt(r0, frequency) / mz;
-  const a = 2 * k * dc;
-  const q = k * rf;
+  const { a, q } = mathieuParameters(p);
+  const mz = p.mz;
+  const frequency = p.frequency;
+  const dc = p.dc;
+  const rf = p.rf;
   if (Math.abs(a) > MAX_ABS_A_EXPONENT || Math.abs(q) > MAX_ABS_Q_EXPONENT) {
     throw new InputRangeError(
       'mz',
