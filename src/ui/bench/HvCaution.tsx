@@ -12,12 +12,14 @@ export function HvCaution(props: { exceeded?: string[]; compact?: boolean }) {
   const wet = HAZARDOUS_LIVE_LEVELS.wet;
   return (
     <div class="card caution" role="note" data-testid="hv-caution">
-      <h2 class="card-title"><IconCaution /> ⚠ Hazardous live: high voltage and RF on the rods</h2>
+      <h2 class="card-title"><IconCaution /> Hazardous live: high voltage and RF on the rods</h2>
       <p>
         Above {dry.rms} V rms, {dry.peak} V peak or {dry.dc} V DC (dry; wet: {wet.rms} V rms, {wet.peak} V peak, {wet.dc} V DC) a part is
         treated as hazardous live ({HAZARDOUS_LIVE_SOURCE}).
-        {!props.compact && props.exceeded && props.exceeded.length > 0 && <> Exceeded here: {props.exceeded.join('; ')}.</>}
       </p>
+      {!props.compact && props.exceeded && props.exceeded.length > 0 && (
+        <p><strong>Exceeded here:</strong> {props.exceeded.join(' · ')}.</p>
+      )}
       {!props.compact && <ul>
         <li>Read RF at the instrument's monitor point, or with a low-capacitance probe rated for the voltage at that frequency, clipped on with the power off.</li>
         <li>RF near 1 MHz burns with little warning; keep hands clear while energised. Supplies and RF tanks hold charge after switch-off: verify before touching.</li>
