@@ -1,23 +1,55 @@
 // Path → screen. Each area owns its paths below its prefix (e.g. /instruments/new, /instruments/<id>).
+// Areas other than the overview load on first visit (their code is precached, so this works offline too),
+// which keeps the first start on a phone short.
 import type { FunctionComponent } from 'preact';
-import { BenchScreen } from './screens/BenchScreen';
-import { DiagnoseScreen } from './screens/DiagnoseScreen';
+import { useEffect, useState } from 'preact/hooks';
 import { HomeScreen } from './screens/HomeScreen';
-import { InstrumentsScreen } from './screens/InstrumentsScreen';
 import { NotFoundScreen } from './screens/NotFoundScreen';
-import { PeakScreen } from './screens/PeakScreen';
-import { SafetyScreen } from './screens/SafetyScreen';
-import { StabilityScreen } from './screens/StabilityScreen';
-import { VisitsScreen } from './screens/VisitsScreen';
+
+type Loader = () => Promise<FunctionComponent>;
+
+function lazyScreen(name: string, load: Loader): FunctionComponent {
+  let loaded: FunctionComponent | null = null;
+  let pending: Promise<FunctionComponent> | null = null;
+  const start = () => (pending ??= load().then((c) => (loaded = c)).catch((err: unknown) => {
+    pending = null; // let a later visit try again
+    throw err;
+  }));
+  function LazyScreen() {
+    const [state, setState] = useState<{ screen: FunctionComponent | null; failed: boolean }>({ screen: loaded, failed: false });
+    useEffect(() => {
+      if (state.screen) return;
+      let live = true;
+      start().then((c) => live && setState({ screen: c, failed: false })).catch(() => live && setState({ screen: null, failed: true }));
+      return () => {
+        live = false;
+      };
+    }, [state.screen]);
+    if (state.screen) {
+      const Screen = state.screen;
+      return <Screen />;
+    }
+    if (state.failed) {
+      return (
+        <section class="screen">
+          <h1>{name}</h1>
+          <p class="notice" role="alert">This part of Rodside could not be loaded on this device yet. Open Rodside once with a network so it can keep every part for offline use, then try again.</p>
+        </section>
+      );
+    }
+    return <p class="muted" aria-live="polite">Loading {name}…</p>;
+  }
+  return LazyScreen;
+}
 
 const table: [prefix: string, screen: FunctionComponent][] = [
-  ['/bench', BenchScreen],
-  ['/stability', StabilityScreen],
-  ['/peak', PeakScreen],
-  ['/diagnose', DiagnoseScreen],
-  ['/visits', VisitsScreen],
-  ['/instruments', InstrumentsScreen],
-  ['/safety', SafetyScreen],
+  ['/bench', lazyScreen('Bench', () => import('./screens/BenchScreen').then((m) => m.BenchScreen))],
+  ['/stability', lazyScreen('Stability', () => import('./screens/StabilityScreen').then((m) => m.StabilityScreen))],
+  ['/peak', lazyScreen('Peak', () => import('./screens/PeakScreen').then((m) => m.PeakScreen))],
+  ['/diagnose', lazyScreen('Diagnose', () => import('./screens/DiagnoseScreen').then((m) => m.DiagnoseScreen))],
+  ['/visits', lazyScreen('Visits', () => import('./screens/VisitsScreen').then((m) => m.VisitsScreen))],
+  ['/instruments', lazyScreen('Instruments', () => import('./screens/InstrumentsScreen').then((m) => m.InstrumentsScreen))],
+  ['/safety', lazyScreen('Safety & about', () => import('./screens/SafetyScreen').then((m) => m.SafetyScreen))],
 ];
 
 export function routeFor(path: string): FunctionComponent {
