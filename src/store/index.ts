@@ -168,6 +168,11 @@ export interface Store {
   /** The visit that "Note this" and the Visits screen treat as open for an instrument. */
   setCurrentVisit(instrumentId: string, visitId: string | null): Promise<void>;
   /**
+   * The instrument's open visit: the one marked by setCurrentVisit, only while that visit still exists and
+   * belongs to this instrument (a stale or foreign mark gives undefined).
+   */
+  currentVisit(instrumentId: string): Promise<Visit | undefined>;
+  /**
    * Record a value from any screen in the instrument's current visit: the visit marked current, else one
    * started in the last 12 hours, else a new visit opened for it. Values of a catalogue type are converted
    * from the unit given; anything else is kept as a "Noted value" with its label and unit.
@@ -737,16 +742,20 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         else await db.put('settings', { key: `currentVisit:${instrumentId}`, value: visitId });
       }),
 
+    currentVisit: (instrumentId) =>
+      guard('read the open visit', async () => {
+        const tx = db.transaction(['settings', 'visits'], 'readonly');
+        const id = (await tx.objectStore('settings').get(`currentVisit:${instrumentId}`))?.value;
+        const v = typeof id === 'string' ? await tx.objectStore('visits').get(id) : undefined;
+        await tx.done;
+        return v && v.instrumentId === instrumentId ? v : undefined;
+      }),
+
     noteReading: (instrument, note) =>
       guard('note the value', async () => {
         if (!Number.isFinite(note.value)) throw new StoreError(`Could not note “${note.label}”: the value is not a finite number.`);
         const now = new Date();
-        let visit: Visit | undefined;
-        const currentId = (await db.get('settings', `currentVisit:${instrument.id}`))?.value;
-        if (typeof currentId === 'string') {
-          const v = await db.get('visits', currentId);
-          if (v && v.instrumentId === instrument.id) visit = v;
-        }
+        let visit: Visit | undefined = await store.currentVisit(instrument.id);
         if (!visit) {
           const recent = (await store.listVisits(instrument.id))[0];
           if (recent && now.getTime() - Date.parse(recent.startedAt) < 12 * 3600_000 && Date.parse(recent.startedAt) <= now.getTime()) visit = recent;

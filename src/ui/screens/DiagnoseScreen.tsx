@@ -196,10 +196,7 @@ function Walk() {
   async function openVisitOf(instrumentId: string | undefined): Promise<string | null> {
     if (!store || !instrumentId) return null;
     try {
-      const id = await store.getSetting<string>(`currentVisit:${instrumentId}`);
-      if (typeof id !== 'string') return null;
-      const v = await store.getVisit(id);
-      return v && v.instrumentId === instrumentId ? v.id : null;
+      return (await store.currentVisit(instrumentId))?.id ?? null;
     } catch {
       return null;
     }
