@@ -68,6 +68,8 @@ export interface NoteInput {
   unit: string;
   context?: Record<string, string | number>;
   origin: 'calculator' | 'entered';
+  /** Before any work (default) or after it, e.g. the re-measurement that closes a corrective step. */
+  phase?: ReadingPhase;
 }
 
 export interface StoreOptions {
@@ -754,6 +756,8 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
     noteReading: (instrument, note) =>
       guard('note the value', async () => {
         if (!Number.isFinite(note.value)) throw new StoreError(`Could not note “${note.label}”: the value is not a finite number.`);
+        const phase: ReadingPhase = note.phase ?? 'as-found';
+        if (phase !== 'as-found' && phase !== 'as-left') throw new StoreError(`Could not note “${note.label}”: the phase must be as-found or as-left, not “${String(phase)}”.`);
         const now = new Date();
         let visit: Visit | undefined = await store.currentVisit(instrument.id);
         if (!visit) {
@@ -788,14 +792,14 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         const text = String(Number(note.value.toPrecision(8)));
         if (type && unit) {
           reading = await store.addReading({
-            visitId: visit.id, typeId: type.id, phase: 'as-found', value: note.value * unit.factor + (unit.offset ?? 0),
+            visitId: visit.id, typeId: type.id, phase, value: note.value * unit.factor + (unit.offset ?? 0),
             entered: { text, unit: unit.label }, context, note: note.label, origin: note.origin,
           });
         } else {
           context.label = note.label.slice(0, 200);
           context.unit = note.unit.slice(0, 200);
           reading = await store.addReading({
-            visitId: visit.id, typeId: 'noted-value', phase: 'as-found', value: note.value,
+            visitId: visit.id, typeId: 'noted-value', phase, value: note.value,
             entered: { text, unit: note.unit.slice(0, 100) }, context, note: note.label, origin: note.origin,
           });
         }

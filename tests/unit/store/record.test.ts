@@ -21,6 +21,33 @@ async function visitOf(store: Store, instrumentId: string, startedAt = '2026-03-
   return store.saveVisit(d.fields);
 }
 
+describe('note this: as-found and as-left', () => {
+  it('keeps a noted value as-found unless told as-left, for catalogue types and plain noted values alike', async () => {
+    const { store, instrumentId } = await storeWith();
+    const instrument = (await store.getInstrument(instrumentId))!;
+    const found = await store.noteReading(instrument, { typeId: 'multiplier-voltage', label: 'Multiplier voltage at tune', value: 1800, unit: 'V', origin: 'entered' });
+    expect(found.reading.phase).toBe('as-found');
+    const left = await store.noteReading(instrument, { typeId: 'multiplier-voltage', label: 'Multiplier voltage at tune', value: 1750, unit: 'V', origin: 'entered', phase: 'as-left' });
+    expect(left.reading).toMatchObject({ phase: 'as-left', typeId: 'multiplier-voltage', note: 'Multiplier voltage at tune' });
+    const plain = await store.noteReading(instrument, { label: 'Filament resistance (new filament)', value: 0.4, unit: 'Ω', origin: 'entered', phase: 'as-left' });
+    expect(plain.reading).toMatchObject({ phase: 'as-left', typeId: 'noted-value', context: { label: 'Filament resistance (new filament)', unit: 'Ω' } });
+    // The as-left value is what a baseline takes from the visit.
+    await store.markBaseline(left.visit.id);
+    const baseline = await store.getBaseline(instrumentId);
+    expect(baseline?.readings.map((r) => r.id).sort()).toEqual([left.reading.id, plain.reading.id].sort());
+    store.close();
+  });
+
+  it('refuses a phase that is neither as-found nor as-left, naming both', async () => {
+    const { store, instrumentId } = await storeWith();
+    const instrument = (await store.getInstrument(instrumentId))!;
+    const bad = { label: 'Odd', value: 1, unit: 'V', origin: 'entered' as const, phase: 'later' as never };
+    await expect(store.noteReading(instrument, bad)).rejects.toThrow(/phase must be as-found or as-left, not “later”/);
+    expect(await store.db.count('readings')).toBe(0);
+    store.close();
+  });
+});
+
 describe('the instrument’s open visit', () => {
   it('is the visit marked current, only while it exists and belongs to that instrument', async () => {
     const { store, instrumentId } = await storeWith();
