@@ -60,6 +60,28 @@ export interface VisitBundle {
   walks: WalkRecord[];
 }
 
+/** Draft key prefix of the copy kept after an instrument is deleted, for undo across a reload. */
+export const INSTRUMENT_UNDO_PREFIX = 'undo:instrument:';
+/** How long a deleted instrument stays restorable: one hour, long enough for a reload or a slip noticed late. */
+export const INSTRUMENT_UNDO_WINDOW_MS = 3600_000;
+const undoRange = () => IDBKeyRange.bound(INSTRUMENT_UNDO_PREFIX, `${INSTRUMENT_UNDO_PREFIX}\uffff`);
+
+/** What the drafts store keeps of a deleted instrument. */
+interface DeletedInstrumentCopy {
+  profile: InstrumentProfile;
+  bundles: VisitBundle[];
+  deletedAt: string;
+}
+
+/** A deleted instrument that can still be restored, with counts of what would come back with it. */
+export interface DeletedInstrument {
+  profile: InstrumentProfile;
+  deletedAt: string;
+  visits: number;
+  readings: number;
+  walks: number;
+}
+
 /** A value noted from another screen (the UI's noteThis passes this shape). */
 export interface NoteInput {
   typeId?: string;
@@ -93,9 +115,16 @@ export interface Store {
   /** Create (no id) or update (with id) a profile. Validated again here: the database never holds a bad profile. */
   saveInstrument(fields: ProfileFields, id?: string): Promise<InstrumentProfile>;
   duplicateInstrument(id: string): Promise<InstrumentProfile>;
-  /** Deletes and returns the profile so the caller can offer undo via restoreInstrument. */
+  /**
+   * Deletes the profile with its visits, readings and walks, and returns it so the caller can offer undo. A copy
+   * of everything deleted stays in the drafts store (key undo:instrument:<id>) for INSTRUMENT_UNDO_WINDOW_MS or
+   * until the next deletion, so a reload does not lose the undo.
+   */
   deleteInstrument(id: string): Promise<InstrumentProfile | undefined>;
+  /** Put the profile back, with the visits, readings and walks from its kept copy if there still is one. */
   restoreInstrument(profile: InstrumentProfile): Promise<void>;
+  /** The deleted instrument that can still be restored (and what came with it); expired copies are dropped. */
+  deletedInstrument(now?: Date): Promise<DeletedInstrument | undefined>;
 
   /** Load the invented demo scenario if it has never been loaded (or was removed and is asked for again). */
   loadDemo(force?: boolean): Promise<boolean>;
@@ -229,9 +258,8 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
     }),
   );
 
-  const deletedWith = new Map<string, VisitBundle[]>();
 
-  type Tx = IDBPTransaction<RodsideSchema, ('visits' | 'readings' | 'walks' | 'instruments')[], 'readwrite'>;
+  type Tx = IDBPTransaction<RodsideSchema, ('visits' | 'readings' | 'walks' | 'instruments' | 'drafts')[], 'readwrite'>;
   async function deleteVisitIn(tx: Tx, visit: Visit): Promise<VisitBundle> {
     const readings = await tx.objectStore('readings').index('byVisit').getAll(visit.id);
     const walks = await tx.objectStore('walks').index('byVisit').getAll(visit.id);
@@ -319,15 +347,19 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
     deleteInstrument: (id) =>
       guard('delete the instrument profile', async () => {
         // Its visits, readings and walks go with it (a visit without its instrument cannot be restored from a
-        // backup); they are kept in memory so restoreInstrument can undo the whole deletion.
-        const tx = db.transaction(['instruments', 'visits', 'readings', 'walks'], 'readwrite');
+        // backup). A copy of all of it is kept in the drafts store, in the same transaction, so undo works even
+        // after a reload; the previous deletion's copy goes now (one undo at a time).
+        const tx = db.transaction(['instruments', 'visits', 'readings', 'walks', 'drafts'], 'readwrite');
         const existing = await tx.objectStore('instruments').get(id);
         if (existing) {
           const visits = await tx.objectStore('visits').index('byInstrument').getAll(id);
           const bundles: VisitBundle[] = [];
           for (const v of visits) bundles.push(await deleteVisitIn(tx, v));
           await tx.objectStore('instruments').delete(id);
-          deletedWith.set(id, bundles);
+          await tx.objectStore('drafts').delete(undoRange());
+          const now = nowIso();
+          const copy: DeletedInstrumentCopy = { profile: existing, bundles, deletedAt: now };
+          await tx.objectStore('drafts').put({ key: `${INSTRUMENT_UNDO_PREFIX}${id}`, value: copy, updatedAt: now });
         }
         await tx.done;
         return existing;
@@ -335,11 +367,40 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
 
     restoreInstrument: (profile) =>
       guard('restore the instrument profile', async () => {
-        const tx = db.transaction(['instruments', 'visits', 'readings', 'walks'], 'readwrite');
+        const tx = db.transaction(['instruments', 'visits', 'readings', 'walks', 'drafts'], 'readwrite');
+        const key = `${INSTRUMENT_UNDO_PREFIX}${profile.id}`;
+        const copy = (await tx.objectStore('drafts').get(key))?.value as DeletedInstrumentCopy | undefined;
         await tx.objectStore('instruments').put(profile);
-        for (const b of deletedWith.get(profile.id) ?? []) await putBundle(tx, b);
+        for (const b of copy?.bundles ?? []) await putBundle(tx, b);
+        await tx.objectStore('drafts').delete(key);
         await tx.done;
-        deletedWith.delete(profile.id);
+      }),
+
+    deletedInstrument: (now = new Date()) =>
+      guard('read the deleted instrument', async () => {
+        const tx = db.transaction(['drafts', 'instruments'], 'readwrite');
+        let found: DeletedInstrument | undefined;
+        for (const rec of await tx.objectStore('drafts').getAll(undoRange())) {
+          const copy = rec.value as Partial<DeletedInstrumentCopy> | undefined;
+          const at = Date.parse(copy?.deletedAt ?? '');
+          const live = !!copy?.profile && Array.isArray(copy.bundles) && Number.isFinite(at) && now.getTime() - at <= INSTRUMENT_UNDO_WINDOW_MS;
+          // An instrument of that id made again since (e.g. from a backup) makes the copy moot: never overwrite it.
+          const back = live ? await tx.objectStore('instruments').get(copy.profile!.id) : undefined;
+          if (!live || back) {
+            await tx.objectStore('drafts').delete(rec.key);
+            continue;
+          }
+          const bundles = copy.bundles as VisitBundle[];
+          found = {
+            profile: copy.profile!,
+            deletedAt: copy.deletedAt!,
+            visits: bundles.length,
+            readings: bundles.reduce((n, b) => n + b.readings.length, 0),
+            walks: bundles.reduce((n, b) => n + b.walks.length, 0),
+          };
+        }
+        await tx.done;
+        return found;
       }),
 
     loadDemo: (force = false) =>
@@ -854,7 +915,6 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         await Promise.all(names.map((n) => tx.objectStore(n).clear()));
         await tx.objectStore('settings').put({ key: 'demoLoaded', value: true });
         await tx.done;
-        deletedWith.clear();
       }),
 
     visitReport: (visitId, now = new Date()) =>

@@ -2,7 +2,9 @@
 // instrument that can still be restored after a reload.
 import 'fake-indexeddb/auto';
 import { describe, expect, it } from 'vitest';
-import { emptyDraft, emptyVisitDraft, openStore, validateDraft, validateVisitDraft, type Store } from '../../../src/store';
+import {
+  emptyDraft, emptyVisitDraft, INSTRUMENT_UNDO_WINDOW_MS, openStore, validateDraft, validateVisitDraft, type Store,
+} from '../../../src/store';
 import { freshName, registerCleanup, testEngine } from './helpers';
 
 registerCleanup();
@@ -79,6 +81,82 @@ describe('the instrument’s open visit', () => {
     const r = await store.noteReading(instrument, { label: 'x', value: 1, unit: 'V', origin: 'entered' });
     expect(r.visit.id).toBe(v.id);
     expect((await store.currentVisit(instrumentId))?.id).toBe(v.id);
+    store.close();
+  });
+});
+
+describe('undo of an instrument delete survives a reload', () => {
+  async function withRecords() {
+    const made = await storeWith(freshName(), 'Kestrel test unit');
+    const { store, instrumentId } = made;
+    const v = await visitOf(store, instrumentId);
+    await store.addReading({ visitId: v.id, typeId: 'multiplier-voltage', phase: 'as-found', value: 1800, entered: { text: '1800', unit: 'V' } });
+    await store.addReading({ visitId: v.id, typeId: 'multiplier-voltage', phase: 'as-left', value: 1750, entered: { text: '1750', unit: 'V' } });
+    await store.saveWalk({ visitId: v.id, instrumentId, treeId: 'noise', state: { at: 'NU1' }, status: 'in-progress' });
+    return { ...made, visitId: v.id };
+  }
+
+  it('keeps a copy in the drafts store, and restores everything from it after the database is reopened', async () => {
+    const { store, instrumentId, visitId, name } = await withRecords();
+    const before = {
+      instrument: await store.getInstrument(instrumentId),
+      readings: await store.listReadings(visitId),
+      walks: await store.listWalks(visitId),
+    };
+    const removed = await store.deleteInstrument(instrumentId);
+    expect(await store.db.count('readings')).toBe(0);
+    expect(await store.getDraft(`undo:instrument:${instrumentId}`)).toBeDefined();
+    store.close();
+
+    // A reload: a new connection, nothing in memory.
+    const again = await openStore(name, {}, { engine: testEngine });
+    const offer = await again.deletedInstrument();
+    expect(offer).toMatchObject({ profile: { id: instrumentId, name: 'Kestrel test unit' }, visits: 1, readings: 2, walks: 1 });
+    await again.restoreInstrument(offer!.profile);
+    expect(await again.getInstrument(instrumentId)).toEqual(before.instrument);
+    expect(await again.listReadings(visitId)).toEqual(before.readings);
+    expect(await again.listWalks(visitId)).toEqual(before.walks);
+    expect(removed).toEqual(before.instrument);
+    // Restored once: the copy is gone, nothing more is offered.
+    expect(await again.getDraft(`undo:instrument:${instrumentId}`)).toBeUndefined();
+    expect(await again.deletedInstrument()).toBeUndefined();
+    again.close();
+  });
+
+  it('offers only the latest deletion: the next delete drops the earlier copy', async () => {
+    const { store, instrumentId } = await withRecords();
+    const second = await store.duplicateInstrument(instrumentId);
+    const first = await store.deleteInstrument(instrumentId);
+    await store.deleteInstrument(second.id);
+    expect((await store.deletedInstrument())?.profile.id).toBe(second.id);
+    expect(await store.getDraft(`undo:instrument:${instrumentId}`)).toBeUndefined();
+    // The first one's records are gone for good; putting its profile back brings nothing else with it.
+    await store.restoreInstrument(first!);
+    expect(await store.getInstrument(instrumentId)).toEqual(first);
+    expect(await store.listVisits(instrumentId)).toEqual([]);
+    expect((await store.deletedInstrument())?.profile.id).toBe(second.id);
+    store.close();
+  });
+
+  it('drops the copy once the undo window is over', async () => {
+    const { store, instrumentId } = await withRecords();
+    await store.deleteInstrument(instrumentId);
+    const deletedAt = Date.parse((await store.deletedInstrument())!.deletedAt);
+    expect(await store.deletedInstrument(new Date(deletedAt + INSTRUMENT_UNDO_WINDOW_MS - 1000))).toBeDefined();
+    expect(await store.deletedInstrument(new Date(deletedAt + INSTRUMENT_UNDO_WINDOW_MS + 1000))).toBeUndefined();
+    expect(await store.getDraft(`undo:instrument:${instrumentId}`)).toBeUndefined();
+    store.close();
+  });
+
+  it('is not offered once an instrument of that id is back, and never goes into a backup', async () => {
+    const { store, instrumentId } = await withRecords();
+    const removed = await store.deleteInstrument(instrumentId);
+    const backup = JSON.parse(await store.exportBackup()) as { data: { drafts: Array<{ key: string }> } };
+    expect(backup.data.drafts.map((d) => d.key)).not.toContain(`undo:instrument:${instrumentId}`);
+    // The profile alone comes back some other way (here: saved again under the same id).
+    await store.db.put('instruments', removed!);
+    expect(await store.deletedInstrument()).toBeUndefined();
+    expect(await store.getDraft(`undo:instrument:${instrumentId}`)).toBeUndefined();
     store.close();
   });
 });
