@@ -2,6 +2,7 @@
  * The walker: pure functions over a plain, JSON-serialisable walk state.
  *
  *   start(tree, instrument?)            → state at the tree's entry
+ *   startDirect(entry, symptom, inst?)  → state at the shared safety gate; once confirmed, hands over to `symptom`
  *   answer(state, tree, input)          → new state (an option, several options, a gate, or a measured value)
  *   record(state, tree, input)          → new state with a reading stored, without moving (re-measure, as-left)
  *   enter(state, tree)                  → new state walking the next tree (after a hand-over or a leaf)
@@ -132,6 +133,11 @@ export interface WalkState {
   outcome: WalkOutcome | null;
   /** Nodes visited in order, the current one last. */
   path: Array<{ treeId: TreeId; nodeId: string }>;
+  /**
+   * Set on a direct start (startDirect): the symptom tree the walk goes to once the shared safety gate is
+   * confirmed, skipping the as-found record. Absent on a walk started at the shared entry or straight in a tree.
+   */
+  direct?: TreeId;
 }
 
 /** Registry used when the caller gives none: the engine-backed one. */
@@ -198,6 +204,18 @@ export function start(tree: Tree, instrument?: DiagnoseInstrument | null, option
     outcome: first.kind === 'action' ? outcomeOf(tree, first) : null,
     path: [{ treeId: tree.id, nodeId: tree.entry }],
   };
+}
+
+/**
+ * Start straight at one symptom without skipping the shared safety gate: the walk opens at the shared entry's
+ * gate (the same node, so a refusal still stops and escalates) and, once it is confirmed, hands over to
+ * `symptom` instead of going on to the as-found record.
+ */
+export function startDirect(entry: Tree, symptom: Tree, instrument?: DiagnoseInstrument | null, options?: WalkOptions): WalkState {
+  const gate = nodeOf(entry, entry.entry);
+  if (gate.kind !== 'gate') throw new RangeError(`tree "${entry.id}" must open with a safety gate to start a walk through it; it opens with a ${gate.kind}`);
+  if (symptom.id === entry.id) throw new RangeError(`a direct start goes to a symptom tree, not back to "${entry.id}"`);
+  return { ...start(entry, instrument, options), direct: symptom.id };
 }
 
 /** Order symptom trees in work order: vacuum, leak, no signal, mass axis, peak shape, sensitivity, noise. */
@@ -488,6 +506,11 @@ export function answer(state: WalkState, tree: Tree, input: AnswerInput, options
       const roleOk = node.roles.includes(input.role);
       const accepted = roleOk && node.asks.every((a) => (a === 'role' ? roleOk : input.confirmed.includes(a)));
       const step: WalkStep = { ...stepBase, answer: { kind: 'gate', role: input.role, confirmed: [...input.confirmed], accepted } };
+      if (accepted && state.direct && state.steps.length === 0) {
+        // A direct start's opening gate: confirmed, the walk goes to the chosen symptom (Back returns here).
+        const steps = [...state.steps, step];
+        return { ...state, steps, updatedAt: at, status: 'hand-over', handOver: state.direct, outcome: null, path: pathOf(steps, state.treeId, state.nodeId) };
+      }
       return arrive(state, tree, accepted ? node.next : node.refuse, step, at);
     }
     case 'measure': {

@@ -66,7 +66,9 @@ export async function exportBackupText(db: IDBPDatabase<RodsideSchema>, now = ne
     readings: await tx.objectStore('readings').getAll(),
     walks: await tx.objectStore('walks').getAll(),
     settings: await tx.objectStore('settings').getAll(),
-    drafts: await tx.objectStore('drafts').getAll(),
+    // The undo copy of a deleted instrument stays on this device only: the user deleted it, and a large copy
+    // could push the draft past the size a backup accepts.
+    drafts: (await tx.objectStore('drafts').getAll()).filter((d) => !d.key.startsWith('undo:')),
   };
   await tx.done;
   const dataText = JSON.stringify(data);

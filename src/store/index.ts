@@ -60,6 +60,28 @@ export interface VisitBundle {
   walks: WalkRecord[];
 }
 
+/** Draft key prefix of the copy kept after an instrument is deleted, for undo across a reload. */
+export const INSTRUMENT_UNDO_PREFIX = 'undo:instrument:';
+/** How long a deleted instrument stays restorable: one hour, long enough for a reload or a slip noticed late. */
+export const INSTRUMENT_UNDO_WINDOW_MS = 3600_000;
+const undoRange = () => IDBKeyRange.bound(INSTRUMENT_UNDO_PREFIX, `${INSTRUMENT_UNDO_PREFIX}\uffff`);
+
+/** What the drafts store keeps of a deleted instrument. */
+interface DeletedInstrumentCopy {
+  profile: InstrumentProfile;
+  bundles: VisitBundle[];
+  deletedAt: string;
+}
+
+/** A deleted instrument that can still be restored, with counts of what would come back with it. */
+export interface DeletedInstrument {
+  profile: InstrumentProfile;
+  deletedAt: string;
+  visits: number;
+  readings: number;
+  walks: number;
+}
+
 /** A value noted from another screen (the UI's noteThis passes this shape). */
 export interface NoteInput {
   typeId?: string;
@@ -68,6 +90,8 @@ export interface NoteInput {
   unit: string;
   context?: Record<string, string | number>;
   origin: 'calculator' | 'entered';
+  /** Before any work (default) or after it, e.g. the re-measurement that closes a corrective step. */
+  phase?: ReadingPhase;
 }
 
 export interface StoreOptions {
@@ -91,9 +115,16 @@ export interface Store {
   /** Create (no id) or update (with id) a profile. Validated again here: the database never holds a bad profile. */
   saveInstrument(fields: ProfileFields, id?: string): Promise<InstrumentProfile>;
   duplicateInstrument(id: string): Promise<InstrumentProfile>;
-  /** Deletes and returns the profile so the caller can offer undo via restoreInstrument. */
+  /**
+   * Deletes the profile with its visits, readings and walks, and returns it so the caller can offer undo. A copy
+   * of everything deleted stays in the drafts store (key undo:instrument:<id>) for INSTRUMENT_UNDO_WINDOW_MS or
+   * until the next deletion, so a reload does not lose the undo.
+   */
   deleteInstrument(id: string): Promise<InstrumentProfile | undefined>;
+  /** Put the profile back, with the visits, readings and walks from its kept copy if there still is one. */
   restoreInstrument(profile: InstrumentProfile): Promise<void>;
+  /** The deleted instrument that can still be restored (and what came with it); expired copies are dropped. */
+  deletedInstrument(now?: Date): Promise<DeletedInstrument | undefined>;
 
   /** Load the invented demo scenario if it has never been loaded (or was removed and is asked for again). */
   loadDemo(force?: boolean): Promise<boolean>;
@@ -168,6 +199,11 @@ export interface Store {
   /** The visit that "Note this" and the Visits screen treat as open for an instrument. */
   setCurrentVisit(instrumentId: string, visitId: string | null): Promise<void>;
   /**
+   * The instrument's open visit: the one marked by setCurrentVisit, only while that visit still exists and
+   * belongs to this instrument (a stale or foreign mark gives undefined).
+   */
+  currentVisit(instrumentId: string): Promise<Visit | undefined>;
+  /**
    * Record a value from any screen in the instrument's current visit: the visit marked current, else one
    * started in the last 12 hours, else a new visit opened for it. Values of a catalogue type are converted
    * from the unit given; anything else is kept as a "Noted value" with its label and unit.
@@ -222,9 +258,8 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
     }),
   );
 
-  const deletedWith = new Map<string, VisitBundle[]>();
 
-  type Tx = IDBPTransaction<RodsideSchema, ('visits' | 'readings' | 'walks' | 'instruments')[], 'readwrite'>;
+  type Tx = IDBPTransaction<RodsideSchema, ('visits' | 'readings' | 'walks' | 'instruments' | 'drafts')[], 'readwrite'>;
   async function deleteVisitIn(tx: Tx, visit: Visit): Promise<VisitBundle> {
     const readings = await tx.objectStore('readings').index('byVisit').getAll(visit.id);
     const walks = await tx.objectStore('walks').index('byVisit').getAll(visit.id);
@@ -312,15 +347,19 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
     deleteInstrument: (id) =>
       guard('delete the instrument profile', async () => {
         // Its visits, readings and walks go with it (a visit without its instrument cannot be restored from a
-        // backup); they are kept in memory so restoreInstrument can undo the whole deletion.
-        const tx = db.transaction(['instruments', 'visits', 'readings', 'walks'], 'readwrite');
+        // backup). A copy of all of it is kept in the drafts store, in the same transaction, so undo works even
+        // after a reload; the previous deletion's copy goes now (one undo at a time).
+        const tx = db.transaction(['instruments', 'visits', 'readings', 'walks', 'drafts'], 'readwrite');
         const existing = await tx.objectStore('instruments').get(id);
         if (existing) {
           const visits = await tx.objectStore('visits').index('byInstrument').getAll(id);
           const bundles: VisitBundle[] = [];
           for (const v of visits) bundles.push(await deleteVisitIn(tx, v));
           await tx.objectStore('instruments').delete(id);
-          deletedWith.set(id, bundles);
+          await tx.objectStore('drafts').delete(undoRange());
+          const now = nowIso();
+          const copy: DeletedInstrumentCopy = { profile: existing, bundles, deletedAt: now };
+          await tx.objectStore('drafts').put({ key: `${INSTRUMENT_UNDO_PREFIX}${id}`, value: copy, updatedAt: now });
         }
         await tx.done;
         return existing;
@@ -328,11 +367,40 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
 
     restoreInstrument: (profile) =>
       guard('restore the instrument profile', async () => {
-        const tx = db.transaction(['instruments', 'visits', 'readings', 'walks'], 'readwrite');
+        const tx = db.transaction(['instruments', 'visits', 'readings', 'walks', 'drafts'], 'readwrite');
+        const key = `${INSTRUMENT_UNDO_PREFIX}${profile.id}`;
+        const copy = (await tx.objectStore('drafts').get(key))?.value as DeletedInstrumentCopy | undefined;
         await tx.objectStore('instruments').put(profile);
-        for (const b of deletedWith.get(profile.id) ?? []) await putBundle(tx, b);
+        for (const b of copy?.bundles ?? []) await putBundle(tx, b);
+        await tx.objectStore('drafts').delete(key);
         await tx.done;
-        deletedWith.delete(profile.id);
+      }),
+
+    deletedInstrument: (now = new Date()) =>
+      guard('read the deleted instrument', async () => {
+        const tx = db.transaction(['drafts', 'instruments'], 'readwrite');
+        let found: DeletedInstrument | undefined;
+        for (const rec of await tx.objectStore('drafts').getAll(undoRange())) {
+          const copy = rec.value as Partial<DeletedInstrumentCopy> | undefined;
+          const at = Date.parse(copy?.deletedAt ?? '');
+          const live = !!copy?.profile && Array.isArray(copy.bundles) && Number.isFinite(at) && now.getTime() - at <= INSTRUMENT_UNDO_WINDOW_MS;
+          // An instrument of that id made again since (e.g. from a backup) makes the copy moot: never overwrite it.
+          const back = live ? await tx.objectStore('instruments').get(copy.profile!.id) : undefined;
+          if (!live || back) {
+            await tx.objectStore('drafts').delete(rec.key);
+            continue;
+          }
+          const bundles = copy.bundles as VisitBundle[];
+          found = {
+            profile: copy.profile!,
+            deletedAt: copy.deletedAt!,
+            visits: bundles.length,
+            readings: bundles.reduce((n, b) => n + b.readings.length, 0),
+            walks: bundles.reduce((n, b) => n + b.walks.length, 0),
+          };
+        }
+        await tx.done;
+        return found;
       }),
 
     loadDemo: (force = false) =>
@@ -737,16 +805,22 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         else await db.put('settings', { key: `currentVisit:${instrumentId}`, value: visitId });
       }),
 
+    currentVisit: (instrumentId) =>
+      guard('read the open visit', async () => {
+        const tx = db.transaction(['settings', 'visits'], 'readonly');
+        const id = (await tx.objectStore('settings').get(`currentVisit:${instrumentId}`))?.value;
+        const v = typeof id === 'string' ? await tx.objectStore('visits').get(id) : undefined;
+        await tx.done;
+        return v && v.instrumentId === instrumentId ? v : undefined;
+      }),
+
     noteReading: (instrument, note) =>
       guard('note the value', async () => {
         if (!Number.isFinite(note.value)) throw new StoreError(`Could not note “${note.label}”: the value is not a finite number.`);
+        const phase: ReadingPhase = note.phase ?? 'as-found';
+        if (phase !== 'as-found' && phase !== 'as-left') throw new StoreError(`Could not note “${note.label}”: the phase must be as-found or as-left, not “${String(phase)}”.`);
         const now = new Date();
-        let visit: Visit | undefined;
-        const currentId = (await db.get('settings', `currentVisit:${instrument.id}`))?.value;
-        if (typeof currentId === 'string') {
-          const v = await db.get('visits', currentId);
-          if (v && v.instrumentId === instrument.id) visit = v;
-        }
+        let visit: Visit | undefined = await store.currentVisit(instrument.id);
         if (!visit) {
           const recent = (await store.listVisits(instrument.id))[0];
           if (recent && now.getTime() - Date.parse(recent.startedAt) < 12 * 3600_000 && Date.parse(recent.startedAt) <= now.getTime()) visit = recent;
@@ -779,14 +853,14 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         const text = String(Number(note.value.toPrecision(8)));
         if (type && unit) {
           reading = await store.addReading({
-            visitId: visit.id, typeId: type.id, phase: 'as-found', value: note.value * unit.factor + (unit.offset ?? 0),
+            visitId: visit.id, typeId: type.id, phase, value: note.value * unit.factor + (unit.offset ?? 0),
             entered: { text, unit: unit.label }, context, note: note.label, origin: note.origin,
           });
         } else {
           context.label = note.label.slice(0, 200);
           context.unit = note.unit.slice(0, 200);
           reading = await store.addReading({
-            visitId: visit.id, typeId: 'noted-value', phase: 'as-found', value: note.value,
+            visitId: visit.id, typeId: 'noted-value', phase, value: note.value,
             entered: { text, unit: note.unit.slice(0, 100) }, context, note: note.label, origin: note.origin,
           });
         }
@@ -841,7 +915,6 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
         await Promise.all(names.map((n) => tx.objectStore(n).clear()));
         await tx.objectStore('settings').put({ key: 'demoLoaded', value: true });
         await tx.done;
-        deletedWith.clear();
       }),
 
     visitReport: (visitId, now = new Date()) =>

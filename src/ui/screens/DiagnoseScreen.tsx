@@ -1,7 +1,7 @@
 // Diagnose: walk a decision tree step by step, with expected values for the selected instrument, safety cards
 // and gates, and every reading kept. The walk is saved after every change so a reload resumes it.
 import { useEffect, useRef, useState } from 'preact/hooks';
-import { activeReadings, back, start, treeById, trees, WALK_FORMAT, type Tree, type TreeId, type WalkState } from '../../diagnose';
+import { activeReadings, back, start, startDirect, treeById, trees, WALK_FORMAT, type Tree, type TreeId, type WalkState } from '../../diagnose';
 import { noteThis } from '../noteThis';
 import { plainNote, visitNote } from './diagnose/toVisit';
 import { useApp } from '../context';
@@ -196,17 +196,15 @@ function Walk() {
   async function openVisitOf(instrumentId: string | undefined): Promise<string | null> {
     if (!store || !instrumentId) return null;
     try {
-      const id = await store.getSetting<string>(`currentVisit:${instrumentId}`);
-      if (typeof id !== 'string') return null;
-      const v = await store.getVisit(id);
-      return v && v.instrumentId === instrumentId ? v.id : null;
+      return (await store.currentVisit(instrumentId))?.id ?? null;
     } catch {
       return null;
     }
   }
 
-  function begin(tree: Tree) {
-    const walk = start(tree, instrument ?? null);
+  /** Start at the shared entry, or (given a symptom) at the shared safety gate and then straight to that symptom. */
+  function begin(tree: Tree, symptom?: Tree) {
+    const walk = symptom ? startDirect(tree, symptom, instrument ?? null) : start(tree, instrument ?? null);
     setResumed(false);
     walkId.current = null;
     visitId.current = null;
@@ -244,12 +242,12 @@ function Walk() {
           <summary>Go straight to one symptom</summary>
           <div class="choice-list">
             {trees.filter((t) => t.id !== 'entry').map((t) => (
-              <button key={t.id} type="button" class="btn btn-block" onClick={() => begin(t)}>
+              <button key={t.id} type="button" class="btn btn-block" onClick={() => begin(treeById('entry'), t)}>
                 {t.title}
               </button>
             ))}
           </div>
-          <p class="hint">Going straight skips the shared safety gate and as-found record; steps behind covers still have their own gates.</p>
+          <p class="hint">Going straight still starts with the shared safety gate, then skips the as-found record (optional here); steps behind covers still have their own gates.</p>
         </details>
       </div>
     );
@@ -295,6 +293,7 @@ function Walk() {
         </p>
         <p class="hint">
           {walk.instrument ? `Expected values for ${walk.instrument.name}` : 'No instrument: expected values that need geometry are not shown'}
+          {walk.direct && walk.treeId === 'entry' && ` · then: ${TREE_TITLE(walk.direct)}`}
           {walk.queue.length > 0 && ` · then: ${walk.queue.map(TREE_TITLE).join(', ')}`}
         </p>
       </div>

@@ -1,7 +1,7 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
 import {
-  amplitudeForms, amplitudeReferences, draftFromProfile, emptyDraft, instrumentKinds, numericFields, validateDraft,
-  type InstrumentProfile, type ProfileDraft, type ProfileErrors,
+  amplitudeForms, amplitudeReferences, draftFromProfile, emptyDraft, instrumentKinds, INSTRUMENT_UNDO_WINDOW_MS, numericFields, validateDraft,
+  type DeletedInstrument, type InstrumentProfile, type ProfileDraft, type ProfileErrors,
 } from '../../store';
 import { useApp } from '../context';
 import { NumberField, SelectField } from '../components/Field';
@@ -19,19 +19,32 @@ export function InstrumentsScreen() {
 function InstrumentList() {
   const { instruments, instrument, store, selectInstrument, reloadInstruments, notify } = useApp();
   const [busy, setBusy] = useState(false);
+  // A deleted instrument whose copy is still kept (also after a reload), so it can be put back.
+  const [deleted, setDeleted] = useState<DeletedInstrument | undefined>(undefined);
   const hasDemo = instruments.some((p) => p.demo);
+
+  const checkDeleted = () => void store?.deletedInstrument().then(setDeleted).catch(() => setDeleted(undefined));
+  useEffect(checkDeleted, [store]);
+
+  async function restore(profile: InstrumentProfile) {
+    if (!store) return;
+    try {
+      await store.restoreInstrument(profile);
+      await reloadInstruments();
+      notify(`Restored “${profile.name}”.`);
+    } catch (err) {
+      notify((err as { userMessage?: string }).userMessage ?? String(err));
+    }
+    checkDeleted();
+  }
 
   async function remove(p: InstrumentProfile) {
     if (!store) return;
     try {
       const removed = await store.deleteInstrument(p.id);
       await reloadInstruments();
-      if (removed) {
-        notify(`Deleted “${removed.name}”.`, {
-          label: 'Undo',
-          run: () => void store.restoreInstrument(removed).then(reloadInstruments),
-        });
-      }
+      checkDeleted();
+      if (removed) notify(`Deleted “${removed.name}”.`, { label: 'Undo', run: () => void restore(removed) });
     } catch (err) {
       notify((err as { userMessage?: string }).userMessage ?? String(err));
     }
@@ -78,6 +91,15 @@ function InstrumentList() {
           {hasDemo ? 'Remove demo data' : 'Load demo data'}
         </button>
       </div>
+      {deleted && (
+        <div class="notice" data-testid="restore-deleted">
+          <p>
+            “{deleted.profile.name}” was deleted with {deleted.visits} visit{deleted.visits === 1 ? '' : 's'} and {deleted.readings} reading{deleted.readings === 1 ? '' : 's'}.
+            A copy is kept on this device for {INSTRUMENT_UNDO_WINDOW_MS / 60_000} minutes, or until another instrument is deleted.
+          </p>
+          <button type="button" class="btn" onClick={() => restore(deleted.profile)}>Restore deleted {deleted.profile.name}</button>
+        </div>
+      )}
       {instruments.length === 0 && <p class="notice">No instrument profiles yet. Create one, or load the demo data.</p>}
       <ul class="cards" aria-label="Instrument profiles">
         {instruments.map((p) => (

@@ -3,6 +3,7 @@ import {
   activeReadings,
   answer,
   back,
+  currentNode,
   describeLimits,
   enter,
   judge,
@@ -10,6 +11,7 @@ import {
   preview,
   record,
   start,
+  startDirect,
   treeById,
   type DiagnoseInstrument,
   type MeasureNode,
@@ -288,5 +290,53 @@ describe('walker', () => {
     const frozen = JSON.stringify(s);
     answer(s, entry, { kind: 'gate', role: 'field-engineer', confirmed: ['procedure', 'permit', 'ppe', 'lockout'] });
     expect(JSON.stringify(s)).toBe(frozen);
+  });
+});
+
+describe('going straight to one symptom', () => {
+  const gateOk = { kind: 'gate' as const, role: 'field-engineer' as const, confirmed: ['procedure', 'permit', 'ppe', 'lockout'] as ('procedure' | 'permit' | 'ppe' | 'lockout')[] };
+
+  it('opens at the shared safety gate itself, not a copy of it', () => {
+    const s = startDirect(entry, noSignal, heron, { at: T(0) });
+    expect(s).toMatchObject({ treeId: 'entry', nodeId: 'E1', status: 'walking', direct: 'no-signal', steps: [], readings: [] });
+    expect(currentNode(s, entry)).toBe(entry.nodes.find((n) => n.id === 'E1'));
+    expect(currentNode(s, entry).kind).toBe('gate');
+    // A walk started the usual way carries no direct mark (saved walks keep their shape).
+    expect('direct' in start(entry, heron)).toBe(false);
+  });
+
+  it('a refused gate stops and escalates, as on the full walk', () => {
+    const s = answer(startDirect(entry, noSignal, null), entry, { kind: 'gate', role: 'analyst', confirmed: ['procedure', 'ppe'] });
+    expect(s).toMatchObject({ nodeId: 'E-stop', status: 'at-leaf', outcome: { escalate: true } });
+  });
+
+  it('once confirmed, hands over to the chosen symptom, skipping the as-found record; Back returns to the gate', () => {
+    const gated = answer(startDirect(entry, noSignal, heron, { at: T(0) }), entry, gateOk, { at: T(1) });
+    expect(gated).toMatchObject({ treeId: 'entry', nodeId: 'E1', status: 'hand-over', handOver: 'no-signal', queue: [] });
+    expect(gated.steps[0].answer).toMatchObject({ kind: 'gate', accepted: true, role: 'field-engineer' });
+    expect(() => enter(gated, vacuum)).toThrow(/cannot move to tree "vacuum"/);
+    const inTree = enter(gated, noSignal, { at: T(2) });
+    expect(inTree).toMatchObject({ treeId: 'no-signal', nodeId: 'NS1', status: 'walking' });
+    expect(inTree.path.map((p) => `${p.treeId}/${p.nodeId}`)).toEqual(['entry/E1', 'entry/E1', 'no-signal/NS1']);
+    expect(inTree.readings).toEqual([]);
+    expect(back(inTree)).toMatchObject({ treeId: 'entry', nodeId: 'E1', status: 'hand-over', handOver: 'no-signal' });
+    expect(back(gated)).toMatchObject({ treeId: 'entry', nodeId: 'E1', status: 'walking', handOver: null, steps: [] });
+    // The saved state resumes exactly.
+    const saved = JSON.parse(JSON.stringify(inTree)) as WalkState;
+    expect(saved).toStrictEqual(inTree);
+    expect(answer(saved, noSignal, { kind: 'option', optionId: 'nothing' }, { at: T(3) })).toEqual(answer(inTree, noSignal, { kind: 'option', optionId: 'nothing' }, { at: T(3) }));
+  });
+
+  it('gates further on in the symptom tree still lead where they always did', () => {
+    let s = enter(answer(startDirect(entry, noSignal, heron), entry, gateOk), noSignal);
+    for (const o of ['nothing', 'no-flow-ok', 'ei']) s = answer(s, noSignal, { kind: 'option', optionId: o });
+    s = answer(s, noSignal, { kind: 'measure', value: 0, inputs: { setPoint: 50 } });
+    expect(currentNode(s, noSignal).kind).toBe('gate');
+    expect(answer(s, noSignal, { kind: 'gate', role: 'field-engineer', confirmed: ['lockout', 'ppe', 'procedure'] }).nodeId).toBe('NS3E2');
+  });
+
+  it('refuses a tree that does not open with a gate, and a direct start into the entry itself', () => {
+    expect(() => startDirect(noSignal, leak, heron)).toThrow(/must open with a safety gate/);
+    expect(() => startDirect(entry, entry, heron)).toThrow(/goes to a symptom tree/);
   });
 });

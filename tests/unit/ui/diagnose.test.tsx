@@ -89,6 +89,33 @@ describe('DiagnoseScreen', () => {
     expect(host.textContent).toMatch(/Then re-measure and record/);
   });
 
+  it('going straight to one symptom still passes the shared safety gate, then says the as-found record was skipped', async () => {
+    const { store, saves } = fakeStore();
+    const host = mount(store);
+    await settle();
+    await act(async () => button(host, treeById('sensitivity').title).click());
+    await settle();
+    expect(nodeOf(host)).toBe('E1');
+    expect(host.textContent).toContain(`then: ${treeById('sensitivity').title}`);
+    expect(saves[0]).toMatchObject({ treeId: 'entry', state: { walk: { direct: 'sensitivity', nodeId: 'E1' } } });
+    const radios = [...host.querySelectorAll('input[type="radio"]')] as HTMLInputElement[];
+    await act(async () => radios[0].click());
+    for (let i = 0; i < 4; i++) {
+      const box = host.querySelectorAll('input[type="checkbox"]')[i] as HTMLInputElement;
+      await act(async () => box.click());
+    }
+    await settle();
+    await act(async () => button(host, 'Confirmed — continue').click());
+    await settle();
+    expect(nodeOf(host)).toBe('hand-over');
+    expect(host.querySelector('[data-testid="as-found-skipped"]')?.textContent).toMatch(/as-found record .* is skipped\. It is optional/);
+    await act(async () => button(host, `Start “${treeById('sensitivity').title}”`).click());
+    await settle();
+    expect(nodeOf(host)).toBe(treeById('sensitivity').entry);
+    expect(host.querySelector('[data-testid="as-found-skipped"]')).toBeNull();
+    expect(saves.at(-1)).toMatchObject({ id: 'walk-1', treeId: 'sensitivity' });
+  });
+
   it('resumes the latest walk in progress at the same step', async () => {
     const ns = treeById('no-signal');
     let walk = start(ns, demoInstruments[0]);

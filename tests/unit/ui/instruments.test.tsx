@@ -11,6 +11,7 @@ function fakeStore(overrides: Partial<Store>): Store {
     getDraft: async () => undefined,
     putDraft: async () => undefined,
     clearDraft: async () => undefined,
+    deletedInstrument: async () => undefined,
     ...overrides,
   } as unknown as Store;
 }

@@ -94,6 +94,12 @@ function HandOver(props: NodeViewProps & { to: TreeId }) {
       <p class="walk-kind">Next tree</p>
       <h2 class="walk-title" data-testid="walk-title">Continue with: {TREE_TITLE(props.to)}</h2>
       {later.length > 0 && <p class="walk-text">After that: {later.map(TREE_TITLE).join(', then ')}.</p>}
+      {props.walk.direct && props.walk.treeId === 'entry' && (
+        <p class="notice" data-testid="as-found-skipped">
+          Direct start: the as-found record (analyser pressure, last change, how it started) is skipped. It is optional
+          here; if this visit needs it, record the as-found values in the visit log before you change anything.
+        </p>
+      )}
       <button type="button" class="btn btn-primary btn-block" onClick={() => props.onWalk(enter(props.walk, treeById(props.to)))}>
         Start “{TREE_TITLE(props.to)}”
       </button>

@@ -8,17 +8,18 @@ function rfUnitId(i: DiagnoseInstrument): string {
   return `${a}-${i.readbackConvention.reference === 'per-rod' ? 'rod' : 'pairs'}`;
 }
 
-/** Plain noted value: label, value and unit as recorded in the walk. */
+/** Plain noted value: label, value and unit as recorded in the walk, and its phase (as-left after an action). */
 export function plainNote(r: WalkReading): NoteInput {
   const context: Record<string, string | number> = { walkStep: `${r.treeId}/${r.nodeId}`, verdict: r.verdict };
   if (r.expected !== null) context.expected = r.expected;
   if (r.tool) context.tool = r.tool.slice(0, 200);
-  return { label: `${r.quantity}${r.phase === 'as-left' ? ' (as-left)' : ''} — diagnosis walk`, value: r.value, unit: r.unit, context, origin: 'entered' };
+  return { label: `${r.quantity} — diagnosis walk`, value: r.value, unit: r.unit, context, origin: 'entered', phase: r.phase };
 }
 
 /** The note for the visit log, typed where the step names a catalogue type and the units fit. */
 export function visitNote(r: WalkReading, instrument: DiagnoseInstrument | null): NoteInput {
   const plain = plainNote(r);
+  // As-left readings close an action, which names no catalogue type: they stay noted values, marked as-left.
   if (r.phase !== 'as-found') return plain;
   const node = treeById(r.treeId).nodes.find((n) => n.id === r.nodeId);
   const type = node?.kind === 'measure' ? node.measure.visitType : undefined;
