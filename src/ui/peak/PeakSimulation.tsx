@@ -182,11 +182,11 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
             {peakData && (
               <Chart key="peak" data={peakData} height={260} zoomButtons testId="peak-chart"
                 label={`Simulated transmission against m/z from ${formatNumber(peakData[0][0], 6)} to ${formatNumber(peakData[0][peakData[0].length - 1], 6)}; peak ${formatNumber(100 * result.peakTransmission, 3)} %`}
-                options={{
+                options={({ teal }) => ({
                   scales: { x: { time: false } },
-                  series: [{ label: 'm/z' }, { label: 'Transmission (%)', stroke: '#1d6f6a', width: 2 }],
+                  series: [{ label: 'm/z' }, { label: 'Transmission (%)', stroke: teal, width: 2 }],
                   axes: [{ label: 'm/z' }, { label: 'Transmission (%)' }],
-                }} />
+                })} />
             )}
             <p class="hint">Numerical error of each point ≤ 0.1 % of the peak height (deterministic: no counting noise).</p>
           </>
@@ -209,11 +209,11 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
         {curveData && curveData[0].length > 1 && (
           <Chart key="curve" data={curveData} height={240} testId="peak-curve-chart"
             label="Peak transmission in per cent against resolution m/Δm at 50 % height"
-            options={{
+            options={({ amber }) => ({
               scales: { x: { time: false, distr: 3 } },
-              series: [{ label: 'm/Δm (50 %)' }, { label: 'Peak transmission (%)', stroke: '#8a4f14', width: 2, points: { show: true } }],
+              series: [{ label: 'm/Δm (50 %)' }, { label: 'Peak transmission (%)', stroke: amber, width: 2, points: { show: true, fill: amber } }],
               axes: [{ label: 'm/Δm at 50 % (log)' }, { label: 'Peak transmission (%)' }],
-            }} />
+            })} />
         )}
       </div>
 
