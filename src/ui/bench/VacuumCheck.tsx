@@ -67,7 +67,8 @@ export function VacuumCheck() {
   return (
     <>
       <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="vac-title">
-        <h2 class="card-title" id="vac-title">Vacuum check {instrument && <span class="muted">· {instrument.name}</span>}</h2>
+        <h2 class="card-title" id="vac-title">Gauge reading</h2>
+        {instrument && <p class="hint">Rod length starts from the profile of {instrument.name}.</p>}
         <div class="pair">
           <NumberField id="vac-reading" inputMode="text" label="Ion-gauge reading (N2-equivalent)" value={inputs.reading} error={errors.reading} onInput={(t) => update({ reading: t })} hint="e.g. 1.5e-5" />
           <SelectField id="vac-unit" label="Unit" value={unit} options={PRESSURE_UNITS.map((u) => ({ value: u, label: u }))} onChange={(v) => update({ unit: v })} />
