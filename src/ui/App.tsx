@@ -123,7 +123,7 @@ export function App() {
         {areas.filter((a) => a.primary).map((a) => (
           <a key={a.id} href={a.path} class={a.id === area.id ? 'bottom-link active' : 'bottom-link'} aria-current={a.id === area.id ? 'page' : undefined}>
             <a.icon />
-            <span>{a.id === 'home' ? 'All' : a.title}</span>
+            <span>{a.title}</span>
           </a>
         ))}
       </nav>

@@ -23,6 +23,6 @@ function superscript(n: number): string {
 }
 
 export function formatConvention(c: ReadbackConvention): string {
-  const form = c.amplitude === 'zero-to-peak' ? '0-p' : c.amplitude === 'peak-to-peak' ? 'p-p' : 'rms';
-  return `${form}, ${c.reference === 'per-rod' ? 'one rod to ground' : 'between pairs'}`;
+  const form = c.amplitude === 'zero-to-peak' ? 'zero-to-peak' : c.amplitude === 'peak-to-peak' ? 'peak-to-peak' : 'rms';
+  return `${form}, ${c.reference === 'per-rod' ? 'one rod to ground' : 'between the rod pairs'}`;
 }

@@ -54,9 +54,9 @@ export function InverseCheck(props: { inputs: BenchInputs; update: (p: Partial<B
           note={{ label: `Measured RF at set m/z ${inputs.invSetMz.trim()} (${rfFormWords[form]})`, value: rfIn.value, unit: rfFormUnitId[form], origin: 'entered', context: ctx, typeId: 'rf-amplitude' }} />
       )}
       {perRod !== null && (
-        <Result label="Same amplitude, zero-to-peak per rod" value={formatSi(perRod, 'V 0-p', 5)}
+        <Result label="Same amplitude, zero-to-peak, one rod to ground" value={formatSi(perRod, 'V 0-p', 5)}
           hint={perRod > profile.maxRfAmplitude ? `Above the supply's largest RF in this profile (${formatSi(profile.maxRfAmplitude, 'V 0-p')}).` : undefined}
-          note={{ label: 'Measured RF as zero-to-peak per rod', value: perRod, unit: 'V0p-rod', origin: 'entered', context: ctx, typeId: 'rf-amplitude' }} />
+          note={{ label: 'Measured RF as zero-to-peak, one rod to ground', value: perRod, unit: 'V0p-rod', origin: 'entered', context: ctx, typeId: 'rf-amplitude' }} />
       )}
       {passed !== null && (
         <Result label="m/z passed (band centre on this scan line)" value={`m/z ${formatNumber(passed, 6)}`} testId="inverse-mz"

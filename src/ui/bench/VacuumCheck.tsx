@@ -26,7 +26,7 @@ type Verdict = { cls: 'pass' | 'borderline' | 'fail'; symbol: string; words: str
  */
 function verdictOf(unscattered: number): Verdict {
   if (unscattered >= 0.9) return { cls: 'pass', symbol: '✓', words: 'The mean free path is far longer than the rods: little scattering.' };
-  if (unscattered >= 0.7) return { cls: 'borderline', symbol: '~', words: 'Some ions scatter on the way through; large ions (high m/z) lose first. Look for the gas load.' };
+  if (unscattered >= 0.7) return { cls: 'borderline', symbol: '△', words: 'Some ions scatter on the way through; large ions (high m/z) lose first. Look for the gas load.' };
   return { cls: 'fail', symbol: '✗', words: 'Many ions scatter before the detector: find the leak or gas load before judging sensitivity.' };
 }
 
@@ -67,7 +67,8 @@ export function VacuumCheck() {
   return (
     <>
       <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="vac-title">
-        <h2 class="card-title" id="vac-title">Vacuum check {instrument && <span class="muted">· {instrument.name}</span>}</h2>
+        <h2 class="card-title" id="vac-title">Gauge reading</h2>
+        {instrument && <p class="hint">Rod length starts from the profile of {instrument.name}.</p>}
         <div class="pair">
           <NumberField id="vac-reading" inputMode="text" label="Ion-gauge reading (N2-equivalent)" value={inputs.reading} error={errors.reading} onInput={(t) => update({ reading: t })} hint="e.g. 1.5e-5" />
           <SelectField id="vac-unit" label="Unit" value={unit} options={PRESSURE_UNITS.map((u) => ({ value: u, label: u }))} onChange={(v) => update({ unit: v })} />
@@ -104,7 +105,7 @@ export function VacuumCheck() {
                 note={{ label: 'Mean free path over rod length', value: scatter.ratioToRodLength, unit: '', origin: 'calculator', context: ctx }} />
               <Result label="Unscattered over the rods, exp(−L/λ)" value={`${formatNumber(scatter.unscatteredFraction * 100, 4)} %`} testId="unscattered"
                 note={{ label: 'Unscattered fraction over the rods', value: scatter.unscatteredFraction * 100, unit: '%', origin: 'calculator', context: ctx }} />
-              <p class="hint">Molecule-in-its-own-gas mean free path (kinetic theory). Ions, larger than the molecules, scatter more: losses show first at high m/z. Common working figure for the analyser: a gauge reading below about 1×10⁻⁵ Torr (common practice). Verdict: ✓ at least 90 % unscattered, ~ 70–90 %, ✗ below 70 % (our own reading of the numbers).</p>
+              <p class="hint">Molecule-in-its-own-gas mean free path (kinetic theory). Ions, larger than the molecules, scatter more: losses show first at high m/z. Common working figure for the analyser: a gauge reading below about 1×10⁻⁵ Torr (common practice). Verdict: ✓ pass at 90 % unscattered or more, △ borderline from 70 to 90 %, ✗ fail below 70 % (our own reading of the numbers).</p>
             </>
           )}
         </div>

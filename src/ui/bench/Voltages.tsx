@@ -61,7 +61,7 @@ export function Voltages() {
         <p class="muted">r0 {formatSi(profile.rodFieldRadius * 1e3, 'mm')} · f {formatSi(profile.rfFrequency / 1e6, 'MHz')} · read-backs {formatConvention(profile.readbackConvention)} · <a href={`/instruments/${encodeURIComponent(profile.id)}`}>edit profile</a></p>
         {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
         {top !== null && (
-          <Result label={`Top of the mass range at the supply's largest RF (${formatSi(profile.maxRfAmplitude, 'V 0-p')} per rod, apex q)`}
+          <Result label={`Top of the mass range at the supply's largest RF (${formatSi(profile.maxRfAmplitude, 'V 0-p')}, one rod to ground, apex q)`}
             value={`m/z ${formatNumber(top, 4)}`} testId="mass-range-top"
             note={{ label: 'Top of mass range from the supply’s largest RF', value: top, unit: 'u', origin: 'calculator', context: { maxRf: profile.maxRfAmplitude } }} />
         )}
@@ -109,7 +109,7 @@ function ExpectedCard(props: { row: Expected; hazard: HazardousLiveResult; readF
         {hazard.hazardous && <span class="tag tag-hv">⚠ hazardous live</span>}
       </h3>
       {row.rf > props.maxRf && (
-        <p class="notice" data-testid="beyond-supply">Above this supply's largest RF ({formatSi(props.maxRf, 'V 0-p')} per rod): the instrument cannot reach m/z {mzText} at this frequency.</p>
+        <p class="notice" data-testid="beyond-supply">Above this supply's largest RF ({formatSi(props.maxRf, 'V 0-p')}, one rod to ground): the instrument cannot reach m/z {mzText} at this frequency.</p>
       )}
       <Result label={`V, ${rfFormWords[readForm]} (read-back form)`} value={`${formatNumber(rfRead, 5)} ${rfFormUnit[readForm]}`} testId="rf-readback"
         note={{ label: `Expected RF at m/z ${mzText} (${rfFormWords[readForm]})`, value: rfRead, unit: rfFormUnitId[readForm], origin: 'calculator', context: ctx, typeId: 'rf-amplitude' }} />

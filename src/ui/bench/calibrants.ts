@@ -15,7 +15,7 @@ export function ionListsFor(p: InstrumentProfile | null): IonList[] {
   }
   return [
     { label: 'Perfluorinated EI calibrant: 69, 219, 502', values: [69, 219, 502] },
-    { label: 'Air and water: 18, 28, 32, 44', values: [18, 28, 32, 44] },
+    { label: 'Background gases: 18, 28, 32, 44', values: [18, 28, 32, 44] },
   ];
 }
 

@@ -15,9 +15,9 @@ export const rfFormWords: Record<RfForm, string> = {
   zeroToPeakPerRod: 'zero-to-peak, one rod to ground',
   peakToPeakPerRod: 'peak-to-peak, one rod to ground',
   rmsPerRod: 'rms, one rod to ground',
-  zeroToPeakBetweenPairs: 'zero-to-peak, between the pairs',
-  peakToPeakBetweenPairs: 'peak-to-peak, between the pairs',
-  rmsBetweenPairs: 'rms, between the pairs',
+  zeroToPeakBetweenPairs: 'zero-to-peak, between the rod pairs',
+  peakToPeakBetweenPairs: 'peak-to-peak, between the rod pairs',
+  rmsBetweenPairs: 'rms, between the rod pairs',
 };
 
 /** Short unit suffix for a form, e.g. "V 0-p". */
@@ -31,8 +31,8 @@ export const rfFormUnit: Record<RfForm, string> = {
 };
 
 export const dcFormWords: Record<DcForm, string> = {
-  perRod: 'one rod pair to ground',
-  betweenPairs: 'between the pairs',
+  perRod: 'one rod to ground',
+  betweenPairs: 'between the rod pairs',
 };
 
 /** The visit log's unit ids for each form, so a noted RF or DC lands as a typed reading in that unit. */

@@ -1,13 +1,62 @@
 // The one uPlot wrapper: create once, setData on change, resize with the container, destroy on unmount.
 // uPlot has no touch zoom, so the wrapper offers zoom buttons and reports taps (with a generous hit radius
 // left to the caller, which knows its series).
+// uPlot draws on a canvas with its own colours (black axes), which vanish on the dark theme: every chart takes its
+// colours from our palette instead, and is drawn again when the device switches between light and dark.
 import { useEffect, useRef, useState } from 'preact/hooks';
 import uPlot from 'uplot';
+
+export type ChartOptions = Omit<uPlot.Options, 'width' | 'height'>;
+
+/** Our palette as canvas colours, read from the CSS custom properties of the current theme. */
+export interface ChartPalette {
+  ink: string;
+  muted: string;
+  grid: string;
+  teal: string;
+  amber: string;
+  ok: string;
+  bad: string;
+}
+
+const LIGHT_FALLBACK: ChartPalette = { ink: '#1b2423', muted: '#56625f', grid: '#d8d2c4', teal: '#2f6461', amber: '#b36b00', ok: '#2d6a3e', bad: '#a3261b' };
+
+export function chartPalette(): ChartPalette {
+  if (typeof getComputedStyle !== 'function' || typeof document === 'undefined') return LIGHT_FALLBACK;
+  const style = getComputedStyle(document.documentElement);
+  const read = (name: string, fallback: string) => style.getPropertyValue(name).trim() || fallback;
+  return {
+    ink: read('--ink', LIGHT_FALLBACK.ink),
+    muted: read('--muted', LIGHT_FALLBACK.muted),
+    grid: read('--line', LIGHT_FALLBACK.grid),
+    teal: read('--teal-2', LIGHT_FALLBACK.teal),
+    amber: read('--amber', LIGHT_FALLBACK.amber),
+    ok: read('--ok', LIGHT_FALLBACK.ok),
+    bad: read('--bad', LIGHT_FALLBACK.bad),
+  };
+}
+
+/** Axes in the palette unless the caller chose otherwise; uPlot's own legend off (it shows "--" until hovered, and
+ * there is no hover on a phone): each chart has a legend of its own in the page. */
+export function themedOptions(options: ChartOptions, palette: ChartPalette): ChartOptions {
+  const axes = (options.axes ?? [{}, {}]).map((axis) => ({
+    ...axis,
+    stroke: axis.stroke ?? palette.ink,
+    grid: { stroke: palette.grid, width: 1, ...axis.grid },
+    ticks: { stroke: palette.grid, ...axis.ticks },
+  }));
+  return { ...options, legend: options.legend ?? { show: false }, axes };
+}
+
+function darkQuery(): MediaQueryList | null {
+  return typeof matchMedia === 'function' ? matchMedia('(prefers-color-scheme: dark)') : null;
+}
 
 export interface ChartProps {
   /** Columnar data: [xs, ys1, ys2, …]; null marks a gap. */
   data: uPlot.AlignedData;
-  options: Omit<uPlot.Options, 'width' | 'height'>;
+  /** Options, or a function of the palette so series colours follow the theme. */
+  options: ChartOptions | ((palette: ChartPalette) => ChartOptions);
   height?: number;
   /** Accessible description of what the chart shows (the canvas itself says nothing to a screen reader). */
   label: string;
@@ -28,11 +77,21 @@ export interface ChartProps {
 export function Chart(props: ChartProps) {
   const host = useRef<HTMLDivElement>(null);
   const plot = useRef<uPlot | null>(null);
+  const resolved = useRef<ChartOptions | null>(null);
   const latest = useRef(props);
   latest.current = props;
 
   // Canvas can be missing (blocked by a privacy setting, or a DOM without 2D canvas): say so, keep the page.
   const [noCanvas, setNoCanvas] = useState(false);
+  // Light or dark: a change draws the chart again in the other palette.
+  const [dark, setDark] = useState(() => darkQuery()?.matches ?? false);
+  useEffect(() => {
+    const query = darkQuery();
+    if (!query) return;
+    const onChange = () => setDark(query.matches);
+    query.addEventListener?.('change', onChange);
+    return () => query.removeEventListener?.('change', onChange);
+  }, []);
 
   useEffect(() => {
     const el = host.current!;
@@ -41,7 +100,10 @@ export function Chart(props: ChartProps) {
       return;
     }
     const width = Math.max(240, el.clientWidth || 320);
-    const u = new uPlot({ ...props.options, width, height: props.height ?? 300 }, props.data, el);
+    const given = latest.current.options;
+    const options = themedOptions(typeof given === 'function' ? given(chartPalette()) : given, chartPalette());
+    resolved.current = options;
+    const u = new uPlot({ ...options, width, height: latest.current.height ?? 300 }, latest.current.data, el);
     plot.current = u;
     const onClick = (ev: MouseEvent) => {
       const cb = latest.current.onTap;
@@ -65,9 +127,9 @@ export function Chart(props: ChartProps) {
       u.destroy();
       plot.current = null;
     };
-    // Options are read once: a new series layout needs a new key on the component.
+    // Options are read once per theme: a new series layout needs a new key on the component.
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, []);
+  }, [dark]);
 
   useEffect(() => {
     plot.current?.setData(props.data);
@@ -104,7 +166,7 @@ export function Chart(props: ChartProps) {
     u.batch(() => {
       u.setData(latest.current.data, true);
       // Scales with a fixed range are not auto-ranged by setData: put them back explicitly.
-      for (const [key, scale] of Object.entries(latest.current.options.scales ?? {})) {
+      for (const [key, scale] of Object.entries(resolved.current?.scales ?? {})) {
         const range = scale?.range;
         if (Array.isArray(range) && typeof range[0] === 'number' && typeof range[1] === 'number') u.setScale(key, { min: range[0], max: range[1] });
       }

@@ -14,7 +14,7 @@ export function StorageStatus() {
       {persisted === false && (
         <>
           <p>! <strong>Storage not guaranteed:</strong> the browser may clear Rodside's data when the device runs short of space, or after some weeks without use on some phones. Install Rodside to the home screen and export backups regularly.</p>
-          <button type="button" class="btn btn-small" onClick={() => void requestPersistence()}>Ask again</button>
+          <button type="button" class="btn btn-small" onClick={() => void requestPersistence()}>Ask the browser again to keep it</button>
         </>
       )}
       {persisted === null && (

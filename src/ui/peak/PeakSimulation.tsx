@@ -148,7 +148,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
           error={errors.transverseEnergy} onInput={(t) => update({ transverseEnergy: t })} />
         {run && (
           <p class="hint" data-testid="peak-operating">
-            U/V {formatNumber(run.ratio, 6)} · V {formatSi(run.rf, 'V 0-p')} and U {formatSi(run.dc, 'V')} per rod to ground ·
+            U/V {formatNumber(run.ratio, 6)} · V {formatSi(run.rf, 'V 0-p')} and U {formatSi(run.dc, 'V')}, one rod to ground ·
             ideal band {formatNumber(run.band.low, 6)}–{formatNumber(run.band.high, 6)} u · {formatNumber(run.cycles, 3)} RF cycles in the rods
           </p>
         )}
@@ -182,11 +182,11 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
             {peakData && (
               <Chart key="peak" data={peakData} height={260} zoomButtons testId="peak-chart"
                 label={`Simulated transmission against m/z from ${formatNumber(peakData[0][0], 6)} to ${formatNumber(peakData[0][peakData[0].length - 1], 6)}; peak ${formatNumber(100 * result.peakTransmission, 3)} %`}
-                options={{
+                options={({ teal }) => ({
                   scales: { x: { time: false } },
-                  series: [{ label: 'm/z' }, { label: 'Transmission (%)', stroke: '#1d6f6a', width: 2 }],
+                  series: [{ label: 'm/z' }, { label: 'Transmission (%)', stroke: teal, width: 2 }],
                   axes: [{ label: 'm/z' }, { label: 'Transmission (%)' }],
-                }} />
+                })} />
             )}
             <p class="hint">Numerical error of each point ≤ 0.1 % of the peak height (deterministic: no counting noise).</p>
           </>
@@ -209,11 +209,11 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
         {curveData && curveData[0].length > 1 && (
           <Chart key="curve" data={curveData} height={240} testId="peak-curve-chart"
             label="Peak transmission in per cent against resolution m/Δm at 50 % height"
-            options={{
+            options={({ amber }) => ({
               scales: { x: { time: false, distr: 3 } },
-              series: [{ label: 'm/Δm (50 %)' }, { label: 'Peak transmission (%)', stroke: '#8a4f14', width: 2, points: { show: true } }],
+              series: [{ label: 'm/Δm (50 %)' }, { label: 'Peak transmission (%)', stroke: amber, width: 2, points: { show: true, fill: amber } }],
               axes: [{ label: 'm/Δm at 50 % (log)' }, { label: 'Peak transmission (%)' }],
-            }} />
+            })} />
         )}
       </div>
 
@@ -224,7 +224,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
           <li>Singly charged ions, all with the same axial energy (the ion energy above), entering at a random RF phase (uniform over one period).</li>
           <li>Entry points spread evenly over a disc of the beam radius centred on the axis; sideways velocities random and Gaussian in x and y, with mean sideways kinetic energy equal to the transverse energy (half of it per axis).</li>
           <li>An ion is lost the moment it reaches the field radius r0 in x or y; the transmission is the fraction that reaches the exit.</li>
-          <li>U and V per rod to ground, V zero-to-peak (x rods at +(U + V cos Ωt), y rods at −(U + V cos Ωt)); U/V set from the chosen ideal resolution using the exact stability edges, V puts the m/z near the apex q ≈ 0.706.</li>
+          <li>U and V one rod to ground, V zero-to-peak (x rods at +(U + V cos Ωt), y rods at −(U + V cos Ωt)); U/V set from the chosen ideal resolution using the exact stability edges, V puts the m/z near the apex q ≈ 0.706.</li>
           <li>Computed from the linear equations of motion (fundamental solutions, acceptance polygons, exact velocity integrals), checked against direct integration of individual ions.</li>
           <li>Real peaks are wider and lower: fringe fields, rod errors and RF ripple are not modelled.</li>
         </ul>

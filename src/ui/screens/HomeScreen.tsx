@@ -1,19 +1,41 @@
+// Overview: where an engineer starts. The instrument in front of them, what is already open (a visit, a walk),
+// the usual first moves, then every area. Only facts the device holds; nothing is guessed.
 import { useEffect, useState } from 'preact/hooks';
-import { instrumentKinds } from '../../store';
+import { instrumentKinds, visitReasons, type Visit, type WalkRecord } from '../../store';
+import { treeById, type TreeId } from '../../diagnose';
 import { areas } from '../areas';
 import { useApp } from '../context';
 import { formatConvention, formatSi } from '../format';
 import { subscribeOffline, type OfflineState } from '../offline';
 import { StorageStatus } from '../components/StorageStatus';
+import { showDate } from '../visits/files';
+
+function walkTitle(treeId: string): string {
+  try {
+    return treeById(treeId as TreeId).title;
+  } catch {
+    return 'a diagnosis';
+  }
+}
 
 export function HomeScreen() {
-  const { instrument, instruments } = useApp();
+  const { store, instrument, instruments } = useApp();
   const [offline, setOffline] = useState<OfflineState | null>(null);
+  const [latestVisit, setLatestVisit] = useState<Visit | null | undefined>(undefined);
+  const [openWalk, setOpenWalk] = useState<WalkRecord | null>(null);
   useEffect(() => subscribeOffline(setOffline), []);
+  useEffect(() => {
+    if (!store || !instrument) return;
+    let live = true;
+    // What is already under way; a failed read leaves the line out rather than showing an error on the start page.
+    store.listVisits(instrument.id).then((v) => live && setLatestVisit(v[0] ?? null), () => live && setLatestVisit(undefined));
+    store.latestInProgressWalk().then((w) => live && setOpenWalk(w ?? null), () => undefined);
+    return () => { live = false; };
+  }, [store, instrument?.id]);
+
   return (
     <section class="screen">
-      <h1>Rodside</h1>
-      <p class="lede">Expected voltages, stability and resolution, peak simulation, guided diagnosis and a visit log for quadrupole analysers. Everything runs on this device, with or without a network.</p>
+      <h1>Overview</h1>
       <div class="card" data-testid="current-instrument">
         <h2 class="card-title">Working on</h2>
         {instrument ? (
@@ -21,14 +43,35 @@ export function HomeScreen() {
             <p class="big">{instrument.name}</p>
             <p class="muted">
               {instrumentKinds.find((k) => k.value === instrument.kind)?.label} · r0 {formatSi(instrument.rodFieldRadius * 1e3, 'mm')} ·{' '}
-              {formatSi(instrument.rfFrequency / 1e6, 'MHz')} · read-backs {formatConvention(instrument.readbackConvention)}
+              RF {formatSi(instrument.rfFrequency / 1e6, 'MHz')} · read-backs {formatConvention(instrument.readbackConvention)}
             </p>
             <p class="muted">Change it with the picker at the top. {instruments.length} profile{instruments.length === 1 ? '' : 's'} on this device.</p>
+            {latestVisit && (
+              <p data-testid="home-latest-visit">
+                Latest visit: <a href={`/visits/${encodeURIComponent(latestVisit.id)}`}>{showDate(latestVisit.startedAt)} · {visitReasons.find((r) => r.value === latestVisit.reason)?.label ?? 'visit'}</a>
+              </p>
+            )}
+            {latestVisit === null && <p class="muted">No visits recorded for this instrument yet.</p>}
           </>
         ) : (
           <p>No instrument profile yet. <a href="/instruments/new">Create one</a> to get expected values.</p>
         )}
+        {openWalk && (
+          <p class="notice" data-testid="home-open-walk">
+            A walk is in progress: {walkTitle(openWalk.treeId)}, last step {showDate(openWalk.updatedAt)}. <a href="/diagnose">Carry on with it</a>
+          </p>
+        )}
       </div>
+      <nav aria-label="Start here">
+        <h2 class="card-title">Start here</h2>
+        <ul class="quick-links">
+          <li><a class="btn btn-primary" href="/bench">Expected voltages</a></li>
+          <li><a class="btn" href="/diagnose">{openWalk ? 'Diagnose' : 'Start a walk'}</a></li>
+          <li><a class="btn" href="/visits/new">New visit</a></li>
+          <li><a class="btn" href="/safety">Safety cards</a></li>
+        </ul>
+      </nav>
+      <h2 class="card-title">All areas</h2>
       <ul class="tiles" aria-label="All areas">
         {areas.filter((a) => a.id !== 'home').map((a) => (
           <li key={a.id}>
@@ -44,6 +87,7 @@ export function HomeScreen() {
         <h2 class="card-title">This device</h2>
         <p>{offline?.offlineReady ? '✓ Ready to work offline.' : '… Preparing offline use (needs one complete load).'}</p>
         <StorageStatus />
+        <p class="hint">Expected values, stability, peak simulation, guided diagnosis and the visit log all run on this device, with or without a network. Ideal-field physics throughout; the instrument maker's limits and procedures come first.</p>
       </div>
     </section>
   );

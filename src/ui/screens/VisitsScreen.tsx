@@ -230,7 +230,7 @@ function VisitPage(props: { id: string; sub?: string }) {
 
   return (
     <section class="screen">
-      <p><a href="/visits">← All visits</a></p>
+      <p><a class="btn btn-small" href="/visits">← All visits</a></p>
       <h1>Visit of {showDate(visit.startedAt)}</h1>
       <div class="card" data-testid="visit-summary">
         <dl class="facts">
@@ -298,12 +298,12 @@ function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: 
                 const ctx = contextText(r);
                 return (
                   <tr key={r.id} data-testid="reading-row">
-                    <td>{r.typeId === 'noted-value' ? String(r.context?.label ?? 'Noted value') : t?.label ?? r.typeId}{ctx && <span class="ctx">{ctx}</span>}</td>
+                    <td class="what">{r.typeId === 'noted-value' ? String(r.context?.label ?? 'Noted value') : t?.label ?? r.typeId}{ctx && <span class="ctx">{ctx}</span>}</td>
                     <td class="value">{shownValue(r, t)}</td>
-                    <td><VerdictBadge verdict={r.verdict} /></td>
-                    <td>{expectedText(r, t)}{r.expected?.summary && <span class="ctx">{r.expected.summary}</span>}</td>
-                    <td class="note">{r.note}</td>
-                    {props.onDelete && <td><button type="button" class="btn btn-small no-print" onClick={() => props.onDelete!(r)} aria-label={`Delete ${t?.label ?? 'reading'}`}>Delete</button></td>}
+                    <td class="judged"><VerdictBadge verdict={r.verdict} /></td>
+                    <td class="expected" data-label="Expected">{expectedText(r, t)}{r.expected?.summary && <span class="ctx">{r.expected.summary}</span>}</td>
+                    <td class={r.note ? 'note' : 'note empty'} data-label="Note">{r.note}</td>
+                    {props.onDelete && <td class="actions"><button type="button" class="btn btn-small no-print" onClick={() => props.onDelete!(r)} aria-label={`Delete ${t?.label ?? 'reading'}`}>Delete</button></td>}
                   </tr>
                 );
               })}

@@ -131,7 +131,7 @@ export function ResolutionPlanner() {
               <>
                 <Result label={`V at m/z ${formatNumber(mz, 6)} (read-back form)`} value={`${formatNumber(rfAs(form, reversePoint.rf)!, 5)} ${rfFormUnit[form]}`}
                   note={{ label: `RF for m/Δm ${inputs.targetR.trim()} at m/z ${mz}`, value: rfAs(form, reversePoint.rf)!, unit: rfFormUnitId[form], origin: 'calculator', context: { mz }, typeId: 'rf-amplitude' }} />
-                <Result label={`U at m/z ${formatNumber(mz, 6)}, per rod`} value={formatSi(reversePoint.dc, 'V', 5)}
+                <Result label={`U at m/z ${formatNumber(mz, 6)}, one rod to ground`} value={formatSi(reversePoint.dc, 'V', 5)}
                   note={{ label: `DC for m/Δm ${inputs.targetR.trim()} at m/z ${mz}`, value: reversePoint.dc, unit: 'V-rod', origin: 'calculator', context: { mz }, typeId: 'dc-amplitude' }} />
               </>
             )}

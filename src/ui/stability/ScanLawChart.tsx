@@ -3,7 +3,7 @@
 import { useMemo } from 'preact/hooks';
 import { apexRatio, constantResolutionScanLine, constantWidthScanLine, massForScanRf, type ScanLine } from '../../engine';
 import type { InstrumentProfile } from '../../store';
-import { Chart, type uPlot } from '../components/Chart';
+import { Chart, type ChartOptions, type ChartPalette, type uPlot } from '../components/Chart';
 import { NumberField } from '../components/Field';
 import { formatNumber } from '../format';
 import { tryEngine, type FieldErrors } from '../bench/engineErrors';
@@ -64,11 +64,7 @@ export function ScanLawChart(props: { profile: InstrumentProfile; top: number })
     [widthLine?.slope, widthLine?.offset, resLine?.slope, top, r0, frequency, profile.maxRfAmplitude],
   );
 
-  const options = useMemo((): Omit<uPlot.Options, 'width' | 'height'> => {
-    const style = typeof getComputedStyle === 'function' ? getComputedStyle(document.documentElement) : null;
-    const c = (n: string, f: string) => style?.getPropertyValue(n).trim() || f;
-    const ink = c('--ink', '#1b2423');
-    const grid = c('--line', '#d8d2c4');
+  const options = useMemo(() => ({ ink, grid, teal, amber }: ChartPalette): ChartOptions => {
     return {
       legend: { show: false },
       cursor: { drag: { x: false, y: false }, points: { show: false }, x: false, y: false },
@@ -79,8 +75,8 @@ export function ScanLawChart(props: { profile: InstrumentProfile; top: number })
       ],
       series: [
         {},
-        { label: 'constant Δm', stroke: c('--teal-2', '#2f6461'), width: 3, points: { show: false } },
-        { label: 'constant m/Δm', stroke: c('--amber', '#b36b00'), width: 3, dash: [7, 4], points: { show: false } },
+        { label: 'constant Δm', stroke: teal, width: 3, points: { show: false } },
+        { label: 'constant m/Δm', stroke: amber, width: 3, dash: [7, 4], points: { show: false } },
         { label: 'apex', stroke: ink, width: 1.5, dash: [2, 4], points: { show: false } },
       ],
     };

@@ -7,7 +7,7 @@ import {
 } from '../../engine';
 import { HvCaution, isHazardousLive } from '../bench/HvCaution';
 import type { InstrumentProfile } from '../../store';
-import { Chart, type uPlot } from '../components/Chart';
+import { Chart, type ChartOptions, type ChartPalette, type uPlot } from '../components/Chart';
 import { NumberField, SelectField } from '../components/Field';
 import { useApp } from '../context';
 import { formatNumber, formatSi } from '../format';
@@ -43,12 +43,6 @@ export const HIT_RADIUS = 32;
 
 const WHOLE = { x: [0, Q_MAX] as [number, number], y: [-0.02, 0.32] as [number, number] };
 
-function cssColour(name: string, fallback: string): string {
-  if (typeof getComputedStyle !== 'function') return fallback;
-  const v = getComputedStyle(document.documentElement).getPropertyValue(name).trim();
-  return v || fallback;
-}
-
 export function StabilityDiagram() {
   const { instrument } = useApp();
   const [inputs, update] = usePersistentInputs<StabilityInputs>('stability', stabilityDefaults);
@@ -58,7 +52,7 @@ export function StabilityDiagram() {
   const pointsRef = useRef<PlottedPoint[]>([]);
   const selectedRef = useRef<number | null>(null);
   selectedRef.current = selected;
-  const options = useMemo(() => chartOptions(pointsRef, selectedRef), []);
+  const options = useMemo(() => (palette: ChartPalette) => chartOptions(palette, pointsRef, selectedRef), []);
 
   if (!instrument) return <p class="notice">Pick or add an instrument first: the diagram uses its geometry.</p>;
   const profile = instrument;
@@ -288,13 +282,10 @@ function Marker(props: { kind: 'pass' | 'fail' | 'apex' }) {
 }
 
 /** uPlot options, made once; the draw hook reads the latest points through refs. */
-function chartOptions(pointsRef: { current: PlottedPoint[] }, selectedRef: { current: number | null }): Omit<uPlot.Options, 'width' | 'height'> {
-  const ink = cssColour('--ink', '#1b2423');
-  const xColour = cssColour('--teal-2', '#2f6461');
-  const yColour = cssColour('--amber', '#b36b00');
-  const ok = cssColour('--ok', '#2d6a3e');
-  const bad = cssColour('--bad', '#a3261b');
-  const grid = cssColour('--line', '#d8d2c4');
+function chartOptions(palette: ChartPalette, pointsRef: { current: PlottedPoint[] }, selectedRef: { current: number | null }): ChartOptions {
+  const { ink, grid, ok, bad } = palette;
+  const xColour = palette.teal;
+  const yColour = palette.amber;
   return {
     legend: { show: false },
     cursor: { drag: { x: false, y: false }, points: { show: false }, x: false, y: false },

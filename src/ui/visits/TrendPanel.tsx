@@ -3,7 +3,7 @@
 // projected date it reaches the supply limit.
 import { useEffect, useMemo, useState } from 'preact/hooks';
 import { formatNumber, fromBase, SECONDS_PER_MONTH, type ReadingContext, type ReadingType, type TrendData } from '../../store';
-import { Chart, type uPlot } from '../components/Chart';
+import { Chart, type ChartOptions, type ChartPalette, type uPlot } from '../components/Chart';
 import { useApp } from '../context';
 import { errorText } from './files';
 
@@ -56,16 +56,17 @@ export function TrendPanel(props: { instrumentId: string; types: ReadingType[] }
 
   const seriesLabel = (c: ReadingContext) => Object.entries(c).map(([k, v]) => `${k === 'mz' ? 'm/z' : k === 'referenceMz' ? 'relative to m/z' : k} ${v}`).join(', ') || 'all';
   const log = trend?.scale === 'log';
-  const options: Omit<uPlot.Options, 'width' | 'height'> = {
+  const options = ({ amber, teal, muted }: ChartPalette): ChartOptions => ({
     scales: { x: { time: true }, y: log ? { distr: 3 } : {} },
     axes: [{}, { label: unit?.label ?? '', size: 70 }],
     series: [
       {},
-      { label: 'As found', stroke: '#b36b00', width: 0, points: { show: true, size: 9, fill: '#b36b00' } },
-      { label: 'As left', stroke: '#2f6461', width: 2, points: { show: true, size: 9, fill: '#2f6461' } },
-      { label: 'Fitted line', stroke: '#56625f', width: 1.5, dash: [6, 4], points: { show: false } },
+      // As found: hollow rings, no line; as left: filled dots joined; fit: dashed. Told apart by shape, not colour alone.
+      { label: 'As found', stroke: amber, width: 0, points: { show: true, size: 10, width: 2, fill: 'transparent', stroke: amber } },
+      { label: 'As left', stroke: teal, width: 2, points: { show: true, size: 9, fill: teal } },
+      { label: 'Fitted line', stroke: muted, width: 1.5, dash: [6, 4], points: { show: false } },
     ],
-  };
+  });
   const p = trend?.projection;
 
   return (
@@ -86,12 +87,17 @@ export function TrendPanel(props: { instrumentId: string; types: ReadingType[] }
             </select>
           </div>
         )}
-        <label class="row"><input type="checkbox" checked={allTime} onChange={(e) => setAllTime((e.target as HTMLInputElement).checked)} /> All time (default: last five years)</label>
+        <label class="check"><input type="checkbox" checked={allTime} onChange={(e) => setAllTime((e.target as HTMLInputElement).checked)} /> All time (default: last five years)</label>
       </div>
       {data && trend && trend.x.length > 0 ? (
         <>
           <Chart key={`${typeId}-${log}`} data={data} options={options} height={260} zoomButtons testId="trend-chart"
             label={`${trend.label} across ${trend.x.length} visits, as found and as left, with a fitted straight line${log ? ' on a logarithmic scale' : ''}.`} />
+          <ul class="legend" aria-label="Legend">
+            <li><svg width="18" height="18" aria-hidden="true"><circle cx="9" cy="9" r="5" fill="none" stroke="currentColor" stroke-width="2" /></svg> as found (ring)</li>
+            <li><svg width="36" height="18" aria-hidden="true"><line x1="2" y1="9" x2="34" y2="9" stroke="currentColor" stroke-width="2" /><circle cx="18" cy="9" r="4.5" fill="currentColor" /></svg> as left (dot and line)</li>
+            <li><svg width="36" height="18" aria-hidden="true"><line x1="2" y1="9" x2="34" y2="9" stroke="currentColor" stroke-width="1.5" stroke-dasharray="6 4" /></svg> fitted line (dashed)</li>
+          </ul>
           {trend.line && unit && (
             <p>
               Fitted to {trend.fittedPhase} values ({trend.line.n} visits{log ? ', on log scale' : ''}):{' '}

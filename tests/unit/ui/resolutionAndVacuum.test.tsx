@@ -85,7 +85,7 @@ describe('Bench · vacuum check', () => {
     expect(Math.abs(s.meanFreePath - 6.7) / 6.7).toBeLessThan(0.05);
     expect(h.root.querySelector('[data-testid="vacuum-verdict"]')?.textContent).toMatch(/^✓ pass/);
     await typeInto(h.root, 'vac-reading', '1e-4');
-    expect(h.root.querySelector('[data-testid="vacuum-verdict"]')?.textContent).toMatch(/^~ borderline/);
+    expect(h.root.querySelector('[data-testid="vacuum-verdict"]')?.textContent).toMatch(/^△ borderline/);
     await typeInto(h.root, 'vac-reading', '5e-3');
     expect(h.root.querySelector('[data-testid="vacuum-verdict"]')?.textContent).toMatch(/^✗ fail/);
     await typeInto(h.root, 'vac-reading', '-1');

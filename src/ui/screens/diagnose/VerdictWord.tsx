@@ -1,6 +1,6 @@
 import type { Verdict } from '../../../diagnose';
 
-const SYMBOL: Record<Verdict | 'recorded', string> = { pass: '✓', borderline: '~', fail: '✗', recorded: '•' };
+const SYMBOL: Record<Verdict | 'recorded', string> = { pass: '✓', borderline: '△', fail: '✗', recorded: '•' };
 
 /** A verdict as a word and a symbol, never colour alone. */
 export function VerdictWord(props: { verdict: Verdict | 'recorded'; side?: 'low' | 'high' }) {
