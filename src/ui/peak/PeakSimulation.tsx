@@ -136,7 +136,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
         <p class="muted">r0 {formatSi(instrument.rodFieldRadius * 1e3, 'mm')} · rods {formatSi(instrument.rodLength * 1e3, 'mm')} · f {formatSi(instrument.rfFrequency / 1e6, 'MHz')}</p>
         {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
         <div class="pair">
-          <NumberField id="peak-mz" label="m/z" value={inputs.mz} error={errors.mz} onInput={(t) => update({ mz: t })} />
+          <NumberField id="peak-mz" label="m/z" unit="u" value={inputs.mz} error={errors.mz} onInput={(t) => update({ mz: t })} />
           <NumberField id="peak-resolution" label="Ideal resolution m/Δm" value={inputs.resolution} error={errors.resolution}
             onInput={(t) => update({ resolution: t })} hint="Sets U/V from the exact stability edges." />
         </div>
