@@ -290,7 +290,7 @@ function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: 
         <p class="muted">None recorded yet.</p>
       ) : (
         <div class="scroll-x">
-          <table class="values reading-table" data-testid={`readings-${props.title === 'As found' ? 'as-found' : 'as-left'}`}>
+          <table class="values reading-table stack-table" data-testid={`readings-${props.title === 'As found' ? 'as-found' : 'as-left'}`}>
             <thead><tr><th>Reading</th><th>Value</th><th>Verdict</th><th>Expected</th><th>Note</th>{props.onDelete && <th><span class="visually-hidden">Actions</span></th>}</tr></thead>
             <tbody>
               {props.readings.map((r) => {
@@ -298,9 +298,9 @@ function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: 
                 const ctx = contextText(r);
                 return (
                   <tr key={r.id} data-testid="reading-row">
-                    <td class="what">{r.typeId === 'noted-value' ? String(r.context?.label ?? 'Noted value') : t?.label ?? r.typeId}{ctx && <span class="ctx">{ctx}</span>}</td>
+                    <td class="what stack-head">{r.typeId === 'noted-value' ? String(r.context?.label ?? 'Noted value') : t?.label ?? r.typeId}{ctx && <span class="ctx">{ctx}</span>}</td>
                     <td class="value">{shownValue(r, t)}</td>
-                    <td class="judged"><VerdictBadge verdict={r.verdict} /></td>
+                    <td class="judged stack-side"><VerdictBadge verdict={r.verdict} /></td>
                     <td class="expected" data-label="Expected">{expectedText(r, t)}{r.expected?.summary && <span class="ctx">{r.expected.summary}</span>}</td>
                     <td class={r.note ? 'note' : 'note empty'} data-label="Note">{r.note}</td>
                     {props.onDelete && <td class="actions"><button type="button" class="btn btn-small no-print" onClick={() => props.onDelete!(r)} aria-label={`Delete ${t?.label ?? 'reading'}`}>Delete</button></td>}
