@@ -71,15 +71,19 @@ function VisitList() {
     <section class="screen">
       <h1>Visits</h1>
       <p class="lede">Service visits with as-found and as-left readings, each judged against the instrument’s baseline, a calculation or a generic range.</p>
-      <BackupReminderNote />
       {!instrument ? (
-        <p class="notice">Pick or create an instrument first: visits belong to an instrument. <a href="/instruments/new">New instrument</a></p>
+        <>
+          <p class="notice">Pick or create an instrument first: visits belong to an instrument. <a href="/instruments/new">New instrument</a></p>
+          <BackupReminderNote />
+        </>
       ) : (
         <>
           <div class="row">
             <a class="btn btn-primary" href="/visits/new">New visit</a>
             <span class="muted">for {instrument.name}</span>
           </div>
+          {/* The day's first move comes first; the backup reminder right after it. */}
+          <BackupReminderNote />
           {problem && <p class="banner banner-problem" role="alert">{problem}</p>}
           {visits && visits.length === 0 && <p class="notice">No visits recorded for this instrument yet.</p>}
           {visits && visits.length > 0 && (
