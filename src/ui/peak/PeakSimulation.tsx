@@ -133,7 +133,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     <>
       <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="peak-settings-title">
         <h2 class="card-title" id="peak-settings-title">Settings · {instrument.name}</h2>
-        <p class="muted">r0 {formatSi(instrument.rodFieldRadius * 1e3, 'mm')} · rods {formatSi(instrument.rodLength * 1e3, 'mm')} · f {formatSi(instrument.rfFrequency / 1e6, 'MHz')}</p>
+        <p class="muted">r0 {formatSi(instrument.rodFieldRadius * 1e3, 'mm')} · rods {formatSi(instrument.rodLength * 1e3, 'mm')} · RF {formatSi(instrument.rfFrequency / 1e6, 'MHz')}</p>
         {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
         <div class="pair">
           <NumberField id="peak-mz" label="m/z" unit="u" value={inputs.mz} error={errors.mz} onInput={(t) => update({ mz: t })} />
