@@ -293,7 +293,7 @@ function chartOptions(palette: ChartPalette, pointsRef: { current: PlottedPoint[
     scales: { x: { time: false }, y: { range: WHOLE.y } },
     axes: [
       { label: 'q', stroke: ink, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid } },
-      { label: 'a', stroke: ink, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid }, size: 56 },
+      { label: 'a', stroke: ink, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid }, size: 46 },
     ],
     series: [
       {},
