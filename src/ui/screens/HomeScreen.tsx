@@ -65,9 +65,12 @@ export function HomeScreen() {
       <nav aria-label="Start here">
         <h2 class="card-title">Start here</h2>
         <ul class="quick-links">
-          <li><a class="btn btn-primary" href="/bench">Expected voltages</a></li>
+          {/* Without a profile there are no expected values and no visits: the first move is to add one. */}
+          {instrument
+            ? <li><a class="btn btn-primary" href="/bench">Expected voltages</a></li>
+            : <li><a class="btn btn-primary" href="/instruments/new">Add an instrument</a></li>}
           <li><a class="btn" href="/diagnose">{openWalk ? 'Diagnose' : 'Start a walk'}</a></li>
-          <li><a class="btn" href="/visits/new">New visit</a></li>
+          {instrument && <li><a class="btn" href="/visits/new">New visit</a></li>}
           <li><a class="btn" href="/safety">Safety cards</a></li>
         </ul>
       </nav>
