@@ -36,7 +36,7 @@ export function benchDefaults(p: InstrumentProfile | null): BenchInputs {
 export function Voltages() {
   const { instrument } = useApp();
   const [inputs, update] = usePersistentInputs<BenchInputs>('bench', benchDefaults);
-  if (!instrument) return <p class="notice">Pick or add an instrument first: every expected value comes from its profile.</p>;
+  if (!instrument) return <p class="notice">Pick or add an instrument first: every expected value comes from its profile. <a href="/instruments/new">Add an instrument</a></p>;
   const profile = instrument;
   const errors: FieldErrors = {};
   const list = parseMzList(inputs.mzList);

@@ -87,7 +87,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     return [rows.map((x) => x[0]), rows.map((x) => x[1])] as [number[], number[]];
   }, [curve]);
 
-  if (!instrument) return <p class="notice">Pick or add an instrument first: the simulation uses its field radius, rod length and frequency.</p>;
+  if (!instrument) return <p class="notice">Pick or add an instrument first: the simulation uses its field radius, rod length and frequency. <a href="/instruments/new">Add an instrument</a></p>;
 
   function computeCurve() {
     if (!instrument || !run) return;
