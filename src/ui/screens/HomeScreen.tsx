@@ -48,7 +48,7 @@ export function HomeScreen() {
             <p class="muted">Change it with the picker at the top. {instruments.length} profile{instruments.length === 1 ? '' : 's'} on this device.</p>
             {latestVisit && (
               <p data-testid="home-latest-visit">
-                Latest visit: <a href={`/visits/${encodeURIComponent(latestVisit.id)}`}>{showDate(latestVisit.startedAt)} · {visitReasons.find((r) => r.value === latestVisit.reason)?.label ?? 'visit'}</a>
+                Latest visit: <a class="tap-link" href={`/visits/${encodeURIComponent(latestVisit.id)}`}>{showDate(latestVisit.startedAt)} · {visitReasons.find((r) => r.value === latestVisit.reason)?.label ?? 'visit'}</a>
               </p>
             )}
             {latestVisit === null && <p class="muted">No visits recorded for this instrument yet.</p>}
@@ -58,7 +58,7 @@ export function HomeScreen() {
         )}
         {openWalk && (
           <p class="notice" data-testid="home-open-walk">
-            A walk is in progress: {walkTitle(openWalk.treeId)}, last step {showDate(openWalk.updatedAt)}. <a href="/diagnose">Carry on with it</a>
+            A walk is in progress: {walkTitle(openWalk.treeId)}, last step {showDate(openWalk.updatedAt)}. <a class="tap-link" href="/diagnose">Carry on with it</a>
           </p>
         )}
       </div>
