@@ -36,7 +36,7 @@ export function benchDefaults(p: InstrumentProfile | null): BenchInputs {
 export function Voltages() {
   const { instrument } = useApp();
   const [inputs, update] = usePersistentInputs<BenchInputs>('bench', benchDefaults);
-  if (!instrument) return <p class="notice">Pick or add an instrument first: every expected value comes from its profile.</p>;
+  if (!instrument) return <p class="notice">Pick or add an instrument first: every expected value comes from its profile. <a href="/instruments/new">Add an instrument</a></p>;
   const profile = instrument;
   const errors: FieldErrors = {};
   const list = parseMzList(inputs.mzList);
@@ -58,7 +58,8 @@ export function Voltages() {
     <>
       <div class="card">
         <h2 class="card-title">{profile.name}</h2>
-        <p class="muted">r0 {formatSi(profile.rodFieldRadius * 1e3, 'mm')} · f {formatSi(profile.rfFrequency / 1e6, 'MHz')} · read-backs {formatConvention(profile.readbackConvention)} · <a href={`/instruments/${encodeURIComponent(profile.id)}`}>edit profile</a></p>
+        <p class="muted">r0 {formatSi(profile.rodFieldRadius * 1e3, 'mm')} · RF {formatSi(profile.rfFrequency / 1e6, 'MHz')} · read-backs {formatConvention(profile.readbackConvention)}</p>
+        <p><a class="btn btn-small" href={`/instruments/${encodeURIComponent(profile.id)}`}>Edit profile</a></p>
         {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
         {top !== null && (
           <Result label={`Top of the mass range at the supply's largest RF (${formatSi(profile.maxRfAmplitude, 'V 0-p')}, one rod to ground, apex q)`}

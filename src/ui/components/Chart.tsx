@@ -39,7 +39,12 @@ export function chartPalette(): ChartPalette {
 /** Axes in the palette unless the caller chose otherwise; uPlot's own legend off (it shows "--" until hovered, and
  * there is no hover on a phone): each chart has a legend of its own in the page. */
 export function themedOptions(options: ChartOptions, palette: ChartPalette): ChartOptions {
-  const axes = (options.axes ?? [{}, {}]).map((axis) => ({
+  // uPlot's default axis room (50 px plus 30 px for a title) leaves a 360 px phone a plot half the card wide:
+  // tighter titles and x-axis room give the curve the space, callers still set a y size for wide tick labels.
+  const axes = (options.axes ?? [{}, {}]).map((axis, i) => ({
+    labelSize: 20,
+    labelGap: 0,
+    ...(i === 0 ? { size: 40 } : {}),
     ...axis,
     stroke: axis.stroke ?? palette.ink,
     grid: { stroke: palette.grid, width: 1, ...axis.grid },
@@ -179,7 +184,7 @@ export function Chart(props: ChartProps) {
         <div class="chart-tools">
           <button type="button" class="btn btn-small" onClick={() => zoom(0.5)}>Zoom in</button>
           <button type="button" class="btn btn-small" onClick={() => zoom(2)}>Zoom out</button>
-          <button type="button" class="btn btn-small" onClick={reset}>Reset view</button>
+          <button type="button" class="btn btn-small" onClick={reset} aria-label="Reset the chart view">Reset</button>
         </div>
       )}
       <div class="chart" ref={host} role="img" aria-label={props.label} />

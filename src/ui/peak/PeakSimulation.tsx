@@ -87,7 +87,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     return [rows.map((x) => x[0]), rows.map((x) => x[1])] as [number[], number[]];
   }, [curve]);
 
-  if (!instrument) return <p class="notice">Pick or add an instrument first: the simulation uses its field radius, rod length and frequency.</p>;
+  if (!instrument) return <p class="notice">Pick or add an instrument first: the simulation uses its field radius, rod length and frequency. <a href="/instruments/new">Add an instrument</a></p>;
 
   function computeCurve() {
     if (!instrument || !run) return;
@@ -133,10 +133,10 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     <>
       <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="peak-settings-title">
         <h2 class="card-title" id="peak-settings-title">Settings · {instrument.name}</h2>
-        <p class="muted">r0 {formatSi(instrument.rodFieldRadius * 1e3, 'mm')} · rods {formatSi(instrument.rodLength * 1e3, 'mm')} · f {formatSi(instrument.rfFrequency / 1e6, 'MHz')}</p>
+        <p class="muted">r0 {formatSi(instrument.rodFieldRadius * 1e3, 'mm')} · rods {formatSi(instrument.rodLength * 1e3, 'mm')} · RF {formatSi(instrument.rfFrequency / 1e6, 'MHz')}</p>
         {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
         <div class="pair">
-          <NumberField id="peak-mz" label="m/z" value={inputs.mz} error={errors.mz} onInput={(t) => update({ mz: t })} />
+          <NumberField id="peak-mz" label="m/z" unit="u" value={inputs.mz} error={errors.mz} onInput={(t) => update({ mz: t })} />
           <NumberField id="peak-resolution" label="Ideal resolution m/Δm" value={inputs.resolution} error={errors.resolution}
             onInput={(t) => update({ resolution: t })} hint="Sets U/V from the exact stability edges." />
         </div>

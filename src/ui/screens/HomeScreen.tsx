@@ -48,7 +48,7 @@ export function HomeScreen() {
             <p class="muted">Change it with the picker at the top. {instruments.length} profile{instruments.length === 1 ? '' : 's'} on this device.</p>
             {latestVisit && (
               <p data-testid="home-latest-visit">
-                Latest visit: <a href={`/visits/${encodeURIComponent(latestVisit.id)}`}>{showDate(latestVisit.startedAt)} · {visitReasons.find((r) => r.value === latestVisit.reason)?.label ?? 'visit'}</a>
+                Latest visit: <a class="tap-link" href={`/visits/${encodeURIComponent(latestVisit.id)}`}>{showDate(latestVisit.startedAt)} · {visitReasons.find((r) => r.value === latestVisit.reason)?.label ?? 'visit'}</a>
               </p>
             )}
             {latestVisit === null && <p class="muted">No visits recorded for this instrument yet.</p>}
@@ -58,16 +58,19 @@ export function HomeScreen() {
         )}
         {openWalk && (
           <p class="notice" data-testid="home-open-walk">
-            A walk is in progress: {walkTitle(openWalk.treeId)}, last step {showDate(openWalk.updatedAt)}. <a href="/diagnose">Carry on with it</a>
+            A walk is in progress: {walkTitle(openWalk.treeId)}, last step {showDate(openWalk.updatedAt)}. <a class="tap-link" href="/diagnose">Carry on with it</a>
           </p>
         )}
       </div>
       <nav aria-label="Start here">
         <h2 class="card-title">Start here</h2>
         <ul class="quick-links">
-          <li><a class="btn btn-primary" href="/bench">Expected voltages</a></li>
+          {/* Without a profile there are no expected values and no visits: the first move is to add one. */}
+          {instrument
+            ? <li><a class="btn btn-primary" href="/bench">Expected voltages</a></li>
+            : <li><a class="btn btn-primary" href="/instruments/new">Add an instrument</a></li>}
           <li><a class="btn" href="/diagnose">{openWalk ? 'Diagnose' : 'Start a walk'}</a></li>
-          <li><a class="btn" href="/visits/new">New visit</a></li>
+          {instrument && <li><a class="btn" href="/visits/new">New visit</a></li>}
           <li><a class="btn" href="/safety">Safety cards</a></li>
         </ul>
       </nav>

@@ -71,15 +71,19 @@ function VisitList() {
     <section class="screen">
       <h1>Visits</h1>
       <p class="lede">Service visits with as-found and as-left readings, each judged against the instrument’s baseline, a calculation or a generic range.</p>
-      <BackupReminderNote />
       {!instrument ? (
-        <p class="notice">Pick or create an instrument first: visits belong to an instrument. <a href="/instruments/new">New instrument</a></p>
+        <>
+          <p class="notice">Pick or create an instrument first: visits belong to an instrument. <a href="/instruments/new">New instrument</a></p>
+          <BackupReminderNote />
+        </>
       ) : (
         <>
           <div class="row">
             <a class="btn btn-primary" href="/visits/new">New visit</a>
             <span class="muted">for {instrument.name}</span>
           </div>
+          {/* The day's first move comes first; the backup reminder right after it. */}
+          <BackupReminderNote />
           {problem && <p class="banner banner-problem" role="alert">{problem}</p>}
           {visits && visits.length === 0 && <p class="notice">No visits recorded for this instrument yet.</p>}
           {visits && visits.length > 0 && (
@@ -290,7 +294,7 @@ function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: 
         <p class="muted">None recorded yet.</p>
       ) : (
         <div class="scroll-x">
-          <table class="values reading-table" data-testid={`readings-${props.title === 'As found' ? 'as-found' : 'as-left'}`}>
+          <table class="values reading-table stack-table" data-testid={`readings-${props.title === 'As found' ? 'as-found' : 'as-left'}`}>
             <thead><tr><th>Reading</th><th>Value</th><th>Verdict</th><th>Expected</th><th>Note</th>{props.onDelete && <th><span class="visually-hidden">Actions</span></th>}</tr></thead>
             <tbody>
               {props.readings.map((r) => {
@@ -298,9 +302,9 @@ function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: 
                 const ctx = contextText(r);
                 return (
                   <tr key={r.id} data-testid="reading-row">
-                    <td class="what">{r.typeId === 'noted-value' ? String(r.context?.label ?? 'Noted value') : t?.label ?? r.typeId}{ctx && <span class="ctx">{ctx}</span>}</td>
+                    <td class="what stack-head">{r.typeId === 'noted-value' ? String(r.context?.label ?? 'Noted value') : t?.label ?? r.typeId}{ctx && <span class="ctx">{ctx}</span>}</td>
                     <td class="value">{shownValue(r, t)}</td>
-                    <td class="judged"><VerdictBadge verdict={r.verdict} /></td>
+                    <td class="judged stack-side"><VerdictBadge verdict={r.verdict} /></td>
                     <td class="expected" data-label="Expected">{expectedText(r, t)}{r.expected?.summary && <span class="ctx">{r.expected.summary}</span>}</td>
                     <td class={r.note ? 'note' : 'note empty'} data-label="Note">{r.note}</td>
                     {props.onDelete && <td class="actions"><button type="button" class="btn btn-small no-print" onClick={() => props.onDelete!(r)} aria-label={`Delete ${t?.label ?? 'reading'}`}>Delete</button></td>}

@@ -36,7 +36,7 @@ const kChoices = Object.entries(CYCLE_LIMIT_CONSTANTS).map(([key, v]) => ({ valu
 export function ResolutionPlanner() {
   const { instrument } = useApp();
   const [inputs, update] = usePersistentInputs<PlannerInputs>('resolution', plannerDefaults);
-  if (!instrument) return <p class="notice">Pick or add an instrument first: the planner starts from its rods and RF.</p>;
+  if (!instrument) return <p class="notice">Pick or add an instrument first: the planner starts from its rods and RF. <a href="/instruments/new">Add an instrument</a></p>;
   const profile = instrument;
   const errors: FieldErrors = {};
   const num = (key: keyof PlannerInputs, label: string, example: string) => {

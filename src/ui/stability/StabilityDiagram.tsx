@@ -54,7 +54,7 @@ export function StabilityDiagram() {
   selectedRef.current = selected;
   const options = useMemo(() => (palette: ChartPalette) => chartOptions(palette, pointsRef, selectedRef), []);
 
-  if (!instrument) return <p class="notice">Pick or add an instrument first: the diagram uses its geometry.</p>;
+  if (!instrument) return <p class="notice">Pick or add an instrument first: the diagram uses its geometry. <a href="/instruments/new">Add an instrument</a></p>;
   const profile = instrument;
   const r0 = profile.rodFieldRadius;
   const frequency = profile.rfFrequency;
@@ -161,7 +161,7 @@ export function StabilityDiagram() {
             note={{ label: `DC at the current setting (set m/z ${inputs.setMz.trim()})`, value: dcAs(readDc, dc) ?? NaN, unit: dcFormUnitId[readDc], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'dc-amplitude' }} />
           <Result label={`V, ${rfFormWords[readForm]} (read-back form)`} value={`${formatNumber(rfAs(readForm, rf) ?? NaN, 5)} ${rfFormUnit[readForm]}`}
             note={{ label: `RF at the current setting (set m/z ${inputs.setMz.trim()})`, value: rfAs(readForm, rf) ?? NaN, unit: rfFormUnitId[readForm], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'rf-amplitude' }} />
-          <Result label="U/V (per rod, V zero-to-peak)" value={formatNumber(dc / rf, 6)} testId="band-ratio"
+          <Result label="U/V (V zero-to-peak, one rod to ground)" value={formatNumber(dc / rf, 6)} testId="band-ratio"
             note={{ label: 'DC/RF ratio U/V at the current setting', value: dc / rf, unit: '', origin: 'calculator' }} />
           {band ? (
             <>
@@ -293,7 +293,7 @@ function chartOptions(palette: ChartPalette, pointsRef: { current: PlottedPoint[
     scales: { x: { time: false }, y: { range: WHOLE.y } },
     axes: [
       { label: 'q', stroke: ink, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid } },
-      { label: 'a', stroke: ink, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid }, size: 56 },
+      { label: 'a', stroke: ink, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid }, size: 46 },
     ],
     series: [
       {},

@@ -62,7 +62,7 @@ export function MakerLimits(props: { instrument: InstrumentProfile; types: Readi
 
   return (
     <details class="card" data-testid="maker-limits">
-      <summary>Maker’s limits for {props.instrument.name} ({limits.length})</summary>
+      <summary>Maker’s limits for {props.instrument.name}: {limits.length === 0 ? 'none entered' : `${limits.length} entered`}</summary>
       <p class="muted">Where the instrument’s maker or your site sets a limit, enter it here with its source. It replaces the generic ranges; a reading outside it fails even when it is close to the baseline.</p>
       {limits.length > 0 && (
         <ul>

@@ -58,7 +58,8 @@ export function TrendPanel(props: { instrumentId: string; types: ReadingType[] }
   const log = trend?.scale === 'log';
   const options = ({ amber, teal, muted }: ChartPalette): ChartOptions => ({
     scales: { x: { time: true }, y: log ? { distr: 3 } : {} },
-    axes: [{}, { label: unit?.label ?? '', size: 70 }],
+    // Two-line date labels (month over year) need the room.
+    axes: [{ size: 52 }, { label: unit?.label ?? '', size: 70 }],
     series: [
       {},
       // As found: hollow rings, no line; as left: filled dots joined; fit: dashed. Told apart by shape, not colour alone.

@@ -121,16 +121,16 @@ export function LeakCheckPanel(props: { typed: LeakTyped; onTyped: (patch: LeakT
             <p class="big">{INDICATION_WORDS[ratio.value.indication]}</p>
             <ul>{ratio.value.reasons.map((r) => <li key={r}>{r}</li>)}</ul>
             <div class="scroll-x">
-              <table class="values">
+              <table class="values stack-table">
                 <thead><tr><th>Ratio</th><th>Measured</th><th>Band</th><th>In band</th><th>Source</th></tr></thead>
                 <tbody>
                   {ratio.value.ratios.map((r) => (
                     <tr key={r.name}>
-                      <td>{r.name}</td>
-                      <td>{r.measured === null ? 'cannot form (zero denominator)' : formatNumber(r.measured)}</td>
-                      <td>{formatNumber(r.low)} to {Number.isFinite(r.high) ? formatNumber(r.high) : 'any higher'}</td>
-                      <td>{r.inBand ? '✓ yes' : '✗ no'}</td>
-                      <td class="hint">{r.source}</td>
+                      <td class="stack-head">{r.name}</td>
+                      <td data-label="Measured">{r.measured === null ? 'cannot form (zero denominator)' : formatNumber(r.measured)}</td>
+                      <td data-label="Band">{formatNumber(r.low)} to {Number.isFinite(r.high) ? formatNumber(r.high) : 'any higher'}</td>
+                      <td class="stack-side">{r.inBand ? '✓ in band' : '✗ outside'}</td>
+                      <td class="hint" data-label="Source">{r.source}</td>
                     </tr>
                   ))}
                 </tbody>
