@@ -327,7 +327,7 @@ export function fitOutgassing(samples: PressureSample[]): OutgassingFit {
     return { A, B, rSquared, residualRms, floorShareAtEnd, judgement: 'outgassing', reason: 'The pressure is still falling as 1/t with little floor: outgassing; keep pumping or bake.' };
   }
   if (floorShareAtEnd > 0.5) {
-    return { A, B, rSquared, residualRms, floorShareAtEnd, judgement: 'leak-floor', reason: 'A constant floor explains most of the pressure now: a leak or permeation; go to the leak check.' };
+    return { A, B, rSquared, residualRms, floorShareAtEnd, judgement: 'leak-floor', reason: 'A constant floor explains most of the pressure now: a leak or permeation; find it with a rate-of-rise test and a tracer gas.' };
   }
   return { A, B, rSquared, residualRms, floorShareAtEnd, judgement: 'mixed', reason: 'Outgassing and a floor both matter: keep pumping and repeat the fit later.' };
 }

@@ -182,7 +182,7 @@ export const catalogue: readonly ReadingType[] = [
     help: 'Counter or oscilloscope through a loosely coupled pickup loop: a probe on the tank detunes it.',
   },
   {
-    id: 'multiplier-voltage', label: 'Multiplier voltage at tune', group: 'detector', baseUnit: 'V', units: voltageUnits,
+    id: 'multiplier-voltage', label: 'Multiplier voltage (as set for the target gain)', group: 'detector', baseUnit: 'V', units: voltageUnits,
     defaultUnit: 'V', plausible: { min: 0, max: 6000 }, badSide: 'high',
     // The voltage climbs as the multiplier ages (domain C18); +10 % over the baseline is worth planning for [cp].
     baselineTolerance: { kind: 'relative', pass: 0.1, borderline: 0.2 },
@@ -229,7 +229,7 @@ export const catalogue: readonly ReadingType[] = [
     help: 'Full width at half maximum from a profile scan of the calibrant ion.',
   },
   {
-    id: 'relative-abundance', label: 'Relative abundance of a tune ion', group: 'performance', baseUnit: '%',
+    id: 'relative-abundance', label: 'Relative abundance of a reference ion', group: 'performance', baseUnit: '%',
     units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 1000 }, badSide: 'both',
     // Within about ±20–30 % relative of baseline (common practice); regulated methods set their own windows.
     baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
@@ -238,7 +238,7 @@ export const catalogue: readonly ReadingType[] = [
       { key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true },
     ],
     matchContext: ['mz', 'referenceMz'], trendScale: 'linear',
-    help: 'Abundance of this ion as a percentage of the reference ion, from the tune report.',
+    help: 'Abundance of this ion as a percentage of the reference ion, from the instrument\'s own performance report.',
   },
   {
     id: 'isotope-ratio', label: 'Isotope ratio M+1/M of a calibrant ion', group: 'performance', baseUnit: '%',

@@ -23,7 +23,7 @@ export const numericFields: readonly NumericFieldSpec[] = [
     help: 'Length of the mass-filter rods the ions travel through.' },
   { key: 'rfFrequency', label: 'RF frequency', unit: 'MHz', toSi: 1e6, min: 0.1, max: 20,
     help: 'Drive frequency f of the RF supply.' },
-  { key: 'maxRfAmplitude', label: 'Largest RF amplitude', unit: 'V (0-p, one rod to ground)', toSi: 1, min: 10, max: 20000,
+  { key: 'maxRfAmplitude', label: 'Largest RF amplitude', unit: 'V zero-to-peak, one rod to ground', toSi: 1, min: 10, max: 20000,
     help: 'The most the RF supply can deliver; it sets the top of the mass range.' },
   { key: 'axialEnergy', label: 'Ion axial energy', unit: 'eV', toSi: 1, min: 0.1, max: 100,
     help: 'Typical energy of ions entering the rods (set by the rod offset).' },

@@ -43,7 +43,7 @@ export const sensitivityTree: Tree = {
       title: 'Is the detector gain where it should be?',
       text: 'Read the multiplier voltage the tune needed now and compare it with its history and the supply maximum.',
       points: ['On a residual gas analyser, gain = multiplier current ÷ Faraday current on a steady peak (m/z 28 or 40).', 'A slow upward trend is normal (common practice).'],
-      measure: { visitType: 'multiplier-voltage', quantity: 'Multiplier voltage at tune', unit: 'V', altUnits: ['kV'], tool: 'Tune report or read-back', how: 'Take the value from the latest tune.' },
+      measure: { visitType: 'multiplier-voltage', quantity: 'Multiplier voltage (as set for the target gain)', unit: 'V', altUnits: ['kV'], tool: 'Performance report or read-back', how: 'Take the value the instrument set at its latest gain adjustment.' },
       expect: {
         calc: 'multiplierHeadroom',
         inputs: [{ key: 'supplyMaximum', label: 'Multiplier supply maximum', unit: 'V', default: 3000, min: 100, max: 10000 }],

@@ -2,7 +2,6 @@
 // the usual first moves, then every area. Only facts the device holds; nothing is guessed.
 import { useEffect, useState } from 'preact/hooks';
 import { instrumentKinds, visitReasons, type Visit, type WalkRecord } from '../../store';
-import { treeById, type TreeId } from '../../diagnose';
 import { areas } from '../areas';
 import { useApp } from '../context';
 import { formatConvention, formatSi } from '../format';
@@ -10,9 +9,11 @@ import { subscribeOffline, type OfflineState } from '../offline';
 import { StorageStatus } from '../components/StorageStatus';
 import { showDate } from '../visits/files';
 
-function walkTitle(treeId: string): string {
+/** Title of a walk's tree. The trees load with the Diagnose area, so the overview stays small at start-up. */
+async function walkTitle(treeId: string): Promise<string> {
   try {
-    return treeById(treeId as TreeId).title;
+    const { treeById } = await import('../../diagnose');
+    return treeById(treeId as Parameters<typeof treeById>[0]).title;
   } catch {
     return 'a diagnosis';
   }
@@ -22,14 +23,19 @@ export function HomeScreen() {
   const { store, instrument, instruments } = useApp();
   const [offline, setOffline] = useState<OfflineState | null>(null);
   const [latestVisit, setLatestVisit] = useState<Visit | null | undefined>(undefined);
-  const [openWalk, setOpenWalk] = useState<WalkRecord | null>(null);
+  const [openWalk, setOpenWalk] = useState<{ record: WalkRecord; title: string } | null>(null);
   useEffect(() => subscribeOffline(setOffline), []);
   useEffect(() => {
     if (!store || !instrument) return;
     let live = true;
     // What is already under way; a failed read leaves the line out rather than showing an error on the start page.
     store.listVisits(instrument.id).then((v) => live && setLatestVisit(v[0] ?? null), () => live && setLatestVisit(undefined));
-    store.latestInProgressWalk().then((w) => live && setOpenWalk(w ?? null), () => undefined);
+    store.latestInProgressWalk()
+      .then(async (w) => {
+        const title = w ? await walkTitle(w.treeId) : '';
+        if (live) setOpenWalk(w ? { record: w, title } : null);
+      })
+      .catch(() => undefined);
     return () => { live = false; };
   }, [store, instrument?.id]);
 
@@ -58,7 +64,7 @@ export function HomeScreen() {
         )}
         {openWalk && (
           <p class="notice" data-testid="home-open-walk">
-            A walk is in progress: {walkTitle(openWalk.treeId)}, last step {showDate(openWalk.updatedAt)}. <a class="tap-link" href="/diagnose">Carry on with it</a>
+            A walk is in progress: {openWalk.title}, last step {showDate(openWalk.record.updatedAt)}. <a class="tap-link" href="/diagnose">Carry on with it</a>
           </p>
         )}
       </div>

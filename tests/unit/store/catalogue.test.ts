@@ -66,7 +66,7 @@ describe('entry checks name the field and the accepted range in the chosen unit'
     const c = checkEntry(t, '5000', 'mbar', {});
     expect(!c.ok && c.errors.value).toMatch(/5000 mbar is out of range: enter a value between 1e-12 and 1200 mbar/);
     const d = checkEntry(type('multiplier-voltage'), '7', 'kV', {});
-    expect(!d.ok && d.errors.value).toMatch(/Multiplier voltage at tune 7 kV is out of range: enter a value between 0 and 6 kV/);
+    expect(!d.ok && d.errors.value).toMatch(/Multiplier voltage \(as set for the target gain\) 7 kV is out of range: enter a value between 0 and 6 kV/);
   });
   it('requires the parked m/z for RF amplitude and stores the convention', () => {
     const t = type('rf-amplitude');

@@ -67,7 +67,7 @@ describe('visit page', () => {
     const before = (await store!.listReadings('demo-visit-k8')).length;
     await act(async () => { (host.querySelector('[data-testid="reading-form"]') as HTMLFormElement).dispatchEvent(new Event('submit', { bubbles: true, cancelable: true })); });
     await settle(host, () => /out of range/.test(host.textContent ?? ''));
-    expect(host.textContent).toContain('Multiplier voltage at tune 9e9 V is out of range: enter a value between 0 and 6000 V.');
+    expect(host.textContent).toContain('Multiplier voltage (as set for the target gain) 9e9 V is out of range: enter a value between 0 and 6000 V.');
     expect((host.querySelector('#reading-value') as HTMLInputElement).value).toBe('9e9');
     expect(await store!.listReadings('demo-visit-k8')).toHaveLength(before);
 
