@@ -7,11 +7,11 @@ import { IconCaution } from '../components/icons';
 import { SafetyCards } from '../screens/diagnose/SafetyCards';
 
 /** `compact` keeps the levels, the deferral and the cards (for screens where the voltages are not the main answer). */
-export function HvCaution(props: { exceeded?: string[]; compact?: boolean }) {
+export function HvCaution(props: { exceeded?: string[]; compact?: boolean; /** Anchor for a short caution that links here. */ id?: string }) {
   const dry = HAZARDOUS_LIVE_LEVELS.dry;
   const wet = HAZARDOUS_LIVE_LEVELS.wet;
   return (
-    <div class="card caution" role="note" data-testid="hv-caution">
+    <div class="card caution" role="note" data-testid="hv-caution" id={props.id} tabIndex={props.id ? -1 : undefined}>
       <h2 class="card-title"><IconCaution /> Hazardous live: high voltage and RF on the rods</h2>
       <p>
         Above {dry.rms} V rms, {dry.peak} V peak or {dry.dc} V DC (dry; wet: {wet.rms} V rms, {wet.peak} V peak, {wet.dc} V DC) a part is

@@ -81,7 +81,11 @@ export function Voltages() {
         {built && <p class="hint" data-testid="scan-line">Scan line: {built.description}.</p>}
       </form>
 
-      {anyHazard && <HvCaution exceeded={exceeded} />}
+      {anyHazard && (
+        <p class="notice" role="note" data-testid="hv-short">
+          ⚠ <strong>Hazardous live.</strong> These rod voltages can burn and shock: read RF only at the monitor point or with a probe rated for it. <a href="#hv-caution">The full caution</a> follows the results.
+        </p>
+      )}
 
       <ul class="cards" aria-label="Expected voltages per m/z" data-testid="expected-list">
         {shown.map((r, i) => r === null ? null : 'reason' in r ? (
@@ -90,6 +94,8 @@ export function Voltages() {
           <ExpectedCard key={i} row={r} hazard={hazards[good.indexOf(r)]} readForm={readForm} readDc={readDc} built={built!} maxRf={profile.maxRfAmplitude} />
         ))}
       </ul>
+
+      {anyHazard && <HvCaution exceeded={exceeded} id="hv-caution" />}
 
       <InverseCheck inputs={inputs} update={update} built={built} profile={profile} />
       <Proportionality inputs={inputs} update={update} profile={profile} />
