@@ -96,15 +96,27 @@ export function emptyDraft(): ProfileDraft {
   };
 }
 
+/** What reading typed text as a number gave: the value, or why there is none. */
+export type NumberReading = { value: number } | { problem: 'empty' | 'not-a-number' | 'too-large' };
+
 /**
- * Read a number as typed in the field. Accepts a decimal comma ("4,5") and exponent forms ("1e-5");
- * returns null for anything that is not a finite number.
+ * Read a number as typed on a phone: spaces dropped, a decimal comma ("4,5") and exponent forms ("1e-5")
+ * accepted. `extraForms` rewrites screen-specific spellings (e.g. "×10^-5") on the compacted text before the
+ * check. The one number reader behind the profile form, the visit log and the screens.
  */
-export function parseNumber(text: string): number | null {
-  const t = text.trim().replace(/\s+/g, '').replace(',', '.');
-  if (t === '' || !/^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i.test(t)) return null;
+export function readNumber(text: string, extraForms?: (compact: string) => string): NumberReading {
+  let t = text.trim().replace(/\s+/g, '').replace(',', '.');
+  if (extraForms) t = extraForms(t);
+  if (t === '') return { problem: 'empty' };
+  if (!/^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i.test(t)) return { problem: 'not-a-number' };
   const v = Number(t);
-  return Number.isFinite(v) ? v : null;
+  return Number.isFinite(v) ? { value: v } : { problem: 'too-large' };
+}
+
+/** A finite number as typed in the field, or null (see readNumber). */
+export function parseNumber(text: string): number | null {
+  const r = readNumber(text);
+  return 'value' in r ? r.value : null;
 }
 
 function rangeText(spec: NumericFieldSpec): string {

@@ -1,7 +1,7 @@
 // Screen inputs kept as typed, per instrument profile and screen, in the store's settings, so a reload, a
 // profile switch or an update never loses them. Parsing accepts a decimal comma (gloved thumbs, EU keypads).
 import { useEffect, useRef, useState } from 'preact/hooks';
-import type { InstrumentProfile } from '../../store';
+import { readNumber, type InstrumentProfile } from '../../store';
 import { useApp } from '../context';
 
 export type Inputs = Record<string, string>;
@@ -44,14 +44,13 @@ export function usePersistentInputs<T extends Inputs>(screen: string, defaults: 
 
 export type Parsed = { ok: true; value: number } | { ok: false; message: string };
 
-/** A number as typed: decimal comma allowed, exponent allowed (1e-5, 1,5e-5). */
+/** A number as typed: decimal comma allowed, exponent allowed (1e-5, 1,5e-5, 1,5×10^-5). */
 export function parseNumber(text: string, label: string, example = '1.5'): Parsed {
-  const t = text.trim().replace(/\s+/g, '').replace(',', '.').replace(/×10\^?/, 'e');
-  if (t === '') return { ok: false, message: `${label}: enter a number, e.g. ${example}.` };
-  if (!/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(t)) return { ok: false, message: `${label}: “${text.trim()}” is not a number; e.g. ${example}.` };
-  const value = Number(t);
-  if (!Number.isFinite(value)) return { ok: false, message: `${label}: the number is too large.` };
-  return { ok: true, value };
+  const r = readNumber(text, (t) => t.replace(/×10\^?/, 'e'));
+  if ('value' in r) return { ok: true, value: r.value };
+  if (r.problem === 'empty') return { ok: false, message: `${label}: enter a number, e.g. ${example}.` };
+  if (r.problem === 'not-a-number') return { ok: false, message: `${label}: “${text.trim()}” is not a number; e.g. ${example}.` };
+  return { ok: false, message: `${label}: the number is too large.` };
 }
 
 /** A list of m/z values separated by commas, semicolons or spaces (decimals in a list take a point). */
