@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { PreviewServer } from 'vite';
 import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session } from './harness';
 
-const PORT = 4331;
+const PORT = 4341;
 const origin = `http://127.0.0.1:${PORT}`;
 let server: PreviewServer | null = null;
 const profile = freshProfileDir();
