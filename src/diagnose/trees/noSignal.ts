@@ -36,7 +36,7 @@ export const noSignalTree: Tree = {
     leaf('NS1a-cal', 'Calibrant not arriving', 'The calibrant path is the suspect, not the mass spectrometer.', [
       'Check that the calibrant valve opens (listen, or watch the pressure rise when it opens).',
       'Check the vial: not empty, not stale. Refill or replace it following the safety data sheet.',
-    ], 'the calibrant ion abundances against the last tune report', { hazards: ['chemical'], cards: ['chemical'] }),
+    ], 'the calibrant ion abundances against the last performance report', { hazards: ['chemical'], cards: ['chemical'] }),
     leaf('NS1a-up', 'Look upstream of the ion source', 'The problem is before the mass spectrometer.', [
       'Injection really happened; column fitted and unbroken.',
       'A divert valve sends flow to the MS during the window; no solvent-delay or detector-off window covers the peak.',
