@@ -5,10 +5,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { join } from 'node:path';
 import type { PreviewServer } from 'vite';
 import {
-  distDir, freshProfileDir, openBrowser, projectRoot, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session,
+  distDir, freshProfileDir, openBrowser, projectRoot, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session, testPort,
 } from './harness';
 
-const PORT = 4321;
+const PORT = testPort(4321);
 const origin = `http://127.0.0.1:${PORT}`;
 let server: PreviewServer | null = null;
 const profile = freshProfileDir();

@@ -5,9 +5,9 @@ import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import type { Page } from 'playwright-core';
 import type { PreviewServer } from 'vite';
-import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session } from './harness';
+import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session, testPort } from './harness';
 
-const PORT = 4337;
+const PORT = testPort(4337);
 const origin = `http://127.0.0.1:${PORT}`;
 let server: PreviewServer | null = null;
 const profile = freshProfileDir();

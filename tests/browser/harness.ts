@@ -26,6 +26,12 @@ export const chromiumArgs = [
   '--disable-background-networking', '--disable-component-update', '--disable-sync',
 ];
 
+/** A test file's fixed port, moved by RODSIDE_PORT_OFFSET so two checkouts can run browser tests side by side. */
+export function testPort(base: number): number {
+  const offset = Number(process.env.RODSIDE_PORT_OFFSET ?? 0);
+  return base + (Number.isInteger(offset) ? offset : 0);
+}
+
 export async function portIsFree(port: number): Promise<boolean> {
   return new Promise((res) => {
     const srv = createServer();

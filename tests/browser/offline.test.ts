@@ -3,9 +3,9 @@
 // no request ever leaves localhost.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { PreviewServer } from 'vite';
-import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session } from './harness';
+import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session, testPort } from './harness';
 
-const PORT = 4311;
+const PORT = testPort(4311);
 const origin = `http://127.0.0.1:${PORT}`;
 let server: PreviewServer | null = null;
 const profile = freshProfileDir();

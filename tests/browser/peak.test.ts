@@ -2,9 +2,9 @@
 // while it computes; a newer input cancels the stale run and the result that lands belongs to the newest input.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { PreviewServer } from 'vite';
-import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session } from './harness';
+import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session, testPort } from './harness';
 
-const PORT = 4341;
+const PORT = testPort(4341);
 const origin = `http://127.0.0.1:${PORT}`;
 let server: PreviewServer | null = null;
 const profile = freshProfileDir();

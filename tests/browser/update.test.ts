@@ -3,9 +3,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { join } from 'node:path';
 import type { PreviewServer } from 'vite';
-import { buildApp, freshProfileDir, openBrowser, projectRoot, removeDir, startPreview, stopPreview, waitForServiceWorkerControl, type Session } from './harness';
+import { buildApp, freshProfileDir, openBrowser, projectRoot, removeDir, startPreview, stopPreview, waitForServiceWorkerControl, type Session, testPort } from './harness';
 
-const PORT = 4312;
+const PORT = testPort(4312);
 const origin = `http://127.0.0.1:${PORT}`;
 const outDir = join(projectRoot, '.tmp', 'update-build');
 const profile = freshProfileDir();

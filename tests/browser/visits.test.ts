@@ -6,9 +6,9 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import type { PreviewServer } from 'vite';
-import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session } from './harness';
+import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session, testPort } from './harness';
 
-const PORT = 4331;
+const PORT = testPort(4331);
 const origin = `http://127.0.0.1:${PORT}`;
 const hostileNotes = 'Checked <script>window.__rodsidePwned = 1</script> and <b>bold</b> & <img src=x onerror="window.__rodsidePwned=2">';
 let server: PreviewServer | null = null;
