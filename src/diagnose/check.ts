@@ -2,13 +2,52 @@
  * Structural check of a tree: returns [] for a sound tree, one plain sentence per problem otherwise.
  */
 import { EXPECTATION_INFO } from './expectations';
-import { HAZARD_CARD, SAFETY_CARDS } from './safety';
-import type { CalcRef, DiagnoseNode, Expectation, GateItem, Option, Tree } from './types';
+import { GATE_ASKS, GATE_MUST_NOT_ASK, HAZARD_CARD, SAFETY_CARDS } from './safety';
+import type { CalcRef, DiagnoseNode, Expectation, Option, Tree } from './types';
 import { TREE_IDS } from './types';
 import { sameDimension, unitKnown } from './units';
 
-/** Gates in front of covers-off or energised work must ask all of these. */
-export const GATE_MUST_ASK: readonly GateItem[] = ['role', 'lockout', 'ppe', 'procedure'];
+/**
+ * Words that put hands inside the instrument or on live parts: opening, cleaning, replacing, unplugging,
+ * probing, spraying a tracer, working at feedthroughs, cables, pumps and gas lines. A step whose title, text,
+ * points, steps or measuring instructions use one of them must declare its access (covers-off, energised, or
+ * covers-on with a hazard card). Words are matched whole, in any case.
+ */
+export const HANDS_ON_WORDS: readonly RegExp[] = [
+  /\b(clean|cleaning)\b(?!\s+solvents?)/i,
+  /\b(replace|replaced|replacing|refill|swap|realign|remove|removing|trim)\b/i,
+  /\b(unplug|unplugging|disconnect|disconnected|reconnect|wiggle-test)\b/i,
+  /\b(open|opens|opening)\s+(the|a|its)\b/i,
+  /\b(vent(ed)? (the|it)|vent,|needs? (a )?vent(ing)?|may need venting|vent only)\b/i,
+  /\b(probe|probes|probing|oscilloscope|test points?|pickup loop|divider probe)\b/i,
+  /\b(multimeter|insulation tester)\b/i,
+  /\bfeedthroughs?\b/i,
+  /\b(cable|cables|connectors?|pins?)\b/i,
+  /\btracer\b.*\b(spray|burst)|\bspray (a|the) (short )?(burst|tracer)/i,
+  /\b(lock (it|the pump|out)|locked out)\b/i,
+  /\b(the oil|mist filter|exhaust line|gas ballast|blank flange|blank the|blanked)\b/i,
+  /\b(chang(e|ing)|correct) (the )?(oil|cylinders?|regulators?|filament)\b|\b(moisture trap|gas lines?)\b/i,
+  /\bbond\b/i,
+];
+
+/** The words of a node that say what the engineer does (answers and sources are not instructions). */
+function instructionText(n: DiagnoseNode): string {
+  const parts = [n.title, n.text, ...(n.points ?? [])];
+  if (n.kind === 'action') parts.push(...n.steps);
+  if (n.kind === 'measure') parts.push(n.measure.tool, n.measure.how);
+  return parts.join('\n');
+}
+
+/** The first hands-on word a node uses, or null. */
+export function handsOnWord(n: DiagnoseNode): string | null {
+  if (n.kind === 'gate') return null;
+  const text = instructionText(n);
+  for (const re of HANDS_ON_WORDS) {
+    const m = re.exec(text);
+    if (m) return m[0];
+  }
+  return null;
+}
 
 export interface Edge {
   to: string;
@@ -97,6 +136,16 @@ export function treeProblems(tree: Tree): string[] {
       case 'gate': {
         if (n.roles.length === 0) p.push(`Gate "${n.id}" names no role allowed to do the step.`);
         if (n.asks.length === 0) p.push(`Gate "${n.id}" asks for nothing.`);
+        // The gate's asks match the work it guards.
+        const work = n.guards;
+        for (const a of GATE_ASKS[work] ?? []) if (!n.asks.includes(a)) p.push(`Gate "${n.id}" guards ${work} work but does not ask for ${a}.`);
+        for (const a of GATE_MUST_NOT_ASK[work] ?? []) if (n.asks.includes(a)) p.push(`Gate "${n.id}" guards ${work} work but asks for ${a}, which does not fit that work.`);
+        if (!GATE_ASKS[work]) p.push(`Gate "${n.id}" guards an unknown kind of work "${String(work)}".`);
+        const behind = byId.get(n.next);
+        if (behind && (work === 'covers-off' || work === 'energised') && behind.access !== work) {
+          p.push(`Gate "${n.id}" guards ${work} work but the step behind it ("${behind.id}") is declared ${behind.access ?? 'without access'}.`);
+        }
+        if (behind) for (const c of behind.cards ?? []) if (!(n.cards ?? []).includes(c)) p.push(`Gate "${n.id}" does not show the "${c}" card of the step behind it ("${behind.id}").`);
         const refuse = byId.get(n.refuse);
         if (refuse && refuse.kind !== 'action') p.push(`Gate "${n.id}" must send a refusal to an action leaf (stop and escalate), not to "${n.refuse}".`);
         break;
@@ -162,6 +211,14 @@ export function treeProblems(tree: Tree): string[] {
     }
     for (const c of n.cards ?? []) if (!SAFETY_CARDS[c]) p.push(`Node "${n.id}" carries an unknown safety card "${c}".`);
     if (n.access === 'covers-off' && !(n.cards ?? []).includes('lockout')) p.push(`Node "${n.id}" takes covers off but does not carry the "lockout" card.`);
+    // Hands-on steps declare their access; covers-on work carries its hazard card.
+    const word = handsOnWord(n);
+    if (word && (n.access === undefined || n.access === 'read-back')) {
+      p.push(`Node "${n.id}" puts hands on the instrument ("${word}") but does not declare covers-off, energised, or covers-on access.`);
+    }
+    if (n.access === 'covers-on' && ((n.hazards ?? []).length === 0 || (n.cards ?? []).length === 0)) {
+      p.push(`Node "${n.id}" is covers-on hands-on work but names no hazard and card.`);
+    }
     if (n.access === 'energised' && !(n.hazards ?? []).some((h) => h === 'high-voltage' || h === 'rf')) {
       p.push(`Node "${n.id}" is energised work but names no high-voltage or RF hazard.`);
     }
@@ -173,7 +230,6 @@ export function treeProblems(tree: Tree): string[] {
         // A run of steps of the same kind of work may follow one gate.
         if (q.kind !== 'gate' && q.access === n.access) continue;
         if (q.kind !== 'gate' || q.next !== n.id) p.push(`Node "${n.id}" needs covers off or energised work but is reached from "${q.id}" without passing an acknowledgement gate.`);
-        else for (const a of GATE_MUST_ASK) if (!q.asks.includes(a)) p.push(`Gate "${q.id}" in front of "${n.id}" does not ask for ${a}.`);
       }
     }
   }

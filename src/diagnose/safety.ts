@@ -2,7 +2,26 @@
  * Safety cards as data. Each names its hazards, the precautions, the standards it rests on, and ends with the
  * same deferral. Tree steps that carry a hazard must carry the matching card (checked by treeProblems).
  */
-import type { Hazard, SafetyCard, SafetyCardId } from './types';
+import type { GateItem, GateWork, Hazard, SafetyCard, SafetyCardId } from './types';
+
+/**
+ * What a gate asks before each kind of work. De-energised work behind covers: lockout/isolation and the release
+ * of stored energy (discharge wait, cool-down, vent). Live work: authorisation for live work and measuring
+ * equipment rated for the voltage present, and no lockout, because the instrument is meant to be on.
+ * General gates (covers on) ask role, PPE and procedure at least.
+ */
+export const GATE_ASKS: Record<GateWork, readonly GateItem[]> = {
+  'covers-off': ['role', 'lockout', 'discharge', 'ppe', 'procedure'],
+  energised: ['role', 'live-work', 'meter-rating', 'ppe', 'procedure'],
+  'covers-on': ['role', 'ppe', 'procedure'],
+};
+
+/** What a gate must not ask before each kind of work (a lockout cannot be applied to an instrument that must run). */
+export const GATE_MUST_NOT_ASK: Record<GateWork, readonly GateItem[]> = {
+  'covers-off': ['live-work', 'meter-rating'],
+  energised: ['lockout', 'discharge'],
+  'covers-on': [],
+};
 
 export const DEFERRAL =
   "Always follow the instrument maker's procedures for this model, the site's safety rules and permits, local codes and regulations, and licensed or authorised practice for electrical, gas and radiation work. This card is generic guidance and replaces none of them.";
@@ -20,6 +39,7 @@ export const HAZARD_CARD: Record<Hazard, SafetyCardId> = {
   'gas-cylinder': 'gas',
   radioactive: 'radiation',
   lifting: 'mechanical',
+  'tracer-gas': 'tracer',
 };
 
 const cards: SafetyCard[] = [
@@ -33,7 +53,10 @@ const cards: SafetyCard[] = [
       'Never defeat an interlock. Do not work alone on exposed live circuits.',
       'Leave covers on unless the procedure needs them off.',
     ],
-    sources: ['NFPA 70E (qualified person)', 'IEC 61010-1 and IEC 61010-2-081 (laboratory equipment safety)'],
+    sources: [
+      'NFPA 70E, 2024 edition, Art. 100 (qualified person; from memory)',
+      'IEC 61010-1:2010 (3rd ed.) and IEC 61010-2-081:2019 (laboratory equipment safety; from memory)',
+    ],
     deferral: DEFERRAL,
   },
   {
@@ -52,11 +75,11 @@ const cards: SafetyCard[] = [
       'Cord-and-plug equipment: unplugged, with the plug under your sole control.',
     ],
     sources: [
-      'OSHA 29 CFR 1910.147 (control of hazardous energy)',
-      'ANSI/ASSP Z244.1',
-      'ISO 14118 (prevention of unexpected start-up)',
-      'EN 50110-1 (five safety rules)',
-      'NFPA 70E',
+      'OSHA 29 CFR 1910.147 (control of hazardous energy), as in force 2024 (from memory)',
+      'ANSI/ASSP Z244.1-2016 (R2020) (from memory)',
+      'ISO 14118:2017 (prevention of unexpected start-up; from memory)',
+      'EN 50110-1:2013 (five safety rules; from memory)',
+      'NFPA 70E, 2024 edition, Art. 120 (electrically safe work condition; from memory)',
     ],
     deferral: DEFERRAL,
   },
@@ -64,20 +87,21 @@ const cards: SafetyCard[] = [
     id: 'high-voltage',
     title: 'High voltage',
     hazards: [
-      'Multiplier supplies of kilovolts; conversion dynodes up to about ±15 kV; spray needles of several kilovolts; lens supplies of hundreds of volts; mains.',
-      'In dry locations a part is treated as hazardous live above 33 V rms, 46.7 V peak or 70 V DC (lower limits apply in wet locations).',
+      'Multiplier supplies of kilovolts; conversion dynodes up to about ±15 kV; spray needles of several kilovolts; lens supplies of hundreds of volts; mains (common practice).',
+      'In dry locations a part is treated as hazardous live above 33 V rms, 46.7 V peak or 70 V DC; wet locations 16 V rms, 22.6 V peak, 35 V DC (IEC 61010-1:2010 (3rd ed.) cl. 6.3.1 a) and 6.3.2, from memory).',
     ],
     precautions: [
-      'Measure kilovolt supplies only at the designated test points, with a divider probe rated for the voltage.',
-      'Use meters and probes rated for the voltage and measurement category; a 1000 V meter must not touch kilovolt parts.',
+      'Measure kilovolt supplies only at the designated test points, with a divider probe rated for the voltage, and only as live work you are authorised for.',
+      'Use meters and probes rated for the voltage and measurement category (e.g. CAT II 1000 V; categories of IEC 61010-2-033:2017, from memory); a 1000 V meter must not touch kilovolt parts.',
+      'For work with covers off, lock out, wait the discharge time and prove the absence of voltage first.',
       'Keep outside the approach boundaries for exposed live parts unless qualified and protected.',
       "Never lift an oscilloscope's protective earth; use rated differential probes.",
       'Do not defeat the interlocks of a spray source.',
     ],
     sources: [
-      'IEC 61010-1 cl. 6.3 (hazardous live, recalled)',
-      'NFPA 70E Table 130.4(E)(a) (approach boundaries)',
-      'IEC 61010-2-033 (meters), IEC 61010-031 (probes)',
+      'IEC 61010-1:2010 (3rd ed.) cl. 6.3.1 a) and 6.3.2 (hazardous live levels; from memory)',
+      'NFPA 70E, 2024 edition, Table 130.4(E)(a) (approach boundaries; from memory)',
+      'IEC 61010-2-033:2017 (hand-held meters) and IEC 61010-031:2015 (probe assemblies; from memory)',
     ],
     deferral: DEFERRAL,
   },
@@ -85,8 +109,8 @@ const cards: SafetyCard[] = [
     id: 'rf',
     title: 'RF on rods and ion guides',
     hazards: [
-      'Hundreds to thousands of volts zero-to-peak at about 1 MHz on the rods.',
-      'Above about 100 kHz current burns with little warning sensation; arcs jump small gaps.',
+      'Hundreds to thousands of volts zero-to-peak at about 1 MHz on the rods (Dawson, Quadrupole Mass Spectrometry and its Applications, 1976, the scan law).',
+      'Above about 100 kHz current burns with little warning sensation (IEC TS 60479-2:2017, from memory); arcs jump small gaps.',
       'A probe adds capacitance, detunes the RF circuit and shifts the mass scale.',
     ],
     precautions: [
@@ -95,7 +119,11 @@ const cards: SafetyCard[] = [
       'Take every probe off before closing up.',
       'For frequency alone, use a loosely coupled pickup loop.',
     ],
-    sources: ['IEC TS 60479-2 (effects of current at higher frequencies)', 'IEEE C95.1-2019', 'ICNIRP guidelines 2020'],
+    sources: [
+      'IEC TS 60479-2:2017 (effects of current: frequencies above 100 Hz; from memory)',
+      'IEEE C95.1-2019 (RF exposure limits)',
+      'ICNIRP, Guidelines for limiting exposure to electromagnetic fields (100 kHz to 300 GHz), Health Physics 118 (2020)',
+    ],
     deferral: DEFERRAL,
   },
   {
@@ -107,14 +135,18 @@ const cards: SafetyCard[] = [
       'Verify with a rated instrument before touching.',
       'Earth through a resistor-type earthing stick where the procedure allows.',
     ],
-    sources: ['IEC 61010-1 (stored-charge limits, recalled)', 'EN 50110-1', 'NFPA 70E Art. 360 (recalled)'],
+    sources: [
+      'IEC 61010-1:2010 (3rd ed.) cl. 6.3.1 c) (stored-charge limits; from memory)',
+      'EN 50110-1:2013 (from memory)',
+      'NFPA 70E, 2024 edition, Art. 360 (capacitors; from memory)',
+    ],
     deferral: DEFERRAL,
   },
   {
     id: 'vacuum',
     title: 'Vacuum, venting and implosion',
     hazards: [
-      'Atmosphere presses about 800 N on a 100 mm viewport.',
+      'Atmosphere presses about 800 N on a 100 mm viewport (101.325 kPa of ISO 2533:1975 × the 7.85×10⁻³ m² of the port; computed).',
       'Clamps, viewports, bellows and gauge tubes are not rated for pressure above atmosphere.',
     ],
     precautions: [
@@ -123,10 +155,10 @@ const cards: SafetyCard[] = [
       'Guard and inspect glass; wear eye protection.',
     ],
     sources: [
-      'EN 1012-2 (vacuum pump safety)',
+      'EN 1012-2:1996+A1:2009 (vacuum pump safety; from memory)',
       'US DOE bulletin EH-92-2, Implosions under negative pressure (1992)',
       'UC Berkeley EHS lessons learned, vacuum chamber over-pressurization (2019)',
-      'ISO 2533 (standard atmosphere)',
+      'ISO 2533:1975 (standard atmosphere)',
     ],
     deferral: DEFERRAL,
   },
@@ -139,7 +171,7 @@ const cards: SafetyCard[] = [
       'Do not move, tilt or knock a running pump; do not vent it suddenly at full speed unless the design allows.',
       'Allow for a long spin-down when unvented.',
     ],
-    sources: ['ISO 27892 (turbomolecular pumps, rapid shutdown torque)'],
+    sources: ['ISO 27892:2010 (turbomolecular pumps, rapid shutdown torque; from memory)'],
     deferral: DEFERRAL,
   },
   {
@@ -149,8 +181,11 @@ const cards: SafetyCard[] = [
       'Electron-ionisation sources 200–350 °C, transfer lines up to about 320 °C, spray-source heaters up to about 600 °C, bake-out 150–250 °C (common practice).',
       'Heater tapes are also an electrical and fire hazard.',
     ],
-    precautions: ['Let parts cool (often 1–2 h for a source) before handling.', 'Wear heat-resistant gloves.'],
-    sources: ['ISO 13732-1 (hot surfaces, contact burns)', 'IEC 61010-1 cl. 10 (surface temperature limits, recalled)'],
+    precautions: ['Let parts cool (often 1–2 h for a source; common practice) before handling.', 'Wear heat-resistant gloves.'],
+    sources: [
+      'ISO 13732-1:2006 (hot surfaces, contact burns; from memory)',
+      'IEC 61010-1:2010 (3rd ed.) cl. 10.1 (surface temperature limits; from memory)',
+    ],
     deferral: DEFERRAL,
   },
   {
@@ -167,15 +202,19 @@ const cards: SafetyCard[] = [
       'Ventilate ultrasonic baths with flammable solvents; exhaust pumps and sources to extraction.',
       'Wear nitrile gloves (they also keep fingerprints off clean parts).',
     ],
-    sources: ['UN GHS', 'Regulation (EC) No 1272/2008 (CLP)', 'OSHA 29 CFR 1910.1200 (hazard communication)'],
+    sources: [
+      'UN GHS, Rev. 10 (2023) (from memory)',
+      'Regulation (EC) No 1272/2008 (CLP)',
+      'OSHA 29 CFR 1910.1200 (hazard communication), 2012 revision (from memory)',
+    ],
     deferral: DEFERRAL,
   },
   {
     id: 'gas',
     title: 'Gas cylinders, generators and tracer gases',
     hazards: [
-      'Cylinders fall and regulators fail; hydrogen is flammable from 4 % in air.',
-      'Nitrogen, argon and helium displace oxygen; below 19.5 % O2 an atmosphere is oxygen-deficient.',
+      'Cylinders fall and regulators fail; hydrogen is flammable from 4 % in air (IEC 60079-20-1:2010, from memory).',
+      'Nitrogen, argon and helium displace oxygen; below 19.5 % O2 an atmosphere is oxygen-deficient (OSHA 29 CFR 1910.134(b), from memory).',
       'Some tracer propellants are flammable or decompose on hot surfaces.',
     ],
     precautions: [
@@ -184,7 +223,12 @@ const cards: SafetyCard[] = [
       'Never spray a flammable tracer near hot sources or high voltage; use short bursts.',
       'Assess large nitrogen flows into small rooms and monitor oxygen where required.',
     ],
-    sources: ['CGA P-1', 'OSHA 29 CFR 1910.101', 'OSHA 29 CFR 1910.134 (oxygen-deficient atmosphere)', 'IEC 60079-20-1 (flammability limits, recalled)'],
+    sources: [
+      'CGA P-1-2015 (safe handling of compressed gases; from memory)',
+      'OSHA 29 CFR 1910.101 (compressed gases), as in force 2024 (from memory)',
+      'OSHA 29 CFR 1910.134(b) (oxygen-deficient atmosphere), as in force 2024 (from memory)',
+      'IEC 60079-20-1:2010 (flammability limits; from memory)',
+    ],
     deferral: DEFERRAL,
   },
   {
@@ -200,7 +244,30 @@ const cards: SafetyCard[] = [
     title: 'Lifting and mechanical',
     hazards: ['Pumps are heavy; hoses trip; belts and fans catch.'],
     precautions: ['Lift with help or aids; keep guards on; route hoses out of walkways.'],
-    sources: ['EN 1012-2 (vacuum pump safety)'],
+    sources: ['EN 1012-2:1996+A1:2009 (vacuum pump safety; from memory)'],
+    deferral: DEFERRAL,
+  },
+  {
+    id: 'tracer',
+    title: 'Tracer gas spraying',
+    hazards: [
+      'The spray is aimed at joints next to live parts: HV feedthroughs, gauge heads, multiplier and spray-source supplies. Helium and argon make arcs across feedthroughs easier (lower breakdown voltage than air; common practice).',
+      'Helium and argon displace oxygen; in a small or confined room a long spray can lower the oxygen below 19.5 % (OSHA 29 CFR 1910.134(b), from memory).',
+      'Flammable tracers (aerosol propellants, solvents, hydrogen mixtures classed as flammable) can ignite on hot sources or sparks.',
+    ],
+    precautions: [
+      'Never use a flammable tracer. Use helium (only where helium is not the carrier) or argon, from a regulated cylinder with a fine nozzle.',
+      'Keep the nozzle away from exposed live parts and HV feedthroughs; spray only at joints you can reach with covers on.',
+      'Short bursts at low flow; let the signal clear between joints.',
+      'Do not spray into a confined space; ventilate the room and monitor oxygen where the site requires it.',
+      'Secure the cylinder upright.',
+    ],
+    sources: [
+      'ISO 20485:2017 (leak detection, tracer gas method; from memory)',
+      'OSHA 29 CFR 1910.134(b) (oxygen-deficient atmosphere), as in force 2024 (from memory)',
+      'IEC 60079-20-1:2010 (flammability limits; from memory)',
+      'CGA P-1-2015 (from memory)',
+    ],
     deferral: DEFERRAL,
   },
 ];

@@ -49,7 +49,8 @@ export type Hazard =
   | 'chemical'
   | 'gas-cylinder'
   | 'radioactive'
-  | 'lifting';
+  | 'lifting'
+  | 'tracer-gas';
 
 export type SafetyCardId =
   | 'general'
@@ -63,16 +64,22 @@ export type SafetyCardId =
   | 'chemical'
   | 'gas'
   | 'radiation'
-  | 'mechanical';
+  | 'mechanical'
+  | 'tracer';
 
 /** Who may do a step. */
 export type Role = 'analyst' | 'specialist' | 'field-engineer' | 'vacuum-engineer';
 
 /**
  * How the step touches the instrument. 'covers-off' (de-energised, opened) and 'energised' (measuring on live
- * parts behind covers) must sit directly behind a gate.
+ * parts behind covers) must sit directly behind a gate of the same kind. 'covers-on' is hands-on work from the
+ * outside (gas lines, pumps, cylinders, a tracer spray) and carries its hazard card. Every step whose words put
+ * hands on the instrument declares one of these three (checked by treeProblems).
  */
 export type Access = 'read-back' | 'covers-on' | 'covers-off' | 'energised';
+
+/** The work a gate guards: the access of the step right behind it ('covers-on' for a general gate). */
+export type GateWork = Exclude<Access, 'read-back'>;
 
 export interface NodeBase {
   id: string;
@@ -113,10 +120,16 @@ export interface ChoiceNode extends NodeBase {
   multiple?: boolean;
 }
 
-export type GateItem = 'role' | 'lockout' | 'ppe' | 'procedure' | 'permit';
+/**
+ * What a gate asks the engineer to confirm. De-energised work asks for lockout and the discharge of stored
+ * energy; live work asks for live-work authorisation and rated measuring equipment instead of a lockout.
+ */
+export type GateItem = 'role' | 'lockout' | 'discharge' | 'live-work' | 'meter-rating' | 'ppe' | 'procedure' | 'permit';
 
 export interface GateNode extends NodeBase {
   kind: 'gate';
+  /** The kind of work behind the gate; its asks must match (see GATE_ASKS in safety.ts). */
+  guards: GateWork;
   /** Roles allowed to do the step behind the gate. */
   roles: Role[];
   asks: GateItem[];

@@ -1,5 +1,6 @@
 /** Small helpers that keep the tree files readable. */
-import type { ActionNode, ExpectInput, Option, Role } from '../types';
+import { GATE_ASKS } from '../safety';
+import type { ActionNode, ExpectInput, GateItem, GateNode, GateWork, Option, Role, SafetyCardId } from '../types';
 
 export const opt = (id: string, label: string, next: string): Option => ({ id, label, next });
 
@@ -12,6 +13,24 @@ export function leaf(
   extra: Partial<Omit<ActionNode, 'id' | 'kind' | 'title' | 'text' | 'steps' | 'closing'>> = {},
 ): ActionNode {
   return { id, kind: 'action', title, text, steps, closing: { kind: 're-measure-and-record', what: remeasure }, ...extra };
+}
+
+/**
+ * A gate in one line: what it guards decides what it asks (GATE_ASKS: lockout and discharge before covers-off
+ * work; live-work authorisation and rated meters before energised work). `also` adds items, e.g. a permit.
+ */
+export function gate(
+  id: string,
+  guards: GateWork,
+  roles: Role[],
+  cards: SafetyCardId[],
+  next: string,
+  refuse: string,
+  title: string,
+  text: string,
+  also: GateItem[] = [],
+): GateNode {
+  return { id, kind: 'gate', title, text, guards, roles, asks: [...GATE_ASKS[guards], ...also], cards, next, refuse };
 }
 
 /** Roles for user maintenance (source cleaning, filament change), and for work behind covers or on live parts. */

@@ -1,5 +1,5 @@
 import type { Tree } from '../types';
-import { ANY_ROLE, PRESSURE_FROM_READING, leaf, opt, STOP_TEXT } from './build';
+import { ANY_ROLE, PRESSURE_FROM_READING, gate, leaf, opt, STOP_TEXT } from './build';
 
 /** Shared entry: safety first, then the as-found state, then the symptom(s). */
 export const entryTree: Tree = {
@@ -8,17 +8,7 @@ export const entryTree: Tree = {
   summary: 'Confirm the safety basics, record the state as found, then pick the symptom or symptoms.',
   entry: 'E1',
   nodes: [
-    {
-      id: 'E1',
-      kind: 'gate',
-      title: 'Before you touch anything',
-      text: 'Confirm each item. Steps further on that need covers off or live work ask again.',
-      roles: ANY_ROLE,
-      asks: ['role', 'procedure', 'permit', 'ppe', 'lockout'],
-      cards: ['general', 'lockout'],
-      next: 'E2',
-      refuse: 'E-stop',
-    },
+    gate('E1', 'covers-on', ANY_ROLE, ['general', 'lockout'], 'E2', 'E-stop', 'Before you touch anything', 'Confirm each item. Steps further on that need covers off or live work ask again.', ['permit', 'lockout']),
     leaf('E-stop', 'Stop and escalate', STOP_TEXT, [
       'Leave the instrument as it is; do not reset alarms or power-cycle.',
       'Call the person or service organisation authorised for this instrument and pass on what you saw.',
@@ -30,7 +20,7 @@ export const entryTree: Tree = {
       text: 'Read the high-vacuum gauge before changing anything. Note whether the reading is N2-equivalent (most ion gauges are).',
       points: [
         'Also note the status indicators, the fore-vacuum, the turbo speed and the source and transfer-line temperatures.',
-        'Attach the last tune or calibration report values if you have them.',
+        'Attach the last calibration report values if you have them.',
       ],
       measure: {
         visitType: 'vacuum-high', quantity: 'Analyser pressure (as found)',
@@ -48,7 +38,7 @@ export const entryTree: Tree = {
       kind: 'question',
       title: 'As found: what changed last?',
       text: 'Pick the most recent event before the symptom. Add a note for anything else.',
-      points: ['A discrete event (vent, cleaning, column or cylinder change, power cut, move, software update) often explains a sudden fault.'],
+      points: ['A discrete event (a vent, a source service, a column or cylinder change, a power cut, a move, a software update) often explains a sudden fault.'],
       options: [
         opt('vent', 'Vented or cleaned', 'E4'),
         opt('consumable', 'Column, filament or other consumable changed', 'E4'),

@@ -1,5 +1,5 @@
 import type { Tree } from '../types';
-import { leaf, opt, STOP_TEXT, USER_MAINTENANCE } from './build';
+import { gate, leaf, opt, STOP_TEXT, USER_MAINTENANCE } from './build';
 
 /** High background or suspected air or water leak. The Leak check panel computes the ratios from peak heights. */
 export const leakTree: Tree = {
@@ -20,12 +20,23 @@ export const leakTree: Tree = {
       kind: 'choice',
       title: 'Which problem?',
       text: 'Chemical background in the spectrum, or a leak on the vacuum side?',
-      options: [opt('chem', 'Chemical background', 'HBAPI-chem'), opt('vac', 'Analyser pressure high', 'HBAPI-vac')],
+      options: [opt('chem', 'Chemical background', 'HBAPI-chem-q'), opt('vac', 'Analyser pressure high', 'HBAPI-vac')],
     },
-    leaf('HBAPI-chem', 'Chemical background', 'Identify the series and remove its source.', [
-      '44 u spacing: polyethers; 74 u spacing: polysiloxanes (common practice); plasticiser ions; sodium or potassium adducts; solvent clusters.',
-      'Check solvent and additive quality, LC contamination and gas purity; then clean the source.',
-    ], 'a blank spectrum against the baseline background', { hazards: ['chemical'], cards: ['chemical'] }),
+    {
+      id: 'HBAPI-chem-q',
+      kind: 'question',
+      title: 'Chemical background: is it in the solvents or gases?',
+      text: 'Identify the series. 44 u spacing: polyethers; 74 u spacing: polysiloxanes (common practice); plasticiser ions; sodium or potassium adducts; solvent clusters. Then check solvent and additive quality, LC contamination and gas purity.',
+      options: [opt('found', 'Found in the solvents, additives or gases', 'HBAPI-supply'), opt('source', 'Supplies clean: the source itself is contaminated', 'HBAPI-chem-G')],
+    },
+    leaf('HBAPI-supply', 'Contaminated supplies', 'Replace the contaminated solvent, additive or gas supply and flush the LC path.', [
+      'Follow the safety data sheets; change cylinders by the site’s gas rules.',
+    ], 'a blank spectrum against the baseline background', { access: 'covers-on', hazards: ['chemical', 'gas-cylinder'], cards: ['chemical', 'gas'] }),
+    gate('HBAPI-chem-G', 'covers-off', USER_MAINTENANCE, ['lockout', 'stored-charge', 'hot-surface', 'chemical'], 'HBAPI-chem', 'HB-stop', 'Gate: spray source cleaning', 'The next step opens and cleans the spray source: spray voltage and power locked out, discharged, source cool, solvents at hand.'),
+    leaf('HBAPI-chem', 'Chemical background', 'Clean the source by the maker’s procedure.', [
+      'Spray voltage and power locked out and the source cool before you open it.',
+      'Use the cleaning solvents with ventilation and nitrile gloves.',
+    ], 'a blank spectrum against the baseline background', { access: 'covers-off', hazards: ['stored-charge', 'hot-surface', 'chemical'], cards: ['lockout', 'stored-charge', 'hot-surface', 'chemical'] }),
     leaf('HBAPI-vac', 'Vacuum-side leak', 'Go to the vacuum tree.', ['Record the analyser and interface pressures first.'], 'the analyser pressure', { continueWith: ['vacuum'] }),
     {
       id: 'HB2',
@@ -54,10 +65,10 @@ export const leakTree: Tree = {
     }),
     leaf('HB3-persist', 'Persistent water', 'Water keeps coming in or off something.', [
       'Check the carrier-gas moisture trap and gas lines, cleaning solvent or water trapped in parts, and any water-cooled component.',
-    ], 'm/z 18 and 17/18 against the baseline', { hazards: ['gas-cylinder'], cards: ['gas'] }),
+    ], 'm/z 18 and 17/18 against the baseline', { access: 'covers-on', hazards: ['gas-cylinder'], cards: ['gas'] }),
     leaf('HB3-carrier', 'Moisture without a recent vent', 'Moisture in the carrier (exhausted trap, new cylinder, lines), or a small leak.', [
       'Check the trap and the cylinder connection; then check 28:32 as for a suspected air leak.',
-    ], 'm/z 18 and the 28:32 ratio', { hazards: ['gas-cylinder'], cards: ['gas'] }),
+    ], 'm/z 18 and the 28:32 ratio', { access: 'covers-on', hazards: ['gas-cylinder'], cards: ['gas'] }),
     {
       id: 'HB4',
       kind: 'measure',
@@ -78,7 +89,7 @@ export const leakTree: Tree = {
       text: 'Divide the height at m/z 40 by the height at m/z 28.',
       points: ['Ar/N2 in air is 0.0120; weighted by ionisation (Bayard–Alpert sensitivities as a proxy) about 1.7 % (computed from CRC values).'],
       measure: { visitType: 'leak-argon-40', quantity: '40:28 peak-height ratio', unit: '%', tool: 'Background scan (Leak check panel)', how: 'Heights at m/z 40 and 28 from the same scan.' },
-      expect: { range: { low: 1, high: 2 }, tolerance: { kind: 'range', borderline: 0, outer: { low: 0.5, high: 3 } }, source: 'About 1–2 % for air (C14, computed); 0.5–3 % borderline (common practice).' },
+      expect: { range: { low: 1, high: 2 }, tolerance: { kind: 'range', borderline: 0, outer: { low: 0.5, high: 3 } }, source: 'About 1–2 % for air: Ar/N2 0.0120 (U.S. Standard Atmosphere 1976, Table 3) weighted by Bayard–Alpert relative sensitivities (CRC Handbook of Chemistry and Physics, ion-gauge table; computed); 0.5–3 % borderline (common practice).' },
       branches: { pass: 'HB5', borderline: 'HB5', high: 'HB4-mix', low: 'HB4-mix' },
     },
     leaf('HB4-mix', 'Air-like 28:32 but argon does not fit', 'Another gas is mixed in (an argon tracer still present, argon carrier, a nitrogen and oxygen source).', [
@@ -91,14 +102,15 @@ export const leakTree: Tree = {
       text: 'Look at m/z 44, 14 and 12.',
       options: [opt('co2', 'm/z 44 large as well', 'HB4-co2'), opt('co', 'm/z 14 small and 12 present', 'HB4-coN2'), opt('n2', 'm/z 14 clearly present (N2)', 'HB4-coN2')],
     },
-    leaf('HB4-co2', 'Carbon dioxide', 'CO2 and its CO fragment: dry ice nearby, contaminated carrier or organic decomposition.', ['Find and remove the source; check the carrier purity.'], 'm/z 44 and 28 against the baseline', {
+    leaf('HB4-co2', 'Carbon dioxide', 'CO2 and its CO fragment: dry ice nearby, contaminated carrier or organic decomposition.', ['Find the source (dry ice nearby, a contaminated carrier) and deal with it; check the carrier purity.'], 'm/z 44 and 28 against the baseline', {
       hazards: ['gas-cylinder'],
       cards: ['gas'],
     }),
     leaf('HB4-coN2', 'CO or nitrogen, not air', 'Mostly CO from hot-filament reactions or outgassing after a bake or filament change (it decays), or N2 from a nitrogen source (vent gas, purge lines, generator).', [
       'Check the vent and purge valves; watch whether m/z 28 decays.',
-    ], 'm/z 28, 14 and 12 after an hour', { hazards: ['gas-cylinder'], cards: ['gas'] }),
+    ], 'm/z 28, 14 and 12 after an hour', { access: 'covers-on', hazards: ['gas-cylinder'], cards: ['gas'] }),
     leaf('HB4-notair', 'Not air: too much m/z 32', 'Look for an oxygen source (a gas line) or methanol (strong m/z 31).', ['Check gas lines and recent cleaning solvents.'], 'the 28:32 ratio and m/z 31', {
+      access: 'covers-on',
       hazards: ['gas-cylinder', 'chemical'],
       cards: ['gas', 'chemical'],
     }),
@@ -109,17 +121,7 @@ export const leakTree: Tree = {
       text: 'Change the carrier flow briefly and watch m/z 28, 32 and 40.',
       options: [opt('follows', 'The air signal follows the carrier flow', 'HB5-up'), opt('steady', 'It does not follow', 'HB5b-G')],
     },
-    {
-      id: 'HB5b-G',
-      kind: 'gate',
-      title: 'Gate: blank the interface',
-      text: 'Blanking the MS interface with a no-hole ferrule or cap needs a vent and a cool source.',
-      roles: USER_MAINTENANCE,
-      asks: ['role', 'lockout', 'ppe', 'procedure'],
-      cards: ['lockout', 'vacuum', 'hot-surface'],
-      next: 'HB5b',
-      refuse: 'HB-stop',
-    },
+    gate('HB5b-G', 'covers-off', USER_MAINTENANCE, ['lockout', 'vacuum', 'hot-surface'], 'HB5b', 'HB-stop', 'Gate: blank the interface', 'Blanking the MS interface with a no-hole ferrule or cap needs a vent and a cool source.'),
     {
       id: 'HB5b',
       kind: 'question',
@@ -132,7 +134,7 @@ export const leakTree: Tree = {
     },
     leaf('HB5-up', 'Leak upstream of the MS', 'Leak-check the gas lines and fittings, replace exhausted traps, purge new cylinder connections, check inlet seals.', [
       'Use leak-detection liquid only on pressurised joints.',
-    ], 'the 28:32 ratio and m/z 18/28 against the baseline', { hazards: ['gas-cylinder'], cards: ['gas'] }),
+    ], 'the 28:32 ratio and m/z 18/28 against the baseline', { access: 'covers-on', hazards: ['gas-cylinder'], cards: ['gas'] }),
     {
       id: 'HB6',
       kind: 'question',
@@ -140,19 +142,21 @@ export const leakTree: Tree = {
       text: 'Spray a short burst of tracer at one joint, wait several seconds, and let the signal clear before moving on. Argon (watch m/z 40) sinks: start low and work up. Helium (m/z 4, only if helium is not the carrier) rises: start high and work down.',
       points: [
         'Usual suspects (common practice): column or transfer-line nut (ferrules shrink after heat cycles), vent valve seal, analyser door or side-plate O-ring, calibrant valve, gauge fittings and feedthroughs, KF clamps with a misaligned centring ring, viewports.',
-        'Never spray a flammable tracer near hot sources or high voltage.',
+        'Never use a flammable tracer. Keep the nozzle away from exposed live parts and HV feedthroughs; do not spray into a confined space.',
       ],
-      hazards: ['gas-cylinder', 'chemical'],
-      cards: ['gas', 'chemical'],
+      access: 'covers-on',
+      hazards: ['tracer-gas', 'gas-cylinder', 'high-voltage'],
+      cards: ['tracer', 'gas', 'high-voltage'],
       options: [
-        opt('found', 'Yes: this joint leaks', 'HB6-found'),
+        opt('found', 'Yes: this joint leaks', 'HB6-found-G'),
         { id: 'next-joint', label: 'No: try the next joint', next: 'HB6', loop: { max: 20 } },
         opt('none', 'No: every joint tried', 'HB6-none'),
       ],
     },
+    gate('HB6-found-G', 'covers-off', USER_MAINTENANCE, ['vacuum', 'lockout', 'hot-surface'], 'HB6-found', 'HB-stop', 'Gate: reseal the joint', 'The next step opens the leaking joint: shut down and locked out, parts cool, vented through the designated valve.'),
     leaf('HB6-found', 'Leak found', 'Clean or replace the seal. Use no grease unless specified; handle lint-free.', [
-      'Re-test the joint: the tracer response should be gone.',
-    ], 'the tracer response at the joint, and 28:32 and 18/28 against the baseline, before and after', { hazards: ['venting'], cards: ['vacuum', 'lockout'] }),
+      'Re-test the joint after pump-down: the tracer response should be gone.',
+    ], 'the tracer response at the joint, and 28:32 and 18/28 against the baseline, before and after', { access: 'covers-off', hazards: ['venting', 'hot-surface'], cards: ['vacuum', 'lockout', 'hot-surface'] }),
     leaf('HB6-none', 'Leak not found with the tracer', 'Use a rate-of-rise test on isolable volumes (Leak check panel), or a helium leak detector (ISO 20485), then escalate.', [
       'A rise that stays linear is a leak; one that levels off is outgassing or a virtual leak.',
     ], 'the rate of rise and the 28:32 ratio', { escalate: true, hazards: ['venting'], cards: ['vacuum'] }),
@@ -162,24 +166,27 @@ export const leakTree: Tree = {
       title: 'Which signature?',
       text: 'Match the recurring ions.',
       options: [
-        opt('hc', 'Hydrocarbon series (41, 43, 55, 57, 69, 71 … 14 u apart)', 'HB7-oil'),
+        opt('hc', 'Hydrocarbon series (41, 43, 55, 57, 69, 71 … 14 u apart)', 'HB7-oil-G'),
         opt('si', 'Siloxanes (73, 147, 207, 281, 355)', 'HB7-si'),
         opt('pf', 'Fluorinated ions (69, 119, 131, 169, 219 …)', 'HB7-pf'),
         opt('ph', 'm/z 149 (phthalate)', 'HB7-ph'),
         opt('solv', 'Cleaning solvents (e.g. acetone 43/58, methanol 31/32, 2-propanol 45)', 'HB7-solv'),
       ],
     },
-    leaf('HB7-oil', 'Oil or hydrocarbons', 'Oil back-streaming (foreline, rough-pump oil, wrong venting), fingerprints or solvents.', ['Clean; check the foreline trap and the venting sequence.'], 'a blank background spectrum', {
-      hazards: ['chemical'],
-      cards: ['chemical'],
+    gate('HB7-oil-G', 'covers-off', USER_MAINTENANCE, ['lockout', 'vacuum', 'hot-surface', 'chemical'], 'HB7-oil', 'HB-stop', 'Gate: foreline trap and contaminated parts', 'The next step opens the foreline trap and cleans contaminated parts: shut down and locked out, parts cool, vented through the designated valve.'),
+    leaf('HB7-oil', 'Oil or hydrocarbons', 'Oil back-streaming (foreline, rough-pump oil, wrong venting), fingerprints or solvents.', ['Clean the contaminated parts by the procedure; check the foreline trap and the venting sequence.'], 'a blank background spectrum', {
+      access: 'covers-off',
+      hazards: ['venting', 'hot-surface', 'chemical'],
+      cards: ['lockout', 'vacuum', 'hot-surface', 'chemical'],
     }),
-    leaf('HB7-si', 'Siloxanes', 'Column bleed, septum or silicone grease.', ['Condition or replace the column or septum; remove silicone.'], 'a blank background spectrum', { hazards: ['hot-surface'], cards: ['hot-surface'] }),
+    leaf('HB7-si', 'Siloxanes', 'Column bleed, septum or silicone grease.', ['Condition or replace the column or septum once the inlet and oven are cool; remove silicone.'], 'a blank background spectrum', { access: 'covers-on', hazards: ['hot-surface'], cards: ['hot-surface'] }),
     leaf('HB7-pf', 'Fluorinated background', 'The calibrant valve leaks or sticks open, or perfluoropolyether oil or grease is present.', ['Check the calibrant valve; find the fluid.'], 'a blank background spectrum with the calibrant closed', {
+      access: 'covers-on',
       hazards: ['chemical'],
       cards: ['chemical'],
     }),
-    leaf('HB7-ph', 'Plasticiser', 'Plastics or gloves touch the sample path.', ['Replace the plastic parts; change glove type.'], 'a blank background spectrum'),
-    leaf('HB7-solv', 'Cleaning solvent', 'Solvent left in parts.', ['Pump or bake longer; dry parts better next time.'], 'a blank background spectrum', { hazards: ['hot-surface', 'chemical'], cards: ['hot-surface', 'chemical'] }),
+    leaf('HB7-ph', 'Plasticiser', 'Plastics or gloves touch the sample path.', ['Replace the plastic parts in the sample path; change glove type.'], 'a blank background spectrum', { access: 'covers-on', hazards: ['chemical'], cards: ['chemical'] }),
+    leaf('HB7-solv', 'Cleaning solvent', 'Solvent left in parts.', ['Pump or bake longer; dry parts better next time.'], 'a blank background spectrum', { access: 'covers-on', hazards: ['hot-surface', 'chemical'], cards: ['hot-surface', 'chemical'] }),
     leaf('HB-stop', 'Stop and escalate', STOP_TEXT, ['Continue with the tracer only if the interface can stay in place; otherwise pass this walk on.'], 'nothing further here; record the background ratios for whoever takes over', {
       escalate: true,
       cards: ['general'],

@@ -1,5 +1,5 @@
 import type { Tree } from '../types';
-import { leaf, LIVE_WORK, opt, STOP_TEXT } from './build';
+import { BEHIND_COVERS, gate, leaf, LIVE_WORK, opt, STOP_TEXT } from './build';
 
 const VERIFY = 'the reference ions’ m/z errors, then an independent check compound (before and after); positive and negative modes separately';
 
@@ -35,17 +35,7 @@ export const massAxisTree: Tree = {
       'Fix the peak shape first if the peaks are asymmetric.',
       'Recalibrate. If the offset returns, check the stability of the DC offset.',
     ], VERIFY, { continueWith: ['peak-shape'] }),
-    {
-      id: 'MA4-G',
-      kind: 'gate',
-      title: 'Gate: RF frequency on a running instrument',
-      text: 'The next step reads the RF frequency with a loosely coupled pickup near the RF circuit while the instrument runs.',
-      roles: LIVE_WORK,
-      asks: ['role', 'lockout', 'ppe', 'procedure'],
-      cards: ['rf', 'high-voltage'],
-      next: 'MA4',
-      refuse: 'MA-stop',
-    },
+    gate('MA4-G', 'energised', LIVE_WORK, ['rf', 'high-voltage'], 'MA4', 'MA-stop', 'Gate: RF frequency on a running instrument', 'The next step reads the RF frequency with a loosely coupled pickup near the RF circuit while the instrument runs.'),
     {
       id: 'MA4',
       kind: 'measure',
@@ -67,12 +57,13 @@ export const massAxisTree: Tree = {
         },
       ],
       source: 'δm/m = 2·δf/f (Dawson 1976). Pass ±2×10⁻⁵ (±0.02 u at m/z 500) is our working tolerance; compare with the instrument’s own baseline where known.',
-      branches: { pass: 'MA4-q', borderline: 'MA4-freq', low: 'MA4-freq', high: 'MA4-freq' },
+      branches: { pass: 'MA4-q', borderline: 'MA4-freq-G', low: 'MA4-freq-G', high: 'MA4-freq-G' },
       alternatives: [opt('cannot', 'No safe way to measure the frequency here', 'MA4-q')],
     },
+    gate('MA4-freq-G', 'covers-off', BEHIND_COVERS, ['rf', 'stored-charge', 'lockout'], 'MA4-freq', 'MA-stop', 'Gate: RF oscillator and tank with the power off', 'The next step works on the RF cabling, oscillator or tank circuit: power locked out, RF tank capacitors discharged.'),
     leaf('MA4-freq', 'RF frequency has moved', 'The RF oscillator or tank circuit has changed, or extra capacitance is loading it (a probe left on, a moved cable, contamination).', [
-      'Remove any probe; restore cable routing; repair the RF oscillator or tank by the procedure.',
-    ], 'the RF frequency and ' + VERIFY, { hazards: ['rf'], cards: ['rf'], escalate: true }),
+      'With the power locked out: remove any probe; restore cable routing; repair the RF oscillator or tank by the procedure.',
+    ], 'the RF frequency and ' + VERIFY, { access: 'covers-off', hazards: ['rf', 'stored-charge'], cards: ['rf', 'stored-charge', 'lockout'], escalate: true }),
     {
       id: 'MA4-q',
       kind: 'question',
@@ -88,9 +79,9 @@ export const massAxisTree: Tree = {
     leaf('MA4-amp', 'RF amplitude calibration drift', 'The RF detector or amplitude calibration drifts.', ['Recalibrate; if the drift persists, suspect the RF module.'], VERIFY, { escalate: true }),
     leaf('MA5', 'Irregular shift', 'Check that the calibrant is the right one and fresh, and that each reference ion was assigned to the right peak.', [
       'Recalibrate.',
-      'If the error grows only at the top of the range, the RF amplifier may be near its limit: check its tuning and drive (no-signal tree, RF step).',
+      'If the error grows only at the top of the range, the RF amplifier may be near its limit: check its tuning and drive (no-signal tree, the step *Is RF on the rods, at the right amplitude?*).',
     ], VERIFY, { continueWith: ['no-signal'] }),
-      leaf('MA-stop', 'Stop and escalate the frequency check', STOP_TEXT, [
+    leaf('MA-stop', 'Stop and escalate the frequency check', STOP_TEXT, [
       'Go back one step and answer the temperature question instead, or pass this walk to someone authorised for live RF work.',
     ], 'nothing further here; record the mass errors for whoever takes over', { escalate: true, cards: ['general'] }),
   ],

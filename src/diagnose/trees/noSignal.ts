@@ -1,5 +1,5 @@
 import type { Tree } from '../types';
-import { BEHIND_COVERS, CARRIER_INPUTS, leaf, LIVE_WORK, opt, PRESSURE_FROM_READING, STOP_TEXT, USER_MAINTENANCE } from './build';
+import { BEHIND_COVERS, CARRIER_INPUTS, gate, leaf, LIVE_WORK, opt, PRESSURE_FROM_READING, STOP_TEXT, USER_MAINTENANCE } from './build';
 
 /**
  * No signal at all. Cheapest and safest checks first: read-backs, then swaps, then covers off.
@@ -15,7 +15,7 @@ export const noSignalTree: Tree = {
       id: 'NS1',
       kind: 'question',
       title: 'Is there truly nothing, background included?',
-      text: 'Run a full scan over a wide range with the detector on and the last good (or default) tune.',
+      text: 'Run a full scan over a wide range with the detector on and the last good (or default) settings file.',
       points: [
         'Background means air, water and column-bleed ions in EI; solvent or cluster ions with a spray source; H2, H2O and N2/CO on a residual gas analyser.',
         'Typical ranges: EI about m/z 10–600; spray sources about 50–1000 or more; residual gas analyser about 1–100 (common practice).',
@@ -36,7 +36,7 @@ export const noSignalTree: Tree = {
     leaf('NS1a-cal', 'Calibrant not arriving', 'The calibrant path is the suspect, not the mass spectrometer.', [
       'Check that the calibrant valve opens (listen, or watch the pressure rise when it opens).',
       'Check the vial: not empty, not stale. Refill or replace it following the safety data sheet.',
-    ], 'the calibrant ion abundances against the last performance report', { hazards: ['chemical'], cards: ['chemical'] }),
+    ], 'the calibrant ion abundances against the last calibration report', { access: 'covers-on', hazards: ['chemical'], cards: ['chemical'] }),
     leaf('NS1a-up', 'Look upstream of the ion source', 'The problem is before the mass spectrometer.', [
       'Injection really happened; column fitted and unbroken.',
       'A divert valve sends flow to the MS during the window; no solvent-delay or detector-off window covers the peak.',
@@ -103,21 +103,22 @@ export const noSignalTree: Tree = {
       source: 'Actual within about ±5 % of set (common practice).',
       branches: { pass: 'NS3E3', borderline: 'NS3E3', low: 'NS3E-G', high: 'NS3E-reg' },
     },
-    leaf('NS3E-reg', 'Emission above its set point', 'The emission regulation is not holding the set point.', [
-      'Reload the last good tune; if the emission still overshoots, test the emission supply by the maker’s module-level procedure.',
-      'Replace the supply module if it fails that test; escalate board-level repair.',
-    ], 'the emission current against the set point', { escalate: true }),
     {
-      id: 'NS3E-G',
-      kind: 'gate',
-      title: 'Gate: source access',
-      text: 'The next step opens the source area: power off and locked out, source cool, often vented.',
-      roles: USER_MAINTENANCE,
-      asks: ['role', 'lockout', 'ppe', 'procedure'],
-      cards: ['lockout', 'vacuum', 'hot-surface'],
-      next: 'NS3E2',
-      refuse: 'NS-stop',
+      id: 'NS3E-reg',
+      kind: 'question',
+      title: 'Emission above its set point: does the last good settings file fix it?',
+      text: 'The emission regulation is not holding the set point. Reload the last good settings file and read the emission again.',
+      options: [opt('fixed', 'Yes: the emission holds its set point', 'NS3E-reg-ok'), opt('still', 'No: it still overshoots', 'NS3E-reg-G')],
     },
+    leaf('NS3E-reg-ok', 'Settings restored', 'The emission holds its set point with the last good settings file.', [
+      'Record which setting had changed, and keep the good settings file as the reference.',
+    ], 'the emission current against the set point'),
+    gate('NS3E-reg-G', 'covers-off', BEHIND_COVERS, ['lockout', 'stored-charge', 'high-voltage'], 'NS3E-reg-sup', 'NS-stop', 'Gate: emission supply with the power off', 'The next step tests and replaces the emission supply module with the instrument locked out and discharged.'),
+    leaf('NS3E-reg-sup', 'Test or replace the emission supply', 'The emission supply overshoots its set point.', [
+      'With the power locked out and the discharge time passed, test the emission supply by the maker’s module-level procedure (a live test only as that procedure allows and your authorisation covers).',
+      'Replace the supply module if it fails that test; escalate board-level repair.',
+    ], 'the emission current against the set point', { access: 'covers-off', hazards: ['stored-charge', 'high-voltage'], cards: ['lockout', 'stored-charge', 'high-voltage'], escalate: true }),
+    gate('NS3E-G', 'covers-off', USER_MAINTENANCE, ['lockout', 'vacuum', 'hot-surface', 'radiation'], 'NS3E2', 'NS-stop', 'Gate: source access', 'The next step opens the source area: power off and locked out, source cool, often vented.'),
     {
       id: 'NS3E2',
       kind: 'measure',
@@ -135,6 +136,7 @@ export const noSignalTree: Tree = {
       kind: 'measure',
       title: 'Filament insulation to the source body',
       text: 'Measure from each filament pin to the source body.',
+      access: 'covers-off',
       hazards: ['venting', 'hot-surface'],
       cards: ['lockout', 'vacuum', 'hot-surface'],
       measure: { quantity: 'Filament pin to source body', unit: 'MΩ', tool: 'Digital multimeter, resistance range', how: 'Each pin to the source body in turn; record the lower value.' },
@@ -144,36 +146,45 @@ export const noSignalTree: Tree = {
     leaf('NS3E-open', 'Filament burnt out', 'Switch to the spare filament if one is fitted, or replace it.', [
       'Before replacing again, find why it failed: hot filament exposed to air, running at high pressure, too much emission, solvent or oxygen load.',
       'Run the leak tree if air is suspected.',
-    ], 'the emission current and a full scan of the background', { hazards: ['venting', 'hot-surface', 'radioactive'], cards: ['lockout', 'vacuum', 'hot-surface', 'radiation'], continueWith: ['leak'] }),
+    ], 'the emission current and a full scan of the background', { access: 'covers-off', hazards: ['venting', 'hot-surface', 'radioactive'], cards: ['lockout', 'vacuum', 'hot-surface', 'radiation'], continueWith: ['leak'] }),
     leaf('NS3E-short', 'Filament touching the source body', 'A sagged or distorted filament, or debris, shorts it to the body.', [
       'Replace or realign the filament; inspect the insulators and clean off any flakes of deposit.',
-    ], 'filament resistance and insulation, then emission current with the source back under vacuum', { hazards: ['venting', 'hot-surface'], cards: ['lockout', 'vacuum', 'hot-surface'] }),
+    ], 'filament resistance and insulation, then emission current with the source back under vacuum', { access: 'covers-off', hazards: ['venting', 'hot-surface'], cards: ['lockout', 'vacuum', 'hot-surface'] }),
     leaf('NS3E-supply', 'Filament good: suspect its supply', 'The filament is intact and insulated, so the fault is in its supply, regulation, cabling or interlock.', [
-      'Follow the maker’s module-level test of the filament supply.',
+      'Follow the maker’s module-level test of the filament supply, with the power locked out and the discharge time passed.',
       'Replace the module if it fails; escalate board-level repair.',
-    ], 'the emission current against its set point', { escalate: true }),
+    ], 'the emission current against its set point', { access: 'covers-off', hazards: ['stored-charge', 'venting'], cards: ['lockout', 'stored-charge', 'vacuum'], escalate: true }),
     {
       id: 'NS3E3',
       kind: 'question',
       title: 'Are electron energy and source potentials plausible?',
-      text: 'Compare the electron energy set point and the source and lens read-backs with the last good tune.',
+      text: 'Compare the electron energy set point and the source and lens read-backs with the last good settings file.',
       points: [
         'EI runs at 70 eV (Gross 2017; de Hoffmann 2007).',
         'A read-back pinned at zero or at a supply limit is suspect (common practice).',
         'Source and transfer line should be at their set temperatures; some designs keep the filament off until they are.',
       ],
-      options: [opt('implausible', 'Something is implausible', 'NS3E-tune'), opt('plausible', 'All plausible', 'NS4')],
+      options: [opt('implausible', 'Something is implausible', 'NS3E-reload'), opt('plausible', 'All plausible', 'NS4')],
     },
-    leaf('NS3E-tune', 'Source potentials wrong', 'Reload the last good tune or the default tune.', [
-      'If a read-back stays wrong, test the lens supply by the maker’s procedure.',
+    {
+      id: 'NS3E-reload',
+      kind: 'question',
+      title: 'Source potentials wrong: does the last good settings file fix them?',
+      text: 'Reload the last good settings file (or the default settings) and compare the read-backs again.',
+      options: [opt('fixed', 'Yes: the read-backs are plausible now', 'NS4'), opt('still', 'No: a read-back stays wrong', 'NS3E-tune-G')],
+    },
+    gate('NS3E-tune-G', 'covers-off', USER_MAINTENANCE, ['lockout', 'stored-charge', 'vacuum', 'hot-surface'], 'NS3E-tune', 'NS-stop', 'Gate: lens supply and source assembly', 'The next step tests the lens supply and takes the source out: power locked out, discharged, source cool, vented.'),
+    leaf('NS3E-tune', 'Source potentials wrong', 'A read-back stays wrong with the last good settings: the lens supply or the source assembly is at fault.', [
+      'Test the lens supply by the maker’s procedure, with the power locked out.',
       'After a cleaning, look for reassembly errors: a missing insulator or spacer, a lens touching ground, a flake bridging two parts. With the source out, each lens to ground should read open.',
-    ], 'the source and lens read-backs, then a full scan'),
+    ], 'the source and lens read-backs, then a full scan', { access: 'covers-off', hazards: ['stored-charge', 'venting', 'hot-surface'], cards: ['lockout', 'stored-charge', 'vacuum', 'hot-surface'] }),
     {
       id: 'NS3A1',
       kind: 'measure',
       title: 'Is liquid reaching the sprayer at the set flow?',
       text: 'With the spray voltage disabled, collect the outflow at the source inlet in a graduated vial for a timed interval; flow = volume / time.',
       points: ['Check the divert valve position too.'],
+      access: 'covers-on',
       hazards: ['chemical', 'high-voltage'],
       cards: ['chemical', 'high-voltage'],
       measure: { quantity: 'LC flow at the source inlet', unit: 'mL/min', altUnits: ['µL/min'], tool: 'Graduated vial and timer', how: 'Collect for at least one minute; read the volume at eye level.' },
@@ -187,7 +198,7 @@ export const noSignalTree: Tree = {
     },
     leaf('NS3A-lc', 'LC-side fault', 'The liquid is not arriving as set: the fault is before the source.', [
       'Check the pump, look for a leak or blockage, check the divert valve.',
-    ], 'the flow at the source inlet against the set flow', { hazards: ['chemical'], cards: ['chemical'] }),
+    ], 'the flow at the source inlet against the set flow', { access: 'covers-on', hazards: ['chemical'], cards: ['chemical'] }),
     {
       id: 'NS3A2',
       kind: 'question',
@@ -210,13 +221,16 @@ export const noSignalTree: Tree = {
       kind: 'question',
       title: 'Is the spray stable and the emitter clear?',
       text: 'Look at the spray through the window, or by the procedure with the voltage off; check back-pressure and the emitter tip. In negative mode, look for discharge (current spikes).',
+      access: 'covers-on',
       hazards: ['high-voltage', 'chemical'],
       cards: ['high-voltage', 'chemical'],
-      options: [opt('no', 'No stable spray, or emitter damaged', 'NS3A-emitter'), opt('yes', 'Stable spray, emitter clear', 'NS3A4')],
+      options: [opt('no', 'No stable spray, or emitter damaged', 'NS3A-emitter-G'), opt('yes', 'Stable spray, emitter clear', 'NS3A4')],
     },
+    gate('NS3A-emitter-G', 'covers-off', USER_MAINTENANCE, ['lockout', 'stored-charge', 'high-voltage', 'hot-surface', 'chemical'], 'NS3A-emitter', 'NS-stop', 'Gate: spray emitter', 'The next step opens the spray source: spray voltage and power locked out, discharged, source cool.'),
     leaf('NS3A-emitter', 'Emitter or capillary problem', 'Clean or replace the emitter or capillary, and set its position by the procedure.', [
-      'If it discharges, lower the spray voltage.',
-    ], 'spray current stability and a full scan', { hazards: ['high-voltage', 'chemical'], cards: ['high-voltage', 'chemical'] }),
+      'Spray voltage off and locked out, discharge time passed and the source cool before you open the housing.',
+      'If it discharged, lower the spray voltage when back in operation.',
+    ], 'spray current stability and a full scan', { access: 'covers-off', hazards: ['stored-charge', 'high-voltage', 'hot-surface', 'chemical'], cards: ['lockout', 'stored-charge', 'high-voltage', 'hot-surface', 'chemical'] }),
     {
       id: 'NS3A4',
       kind: 'measure',
@@ -229,14 +243,16 @@ export const noSignalTree: Tree = {
         tolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
       },
       source: 'Within about ±20 % of baseline; clearly lower suggests a blockage (common practice).',
-      branches: { pass: 'NS4', borderline: 'NS4', low: 'NS3A-blocked', high: 'NS3A-high' },
+      branches: { pass: 'NS4', borderline: 'NS4', low: 'NS3A-blocked-G', high: 'NS3A-high-G' },
     },
+    gate('NS3A-blocked-G', 'covers-off', USER_MAINTENANCE, ['lockout', 'stored-charge', 'vacuum', 'hot-surface', 'chemical'], 'NS3A-blocked', 'NS-stop', 'Gate: sampling orifice or inlet capillary', 'The next step takes out the orifice or capillary: power and spray voltage locked out, source cool, and on many designs a vent.'),
     leaf('NS3A-blocked', 'Inlet blocked', 'Clean or replace the orifice or inlet capillary by the procedure.', [
-      'This may need venting and a cool-down first.',
-    ], 'the interface pressure against baseline, then a full scan', { hazards: ['venting', 'hot-surface', 'chemical'], cards: ['vacuum', 'hot-surface', 'chemical', 'lockout'] }),
+      'This may need venting and a cool-down first; vent only through the designated valve.',
+    ], 'the interface pressure against baseline, then a full scan', { access: 'covers-off', hazards: ['stored-charge', 'venting', 'hot-surface', 'chemical'], cards: ['lockout', 'stored-charge', 'vacuum', 'hot-surface', 'chemical'] }),
+    gate('NS3A-high-G', 'covers-off', USER_MAINTENANCE, ['lockout', 'stored-charge', 'vacuum', 'hot-surface', 'chemical'], 'NS3A-high', 'NS-stop', 'Gate: orifice and first-stage pump', 'The next step inspects the orifice or capillary and the first-stage pump and hoses: power locked out, source cool, vented where needed.'),
     leaf('NS3A-high', 'Interface pressure above baseline', 'More gas than usual enters the first stage, or its pump is weak.', [
       'Check the orifice or capillary for damage or a wrong part; check the first-stage pump and its hoses.',
-    ], 'the interface pressure against baseline', { continueWith: ['vacuum'] }),
+    ], 'the interface pressure against baseline', { access: 'covers-off', hazards: ['stored-charge', 'venting', 'hot-surface', 'chemical'], cards: ['lockout', 'stored-charge', 'vacuum', 'hot-surface', 'chemical'], continueWith: ['vacuum'] }),
     {
       id: 'NS4',
       kind: 'question',
@@ -245,38 +261,53 @@ export const noSignalTree: Tree = {
       points: [
         'Discrete-dynode multipliers about 1–3 kV; conversion dynodes about ±5–15 kV (common practice).',
         'Some low-level noise is normal; pulse-counting dark rates are often below about 10 counts/s (from memory).',
-        'Probe kilovolt supplies only at designated test points with a rated divider probe.',
+        'Use the read-backs here. A doubtful read-back has its own answer below, which passes a live-work gate first.',
       ],
-      hazards: ['high-voltage', 'stored-charge'],
-      cards: ['high-voltage', 'stored-charge'],
+      access: 'read-back',
       options: [
-        opt('hv-dead', 'Multiplier voltage zero or stuck at a limit', 'NS4-hv'),
-        opt('flat', 'Voltage present but output completely flat, even with +100 V', 'NS4-path'),
-        opt('rga-em', 'Residual gas analyser: Faraday signal but no multiplier signal', 'NS4-em'),
+        opt('hv-dead', 'Multiplier voltage zero or stuck at a limit', 'NS4-hv-G'),
+        opt('doubt', 'The voltage read-back looks doubtful: measure it at the test point', 'NS4-tp-G'),
+        opt('flat', 'Voltage present but output completely flat, even with +100 V', 'NS4-path-G'),
+        opt('rga-em', 'Residual gas analyser: Faraday signal but no multiplier signal', 'NS4-em-G'),
         opt('rga-none', 'Residual gas analyser: no Faraday signal either', 'NS5-G'),
         opt('output', 'Output present', 'NS5-G'),
       ],
     },
+    gate('NS4-tp-G', 'energised', LIVE_WORK, ['high-voltage', 'stored-charge'], 'NS4-tp', 'NS-stop', 'Gate: kilovolt test point on a running instrument', 'The next step measures the multiplier supply at its designated test point while it runs: live work, with a divider probe and meter rated for the kilovolts present.'),
+    {
+      id: 'NS4-tp',
+      kind: 'measure',
+      title: 'Multiplier voltage at the test point',
+      text: 'Measure the multiplier supply at the designated test point with a high-voltage divider probe rated above the supply maximum, on a meter rated for its category. Connect the probe with the supply off where the procedure allows.',
+      access: 'energised',
+      hazards: ['high-voltage', 'stored-charge'],
+      cards: ['high-voltage', 'stored-charge'],
+      measure: { visitType: 'multiplier-voltage', quantity: 'Multiplier supply at the test point', unit: 'V', altUnits: ['kV'], tool: 'Rated high-voltage divider probe and meter', how: 'At the designated test point only, hands clear while energised; compare with the set value.' },
+      expect: {
+        calc: 'setPoint',
+        inputs: [{ key: 'setPoint', label: 'Multiplier voltage set value', unit: 'V', min: 1, max: 20000 }],
+        tolerance: { kind: 'relative', pass: 0.05, borderline: 0.1 },
+      },
+      source: 'Within about ±5 % of the set value, divider ratio error included (common practice).',
+      branches: { pass: 'NS4-rb', borderline: 'NS4-rb', low: 'NS4-hv-G', high: 'NS4-hv-G' },
+    },
+    leaf('NS4-rb', 'Supply right, read-back wrong', 'The supply gives its set voltage; the read-back misreports it.', [
+      'Record both values; have the read-back repaired or recalibrated by the maker’s procedure.',
+      'Then judge the detector output again with the measured voltage in mind: if the output is flat, the signal path is next.',
+    ], 'the multiplier voltage read-back against the test-point value, and the dark noise', { escalate: true }),
+    gate('NS4-hv-G', 'covers-off', BEHIND_COVERS, ['high-voltage', 'stored-charge', 'lockout'], 'NS4-hv', 'NS-stop', 'Gate: multiplier supply with the power off', 'The next step works on the HV cabling and replaces the HV supply or detector module: power locked out, discharge time passed, absence of voltage proved.'),
     leaf('NS4-hv', 'Multiplier supply not working', 'Check the pressure interlock and the HV cabling first.', [
       'Then replace the HV supply or detector module by the procedure.',
-    ], 'the multiplier voltage read-back and the dark noise', { hazards: ['high-voltage', 'stored-charge'], cards: ['high-voltage', 'stored-charge', 'lockout'] }),
+    ], 'the multiplier voltage read-back and the dark noise', { access: 'covers-off', hazards: ['high-voltage', 'stored-charge'], cards: ['high-voltage', 'stored-charge', 'lockout'] }),
+    gate('NS4-path-G', 'covers-off', BEHIND_COVERS, ['lockout', 'stored-charge', 'high-voltage'], 'NS4-path', 'NS-stop', 'Gate: detector signal path with the power off', 'The next step swaps the detector cable, preamplifier or counting board: power locked out, discharge time passed.'),
     leaf('NS4-path', 'Signal path broken', 'The detector has voltage but nothing comes through: detector cable, preamplifier or counting board.', [
-      'Swap with known-good parts one at a time.',
-    ], 'the dark noise and a full scan'),
+      'Swap with known-good parts one at a time, each with the power locked out.',
+    ], 'the dark noise and a full scan', { access: 'covers-off', hazards: ['stored-charge', 'high-voltage'], cards: ['lockout', 'stored-charge', 'high-voltage'] }),
+    gate('NS4-em-G', 'covers-off', BEHIND_COVERS, ['high-voltage', 'stored-charge', 'vacuum', 'lockout'], 'NS4-em', 'NS-stop', 'Gate: multiplier replacement', 'The next step replaces the multiplier or repairs its HV supply: power locked out, discharged, vented.'),
     leaf('NS4-em', 'Multiplier dead or unpowered', 'The ions arrive (Faraday cup sees them) but the multiplier does not answer.', [
-      'Check its voltage; replace the multiplier or repair the HV supply.',
-    ], 'the multiplier-to-Faraday gain on a steady peak', { hazards: ['high-voltage', 'venting'], cards: ['high-voltage', 'vacuum', 'lockout'] }),
-    {
-      id: 'NS5-G',
-      kind: 'gate',
-      title: 'Gate: RF measurement on a running instrument',
-      text: 'The next step reads RF at a monitor point or with a rated probe while the instrument runs.',
-      roles: LIVE_WORK,
-      asks: ['role', 'lockout', 'ppe', 'procedure'],
-      cards: ['rf', 'high-voltage'],
-      next: 'NS5',
-      refuse: 'NS-stop',
-    },
+      'With the power locked out and discharged, check the HV connection to the multiplier; replace the multiplier or repair the HV supply.',
+    ], 'the multiplier-to-Faraday gain on a steady peak', { access: 'covers-off', hazards: ['high-voltage', 'stored-charge', 'venting'], cards: ['high-voltage', 'stored-charge', 'vacuum', 'lockout'] }),
+    gate('NS5-G', 'energised', LIVE_WORK, ['rf', 'high-voltage'], 'NS5', 'NS-stop', 'Gate: RF measurement on a running instrument', 'The next step reads RF at a monitor point or with a rated probe while the instrument runs.'),
     {
       id: 'NS5',
       kind: 'measure',
@@ -326,19 +357,9 @@ export const noSignalTree: Tree = {
     },
     leaf('NS5-lin', 'RF not proportional to m/z', 'The RF detector or amplitude calibration does not track.', [
       'Recalibrate the RF amplitude; if it will not hold, suspect the RF module.',
-      'Take every probe off before closing up.',
-    ], 'the RF at two or three parked m/z values', { hazards: ['rf'], cards: ['rf'], continueWith: ['mass-axis'] }),
-    {
-      id: 'NS5a-G',
-      kind: 'gate',
-      title: 'Gate: rod assembly with power off',
-      text: 'The next step disconnects the RF cable at the rod assembly with the power off and locked out.',
-      roles: BEHIND_COVERS,
-      asks: ['role', 'lockout', 'ppe', 'procedure'],
-      cards: ['lockout', 'stored-charge'],
-      next: 'NS5a',
-      refuse: 'NS-stop',
-    },
+      'Switch off before you take any probe off, and take every probe off before closing up.',
+    ], 'the RF at two or three parked m/z values', { access: 'energised', hazards: ['rf', 'high-voltage'], cards: ['rf', 'high-voltage'], continueWith: ['mass-axis'] }),
+    gate('NS5a-G', 'covers-off', BEHIND_COVERS, ['lockout', 'stored-charge', 'vacuum'], 'NS5a', 'NS-stop', 'Gate: rod assembly with power off', 'The next step disconnects the RF cable at the rod assembly with the power off and locked out.'),
     {
       id: 'NS5a',
       kind: 'measure',
@@ -355,11 +376,11 @@ export const noSignalTree: Tree = {
     leaf('NS5a-short', 'Rods bridged', 'Debris, a conductive deposit or a cracked insulator bridges the rods.', [
       'Clean by the procedure. Do not disturb the rod alignment.',
       'If the rods must come apart, escalate.',
-    ], 'pair-to-pair and pair-to-ground resistance, then RF at a parked m/z', { escalate: true, hazards: ['stored-charge', 'venting'], cards: ['lockout', 'stored-charge', 'vacuum'] }),
+    ], 'pair-to-pair and pair-to-ground resistance, then RF at a parked m/z', { access: 'covers-off', escalate: true, hazards: ['stored-charge', 'venting'], cards: ['lockout', 'stored-charge', 'vacuum'] }),
     leaf('NS5a-gen', 'RF generator or tuning fault', 'The load is sound, so the RF is not being generated or the circuit is off tune.', [
       'Check the RF drive or tuning indicator and the connectors.',
-      'Replace the RF module by the procedure; escalate board-level repair.',
-    ], 'RF amplitude at a parked m/z and the drive indicator at the top of the range', { escalate: true }),
+      'Replace the RF module by the procedure, power locked out; escalate board-level repair.',
+    ], 'RF amplitude at a parked m/z and the drive indicator at the top of the range', { access: 'covers-off', hazards: ['stored-charge'], cards: ['lockout', 'stored-charge'], escalate: true }),
     {
       id: 'NS6',
       kind: 'question',
@@ -395,14 +416,14 @@ export const noSignalTree: Tree = {
       id: 'NS7',
       kind: 'question',
       title: 'Are polarity and mode consistent?',
-      text: 'Ion polarity, lens and ion-guide polarities, conversion-dynode and detector polarity, the method and the tune file must agree.',
+      text: 'Ion polarity, lens and ion-guide polarities, conversion-dynode and detector polarity, the method and the settings file must agree.',
       options: [
         opt('mismatch', 'Something does not match', 'NS7-fix'),
         { ...opt('tandem', 'All consistent; tandem instrument', 'NS8'), fits: ['gc-ms-triple', 'lc-ms-triple'] },
         { ...opt('single', 'All consistent; single quadrupole or residual gas analyser', 'NS9'), fits: ['gc-ms-single', 'lc-ms-single', 'rga'] },
       ],
     },
-    leaf('NS7-fix', 'Polarity or mode mismatch', 'Set the right polarity and load the matching tune.', ['Re-test with the calibrant.'], 'a calibrant scan in the intended polarity'),
+    leaf('NS7-fix', 'Polarity or mode mismatch', 'Set the right polarity and load the matching settings file.', ['Re-test with the calibrant.'], 'a calibrant scan in the intended polarity'),
     {
       id: 'NS8',
       kind: 'choice',
@@ -415,14 +436,14 @@ export const noSignalTree: Tree = {
       ],
     },
     leaf('NS8-last', 'Fault after the first quadrupole', 'The last quadrupole’s RF/DC, the collision-cell exit optics or the detector side.', [
-      'Repeat the RF checks (NS5) on the last stage.',
+      'Repeat the step *Is RF on the rods, at the right amplitude?* on the last stage.',
     ], 'a last-stage scan with the first in RF-only'),
     leaf('NS8-front', 'Front-end fault', 'The source, the ion guide or the first quadrupole.', [
-      'Repeat the source checks (NS3) and the RF checks (NS5) on the first stage.',
+      'Repeat the steps *Which ion source?* and *Is RF on the rods, at the right amplitude?* on the first stage.',
     ], 'a first-stage scan with the last in RF-only'),
     leaf('NS8-cell', 'Collision cell or method', 'Check collision gas supply, regulator and read-back; collision energy; product-ion m/z; dwell time.', [
       'Change cylinders and regulators by the site rules.',
-    ], 'the transition response against the baseline', { hazards: ['gas-cylinder'], cards: ['gas'], continueWith: ['mass-axis'] }),
+    ], 'the transition response against the baseline', { access: 'covers-on', hazards: ['gas-cylinder'], cards: ['gas'], continueWith: ['mass-axis'] }),
     leaf('NS9', 'Acquisition path', 'Check that acquisition really started; solvent-delay or detector-off windows; divert-valve schedule; scan range; detector enabled.', [
       'If all of these pass and there is still no signal, escalate with every reading recorded in this walk.',
     ], 'a full scan with the detector enabled', { escalate: true }),

@@ -1,5 +1,15 @@
 import type { Tree } from '../types';
-import { leaf, opt } from './build';
+import { BEHIND_COVERS, gate, leaf, LIVE_WORK, opt, STOP_TEXT, USER_MAINTENANCE } from './build';
+import type { Option } from '../types';
+
+/** The periodic-noise answers, the same whether the trace comes from an FFT or an oscilloscope. */
+const PERIODIC: Option[] = [
+  opt('mains', '50/60 or 100/120 Hz', 'NU4-mains-G'),
+  opt('pump', 'At a pump frequency', 'NU4-pump'),
+  opt('khz', 'In the kHz range', 'NU4-smps-G'),
+  opt('random', 'Random or intermittent', 'NU4-conn-G'),
+];
+const PERIODIC_POINTS = ['Mains 50/60 Hz and 100/120 Hz; rough pump rpm/60 (about 24–29 Hz, from memory); turbo rpm/60 (about 400–1500 Hz, from memory).'];
 
 /** Noisy or unstable signal: compare with counting statistics, split detector from beam, find periodic sources. */
 export const noiseTree: Tree = {
@@ -42,39 +52,49 @@ export const noiseTree: Tree = {
       points: ['Multipliers at about 10⁻⁵ mbar or above are at risk (common practice).'],
       hazards: ['high-voltage'],
       cards: ['high-voltage'],
-      options: [opt('yes', 'Yes', 'NU3-em'), opt('no', 'No', 'NU4')],
+      options: [opt('yes', 'Yes', 'NU3-em-G'), opt('no', 'No', 'NU4')],
     },
+    gate('NU3-em-G', 'covers-off', BEHIND_COVERS, ['high-voltage', 'stored-charge', 'vacuum', 'lockout'], 'NU3-em', 'NU-stop', 'Gate: multiplier and HV feedthroughs', 'The next step works at the HV feedthroughs and may replace the multiplier: power locked out, discharge time passed, vented.'),
     leaf('NU3-em', 'Multiplier discharge or ageing', 'Multiplier discharge, ageing or breakdown on an HV feedthrough.', [
-      'Check the pressure; check HV feedthroughs for contamination or humidity.',
+      'Check the pressure; with the power locked out and discharged, check HV feedthroughs for contamination or humidity.',
       'Replace the multiplier if it persists.',
-    ], 'the dark noise at the working multiplier voltage', { hazards: ['high-voltage', 'venting'], cards: ['high-voltage', 'vacuum', 'lockout'] }),
+    ], 'the dark noise at the working multiplier voltage', { access: 'covers-off', hazards: ['high-voltage', 'stored-charge', 'venting'], cards: ['high-voltage', 'stored-charge', 'vacuum', 'lockout'] }),
     {
       id: 'NU4',
       kind: 'choice',
       title: 'Is the noise periodic?',
-      text: 'Take an FFT of a fast baseline trace, or watch a safe monitor output on an oscilloscope.',
-      points: [
-        'Mains 50/60 Hz and 100/120 Hz; rough pump rpm/60 (about 24–29 Hz, from memory); turbo rpm/60 (about 400–1500 Hz, from memory).',
-      ],
-      options: [
-        opt('mains', '50/60 or 100/120 Hz', 'NU4-mains'),
-        opt('pump', 'At a pump frequency', 'NU4-pump'),
-        opt('khz', 'In the kHz range', 'NU4-smps'),
-        opt('random', 'Random or intermittent', 'NU4-conn'),
-      ],
+      text: 'Take an FFT of a fast baseline trace from the acquired data.',
+      points: PERIODIC_POINTS,
+      options: [...PERIODIC, opt('no-trace', 'No fast trace to analyse: watch a monitor output on an oscilloscope', 'NU4-G')],
     },
+    gate('NU4-G', 'energised', LIVE_WORK, ['high-voltage'], 'NU4s', 'NU-stop', 'Gate: oscilloscope on a running instrument', 'The next step connects an oscilloscope to a monitor output while the instrument runs: live work, with a probe and oscilloscope rated for the voltage present and the protective earth kept.'),
+    {
+      id: 'NU4s',
+      kind: 'choice',
+      title: 'Is the noise periodic on the oscilloscope?',
+      text: 'Watch the designated monitor output on an oscilloscope. Connect the probe with the instrument off where the procedure allows; never lift the oscilloscope’s protective earth.',
+      points: PERIODIC_POINTS,
+      access: 'energised',
+      hazards: ['high-voltage'],
+      cards: ['high-voltage'],
+      options: PERIODIC,
+    },
+    gate('NU4-mains-G', 'covers-off', BEHIND_COVERS, ['high-voltage', 'stored-charge', 'lockout'], 'NU4-mains', 'NU-stop', 'Gate: earth and ground bonds', 'The next step checks earth and ground bonds and cable routing: equipment locked out, discharge time passed.'),
     leaf('NU4-mains', 'Mains pickup, ripple or ground loop', 'Check protective-earth and signal-ground continuity, cable routing and shared outlets.', [
       'Bond measurements only with the equipment locked out.',
-    ], 'the noise spectrum', { hazards: ['high-voltage'], cards: ['high-voltage', 'lockout'] }),
-    leaf('NU4-pump', 'Vibration', 'Microphonics from a pump: check mounts, bellows and the bench.', ['Do not move a running turbo.'], 'the noise spectrum', { hazards: ['rotating'], cards: ['turbo'] }),
+    ], 'the noise spectrum', { access: 'covers-off', hazards: ['high-voltage', 'stored-charge'], cards: ['high-voltage', 'stored-charge', 'lockout'] }),
+    leaf('NU4-pump', 'Vibration', 'Microphonics from a pump: check mounts, bellows and the bench.', ['Do not move a running turbo.'], 'the noise spectrum', { access: 'covers-on', hazards: ['rotating'], cards: ['turbo'] }),
+    gate('NU4-smps-G', 'covers-off', BEHIND_COVERS, ['high-voltage', 'stored-charge', 'lockout'], 'NU4-smps', 'NU-stop', 'Gate: supply replacement', 'The next step replaces a switched-mode supply: equipment locked out, discharge time passed, absence of voltage proved.'),
     leaf('NU4-smps', 'Failing switched-mode supply', 'A supply’s switching ripple gets into the signal.', ['Find the supply by elimination and replace it by the procedure.'], 'the noise spectrum', {
-      hazards: ['high-voltage'],
-      cards: ['high-voltage', 'lockout'],
+      access: 'covers-off',
+      hazards: ['high-voltage', 'stored-charge'],
+      cards: ['high-voltage', 'stored-charge', 'lockout'],
     }),
+    gate('NU4-conn-G', 'covers-off', BEHIND_COVERS, ['high-voltage', 'stored-charge', 'lockout'], 'NU4-conn', 'NU-stop', 'Gate: connectors and cables', 'The next step wiggle-tests connectors and cables: equipment locked out, discharge time passed.'),
     leaf('NU4-conn', 'Connectors or cables', 'Intermittent contacts.', [
-      'Wiggle-test only de-energised or as the procedure allows.',
+      'Wiggle-test only de-energised, or live only as the procedure allows and your live-work authorisation covers.',
       'If clean, see where on the peak the noise is largest (beam noise steps).',
-    ], 'the noise over the same period', { hazards: ['high-voltage'], cards: ['high-voltage', 'lockout'] }),
+    ], 'the noise over the same period', { access: 'covers-off', hazards: ['high-voltage', 'stored-charge'], cards: ['high-voltage', 'stored-charge', 'lockout'] }),
     {
       id: 'NU5',
       kind: 'question',
@@ -92,21 +112,27 @@ export const noiseTree: Tree = {
       title: 'Which source?',
       text: 'The beam itself fluctuates: look at the source.',
       options: [
-        { ...opt('ei', 'Electron ionisation', 'NU6-ei'), fits: ['gc-ms-single', 'gc-ms-triple'] },
+        { ...opt('ei', 'Electron ionisation', 'NU6-ei-G'), fits: ['gc-ms-single', 'gc-ms-triple'] },
         { ...opt('esi', 'Electrospray', 'NU6-esi'), fits: ['lc-ms-single', 'lc-ms-triple'] },
-        { ...opt('apci', 'APCI', 'NU6-apci'), fits: ['lc-ms-single', 'lc-ms-triple'] },
+        { ...opt('apci', 'APCI', 'NU6-apci-G'), fits: ['lc-ms-single', 'lc-ms-triple'] },
         { ...opt('rga', 'Residual gas analyser', 'NU6-rga'), fits: ['rga'] },
       ],
     },
+    gate('NU6-ei-G', 'covers-off', USER_MAINTENANCE, ['lockout', 'vacuum', 'hot-surface', 'chemical'], 'NU6-ei', 'NU-stop', 'Gate: EI source service', 'The next step may open and clean the EI source: power locked out, source cool, vented.'),
     leaf('NU6-ei', 'EI source', 'Filament near end of life, emission regulation, carrier pressure or flow oscillating, source temperature cycling, or charging of contaminated insulators or lenses.', [
-      'Clean the source if insulators or lenses are contaminated.',
-    ], 'the RSD of the same ion', { hazards: ['hot-surface'], cards: ['hot-surface'] }),
+      'Clean the source by the procedure if insulators or lenses are contaminated; change the filament if it is near end of life.',
+    ], 'the RSD of the same ion', { access: 'covers-off', hazards: ['venting', 'hot-surface', 'chemical'], cards: ['lockout', 'vacuum', 'hot-surface', 'chemical'] }),
     leaf('NU6-esi', 'Electrospray', 'LC pump pulsation (noise period equal to the pump stroke), bubbles, emitter damage or position, flow too low for the voltage, gas flow, or discharge in negative mode.', [
       'Degas the eluent; lower the voltage if it discharges.',
     ], 'the RSD of the same ion', { hazards: ['high-voltage', 'chemical'], cards: ['high-voltage', 'chemical'] }),
-    leaf('NU6-apci', 'APCI', 'The corona needle is worn or contaminated.', ['Clean or replace it by the procedure.'], 'the corona current and the RSD', { hazards: ['high-voltage'], cards: ['high-voltage', 'lockout'] }),
+    gate('NU6-apci-G', 'covers-off', USER_MAINTENANCE, ['high-voltage', 'stored-charge', 'hot-surface', 'lockout'], 'NU6-apci', 'NU-stop', 'Gate: corona needle', 'The next step opens the APCI source: corona supply and power locked out, discharged, source cool.'),
+    leaf('NU6-apci', 'APCI', 'The corona needle is worn or contaminated.', ['Clean or replace it by the procedure.'], 'the corona current and the RSD', { access: 'covers-off', hazards: ['high-voltage', 'stored-charge', 'hot-surface'], cards: ['high-voltage', 'stored-charge', 'hot-surface', 'lockout'] }),
     leaf('NU6-rga', 'Residual gas analyser', 'Compare with an independent total-pressure gauge: the process pressure may really be fluctuating.', [
       'If it is the analyser, log the noise metrics and the spectrum and escalate.',
     ], 'the partial pressure and the total pressure together'),
+    leaf('NU-stop', 'Stop and escalate', STOP_TEXT, ['Leave the instrument as it is; pass this walk to someone authorised for the step.'], 'nothing further here; record the noise figures for whoever takes over', {
+      escalate: true,
+      cards: ['general'],
+    }),
   ],
 };

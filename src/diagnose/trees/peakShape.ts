@@ -1,5 +1,5 @@
 import type { Tree } from '../types';
-import { leaf, opt } from './build';
+import { BEHIND_COVERS, gate, leaf, opt, STOP_TEXT, USER_MAINTENANCE } from './build';
 
 /** Poor resolution or peak shape: split, tailing or wide peaks, in the mass spectrum or in the chromatogram. */
 export const peakShapeTree: Tree = {
@@ -22,7 +22,7 @@ export const peakShapeTree: Tree = {
       text: 'Pick the pattern that matches.',
       options: [
         opt('all-broad', 'All peaks broad or tailing, inert compounds too', 'PSC-phys'),
-        opt('polar', 'Only active or polar compounds tail', 'PSC-act'),
+        opt('polar', 'Only active or polar compounds tail', 'PSC-act-G'),
         opt('split', 'Split peaks', 'PSC-split'),
         opt('front', 'Fronting', 'PSC-over'),
       ],
@@ -32,11 +32,17 @@ export const peakShapeTree: Tree = {
       'A cold spot: transfer line below the elution temperature, source too cold. Compare the temperature read-backs with their set points.',
       'LC: extra-column volume or a void in the column.',
     ], 'peak width of a reference compound', { hazards: ['hot-surface'], cards: ['hot-surface'] }),
-    leaf('PSC-act', 'Chemical activity', 'Active sites hold back polar compounds.', ['Replace the liner, trim the column, clean the EI source.'], 'tailing factor of an active compound', {
+    gate('PSC-act-G', 'covers-off', USER_MAINTENANCE, ['lockout', 'vacuum', 'hot-surface', 'chemical'], 'PSC-act', 'PS-stop', 'Gate: inlet, column and EI source', 'The next step replaces the liner, trims the column and cleans the EI source: power locked out, inlet and source cool, MS vented.'),
+    leaf('PSC-act', 'Chemical activity', 'Active sites hold back polar compounds.', ['Replace the liner, trim the column, clean the EI source by the procedure.'], 'tailing factor of an active compound', {
+      access: 'covers-off',
+      hazards: ['venting', 'hot-surface', 'chemical'],
+      cards: ['lockout', 'vacuum', 'hot-surface', 'chemical'],
+    }),
+    leaf('PSC-split', 'Injection or column', 'Injection solvent or strength mismatch, injection technique, or a void in the column.', ['Fix the injection conditions; replace the column if it has a void, once it is cool.'], 'the peak shape of a reference injection', {
+      access: 'covers-on',
       hazards: ['hot-surface', 'chemical'],
       cards: ['hot-surface', 'chemical'],
     }),
-    leaf('PSC-split', 'Injection or column', 'Injection solvent or strength mismatch, injection technique, or a void in the column.', ['Fix the injection conditions; replace the column if it has a void.'], 'the peak shape of a reference injection'),
     leaf('PSC-over', 'Overload', 'Too much sample for the column.', ['Dilute, or raise the split ratio.'], 'the peak shape at the lower load'),
     {
       id: 'PS2',
@@ -79,13 +85,17 @@ export const peakShapeTree: Tree = {
         tolerance: { kind: 'relative', pass: 0.02, borderline: 0.05 },
       },
       source: 'U from a = 8eU/(m r0² Ω²) at the apex (Dawson 1976); a resolving scan line sits 0.1–1 % below; ±2 % is our working tolerance.',
-      branches: { pass: 'PS3-cal', borderline: 'PS3-cal', low: 'PS3-dc', high: 'PS3-cal' },
+      branches: { pass: 'PS3-cal', borderline: 'PS3-cal', low: 'PS3-dc-G', high: 'PS3-cal' },
     },
     leaf('PS3-cal', 'Resolution calibration', 'Run the resolution calibration.', [
       'If the analyser pressure is high, fix the vacuum first (scattering widens peaks).',
       'If the ion energy (rod offset) is high, reduce it: slower ions see more RF cycles and resolve better.',
     ], 'peak widths at the same three ions', { continueWith: ['vacuum'] }),
-    leaf('PS3-dc', 'DC too low', 'The DC read-back is below what the apex needs: suspect the DC supply.', ['Test the DC supply by the maker’s procedure; replace or escalate.'], 'DC at the parked m/z and peak widths', {
+    gate('PS3-dc-G', 'covers-off', BEHIND_COVERS, ['lockout', 'stored-charge', 'high-voltage'], 'PS3-dc', 'PS-stop', 'Gate: DC supply with the power off', 'The next step tests and replaces the DC supply: power locked out, discharge time passed, absence of voltage proved.'),
+    leaf('PS3-dc', 'DC too low', 'The DC read-back is below what the apex needs: suspect the DC supply.', ['Test the DC supply by the maker’s procedure (live tests only as it allows and your authorisation covers); replace it with the power locked out, or escalate.'], 'DC at the parked m/z and peak widths', {
+      access: 'covers-off',
+      hazards: ['stored-charge', 'high-voltage'],
+      cards: ['lockout', 'stored-charge', 'high-voltage'],
       escalate: true,
     }),
     leaf('PS4', 'Width varies with m/z', 'The DC/RF scan line (slope and offset) is off.', [
@@ -98,16 +108,18 @@ export const peakShapeTree: Tree = {
       title: 'Split, shoulder or tail: which condition fits?',
       text: 'Pick the condition that matches what you see.',
       options: [
-        opt('energy', 'Shape changes with ion energy or entrance-lens voltage', 'PS5-fringe'),
+        opt('energy', 'Shape changes with ion energy or entrance-lens voltage', 'PS5-fringe-G'),
         opt('handled', 'Appeared after the analyser was handled, bumped or shipped', 'PS5-mech'),
         opt('dc', 'The two rod pairs’ DC read-backs differ in size', 'PS5-dc'),
         opt('pressure', 'Tails on every mass, and the pressure is high', 'PS5-press'),
         opt('intense', 'Only at very high intensity', 'PS5-sat'),
       ],
     },
+    gate('PS5-fringe-G', 'covers-off', BEHIND_COVERS, ['lockout', 'stored-charge', 'vacuum', 'hot-surface', 'chemical'], 'PS5-fringe', 'PS-stop', 'Gate: entrance lens and pre-filter', 'The next step opens the analyser entrance: power locked out, discharged, source cool, vented through the designated valve.'),
     leaf('PS5-fringe', 'Entrance fringe field or contamination', 'Clean the pre-filter or entrance lens by the procedure.', ['Rod cleaning is escalated.'], 'profiles at the same ions and ion energies', {
-      hazards: ['venting', 'hot-surface', 'chemical'],
-      cards: ['vacuum', 'hot-surface', 'chemical', 'lockout'],
+      access: 'covers-off',
+      hazards: ['stored-charge', 'venting', 'hot-surface', 'chemical'],
+      cards: ['lockout', 'stored-charge', 'vacuum', 'hot-surface', 'chemical'],
     }),
     leaf('PS5-mech', 'Mechanical misalignment', 'The rods have moved.', ['Escalate for realignment at the maker’s level; do not adjust the rods in the field.'], 'profiles at the same ions, for the hand-over', { escalate: true }),
     leaf('PS5-dc', 'DC supply imbalance', 'The DC supply needs calibration or repair.', ['Follow the maker’s DC calibration; escalate repair.'], 'DC of both pairs at a parked m/z and the profiles', { escalate: true }),
@@ -116,5 +128,9 @@ export const peakShapeTree: Tree = {
     leaf('PS6', 'Find the stage', 'Scan each quadrupole with the other in RF-only to see which one has the bad profile.', [
       'Then check that stage as in the DC, scan-line and shape steps above.',
     ], 'profiles from each stage'),
+    leaf('PS-stop', 'Stop and escalate', STOP_TEXT, ['Leave the instrument closed; pass this walk to someone authorised for the step.'], 'nothing further here; record the profiles and widths for whoever takes over', {
+      escalate: true,
+      cards: ['general'],
+    }),
   ],
 };

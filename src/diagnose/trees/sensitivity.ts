@@ -1,5 +1,5 @@
 import type { Tree } from '../types';
-import { CARRIER_INPUTS, leaf, opt, PRESSURE_FROM_READING, USER_MAINTENANCE, STOP_TEXT } from './build';
+import { CARRIER_INPUTS, gate, leaf, opt, PRESSURE_FROM_READING, USER_MAINTENANCE, STOP_TEXT } from './build';
 
 /** Low sensitivity: prove the loss, separate MS from chromatography, then detector, vacuum, source, calibration, saturation. */
 export const sensitivityTree: Tree = {
@@ -13,7 +13,7 @@ export const sensitivityTree: Tree = {
       kind: 'measure',
       title: 'Is the loss real?',
       text: 'Run the same reference test as the baseline (same standard, method and injection) and express the response as a share of the baseline.',
-      points: ['For EI, compare the tune-ion abundances too.'],
+      points: ['For EI, compare the calibrant ion abundances too.'],
       measure: { quantity: 'Reference response as a share of baseline', unit: '%', tool: 'Reference test (area or signal-to-noise)', how: 'Response now ÷ baseline response × 100.' },
       expect: {
         range: { low: 70, high: 1000 },
@@ -41,9 +41,9 @@ export const sensitivityTree: Tree = {
       id: 'LS3',
       kind: 'measure',
       title: 'Is the detector gain where it should be?',
-      text: 'Read the multiplier voltage the tune needed now and compare it with its history and the supply maximum.',
+      text: 'Read the multiplier voltage the last gain adjustment needed and compare it with its history and the supply maximum.',
       points: ['On a residual gas analyser, gain = multiplier current ÷ Faraday current on a steady peak (m/z 28 or 40).', 'A slow upward trend is normal (common practice).'],
-      measure: { visitType: 'multiplier-voltage', quantity: 'Multiplier voltage (as set for the target gain)', unit: 'V', altUnits: ['kV'], tool: 'Performance report or read-back', how: 'Take the value the instrument set at its latest gain adjustment.' },
+      measure: { visitType: 'multiplier-voltage', quantity: 'Multiplier voltage (as set for the intended gain)', unit: 'V', altUnits: ['kV'], tool: 'Calibration report or read-back', how: 'Take the value the instrument set at its latest gain adjustment.' },
       expect: {
         calc: 'multiplierHeadroom',
         inputs: [{ key: 'supplyMaximum', label: 'Multiplier supply maximum', unit: 'V', default: 3000, min: 100, max: 10000 }],
@@ -51,10 +51,10 @@ export const sensitivityTree: Tree = {
       },
       branches: { pass: 'LS4', borderline: 'LS3-em', high: 'LS3-em', low: 'LS4' },
     },
-    leaf('LS3-em', 'Multiplier near end of life', 'The tune needs almost all the supply can give.', [
+    leaf('LS3-em', 'Multiplier near end of life', 'The gain adjustment needs almost all the supply can give.', [
       'Raise the voltage within its limit as a stop-gap.',
       'Plan a multiplier replacement; record the voltage trend over visits.',
-    ], 'the multiplier voltage the tune needs and the reference response', { hazards: ['high-voltage'], cards: ['high-voltage'] }),
+    ], 'the multiplier voltage the gain adjustment needs and the reference response', { hazards: ['high-voltage'], cards: ['high-voltage'] }),
     {
       id: 'LS4',
       kind: 'measure',
@@ -75,26 +75,16 @@ export const sensitivityTree: Tree = {
     {
       id: 'LS5',
       kind: 'question',
-      title: 'Is the ion source clean and correctly set?',
-      text: 'EI: hours since cleaning; lens or repeller voltages creeping toward their limits; high-mass abundance falling against low mass (e.g. 502/69 of the perfluorinated amine calibrant); emission and source temperature at set point. Spray sources: deposits on cone, orifice or capillary; sprayer position; gas flows and temperatures; emitter condition.',
+      title: 'Is the ion source free of deposits and correctly set?',
+      text: 'EI: hours since the last source service; lens or repeller voltages creeping toward their limits; high-mass abundance falling against low mass (e.g. 502/69 of the perfluorinated amine calibrant); emission and source temperature at set point. Spray sources: deposits on cone, orifice or capillary; sprayer position; gas flows and temperatures; emitter condition.',
       points: ['Ion current is proportional to emission current: a 20 % emission shortfall costs about 20 % of the signal.'],
       options: [opt('dirty', 'Dirty or out of range', 'LS5-G'), opt('ok', 'Clean and at set point', 'LS6')],
     },
-    {
-      id: 'LS5-G',
-      kind: 'gate',
-      title: 'Gate: source cleaning',
-      text: 'Cleaning needs venting, a cool source, solvents and the power locked out.',
-      roles: USER_MAINTENANCE,
-      asks: ['role', 'lockout', 'ppe', 'procedure'],
-      cards: ['lockout', 'vacuum', 'hot-surface', 'chemical'],
-      next: 'LS5-clean',
-      refuse: 'LS-stop',
-    },
-    leaf('LS5-clean', 'Clean the ion source', 'Clean the source by the maker’s procedure, then pump down, re-tune and re-measure.', [
+    gate('LS5-G', 'covers-off', USER_MAINTENANCE, ['lockout', 'vacuum', 'hot-surface', 'chemical'], 'LS5-clean', 'LS-stop', 'Gate: source cleaning', 'Cleaning needs venting, a cool source, solvents and the power locked out.'),
+    leaf('LS5-clean', 'Clean the ion source', 'Clean the source by the maker’s procedure, then pump down, recalibrate and re-measure.', [
       'Let it cool first; vent only through the designated valve.',
       'Handle parts with nitrile gloves; use the solvents with ventilation.',
-    ], 'tune-ion abundances, lens voltages and the reference response', {
+    ], 'calibrant ion abundances, lens voltages and the reference response', {
       access: 'covers-off',
       hazards: ['venting', 'hot-surface', 'chemical'],
       cards: ['lockout', 'vacuum', 'hot-surface', 'chemical'],
@@ -150,9 +140,9 @@ export const sensitivityTree: Tree = {
     },
     leaf('LS8-fix', 'Method settings', 'Correct the collision gas, energies, dwell and cycle time.', ['Re-run the reference test.'], 'the reference response against the baseline'),
     leaf('LS9', 'Analyser contamination or slow drift', 'The ion guide, pre-filter or rod entrance may be contaminated, or the electronics drift slowly.', [
-      'Escalate. Analyser cleaning is for qualified staff only.',
-    ], 'the reference response, tune-ion abundances and multiplier voltage for the hand-over', { escalate: true }),
-    leaf('LS-stop', 'Stop and escalate', STOP_TEXT, ['Leave the source closed; pass this walk to someone authorised for source cleaning.'], 'nothing further here; record the as-found readings for whoever takes over', {
+      'Escalate. Analyser service is for qualified staff only.',
+    ], 'the reference response, calibrant ion abundances and multiplier voltage for the hand-over', { escalate: true }),
+    leaf('LS-stop', 'Stop and escalate', STOP_TEXT, ['Leave the source closed; pass this walk to someone authorised for source maintenance.'], 'nothing further here; record the as-found readings for whoever takes over', {
       escalate: true,
       cards: ['general'],
     }),

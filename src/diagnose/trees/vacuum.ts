@@ -1,5 +1,5 @@
 import type { Tree } from '../types';
-import { BEHIND_COVERS, CARRIER_INPUTS, leaf, opt, PRESSURE_FROM_READING, STOP_TEXT } from './build';
+import { BEHIND_COVERS, CARRIER_INPUTS, gate, leaf, opt, PRESSURE_FROM_READING, STOP_TEXT, USER_MAINTENANCE } from './build';
 
 /** Vacuum fault or pump problems. */
 export const vacuumTree: Tree = {
@@ -17,22 +17,12 @@ export const vacuumTree: Tree = {
         opt('fore', 'Fore-vacuum high', 'VF2-G'),
         opt('turbo', 'Turbo not at full speed', 'VF4'),
         opt('hv', 'Fore-vacuum fine, high vacuum high', 'VF5'),
-        opt('gauges', 'Gauges disagree or read implausibly', 'VF8'),
+        opt('gauges', 'Gauges disagree or read implausibly', 'VF8q'),
         opt('vented', 'Just vented: judging the pump-down', 'VF6'),
         opt('bursts', 'Pressure bursts or fluctuation', 'VF7'),
       ],
     },
-    {
-      id: 'VF2-G',
-      kind: 'gate',
-      title: 'Gate: blank off the rough pump',
-      text: 'Isolating the rough pump with a valve or blank flange means shutting the system down and opening the foreline.',
-      roles: BEHIND_COVERS,
-      asks: ['role', 'lockout', 'ppe', 'procedure'],
-      cards: ['lockout', 'vacuum', 'turbo'],
-      next: 'VF2',
-      refuse: 'VF-stop',
-    },
+    gate('VF2-G', 'covers-off', BEHIND_COVERS, ['lockout', 'vacuum', 'turbo'], 'VF2', 'VF-stop', 'Gate: blank off the rough pump', 'Isolating the rough pump with a valve or blank flange means shutting the system down and opening the foreline.'),
     {
       id: 'VF2',
       kind: 'measure',
@@ -47,34 +37,41 @@ export const vacuumTree: Tree = {
       branches: { pass: 'VF2-load', borderline: 'VF2-load', low: 'VF2-load', high: 'VF3' },
     },
     leaf('VF2-load', 'Pump fine: gas load or leak on the foreline', 'Hoses, KF joints, vent valves, gas ballast left open, or solvent load on an LC-MS.', [
-      'Leak-check the foreline; estimate the gas load from the flows (p = Q/S).',
-    ], 'the fore-vacuum with the system reconnected', { continueWith: ['leak'] }),
+      'Reconnect the foreline (system still locked out), then leak-check it; estimate the gas load from the flows (p = Q/S).',
+    ], 'the fore-vacuum with the system reconnected', { access: 'covers-off', hazards: ['venting'], cards: ['lockout', 'vacuum'], continueWith: ['leak'] }),
     {
       id: 'VF3',
       kind: 'choice',
       title: 'What condition is the pump in?',
       text: 'Look at the oil (level, colour), the exhaust filter and line, and listen and feel for noise and heat.',
-      hazards: ['chemical', 'hot-surface'],
-      cards: ['chemical', 'hot-surface', 'lockout'],
+      access: 'covers-on',
+      hazards: ['chemical', 'hot-surface', 'rotating'],
+      cards: ['chemical', 'hot-surface', 'turbo', 'lockout'],
       options: [
-        opt('dark', 'Oil dark', 'VF3-dark'),
+        opt('dark', 'Oil dark', 'VF3-dark-G'),
         opt('milky', 'Oil milky or cloudy', 'VF3-milky'),
-        opt('exhaust', 'Exhaust mist filter saturated or exhaust line restricted', 'VF3-exhaust'),
-        opt('worn', 'Noise, heat, belt or coupling wear; dry-pump seals worn', 'VF3-worn'),
+        opt('exhaust', 'Exhaust mist filter saturated or exhaust line restricted', 'VF3-exhaust-G'),
+        opt('worn', 'Noise, heat, belt or coupling wear; dry-pump seals worn', 'VF3-worn-G'),
       ],
     },
+    gate('VF3-dark-G', 'covers-off', USER_MAINTENANCE, ['chemical', 'hot-surface', 'lockout'], 'VF3-dark', 'VF-stop', 'Gate: oil change', 'The next step drains and refills the rough pump: pump switched off, unplugged or locked out, and cool.'),
     leaf('VF3-dark', 'Oil degraded', 'Change the oil. Used oil is hazardous waste.', ['Let the pump cool first; lock it out.'], 'the blank-off pressure and the fore-vacuum', {
+      access: 'covers-off',
       hazards: ['chemical', 'hot-surface'],
       cards: ['chemical', 'hot-surface', 'lockout'],
     }),
     leaf('VF3-milky', 'Water or solvent in the oil', 'Run with gas ballast open for about 30–60 min (common practice); change the oil if it is still poor.', [
       'The exhaust must go to extraction.',
-    ], 'the blank-off pressure and the oil appearance', { hazards: ['chemical', 'hot-surface'], cards: ['chemical', 'hot-surface'] }),
+    ], 'the blank-off pressure and the oil appearance', { access: 'covers-on', hazards: ['chemical', 'hot-surface'], cards: ['chemical', 'hot-surface'] }),
+    gate('VF3-exhaust-G', 'covers-off', USER_MAINTENANCE, ['chemical', 'hot-surface', 'lockout'], 'VF3-exhaust', 'VF-stop', 'Gate: exhaust filter and line', 'The next step opens the pump exhaust: pump switched off, unplugged or locked out, and cool.'),
     leaf('VF3-exhaust', 'Exhaust restricted', 'Replace the mist filter and clear the line; the exhaust must go to extraction.', ['Lock the pump out before opening the exhaust.'], 'the blank-off pressure', {
+      access: 'covers-off',
       hazards: ['chemical', 'hot-surface'],
       cards: ['chemical', 'hot-surface', 'lockout'],
     }),
+    gate('VF3-worn-G', 'covers-off', BEHIND_COVERS, ['mechanical', 'hot-surface', 'lockout'], 'VF3-worn', 'VF-stop', 'Gate: pump service or exchange', 'The next step takes the rough pump out of service: switched off, unplugged or locked out, cool, and lifted with help.'),
     leaf('VF3-worn', 'Pump worn', 'Service or replace the pump.', ['Pumps are heavy: lift with help or aids.'], 'the blank-off pressure with the serviced pump', {
+      access: 'covers-off',
       hazards: ['lifting', 'hot-surface'],
       cards: ['mechanical', 'hot-surface', 'lockout'],
     }),
@@ -89,21 +86,23 @@ export const vacuumTree: Tree = {
         opt('no', 'No: the fore-vacuum is too high', 'VF2-G'),
         opt('noisy', 'Yes, but there is noise, vibration, high motor current or over-temperature', 'VF4-svc'),
         opt('slow', 'Yes, but run-up takes more than about twice the as-installed time', 'VF4-bearing'),
-        opt('ctl', 'Controller or cable fault shown', 'VF4-ctl'),
+        opt('ctl', 'Controller or cable fault shown', 'VF4-ctl-G'),
       ],
     },
     leaf('VF4-svc', 'Turbo distressed', 'Check cooling: fan, water flow, room temperature. Do not power-cycle it again and again.', [
-      'Send the turbo for service; bearings are not field work.',
+      'Have the turbo serviced by someone authorised; bearings are not field work.',
       'Do not move or knock a running turbo.',
-    ], 'turbo speed, current and temperature after the cooling fix', { hazards: ['rotating'], cards: ['turbo'], escalate: true }),
+    ], 'turbo speed, current and temperature after the cooling fix', { access: 'covers-on', hazards: ['rotating'], cards: ['turbo'], escalate: true }),
     leaf('VF4-bearing', 'Bearing wear or excess gas load', 'Compare the run-up with the as-installed curve and plan service.', ['Check the gas load first (leak tree) so the pump is not blamed for a leak.'], 'turbo run-up time and high vacuum', {
       hazards: ['rotating'],
       cards: ['turbo'],
       continueWith: ['leak'],
     }),
-    leaf('VF4-ctl', 'Controller or cable', 'Check connections and the supply by the procedure; replace the controller.', ['Lock out before unplugging controller cables.'], 'turbo speed and run-up', {
-      hazards: ['high-voltage', 'rotating'],
-      cards: ['high-voltage', 'turbo', 'lockout'],
+    gate('VF4-ctl-G', 'covers-off', BEHIND_COVERS, ['high-voltage', 'stored-charge', 'turbo', 'lockout'], 'VF4-ctl', 'VF-stop', 'Gate: turbo controller and cables', 'The next step unplugs the turbo controller cables: system locked out, rotor stopped, discharge time passed.'),
+    leaf('VF4-ctl', 'Controller or cable', 'Check connections and the supply by the procedure; replace the controller.', ['Lock out and let the rotor stop before unplugging controller cables.'], 'turbo speed and run-up', {
+      access: 'covers-off',
+      hazards: ['high-voltage', 'stored-charge', 'rotating'],
+      cards: ['high-voltage', 'stored-charge', 'turbo', 'lockout'],
     }),
     {
       id: 'VF5',
@@ -119,6 +118,7 @@ export const vacuumTree: Tree = {
     },
     leaf('VF5-flow', 'The flows explain the pressure', 'The pressure is what the set flows give: check the set points (carrier, collision gas) and the regulator.', ['Correct any set point that is wrong.'], 'the analyser pressure against the expected value'),
     leaf('VF5-low', 'Less gas than the flows should give', 'A deliberate flow is not arriving: a broken or plugged column, or an empty collision-gas supply.', ['Check the column and the gas supplies.'], 'the analyser pressure against the expected value', {
+      access: 'covers-on',
       hazards: ['gas-cylinder'],
       cards: ['gas'],
     }),
@@ -130,7 +130,7 @@ export const vacuumTree: Tree = {
       options: [
         opt('air', 'Air signature (28:32 about 3.7–4)', 'VF5-air'),
         opt('water', 'Water-dominated after a vent', 'VF5-water'),
-        opt('temp', 'Rises with source temperature', 'VF5-outgas'),
+        opt('temp', 'Rises with source temperature', 'VF5-outgas-G'),
         opt('cell', 'Collision-gas set point or regulator wrong', 'VF5-cell'),
       ],
     },
@@ -139,8 +139,10 @@ export const vacuumTree: Tree = {
       hazards: ['hot-surface'],
       cards: ['hot-surface'],
     }),
-    leaf('VF5-outgas', 'Outgassing from contamination', 'Clean or bake.', ['Let parts cool before handling.'], 'the analyser pressure at working temperature', { hazards: ['hot-surface'], cards: ['hot-surface'] }),
+    gate('VF5-outgas-G', 'covers-off', USER_MAINTENANCE, ['lockout', 'vacuum', 'hot-surface', 'chemical'], 'VF5-outgas', 'VF-stop', 'Gate: clean contaminated parts', 'The next step opens the vacuum system to clean contaminated parts: power locked out, parts cool, vented through the designated valve.'),
+    leaf('VF5-outgas', 'Outgassing from contamination', 'Clean the contaminated parts by the procedure, or bake within the parts’ limits.', ['Let parts cool before handling.'], 'the analyser pressure at working temperature', { access: 'covers-off', hazards: ['venting', 'hot-surface', 'chemical'], cards: ['lockout', 'vacuum', 'hot-surface', 'chemical'] }),
     leaf('VF5-cell', 'Collision gas set wrong', 'Correct the set point or the regulator.', ['Change regulators by the site’s gas rules.'], 'the analyser pressure and collision-gas read-back', {
+      access: 'covers-on',
       hazards: ['gas-cylinder'],
       cards: ['gas'],
     }),
@@ -178,10 +180,19 @@ export const vacuumTree: Tree = {
     leaf('VF7', 'Bursts or fluctuation', 'Candidates: a virtual leak (trapped volumes such as blind tapped holes or double O-rings), trapped solvent, a regulator oscillating, turbo speed hunting.', [
       'Time-correlate the bursts with gas and temperature events.',
     ], 'a pressure log over the same period'),
-    leaf('VF8', 'Gauges disagree', 'Both gauge types depend on the gas (Jousten 2016). Switch hot-cathode gauges on only below about 10⁻³ mbar (common practice).', [
-      'A contaminated ion gauge reads wrong: degas, clean or replace it by the procedure.',
+    {
+      id: 'VF8q',
+      kind: 'question',
+      title: 'Gauges disagree: does a cross-check explain it?',
+      text: 'Both gauge types depend on the gas (Jousten 2016). Switch hot-cathode gauges on only below about 10⁻³ mbar (common practice). Cross-check with a second gauge, or with the MS’s own partial pressures, with the gas stated.',
+      options: [opt('gas', 'Yes: the gas (or its sensitivity factor) explains it', 'VF8-gas'), opt('gauge', 'No: one gauge is wrong', 'VF8-G')],
+    },
+    leaf('VF8-gas', 'Gas-dependent reading', 'The gauges agree once the gas is allowed for.', ['Record both readings with the gas and the sensitivity factor used.'], 'both gauges at the same time, with the gas stated'),
+    gate('VF8-G', 'covers-off', BEHIND_COVERS, ['lockout', 'vacuum', 'hot-surface'], 'VF8', 'VF-stop', 'Gate: ion gauge service', 'The next step cleans or replaces the ion gauge: gauge and system switched off and locked out, gauge cool, vented.'),
+    leaf('VF8', 'Gauges disagree', 'A contaminated ion gauge reads wrong.', [
+      'Degas it by the procedure, or with the system vented and locked out clean or replace it.',
       'Cross-check with a second gauge, or with the MS’s own partial pressures.',
-    ], 'both gauges at the same time, with the gas stated', { hazards: ['hot-surface'], cards: ['hot-surface'] }),
+    ], 'both gauges at the same time, with the gas stated', { access: 'covers-off', hazards: ['venting', 'hot-surface'], cards: ['lockout', 'vacuum', 'hot-surface'] }),
     leaf('VF-stop', 'Stop and escalate', STOP_TEXT, ['Leave the vacuum system closed; pass this walk on.'], 'nothing further here; record every gauge reading for whoever takes over', {
       escalate: true,
       cards: ['general'],

@@ -98,7 +98,7 @@ describe('expectations registry', () => {
     s = answer(s, ns, { kind: 'measure', value: 50, inputs: { setPoint: 50 } });
     s = answer(s, ns, { kind: 'option', optionId: 'plausible' });
     s = answer(s, ns, { kind: 'option', optionId: 'output' });
-    s = answer(s, ns, { kind: 'gate', role: 'field-engineer', confirmed: ['lockout', 'ppe', 'procedure'] });
+    s = answer(s, ns, { kind: 'gate', role: 'field-engineer', confirmed: ['live-work', 'meter-rating', 'ppe', 'procedure'] });
     const ok = answer(s, ns, { kind: 'measure', value: 99, inputs: { mz: 69 } });
     close(ok.readings.at(-1)!.expected!, 100.91, 5e-4, 'expected in the reading');
     expect(ok.readings.at(-1)).toMatchObject({ verdict: 'pass', judgedBy: 'expected' });

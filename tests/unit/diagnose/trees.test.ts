@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { cardProblems, DEFERRAL, SAFETY_CARDS, treeProblems, trees, TREE_IDS } from '../../../src/diagnose';
 import type { DiagnoseNode, Tree } from '../../../src/diagnose';
+import { handsOnWord } from '../../../src/diagnose/check';
+import { GATE_ASKS, GATE_MUST_NOT_ASK } from '../../../src/diagnose/safety';
 
 const closing = { kind: 're-measure-and-record' as const, what: 'the value' };
 
@@ -13,7 +15,7 @@ function sound(): Tree {
     entry: 'A',
     nodes: [
       { id: 'A', kind: 'question', title: 'A', text: 'a?', options: [{ id: 'y', label: 'yes', next: 'G' }, { id: 'n', label: 'no', next: 'L1' }] },
-      { id: 'G', kind: 'gate', title: 'G', text: 'gate', roles: ['field-engineer'], asks: ['role', 'lockout', 'ppe', 'procedure'], next: 'M', refuse: 'L1', cards: ['lockout'] },
+      { id: 'G', kind: 'gate', title: 'G', text: 'gate', guards: 'energised', roles: ['field-engineer'], asks: ['role', 'live-work', 'meter-rating', 'ppe', 'procedure'], next: 'M', refuse: 'L1', cards: ['rf'] },
       {
         id: 'M',
         kind: 'measure',
@@ -70,7 +72,7 @@ describe('safety cards', () => {
     for (const c of Object.values(SAFETY_CARDS)) expect(c.deferral).toBe(DEFERRAL);
     expect(DEFERRAL).toMatch(/maker's procedures.*site's safety rules and permits.*local codes.*licensed/);
   });
-  it('the cards name the standards of domain notes §4', () => {
+  it('the cards name the usual standards for each hazard', () => {
     expect(SAFETY_CARDS.lockout.sources.join(' ')).toMatch(/1910\.147/);
     expect(SAFETY_CARDS['high-voltage'].sources.join(' ')).toMatch(/61010-1/);
     expect(SAFETY_CARDS.rf.sources.join(' ')).toMatch(/C95\.1/);
@@ -78,6 +80,70 @@ describe('safety cards', () => {
     expect(SAFETY_CARDS.turbo.sources.join(' ')).toMatch(/ISO 27892/);
     expect(SAFETY_CARDS['hot-surface'].sources.join(' ')).toMatch(/ISO 13732-1/);
     expect(SAFETY_CARDS.gas.sources.join(' ')).toMatch(/CGA P-1/);
+  });
+});
+
+describe('standards and thresholds on the cards', () => {
+  const STANDARD = /\b(IEC|ISO|EN|NFPA|ANSI|CGA|OSHA|IEEE|UN GHS)\b/;
+  const EDITION = /:\d{4}|-\d{4}|\b\d{4} edition|\(\d{4}\)|as in force \d{4}|Rev\. \d+|\b(19|20)\d{2}\b/;
+  it('every source that names a standard names its edition', () => {
+    for (const c of Object.values(SAFETY_CARDS)) for (const src of c.sources) if (STANDARD.test(src)) expect(src, `${c.id}: ${src}`).toMatch(EDITION);
+  });
+  it('every threshold stated on a card says where the number comes from', () => {
+    const THRESHOLD = /\d\s*(V|kV|%|N|°C|h|kHz|MHz)\b/;
+    const ORIGIN = /common practice|from memory|computed|IEC|ISO|OSHA|Dawson/;
+    let seen = 0;
+    for (const c of Object.values(SAFETY_CARDS)) for (const line of [...c.hazards, ...c.precautions]) if (THRESHOLD.test(line)) {
+      seen++;
+      expect(line, c.id).toMatch(ORIGIN);
+    }
+    expect(seen).toBeGreaterThan(5);
+  });
+  it('the tracer card covers live parts, confined spaces and flammable tracers', () => {
+    const text = [...SAFETY_CARDS.tracer.hazards, ...SAFETY_CARDS.tracer.precautions].join(' ');
+    expect(text).toMatch(/HV feedthroughs/);
+    expect(text).toMatch(/confined/);
+    expect(text).toMatch(/Never use a flammable tracer/);
+  });
+});
+
+describe('hands-on steps and their gates in the shipped trees', () => {
+  it('every hands-on step declares covers-off, energised or covers-on with a card (and there are many)', () => {
+    let handsOn = 0;
+    for (const t of trees) for (const n of t.nodes) {
+      if (!handsOnWord(n)) continue;
+      handsOn++;
+      expect(['covers-on', 'covers-off', 'energised'], `${t.id}/${n.id}`).toContain(n.access);
+      expect((n.cards ?? []).length, `${t.id}/${n.id}`).toBeGreaterThan(0);
+    }
+    expect(handsOn).toBeGreaterThan(40);
+  });
+  it('the steps named in the safety review are declared', () => {
+    const access = (tree: string, id: string) => trees.find((t) => t.id === tree)!.nodes.find((n) => n.id === id)!.access;
+    expect(access('peak-shape', 'PS5-fringe')).toBe('covers-off'); // entrance lens cleaning
+    expect(access('no-signal', 'NS3A-blocked')).toBe('covers-off'); // sampling orifice
+    expect(access('no-signal', 'NS4-hv')).toBe('covers-off'); // HV supply replacement
+    expect(access('no-signal', 'NS4-em')).toBe('covers-off'); // multiplier replacement
+    expect(access('no-signal', 'NS4-tp')).toBe('energised'); // kilovolt test point
+    expect(access('noise', 'NU3-em')).toBe('covers-off'); // HV feedthroughs
+    expect(access('vacuum', 'VF4-ctl')).toBe('covers-off'); // controller cables
+    expect(access('vacuum', 'VF3-exhaust')).toBe('covers-off'); // pump parts
+    expect(access('noise', 'NU4s')).toBe('energised'); // oscilloscope on a running instrument
+    expect(access('leak', 'HB6')).toBe('covers-on'); // tracer spray, with its card
+    expect(trees.find((t) => t.id === 'leak')!.nodes.find((n) => n.id === 'HB6')!.cards).toContain('tracer');
+  });
+  it('every gate asks what its work needs and nothing that does not fit it', () => {
+    let live = 0;
+    for (const t of trees) for (const n of t.nodes) if (n.kind === 'gate') {
+      for (const a of GATE_ASKS[n.guards]) expect(n.asks, `${t.id}/${n.id}`).toContain(a);
+      for (const a of GATE_MUST_NOT_ASK[n.guards]) expect(n.asks, `${t.id}/${n.id}`).not.toContain(a);
+      if (n.guards === 'energised') {
+        live++;
+        expect(n.asks).toEqual(expect.arrayContaining(['live-work', 'meter-rating']));
+        expect(n.asks).not.toContain('lockout');
+      }
+    }
+    expect(live).toBeGreaterThanOrEqual(4);
   });
 });
 
@@ -137,10 +203,58 @@ describe('treeProblems catches each kind of defect', () => {
     const p = broken((_t, n) => { (n('A') as Extract<DiagnoseNode, { kind: 'question' }>).options[0].next = 'M'; n('G').access = undefined; });
     expect(p.join(' ')).toMatch(/is reached from "A" without passing an acknowledgement gate/);
   });
-  it('a gate that does not ask for lockout/tagout', () => {
-    expect(broken((_t, n) => { (n('G') as Extract<DiagnoseNode, { kind: 'gate' }>).asks = ['role', 'ppe', 'procedure']; })).toEqual([
-      'Gate "G" in front of "M" does not ask for lockout.',
+  it('a live-work gate that asks for lockout instead of live-work authorisation and rated meters', () => {
+    expect(broken((_t, n) => { (n('G') as Extract<DiagnoseNode, { kind: 'gate' }>).asks = ['role', 'lockout', 'ppe', 'procedure']; })).toEqual([
+      'Gate "G" guards energised work but does not ask for live-work.',
+      'Gate "G" guards energised work but does not ask for meter-rating.',
+      'Gate "G" guards energised work but asks for lockout, which does not fit that work.',
     ]);
+  });
+  it('a de-energised gate that does not ask for lockout or the discharge wait', () => {
+    const p = broken((_t, n) => {
+      const m = n('M');
+      m.access = 'covers-off';
+      m.hazards = ['stored-charge'];
+      m.cards = ['lockout', 'stored-charge'];
+      const g = n('G') as Extract<DiagnoseNode, { kind: 'gate' }>;
+      g.guards = 'covers-off';
+      g.cards = ['lockout', 'stored-charge'];
+      g.asks = ['role', 'ppe', 'procedure'];
+    });
+    expect(p).toEqual(['Gate "G" guards covers-off work but does not ask for lockout.', 'Gate "G" guards covers-off work but does not ask for discharge.']);
+  });
+  it('a gate whose kind does not match the step behind it', () => {
+    const p = broken((_t, n) => {
+      const g = n('G') as Extract<DiagnoseNode, { kind: 'gate' }>;
+      g.guards = 'covers-off';
+      g.asks = ['role', 'lockout', 'discharge', 'ppe', 'procedure'];
+    });
+    expect(p).toEqual(['Gate "G" guards covers-off work but the step behind it ("M") is declared energised.']);
+  });
+  it('a gate that does not show the card of the step behind it', () => {
+    expect(broken((_t, n) => { n('G').cards = []; })).toEqual(['Gate "G" does not show the "rf" card of the step behind it ("M").']);
+  });
+  it('a hands-on step left undeclared (a tree built to break the rule)', () => {
+    const p = broken((_t, n) => {
+      const leafNode = n('L2') as Extract<DiagnoseNode, { kind: 'action' }>;
+      leafNode.steps = ['Replace the HV supply module by the procedure.'];
+    });
+    expect(p).toEqual(['Node "L2" puts hands on the instrument ("Replace") but does not declare covers-off, energised, or covers-on access.']);
+    // Declared read-back does not excuse it either; each family of words is caught.
+    for (const text of ['Clean the entrance lens.', 'Spray a short burst of helium at the joint.', 'Unplug the controller cables.', 'Put an oscilloscope on the monitor output.', 'Check the HV feedthroughs.', 'Probe the kilovolt test point.', 'Change the oil.']) {
+      const q = broken((_t, n) => {
+        n('L2').access = 'read-back';
+        n('L2').text = text;
+      });
+      expect(q.join(' '), text).toMatch(/puts hands on the instrument/);
+    }
+  });
+  it('a covers-on hands-on step without its hazard card', () => {
+    const p = broken((_t, n) => {
+      n('L2').text = 'Change the cylinder.';
+      n('L2').access = 'covers-on';
+    });
+    expect(p).toEqual(['Node "L2" is covers-on hands-on work but names no hazard and card.']);
   });
   it('a gate whose refusal is not an action', () => {
     expect(broken((_t, n) => { (n('G') as Extract<DiagnoseNode, { kind: 'gate' }>).refuse = 'A'; }).join(' ')).toMatch(/must send a refusal to an action leaf/);

@@ -140,9 +140,11 @@ describe('walker', () => {
     s = answer(s, noSignal, { kind: 'measure', value: 0, inputs: { setPoint: 50 } }, { at: T(10) });
     const noLoto = answer(s, noSignal, { kind: 'gate', role: 'analyst', confirmed: ['ppe', 'procedure'] }, { at: T(11) });
     expect(noLoto.nodeId).toBe('NS-stop');
-    const wrongRole = answer(s, noSignal, { kind: 'gate', role: 'vacuum-engineer', confirmed: ['ppe', 'procedure', 'lockout'] }, { at: T(11) });
+    const wrongRole = answer(s, noSignal, { kind: 'gate', role: 'vacuum-engineer', confirmed: ['ppe', 'procedure', 'lockout', 'discharge'] }, { at: T(11) });
     expect(wrongRole.nodeId).toBe('NS-stop');
-    const ok = answer(s, noSignal, { kind: 'gate', role: 'analyst', confirmed: ['ppe', 'procedure', 'lockout'] }, { at: T(11) });
+    const noDischarge = answer(s, noSignal, { kind: 'gate', role: 'analyst', confirmed: ['ppe', 'procedure', 'lockout'] }, { at: T(11) });
+    expect(noDischarge.nodeId).toBe('NS-stop');
+    const ok = answer(s, noSignal, { kind: 'gate', role: 'analyst', confirmed: ['ppe', 'procedure', 'lockout', 'discharge'] }, { at: T(11) });
     expect(ok.nodeId).toBe('NS3E2');
     // Open filament (fixed range, from memory): fail high → burnt-out leaf.
     const open = answer(ok, noSignal, { kind: 'measure', value: 1e7 }, { at: T(12) });
@@ -161,7 +163,10 @@ describe('walker', () => {
     s = answer(s, noSignal, { kind: 'measure', value: 50, inputs: { setPoint: 50 } });
     s = answer(s, noSignal, { kind: 'option', optionId: 'plausible' });
     s = answer(s, noSignal, { kind: 'option', optionId: 'output' });
-    s = answer(s, noSignal, { kind: 'gate', role: 'field-engineer', confirmed: ['lockout', 'ppe', 'procedure'] });
+    // A live-work gate: a lockout cannot stand in for live-work authorisation and a rated meter.
+    expect(answer(s, noSignal, { kind: 'gate', role: 'field-engineer', confirmed: ['lockout', 'discharge', 'ppe', 'procedure'] }).nodeId).toBe('NS-stop');
+    expect(answer(s, noSignal, { kind: 'gate', role: 'field-engineer', confirmed: ['live-work', 'ppe', 'procedure'] }).nodeId).toBe('NS-stop');
+    s = answer(s, noSignal, { kind: 'gate', role: 'field-engineer', confirmed: ['live-work', 'meter-rating', 'ppe', 'procedure'] });
     expect(s.nodeId).toBe('NS5');
     const broken = { rfAtMass: () => { throw new RangeError('rfForMass is not in this build'); } };
     expect(() => answer(s, noSignal, { kind: 'measure', value: 100, inputs: { mz: 69 } }, { registry: broken })).toThrow(/Give your own verdict/);
@@ -222,12 +227,12 @@ describe('walker', () => {
     s = answer(s, leak, { kind: 'measure', value: 3.9 });
     s = answer(s, leak, { kind: 'measure', value: 1.6 });
     s = answer(s, leak, { kind: 'option', optionId: 'steady' });
-    s = answer(s, leak, { kind: 'gate', role: 'specialist', confirmed: ['lockout', 'ppe', 'procedure'] });
+    s = answer(s, leak, { kind: 'gate', role: 'specialist', confirmed: ['lockout', 'discharge', 'ppe', 'procedure'] });
     s = answer(s, leak, { kind: 'option', optionId: 'stays' });
     expect(s.nodeId).toBe('HB6');
     for (let i = 0; i < 20; i++) s = answer(s, leak, { kind: 'option', optionId: 'next-joint' });
     expect(() => answer(s, leak, { kind: 'option', optionId: 'next-joint' })).toThrow(/already been taken 20 times/);
-    expect(answer(s, leak, { kind: 'option', optionId: 'found' }).nodeId).toBe('HB6-found');
+    expect(answer(s, leak, { kind: 'option', optionId: 'found' }).nodeId).toBe('HB6-found-G');
   });
 
   it('the state survives a JSON round trip and the walk resumes from it', () => {
@@ -332,7 +337,7 @@ describe('going straight to one symptom', () => {
     for (const o of ['nothing', 'no-flow-ok', 'ei']) s = answer(s, noSignal, { kind: 'option', optionId: o });
     s = answer(s, noSignal, { kind: 'measure', value: 0, inputs: { setPoint: 50 } });
     expect(currentNode(s, noSignal).kind).toBe('gate');
-    expect(answer(s, noSignal, { kind: 'gate', role: 'field-engineer', confirmed: ['lockout', 'ppe', 'procedure'] }).nodeId).toBe('NS3E2');
+    expect(answer(s, noSignal, { kind: 'gate', role: 'field-engineer', confirmed: ['lockout', 'discharge', 'ppe', 'procedure'] }).nodeId).toBe('NS3E2');
   });
 
   it('refuses a tree that does not open with a gate, and a direct start into the entry itself', () => {

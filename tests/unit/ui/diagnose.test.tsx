@@ -181,4 +181,31 @@ describe('DiagnoseScreen', () => {
     expect(host.querySelector('[data-testid="leak-indication"]')?.textContent).toMatch(/Air leak/);
     expect(host.textContent).not.toMatch(/NaN/);
   });
+
+  it('the leak check panel shows the tracer-gas card before the spraying steps and the m/z 4 fields', async () => {
+    const { store } = fakeStore();
+    history.pushState(null, '', '/diagnose/leak-check');
+    const host = document.createElement('div');
+    document.body.appendChild(host);
+    const ctx: AppContextValue = {
+      store, storeProblem: null, instruments: [], instrument: null,
+      selectInstrument: () => undefined, reloadInstruments: async () => undefined, notify: vi.fn(),
+    };
+    render(<AppContext.Provider value={ctx}><DiagnoseScreen /></AppContext.Provider>, host);
+    await settle();
+    const caution = host.querySelector('[data-testid="tracer-caution"]');
+    const steps = host.querySelector('[data-testid="tracer-steps"]');
+    const heField = host.querySelector('#leak-he0');
+    expect(caution && steps && heField).toBeTruthy();
+    // Document order: card, then the spraying steps, then the tracer fields.
+    expect(caution!.compareDocumentPosition(steps!) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    expect(steps!.compareDocumentPosition(heField!) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    const card = caution!.textContent ?? '';
+    expect(card).toMatch(/Tracer gas spraying/);
+    expect(card).toMatch(/HV feedthroughs/);
+    expect(card).toMatch(/confined/);
+    expect(card).toMatch(/Never use a flammable tracer/);
+    expect(card).toMatch(/maker's procedures/);
+    expect(steps!.textContent).toMatch(/Spray one short burst/);
+  });
 });

@@ -41,7 +41,7 @@ describe('walk readings into the visit log', () => {
     s = answer(s, ns, { kind: 'measure', value: 48, unit: 'µA', inputs: { setPoint: 50 } });
     s = answer(s, ns, { kind: 'option', optionId: 'plausible' });
     s = answer(s, ns, { kind: 'option', optionId: 'output' });
-    s = answer(s, ns, { kind: 'gate', role: 'field-engineer', confirmed: ['lockout', 'ppe', 'procedure'] });
+    s = answer(s, ns, { kind: 'gate', role: 'field-engineer', confirmed: ['live-work', 'meter-rating', 'ppe', 'procedure'] });
     s = answer(s, ns, { kind: 'measure', value: 0.4, unit: 'kV', inputs: { mz: 69 } });
 
     const notes = s.readings.map((r) => visitNote(r, instrument));
@@ -74,7 +74,7 @@ describe('walk readings into the visit log', () => {
     let s = start(ns, heron);
     for (const o of ['nothing', 'no-flow-ok', 'ei']) s = answer(s, ns, { kind: 'option', optionId: o });
     s = answer(s, ns, { kind: 'measure', value: 0, inputs: { setPoint: 50 } });
-    s = answer(s, ns, { kind: 'gate', role: 'field-engineer', confirmed: ['lockout', 'ppe', 'procedure'] });
+    s = answer(s, ns, { kind: 'gate', role: 'field-engineer', confirmed: ['lockout', 'discharge', 'ppe', 'procedure'] });
     s = answer(s, ns, { kind: 'measure', value: 1e7 });
     expect(s.nodeId).toBe('NS3E-open');
     s = record(s, ns, { kind: 'measure', value: 0.4, unit: 'Ω', quantity: 'Filament resistance (new filament)' });

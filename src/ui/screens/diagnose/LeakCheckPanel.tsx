@@ -11,6 +11,7 @@ import {
 } from '../../../diagnose';
 import { formatNumber } from '../../format';
 import { parseNumber } from './parse';
+import { SafetyCards } from './SafetyCards';
 
 export type LeakTyped = Record<string, string>;
 
@@ -23,15 +24,15 @@ const INDICATION_WORDS: Record<LeakIndicationResult['indication'], string> = {
   'helium-tracer': 'Helium tracer seen: this joint leaks',
 };
 
-const PEAKS: Array<{ key: string; label: string; required?: boolean }> = [
+const PEAKS: Array<{ key: string; label: string; required?: boolean; tracer?: boolean }> = [
   { key: 'm18', label: 'm/z 18' },
   { key: 'm17', label: 'm/z 17' },
   { key: 'm28', label: 'm/z 28', required: true },
   { key: 'm32', label: 'm/z 32', required: true },
   { key: 'm40', label: 'm/z 40' },
   { key: 'm44', label: 'm/z 44' },
-  { key: 'm4', label: 'm/z 4 (helium tracer, now)' },
-  { key: 'he0', label: 'm/z 4 before spraying' },
+  { key: 'he0', label: 'm/z 4 before spraying', tracer: true },
+  { key: 'm4', label: 'm/z 4 after the burst (helium tracer)', tracer: true },
 ];
 
 function parseSeries(text: string, timeUnit: number, what: string): { ok: true; samples: PressureSample[] } | { ok: false; message: string } {
@@ -83,6 +84,14 @@ export function LeakCheckPanel(props: { typed: LeakTyped; onTyped: (patch: LeakT
       )
     : null;
 
+  const peakField = (p: (typeof PEAKS)[number]) => (
+    <div key={p.key} class={peakErrors[p.key] ? 'field has-error' : 'field'}>
+      <label for={`leak-${p.key}`}>{p.label}{p.required ? '' : <span class="unit"> (optional)</span>}</label>
+      <input id={`leak-${p.key}`} type="text" inputMode="decimal" autoComplete="off" value={typed[p.key] ?? ''} onInput={set(p.key)} />
+      {peakErrors[p.key] && <p class="field-error" role="alert">{peakErrors[p.key]}</p>}
+    </div>
+  );
+
   // Rate of rise.
   const volume = (typed.volume ?? '').trim() ? parseNumber(typed.volume, 'Volume') : null;
   const riseSeries = (typed.rise ?? '').trim() ? parseSeries(typed.rise, 1, 'Rate of rise') : null;
@@ -105,15 +114,18 @@ export function LeakCheckPanel(props: { typed: LeakTyped; onTyped: (patch: LeakT
       <div class="card">
         <h3 class="card-title">Peak ratios</h3>
         <p class="hint">Any one unit for all heights (counts/s, A, arbitrary). Dry air is N2 {DRY_AIR_PERCENT.nitrogen} %, O2 {DRY_AIR_PERCENT.oxygen} %, Ar {DRY_AIR_PERCENT.argon} % ({DRY_AIR_SOURCE}).</p>
-        <div class="peak-grid">
-          {PEAKS.map((p) => (
-            <div key={p.key} class={peakErrors[p.key] ? 'field has-error' : 'field'}>
-              <label for={`leak-${p.key}`}>{p.label}{p.required ? '' : <span class="unit"> (optional)</span>}</label>
-              <input id={`leak-${p.key}`} type="text" inputMode="decimal" autoComplete="off" value={typed[p.key] ?? ''} onInput={set(p.key)} />
-              {peakErrors[p.key] && <p class="field-error" role="alert">{peakErrors[p.key]}</p>}
-            </div>
-          ))}
+        <div class="peak-grid">{PEAKS.filter((p) => !p.tracer).map(peakField)}</div>
+        <h4 class="card-title" id="leak-tracer-title">Tracer at one joint (optional)</h4>
+        <div data-testid="tracer-caution">
+          <SafetyCards ids={['tracer', 'high-voltage']} open />
         </div>
+        <ol class="hint" data-testid="tracer-steps" aria-labelledby="leak-tracer-title">
+          <li>Read the card above first. Helium only where helium is not the carrier; argon (watch m/z 40) otherwise. Never a flammable tracer.</li>
+          <li>Note m/z 4 before spraying.</li>
+          <li>Spray one short burst at one joint reachable with covers on, away from live parts and HV feedthroughs; wait several seconds.</li>
+          <li>Note m/z 4 again, and let the signal clear before the next joint.</li>
+        </ol>
+        <div class="peak-grid">{PEAKS.filter((p) => p.tracer).map(peakField)}</div>
         {!canRatio && Object.keys(peakErrors).length === 0 && <p class="hint">Enter at least m/z 28 and 32.</p>}
         {ratio && !ratio.ok && <p class="field-error" role="alert">{ratio.message}</p>}
         {ratio?.ok && (

@@ -49,6 +49,9 @@ const ROLE_LABEL: Record<Role, string> = {
 
 const ASK_LABEL: Record<Exclude<GateItem, 'role'>, string> = {
   lockout: 'Lockout/tagout is applied (or planned) for every energy source this step touches',
+  discharge: 'Stored energy is released: the discharge time has passed, absence of voltage is proved with a rated tester, hot parts have cooled',
+  'live-work': 'Live work is authorised for this step (site authorisation or permit), with someone else present',
+  'meter-rating': 'The meter, probe or pickup is rated for the voltage present (voltage rating and measurement category, e.g. CAT II 1000 V; a divider probe for kilovolts) and was checked before use',
   ppe: 'The PPE this step needs is on',
   procedure: "The maker's procedure for this model is at hand",
   permit: "The site's permit for this work is in place",
