@@ -2,7 +2,7 @@
 // and 46.7 V peak, d.c. 70 V; wet locations 16 V rms, 22.6 V peak, 35 V d.c. (from memory; earlier editions
 // used 30 V rms / 42.4 V peak / 60 V d.c.). The standard also needs the touch current or stored charge to
 // exceed its limits; in the field every supply above these voltages is treated as hazardous unless shown
-// otherwise (domain.md S-HV). A rod carries U + V cos Ωt to ground: peak |U| + V, rms √(U² + V²/2).
+// otherwise (common practice). A rod carries U + V cos Ωt to ground: peak |U| + V, rms √(U² + V²/2).
 // Between the two rod pairs the voltage is twice that.
 import { checkChoice, checkNumber } from './validate';
 

@@ -1,5 +1,5 @@
 // Hot-cathode (Bayard–Alpert) ion gauge gas correction: gauges read N2-equivalent, so
-// p_true = p_indicated / S_rel (domain.md C11). Relative sensitivities from the CRC Handbook of Chemistry
+// p_true = p_indicated / S_rel. Relative sensitivities from the CRC Handbook of Chemistry
 // and Physics table "Relative sensitivity of Bayard–Alpert ionization gauges to various gases" (P. Redhead);
 // individual gauges differ by up to about ±15 %.
 import { checkChoice, checkNumber } from './validate';

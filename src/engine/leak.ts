@@ -128,7 +128,7 @@ function band(name: string, measured: number | null, b: { low: number; high: num
 }
 
 /**
- * Reads a residual-gas spectrum for a leak signature (domain notes C14, tree HB).
+ * Reads a residual-gas spectrum for a leak signature (dry air N2 78.084 %, O2 20.946 %, Ar 0.934 %: CRC Handbook of Chemistry and Physics, composition of dry air; U.S. Standard Atmosphere 1976).
  * @param peaks heights at m/z 18, 28, 32, 40, 44 (17 and 4 optional), in one consistent unit
  * @param heliumBackground optional m/z 4 height before spraying helium at a joint (tracer test)
  */
@@ -335,12 +335,12 @@ export function fitOutgassing(samples: PressureSample[]): OutgassingFit {
 // ---------------------------------------------------------------------------
 // Gas load and expected pressure.
 
-/** Standard atmosphere, Pa (ISO 2533). The usual reference pressure of "standard" flows. */
+/** Standard atmosphere, Pa (ISO 2533:1975). The usual reference pressure of "standard" flows. */
 export const STANDARD_PRESSURE = 101_325;
 
 /**
  * pV throughput of a flow given at reference conditions: Q = p_ref · V̇_ref.
- * 1 mL/min at 101.325 kPa → 1.68875×10⁻³ Pa·m³/s = 0.0168875 mbar·L/s (domain notes F9, common practice).
+ * 1 mL/min at 101.325 kPa → 1.68875×10⁻³ Pa·m³/s = 0.0168875 mbar·L/s (common practice reference conditions; computed from SI units).
  * @param standardFlow volume flow at the reference conditions, m³/s
  * @param referencePressure reference pressure of that flow, Pa (default 101 325 Pa)
  */

@@ -1,5 +1,5 @@
 // Apparent mass shift from drifts in frequency, field radius and RF amplitude, from m ∝ V/(r0² f²) at fixed q:
-// δm/m ≈ 2·δf/f + 2·δr0/r0 − δV/V (first order; domain.md C6, derived from Dawson 1976). Positive: ions appear
+// δm/m ≈ 2·δf/f + 2·δr0/r0 − δV/V (first order, derived from q = 4eV/(m r0²Ω²); Dawson 1976). Positive: ions appear
 // at a higher displayed m/z.
 import { checkNumber } from './validate';
 

@@ -1,4 +1,4 @@
-// The mass filter's link between volts and Mathieu parameters (physics.md convention: rod pair x at
+// The mass filter's link between volts and Mathieu parameters (convention of Dawson 1976: rod pair x at
 // +(U + V cos Ωt), pair y at −(U + V cos Ωt), per rod to ground, V zero-to-peak):
 //   a = 8eU/(m r0² Ω²),  q = 4eV/(m r0² Ω²),  Ω = 2πf,  m = (m/z)·u per elementary charge.
 import { ATOMIC_MASS_CONSTANT, ELEMENTARY_CHARGE } from './constants';

@@ -1,4 +1,4 @@
-// Operating point and pass band of the mass filter (physics.md convention). β_x = β(a, q), β_y = β(−a, −q).
+// Operating point and pass band of the mass filter (convention of Dawson 1976: rod pair x at +(U + V cos Ωt)). β_x = β(a, q), β_y = β(−a, −q).
 // Along a fixed U/V line, ions lighter than the band have larger q and leave through the x edge b1(q)
 // (right of the apex): the x pair acts as a high-pass filter and cuts the LOW-mass side. Heavier ions
 // have smaller q and cross the y edge −a0(q) (left of the apex): the y pair cuts the HIGH-mass side.

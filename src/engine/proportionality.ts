@@ -1,4 +1,4 @@
-// Proportionality check that needs no geometry (domain.md C5): at fixed f, r0 and scan line through the
+// Proportionality check that needs no geometry: at fixed f, r0 and scan line through the
 // origin, V ∝ m/z, so V(m2) = V(m1)·m2/m1 (P. H. Dawson (ed.), Quadrupole Mass Spectrometry and its
 // Applications, 1976 — from memory). From two or three read-backs at parked m/z values: the instrument
 // constant k = V/(m/z), each reading's deviation from k·m/z, and (with three or more) a straight-line fit
@@ -34,7 +34,7 @@ export interface ProportionalityResult {
   withinTolerance: boolean;
 }
 
-/** Common-practice tolerance on proportionality (domain.md C5). */
+/** Tolerance on proportionality: about ±1 % (common practice). */
 export const PROPORTIONALITY_TOLERANCE = 0.01;
 
 export function proportionalityCheck(readings: readonly ProportionalityReading[]): ProportionalityResult {

@@ -1,5 +1,5 @@
 // Resolution limits of the mass filter.
-//   • RF cycles in the rods: n = f·L·√(m/(2 z e V_z)) for axial energy z·e·V_z (physics.md; domain.md C8).
+//   • RF cycles in the rods: n = f·L·√(m/(2 z e V_z)) for axial energy z·e·V_z (n = f·L/v with v = √(2zeV_z/m); Dawson 1976).
 //   • Cycle limit m/Δm ≲ n²/K: K = 12.25 from W. Paul, H. P. Reinhard, U. von Zahn, Z. Phys. 152 (1958) 143,
 //     as quoted by P. H. Dawson (ed.), Quadrupole Mass Spectrometry and its Applications, 1976; K ≈ 20 in
 //     later reviews. Both from memory; the K used is always returned with the result.

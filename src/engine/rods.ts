@@ -1,5 +1,5 @@
 // Round rods approximating the hyperbolic field: rod radius r as a multiple of the field radius r0
-// (D. J. Douglas, N. V. Konenkov, Rapid Commun. Mass Spectrom. 16 (2002); domain.md §6 DouglasKonenkov2002).
+// (D. J. Douglas, N. V. Konenkov, Rapid Commun. Mass Spectrom. 16 (2002)).
 import { checkChoice, checkNumber } from './validate';
 
 export const ROD_RATIOS = {

@@ -1,5 +1,5 @@
 // Scan law: which U and V pass a given m/z, and the inverse. V = q·m·r0²Ω²/(4e), U = a·m·r0²Ω²/(8e)
-// (physics.md convention; per rod to ground, V zero-to-peak). The rounded working form
+// (rod pair x at +(U + V cos Ωt), per rod to ground, V zero-to-peak, as in Dawson 1976). The rounded working form
 // V = 7.22·(m/z)·f[MHz]²·r0[cm]² at q = 0.706 is widely quoted (Dawson 1976; Miller & Denton 1986 — both
 // from memory); the engine uses the exact CODATA form.
 // Scan lines U = λ·V − δ: δ = 0 holds the resolution m/Δm constant (the band scales with V); λ at the

@@ -1,4 +1,4 @@
-// Secular (macro-motion) frequency of an ion: ω = β·Ω/2, i.e. f_sec = β·f/2 (physics.md; Floquet theory,
+// Secular (macro-motion) frequency of an ion: ω = β·Ω/2, i.e. f_sec = β·f/2 (Floquet theory,
 // DLMF 28.2(iii)), for each direction of the mass filter: β_x = β(a, q), β_y = β(−a, −q).
 import { exponentUnchecked } from './characteristicExponent';
 import { mathieuParameters } from './mathieuScale';

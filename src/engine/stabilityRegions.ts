@@ -1,4 +1,4 @@
-// Stability regions of the mass filter in the (q, a) plane, convention of physics.md: x stable when
+// Stability regions of the mass filter in the (q, a) plane (rod pair x at +(U + V cos Ωt), Dawson 1976): x stable when
 // a0(q) < a < b1(q), y stable when a0(q) < −a < b1(q) (|q| in both; DLMF 28.2.21). For a ≥ 0 the first
 // region's upper edge is min(−a0(q), b1(q)): the y edge −a0 rises from the origin to the apex, the x edge
 // b1 falls from the apex to a = 0 at q ≈ 0.908. All curves here are computed from characteristic values.

@@ -33,7 +33,7 @@ export const GAS_PRESETS = {
   N2: { diameter: 3.75e-10, source: 'viscosity collision diameter, vacuum handbook table (from memory)' },
   air: {
     diameter: 3.7e-10,
-    source: 'common practice: reproduces λ[cm] ≈ 5×10⁻³/p[Torr] at room temperature (physics.md; domain.md C9)',
+    source: 'common practice: reproduces λ[cm] ≈ 5×10⁻³/p[Torr] at room temperature for air (Jousten, Handbook of Vacuum Technology, 2nd ed., 2016; O’Hanlon, A User’s Guide to Vacuum Technology, 3rd ed., 2003)',
   },
   He: { diameter: 2.18e-10, source: 'viscosity collision diameter, vacuum handbook table (from memory)' },
   Ar: { diameter: 3.64e-10, source: 'viscosity collision diameter, vacuum handbook table (from memory)' },
@@ -52,7 +52,7 @@ export function meanFreePath(p: { pressure: number; temperature: number; diamete
 
 /**
  * Mean free path (m) of an ion of collision cross-section σ (m²) moving fast through still gas:
- * λ = k_B·T/(p·σ) — no √2, the ion outruns the gas molecules (domain.md C9; O'Hanlon 2003).
+ * λ = k_B·T/(p·σ) — no √2, the ion outruns the gas molecules (O'Hanlon, A User's Guide to Vacuum Technology, 3rd ed., 2003, kinetic theory of gases).
  */
 export function ionMeanFreePath(p: { pressure: number; temperature: number; crossSection: number }): number {
   const pressure = checkNumber('pressure', p?.pressure, { min: 0, minExclusive: true, max: 1e7, unit: 'Pa' });

@@ -1,4 +1,4 @@
-// Conversions between the ways an RF or DC amplitude is quoted (domain.md §0.2; physics.md). The engine keeps
+// Conversions between the ways an RF or DC amplitude is quoted (Dawson 1976; March & Todd, Quadrupole Ion Trap Mass Spectrometry, 2nd ed., 2005). The engine keeps
 // V zero-to-peak on one rod to ground; between the two pairs the voltage doubles; peak-to-peak is twice
 // zero-to-peak; rms of a sine is zero-to-peak/√2.
 import { checkChoice, checkNumber } from './validate';

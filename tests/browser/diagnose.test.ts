@@ -101,7 +101,7 @@ describe('diagnose offline', () => {
     await atNode(page, 'NS1');
     await pick(page, 'Nothing anywhere');
     await atNode(page, 'NS2');
-    // Expected ion-gauge reading from 1 mL/min helium at 200 L/s: 8.44e-5 mbar true × 0.18 ≈ 1.5e-5 mbar (domain notes C10/C11).
+    // Expected ion-gauge reading from 1 mL/min helium at 200 L/s: 8.44e-5 mbar true × 0.18 ≈ 1.5e-5 mbar (p = Q/S_eff, O'Hanlon, A User's Guide to Vacuum Technology, 3rd ed., 2003; He 0.18 from the CRC Handbook Bayard–Alpert table).
     await expect.poll(() => page.locator('[data-testid="expected"]').textContent()).toMatch(/Expected: 1\.520?×10⁻⁵ mbar/);
     await page.locator('#walk-value').fill('1.4e-5');
     await expect.poll(() => page.locator('[data-testid="live-verdict"]').textContent()).toMatch(/✓ pass/);
@@ -134,11 +134,11 @@ describe('diagnose offline', () => {
     await atNode(page, 'NS5-G');
     await confirmGate(page);
     await atNode(page, 'NS5');
-    // Kestrel: r0 4.5 mm, 1.0 MHz, zero-to-peak per rod: m/z 69 needs 100.91 V (domain notes F3, Dawson 1976).
+    // Kestrel: r0 4.5 mm, 1.0 MHz, zero-to-peak per rod: m/z 69 needs 100.91 V (V0p = 0.072218·M·r0²·f² at the q = 0.706 apex, Dawson 1976, with CODATA 2018 constants; computed).
     await expect.poll(() => page.locator('[data-testid="expected"]').textContent()).toMatch(/Expected: 100\.9 V/);
     await measure(page, '100.9', { mz: '69' });
     await atNode(page, 'NS5b');
-    // Proportional check (C5, Dawson 1976): 100.9 V × 219/69 = 320.248 V.
+    // Proportional check (V ∝ m/z, Dawson 1976): 100.9 V × 219/69 = 320.248 V.
     await page.locator('#in-rfFirst').fill('100.9');
     await expect.poll(() => page.locator('[data-testid="expected"]').textContent()).toMatch(/Expected: 320\.2 V/);
     await measure(page, '320', { mz: '219' });
@@ -197,7 +197,7 @@ describe('diagnose offline', () => {
     await expect.poll(() => page.locator('[data-testid="leak-indication"]').textContent()).toMatch(/Air leak/);
     await page.locator('#leak-volume').fill('10');
     await page.locator('#leak-rise').fill('0 1e-3\n25 1.25e-3\n50 1.5e-3\n75 1.75e-3\n100 2e-3');
-    // C12: 10 L × 1e-3 mbar / 100 s = 1e-4 mbar·L/s (O'Hanlon 2003).
+    // Rate of rise Q = V·Δp/Δt: 10 L × 1e-3 mbar / 100 s = 1e-4 mbar·L/s (O'Hanlon 2003).
     await expect.poll(() => page.locator('[data-testid="rate-of-rise"]').textContent()).toMatch(/Q = 1(\.00)?×10⁻⁴ mbar·L\/s[\s\S]*linear/);
     await page.reload();
     await expect.poll(() => page.locator('#leak-m32').inputValue()).toBe('258');

@@ -157,7 +157,7 @@ export const leakTree: Tree = {
     leaf('HB6-found', 'Leak found', 'Clean or replace the seal. Use no grease unless specified; handle lint-free.', [
       'Re-test the joint after pump-down: the tracer response should be gone.',
     ], 'the tracer response at the joint, and 28:32 and 18/28 against the baseline, before and after', { access: 'covers-off', hazards: ['venting', 'hot-surface'], cards: ['vacuum', 'lockout', 'hot-surface'] }),
-    leaf('HB6-none', 'Leak not found with the tracer', 'Use a rate-of-rise test on isolable volumes (Leak check panel), or a helium leak detector (ISO 20485), then escalate.', [
+    leaf('HB6-none', 'Leak not found with the tracer', 'Use a rate-of-rise test on isolable volumes (Leak check panel), or a helium leak detector (ISO 20485:2017, from memory), then escalate.', [
       'A rise that stays linear is a leak; one that levels off is outgassing or a virtual leak.',
     ], 'the rate of rise and the 28:32 ratio', { escalate: true, hazards: ['venting'], cards: ['vacuum'] }),
     {

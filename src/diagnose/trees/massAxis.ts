@@ -31,7 +31,7 @@ export const massAxisTree: Tree = {
       text: 'Fit Δ(m) = a + b·m to the errors. Constant offset: b ≈ 0. Proportional: a ≈ 0. Neither: irregular.',
       options: [opt('offset', 'Constant offset', 'MA3'), opt('scale', 'Proportional to m/z', 'MA4-G'), opt('irregular', 'Irregular or non-linear', 'MA5')],
     },
-    leaf('MA3', 'Offset', 'The calibration intercept has changed, the ion energy or rod offset changed in a re-tune, or a resolution change moved the centroid of asymmetric peaks.', [
+    leaf('MA3', 'Offset', 'The calibration intercept has changed, the ion energy or rod offset changed with new settings, or a resolution change moved the centroid of asymmetric peaks.', [
       'Fix the peak shape first if the peaks are asymmetric.',
       'Recalibrate. If the offset returns, check the stability of the DC offset.',
     ], VERIFY, { continueWith: ['peak-shape'] }),

@@ -70,7 +70,7 @@ export const peakShapeTree: Tree = {
         opt('tandem', 'Tandem instrument: not yet known which stage', 'PS6'),
       ],
     },
-    leaf('PS-ok', 'Shape within specification', 'The profile is fine at the ions checked.', ['Record the widths; if the complaint remains, look at the chromatography (PS1).'], 'widths at the same ions for the record'),
+    leaf('PS-ok', 'Shape within specification', 'The profile is fine at the ions checked.', ['Record the widths; if the complaint remains, look at the chromatography (the step *Signal against m/z, or against time?*).'], 'widths at the same ions for the record'),
     leaf('PS-noise', 'Ragged profile', 'A ragged profile is a noise problem.', ['Follow the noise tree.'], 'the profile at the same ion after the noise fix', { continueWith: ['noise'] }),
     {
       id: 'PS3',

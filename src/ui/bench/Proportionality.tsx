@@ -1,4 +1,4 @@
-// Proportionality check without geometry (domain.md C5): two or three read-backs at parked m/z values give
+// Proportionality check without geometry (V ∝ m/z at fixed f and r0; Dawson 1976): two or three read-backs at parked m/z values give
 // the instrument constant V/m and the deviation from a straight line through the origin.
 import { convertRf, hazardousLive, proportionalityCheck, rfForMass, type ProportionalityReading } from '../../engine';
 import { HvCaution } from './HvCaution';

@@ -19,14 +19,14 @@ function close(actual: number, expected: number, relTol: number, what: string) {
 }
 
 describe('dry-air ratios', () => {
-  it('N2/O2 of dry air is 3.728 (CRC dry air / U.S. Standard Atmosphere 1976; domain notes F6)', () => {
+  it('N2/O2 of dry air is 3.728 (CRC Handbook of Chemistry and Physics, composition of dry air; U.S. Standard Atmosphere 1976)', () => {
     close(airRatio(78.084, 20.946), 3.728, 1e-4, 'airRatio(78.084, 20.946)');
     close(airCompositionRatios().nitrogenToOxygen, 3.728, 1e-4, 'composition N2/O2');
   });
   it('Ar/N2 of dry air is 0.0120 (CRC / USSA 1976, computed)', () => {
     close(airCompositionRatios().argonToNitrogen, 0.01196, 1e-3, 'Ar/N2');
   });
-  it('signal ratios weighted by Bayard–Alpert sensitivities: 28:32 ≈ 3.9, 40:28 ≈ 1.7 % (CRC-BA; computed, domain notes C14)', () => {
+  it('signal ratios weighted by Bayard–Alpert sensitivities: 28:32 ≈ 3.9, 40:28 ≈ 1.7 % (CRC Handbook Bayard–Alpert relative sensitivities; computed)', () => {
     close(airSignalRatios().m28ToM32, 3.88, 0.005, '28:32 weighted');
     close(airSignalRatios().m40ToM28, 0.0167, 0.01, '40:28 weighted');
   });
@@ -87,7 +87,7 @@ describe('leakIndication', () => {
 });
 
 describe('rateOfRise', () => {
-  it("C12 worked example: V = 10 L, Δp = 1e-3 mbar in 100 s → Q = 1e-4 mbar·L/s = 1e-5 Pa·m³/s (O'Hanlon 2003)", () => {
+  it("rate of rise Q = V·Δp/Δt: V = 10 L, Δp = 1e-3 mbar in 100 s → Q = 1e-4 mbar·L/s = 1e-5 Pa·m³/s (O'Hanlon 2003)", () => {
     const r = rateOfRise(0.01, [{ t: 0, p: 0.01 }, { t: 100, p: 0.11 }]);
     close(r.throughput, 1e-5, 1e-12, 'Q');
     expect(r.shape).toBe('unclear');
@@ -141,11 +141,11 @@ describe('fitOutgassing', () => {
 });
 
 describe('gas load and expected pressure', () => {
-  it('1 mL/min at 101.325 kPa = 0.016887 mbar·L/s (domain notes F9; common practice reference conditions)', () => {
+  it('1 mL/min at 101.325 kPa = 0.016887 mbar·L/s (common practice reference conditions; computed from SI units)', () => {
     const q = gasLoad(1e-6 / 60); // Pa·m³/s
     close(q * 10, 0.016887, 1e-4, 'gas load, mbar·L/s');
   });
-  it("C10 example: 1 mL/min He at S_eff 200 L/s → 8.4e-5 mbar (O'Hanlon 2003; computed)", () => {
+  it("p = Q/S_eff: 1 mL/min He at S_eff 200 L/s → 8.4e-5 mbar (O'Hanlon 2003; computed)", () => {
     const p = expectedPressure(gasLoad(1e-6 / 60), 0.2);
     close(p / 100, 8.44e-5, 0.002, 'p, mbar');
   });

@@ -121,7 +121,7 @@ describe('β: small-q regime against DLMF 28.15.1 (from memory)', () => {
       }
     }
   });
-  it('the rough rule β² ≈ a + q²/2 is only good near a = 0, small q (physics.md): within 1e-3 at q = 0.1', () => {
+  it('the rough rule β² ≈ a + q²/2 is only good near a = 0, small q (Dawson 1976; from memory): within 1e-3 at q = 0.1', () => {
     const beta = stabilityExponent(0.01, 0.1)!;
     expectClose(beta * beta, 0.01 + 0.005, 1e-3, 'β² at (0.01, 0.1)');
   });

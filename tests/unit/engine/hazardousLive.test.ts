@@ -1,37 +1,67 @@
 import { describe, expect, it } from 'vitest';
-import { exceedsHazardousLevel, hazardousLive, HAZARDOUS_LIVE_LEVELS } from '../../../src/engine/index';
+import { exceedsHazardousLevel, hazardousLive } from '../../../src/engine/index';
 
-// IEC 61010-1:2010 cl. 6.3.1 levels (from memory, as quoted in domain.md F12).
-describe('hazardous-live levels', () => {
-  it('F12: 100 V DC in a dry location is hazardous; 60 V DC is not', () => {
-    expect(hazardousLive({ dc: 100 }).hazardous).toBe(true);
-    // 30 V per rod is 60 V between the pairs: below 70 V DC. 60 V per rod is 120 V between them: above.
+// Behaviour against the figures of IEC 61010-1:2010 (3rd ed.) cl. 6.3.1 a) (normal condition, dry location:
+// 33 V rms, 46.7 V peak, 70 V d.c.) and 6.3.2 (wet location: 16 V rms, 22.6 V peak, 35 V d.c.) — from memory.
+// A sinusoid's peak is √2 × its rms: 33 V rms is 46.7 V peak, so the two a.c. limits agree for a pure sine.
+describe('hazardous-live levels (IEC 61010-1:2010, 3rd ed., 6.3.1 a), from memory)', () => {
+  it('d.c.: 69 V is not hazardous, 71 V is (70 V d.c. limit)', () => {
+    expect(exceedsHazardousLevel({ volts: 69, kind: 'dc' })).toBe(false);
+    expect(exceedsHazardousLevel({ volts: 71, kind: 'dc' })).toBe(true);
+    expect(exceedsHazardousLevel({ volts: -71, kind: 'dc' })).toBe(true);
+  });
+  it('peak: 46 V peak is not hazardous, 47 V peak is (46.7 V peak limit)', () => {
+    expect(exceedsHazardousLevel({ volts: 46, kind: 'peak' })).toBe(false);
+    expect(exceedsHazardousLevel({ volts: 47, kind: 'peak' })).toBe(true);
+  });
+  it('rms: 32.5 V rms is not hazardous, 33.5 V rms is (33 V rms limit)', () => {
+    expect(exceedsHazardousLevel({ volts: 32.5, kind: 'rms' })).toBe(false);
+    expect(exceedsHazardousLevel({ volts: 33.5, kind: 'rms' })).toBe(true);
+    // A value judged against its own kind: 34 V is above the rms limit but below the peak limit.
+    expect(exceedsHazardousLevel({ volts: 34, kind: 'peak' })).toBe(false);
+  });
+  it('a sine on one rod: 46 V zero-to-peak (32.5 V rms) is below both a.c. limits per rod; 47 V is above the peak limit', () => {
+    const below = hazardousLive({ rf: 46 });
+    expect(below.perRod.peak).toBe(46);
+    expect(below.perRod.rms).toBeCloseTo(46 / Math.SQRT2, 10);
+    expect(below.perRod.hazardous).toBe(false);
+    const above = hazardousLive({ rf: 47 });
+    expect(above.perRod.hazardous).toBe(true);
+    expect(above.exceeded).toContain('46.7 V peak (one rod to ground)');
+    // 47 V zero-to-peak is 33.23 V rms: just above 33 V rms as well, as √2 × 33 = 46.67 predicts.
+    expect(above.exceeded).toContain('33 V rms (one rod to ground)');
+  });
+  it('between the rod pairs the voltage doubles: 20 V zero-to-peak per rod is 40 V peak between them, below 46.7 V', () => {
+    const low = hazardousLive({ rf: 20 });
+    expect(low.betweenPairs.peak).toBe(40);
+    expect(low.hazardous).toBe(false);
+    const higher = hazardousLive({ rf: 24 });
+    expect(higher.perRod.hazardous).toBe(false);
+    expect(higher.betweenPairs.hazardous).toBe(true); // 48 V peak between the pairs
+  });
+  it('DC per rod: 30 V (60 V between pairs) is not hazardous, 36 V (72 V between pairs) is', () => {
     const thirty = hazardousLive({ dc: 30 });
     expect(thirty.perRod.hazardous).toBe(false);
     expect(thirty.betweenPairs.hazardous).toBe(false);
-    expect(hazardousLive({ dc: 60 }).perRod.hazardous).toBe(false);
-    expect(hazardousLive({ dc: 60 }).betweenPairs.hazardous).toBe(true);
+    const thirtySix = hazardousLive({ dc: 36 });
+    expect(thirtySix.perRod.hazardous).toBe(false);
+    expect(thirtySix.betweenPairs.hazardous).toBe(true);
   });
-  it('levels as published: dry 33 V rms / 46.7 V peak / 70 V DC, wet 16 / 22.6 / 35', () => {
-    expect(HAZARDOUS_LIVE_LEVELS.dry).toEqual({ rms: 33, peak: 46.7, dc: 70 });
-    expect(HAZARDOUS_LIVE_LEVELS.wet).toEqual({ rms: 16, peak: 22.6, dc: 35 });
+  it('DC with RF: peak |U| + V and rms √(U² + V²/2); m/z 69 on a 4.5 mm, 1 MHz analyser (U 16.94 V, V 100.91 V) is hazardous', () => {
+    const r = hazardousLive({ dc: 16.94, rf: 100.91 });
+    expect(r.perRod.peak).toBeCloseTo(117.85, 2);
+    expect(r.perRod.rms).toBeCloseTo(Math.sqrt(16.94 ** 2 + 100.91 ** 2 / 2), 10);
+    expect(r.hazardous).toBe(true);
   });
-  it('RF: 20 V zero-to-peak per rod is below every level (40 V peak between pairs); 100.9 V is far above', () => {
-    const low = hazardousLive({ rf: 20 });
-    expect(low.hazardous).toBe(false);
-    expect(low.betweenPairs.peak).toBe(40);
-    const kestrel = hazardousLive({ dc: 16.94, rf: 100.91 });
-    expect(kestrel.hazardous).toBe(true);
-    expect(kestrel.exceeded).toContain('46.7 V peak (one rod to ground)');
-    expect(kestrel.perRod.peak).toBeCloseTo(117.85, 2);
-  });
-  it('wet location uses the lower levels', () => {
+  it('wet location (6.3.2): 22 V peak is not hazardous, 23 V is; 34 V d.c. is not, 36 V is', () => {
+    expect(exceedsHazardousLevel({ volts: 22, kind: 'peak', location: 'wet' })).toBe(false);
+    expect(exceedsHazardousLevel({ volts: 23, kind: 'peak', location: 'wet' })).toBe(true);
+    expect(exceedsHazardousLevel({ volts: 34, kind: 'dc', location: 'wet' })).toBe(false);
+    expect(exceedsHazardousLevel({ volts: 36, kind: 'dc', location: 'wet' })).toBe(true);
     expect(hazardousLive({ rf: 20 }).hazardous).toBe(false);
     expect(hazardousLive({ rf: 20, location: 'wet' }).hazardous).toBe(true);
   });
-  it('single values against their own kind', () => {
-    expect(exceedsHazardousLevel({ volts: 34, kind: 'rms' })).toBe(true);
-    expect(exceedsHazardousLevel({ volts: 34, kind: 'peak' })).toBe(false);
-    expect(exceedsHazardousLevel({ volts: -71, kind: 'dc' })).toBe(true);
+  it('the result names its source with the edition', () => {
+    expect(hazardousLive({ dc: 1 }).source).toMatch(/IEC 61010-1:2010 \(3rd ed\.\)/);
   });
 });

@@ -17,7 +17,7 @@ const r0 = 4e-3;
 const frequency = 1e6;
 
 describe('operating point: Mathieu parameters', () => {
-  it('a = 8eU/(m r0²Ω²), q = 4eV/(m r0²Ω²) with CODATA 2018 constants (physics.md convention)', () => {
+  it('a = 8eU/(m r0²Ω²), q = 4eV/(m r0²Ω²) with CODATA 2018 constants (convention of Dawson 1976)', () => {
     const e = 1.602176634e-19;
     const u = 1.6605390666e-27;
     const omega = 2 * Math.PI * frequency;

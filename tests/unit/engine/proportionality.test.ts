@@ -2,11 +2,11 @@ import { describe, expect, it } from 'vitest';
 import { InputRangeError, massError, proportionalityCheck, rfForMass } from '../../../src/engine/index';
 import { expectClose } from './close';
 
-describe('proportionality check (domain.md C5: V(m2) = V(m1)·m2/m1, Dawson 1976 — from memory)', () => {
+describe('proportionality check (V(m2) = V(m1)·m2/m1, Dawson 1976 — from memory)', () => {
   it('exact apex voltages of 69/219/502 (r0 4.5 mm, 1 MHz) are proportional: k = 1.46240 V/u, zero deviation', () => {
     const readings = [69, 219, 502].map((mz) => ({ mz, rf: rfForMass({ mz, r0: 4.5e-3, frequency: 1e6 }) }));
     const r = proportionalityCheck(readings);
-    // domain.md C1: V0p = 0.072218·M·r0²·f² → 0.072218 · 20.25 = 1.46241 V/u (computed there).
+    // Apex scan law V0p = 0.072218·M·r0²·f² (Dawson 1976, CODATA 2018; computed) → 0.072218 · 20.25 = 1.46241 V/u.
     expectClose(r.constant, 0.072218 * 20.25, 5e-5, 'k', 'relative');
     expect(r.maxDeviation).toBeLessThan(1e-12);
     expect(r.withinTolerance).toBe(true);

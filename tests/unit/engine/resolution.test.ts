@@ -17,9 +17,9 @@ import {
 } from '../../../src/engine/index';
 import { expectClose } from './close';
 
-describe('RF cycles and the n²/K limit (domain.md C8)', () => {
+describe('RF cycles and the n²/K limit (Dawson 1976)', () => {
   const ion = { mz: 100, rodLength: 0.2, frequency: 1e6, axialEnergy: 5 };
-  it('m/z 100 at 5 eV: v = 3106 m/s, n ≈ 64 (domain.md C8, computed there from Dawson 1976)', () => {
+  it('m/z 100 at 5 eV: v = 3106 m/s, n ≈ 64 (n = f·L/v, Dawson 1976; computed)', () => {
     expectClose(axialSpeed(ion), 3106, 5e-4, 'axial speed', 'relative');
     expectClose(rfCycles(ion), 64.4, 5e-3, 'RF cycles', 'relative');
     expectClose(rfCycles({ ...ion, axialEnergy: 10 }), 46, 0.015, 'RF cycles at 10 eV', 'relative');
@@ -36,7 +36,7 @@ describe('RF cycles and the n²/K limit (domain.md C8)', () => {
     expect(review.resolution).toBeGreaterThan(200);
     expect(review.resolution).toBeLessThan(215);
   });
-  it('largest axial energy ≈ 4×10⁻²·f[MHz]²·L[cm]²·Δm V with K = 12.25 (physics.md — from memory, one figure)', () => {
+  it('largest axial energy ≈ 4×10⁻²·f[MHz]²·L[cm]²·Δm V with K = 12.25 (Paul, Reinhard & von Zahn 1958 via Dawson 1976 — from memory, one figure)', () => {
     const { axialEnergy, k } = maxAxialEnergy({ width: 1, rodLength: 0.01, frequency: 1e6 });
     expect(k).toBe(12.25);
     expectClose(axialEnergy, 0.04, 0.1, 'V_z per MHz² cm² u', 'relative');
@@ -56,7 +56,7 @@ describe('RF cycles and the n²/K limit (domain.md C8)', () => {
 });
 
 describe('resolution from U/V near the apex', () => {
-  it('domain.md F4 (Miller & Denton 1986 rule): U/V 0.16770 → R ≈ 900; R 1000 → U/V 0.167714', () => {
+  it('Miller & Denton rule (J. Chem. Educ. 63 (1986) 617): U/V 0.16770 → R ≈ 900; R 1000 → U/V 0.167714', () => {
     expectClose(resolutionAtRatio(0.1677).rule!, 900, 1e-9, 'rule R at 0.16770', 'relative');
     expectClose(ratioForResolution(1000).rule, 0.167714, 1e-12, 'rule U/V for R = 1000');
   });
@@ -87,8 +87,8 @@ describe('resolution from U/V near the apex', () => {
       const exact = exactResolutionAtRatio(ratio)!;
       expectClose(exact, c / (apexRatio() - ratio), 0.02, `R at U/V ${ratio}`, 'relative');
     }
-    // With the rounded apex 0.16784 the rule departs by ~9 % at U/V = 0.1678 (the domain notes' "within 1 %"
-    // does not hold that close to the apex).
+    // With the rounded apex 0.16784 the rule departs by ~9 % at U/V = 0.1678 (a "within 1 %" claim
+    // for the rule does not hold that close to the apex; computed).
     const { exact, rule } = resolutionAtRatio(0.1678);
     expect(rule! / exact! - 1).toBeGreaterThan(0.05);
   });

@@ -35,7 +35,7 @@ describe('RF and DC for a mass', () => {
     expectClose(rfForMass({ mz: 1, r0: 0.01, frequency: MHZ, q: 0.706 }), exact, 1e-14, 'exact constant', 'relative');
     expectClose(exact, 7.22176, 1e-6, 'exact constant to 6 figures', 'relative');
   });
-  it('domain.md F3 / C1–C2 test vectors (Dawson 1976 formula, CODATA 2018; tolerance ± 0.05 %)', () => {
+  it('apex RF and DC test vectors (Dawson 1976 formula, CODATA 2018; computed; tolerance ± 0.05 %)', () => {
     const cases = [
       { mz: 69, r0: 4.5, rf: 100.91, dc: 16.94 },
       { mz: 502, r0: 4.5, rf: 734.13 },
@@ -49,10 +49,10 @@ describe('RF and DC for a mass', () => {
       if (c.dc) expectClose(dcForMass({ mz: c.mz, r0: c.r0 * MM, frequency }), c.dc, 5e-4, `U at m/z ${c.mz}`, 'relative');
     }
   });
-  it('domain.md F2 / C4: RF-only cut-off at V0p = 500 V, r0 = 4 mm, f = 1 MHz → 336.4 u ± 0.1 %', () => {
+  it('RF-only cut-off (q = 0.908, Dawson 1976): at V0p = 500 V, r0 = 4 mm, f = 1 MHz → 336.4 u ± 0.1 %', () => {
     expectClose(rfOnlyLowMassCutoff({ rf: 500, r0: 4 * MM, frequency: MHZ }), 336.4, 1e-3, 'RF-only cut-off', 'relative');
   });
-  it('domain.md C5: V(m2) = V(m1)·m2/m1 at fixed geometry', () => {
+  it('V(m2) = V(m1)·m2/m1 at fixed geometry (Dawson 1976)', () => {
     const v1 = rfForMass({ mz: 69, r0: 4.5 * MM, frequency: MHZ });
     const v2 = rfForMass({ mz: 502, r0: 4.5 * MM, frequency: MHZ });
     expectClose(v2, (v1 * 502) / 69, 1e-14, 'proportionality', 'relative');
@@ -74,11 +74,11 @@ describe('RF and DC for a mass', () => {
       ),
     );
   });
-  it('top of the mass range from the supply’s largest V (domain.md C1 table: 1155.5 V ↔ m/z 1000 at 4 mm, 1 MHz)', () => {
+  it('top of the mass range from the supply’s largest V (apex scan law, Dawson 1976, computed: 1155.5 V ↔ m/z 1000 at 4 mm, 1 MHz)', () => {
     expectClose(massRangeTop({ maxRf: 1155.5, r0: 4 * MM, frequency: MHZ }), 1000, 5e-4, 'top of range', 'relative');
   });
-  it('domain.md F11 / C6: δm/m = 2·δf/f; δf/f = 1e-4 at m/z 1000 → +0.20 u', () => {
-    expectClose(apparentMassShift({ mz: 1000, frequencyChange: 1e-4 }), 0.2, 1e-12, 'F11');
+  it('δm/m = 2·δf/f (derived from Dawson 1976): δf/f = 1e-4 at m/z 1000 → +0.20 u', () => {
+    expectClose(apparentMassShift({ mz: 1000, frequencyChange: 1e-4 }), 0.2, 1e-12, 'δm/m = 2·δf/f');
     // The same from the scan law itself: the instrument sets V for m/z 1000 at f, the real f is 1e-4 higher.
     const rf = rfForMass({ mz: 1000, r0: 4 * MM, frequency: MHZ });
     const truePassed = massForRf({ rf, r0: 4 * MM, frequency: MHZ * (1 + 1e-4) });
@@ -124,7 +124,7 @@ describe('scan lines', () => {
   });
 });
 
-describe('voltage conventions (domain.md §0.2)', () => {
+describe('voltage conventions (Dawson 1976; March & Todd, 2nd ed., 2005)', () => {
   it('per rod zero-to-peak V → 2V peak-to-peak, V/√2 rms; between pairs 2V, 4V pp', () => {
     expect(convertRf(100, 'zeroToPeakPerRod', 'peakToPeakPerRod')).toBe(200);
     expectClose(convertRf(100, 'zeroToPeakPerRod', 'rmsPerRod'), 70.71067811865476, 1e-14, 'rms');

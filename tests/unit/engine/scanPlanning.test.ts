@@ -17,7 +17,7 @@ describe('scan planning', () => {
     expect(scansForGain(3)).toBe(9);
     expect(scansForGain(2.5)).toBe(7);
   });
-  it('counts per point and RSD: 100 counts → 10 %, 10 000 → 1 % (domain.md C16, Knoll 2010)', () => {
+  it('counts per point and RSD: 100 counts → 10 %, 10 000 → 1 % (Knoll, Radiation Detection and Measurement, 4th ed., 2010)', () => {
     const a = scanPlan({ mzStart: 1, mzEnd: 2, step: 1, dwell: 0.1, scans: 1, countRate: 1000 });
     expectClose(a.countsPerPoint!, 100, 1e-9, '1000/s × 0.1 s');
     expectClose(a.relativeStandardDeviation!, 0.1, 1e-12, '100 counts');

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { operatingPoint, secularFrequencies, secularFrequency, stabilityExponent } from '../../../src/engine/index';
 import { expectClose } from './close';
 
-describe('secular frequencies f_sec = β·f/2 (physics.md; Floquet theory)', () => {
+describe('secular frequencies f_sec = β·f/2 (Floquet theory; DLMF 28.2(iii))', () => {
   it('β = 1 gives f/2, β = 0 gives 0', () => {
     expect(secularFrequency(1, 1e6)).toBe(5e5);
     expect(secularFrequency(0, 1e6)).toBe(0);

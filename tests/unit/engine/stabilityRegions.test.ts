@@ -28,11 +28,11 @@ function bisect(f: (x: number) => number, lo: number, hi: number, tolerance: num
 }
 
 describe('first stability region: apex', () => {
-  it('matches the textbook values q ≈ 0.706, a ≈ 0.23699, U/V ≈ 0.16784 (Dawson 1976 — from memory; domain.md F1)', () => {
+  it('matches the textbook values q ≈ 0.706, a ≈ 0.23699, U/V ≈ 0.16784 (Dawson 1976 — from memory)', () => {
     const apex = firstRegionApex();
     expectClose(apex.q, 0.706, 5e-4, 'apex q (quoted to 3 decimals)');
     expectClose(apex.a, 0.23699, 5e-6, 'apex a (quoted to 5 decimals)');
-    expectClose(apexRatio(), 0.16784, 1e-5, 'apex U/V (F1: ± 1e-5)');
+    expectClose(apexRatio(), 0.16784, 1e-5, 'apex U/V (Dawson 1976: ± 1e-5)');
     expectClose(apexRatio(), apex.a / (2 * apex.q), 1e-15, 'U/V = a/(2q)');
   });
   it('is the crossing of the edges b1(q) = −a0(q) to 1e-13', () => {
@@ -54,7 +54,7 @@ describe('first stability region: apex', () => {
 });
 
 describe('first stability region: a = 0 edge (RF-only cut-off)', () => {
-  it('b1(q) = 0 at q ≈ 0.908 (Dawson 1976 — from memory; domain.md F2 / C4)', () => {
+  it('b1(q) = 0 at q ≈ 0.908 (Dawson 1976 — from memory)', () => {
     expectClose(rfOnlyEdgeQ(), 0.908, 5e-4, 'a = 0 edge q (quoted to 3 decimals)');
     expectClose(mathieuB(1, rfOnlyEdgeQ()), 0, 1e-14, 'b1 at the edge');
   });

@@ -20,7 +20,7 @@ describe('mean free path', () => {
     expectClose(value, (1.380649e-23 * 300) / (Math.SQRT2 * Math.PI * 3.75e-10 ** 2), 1e-15, 'λ', 'relative');
     expectClose(meanFreePath({ pressure: 2, temperature: 300, diameter: 3.75e-10 }), value / 2, 1e-15, '1/p', 'relative');
   });
-  it('domain.md F8: air at 20 °C, 1e-5 mbar → λ ≈ 670 cm (Jousten 2016; O’Hanlon 2003) within 2 %', () => {
+  it('air at 20 °C, 1e-5 mbar → λ ≈ 670 cm (Jousten, Handbook of Vacuum Technology, 2nd ed., 2016; O’Hanlon, A User’s Guide to Vacuum Technology, 3rd ed., 2003) within 2 %', () => {
     const pa = convertPressure(1e-5, 'mbar', 'Pa');
     expectClose(meanFreePathForGas({ gas: 'air', pressure: pa, temperature: 293.15 }), 6.7, 0.02, 'λ air', 'relative');
   });
@@ -34,7 +34,7 @@ describe('mean free path', () => {
     expect(at('He')).toBeGreaterThan(at('Ar'));
     expect(at('N2')).toBeGreaterThan(at('H2O'));
   });
-  it('ions: λ = k_B T/(p σ); domain.md C9 table at 1e-5 mbar, 293 K: σ 50 Å² → 8.1 m, 3.6 % lost over 0.3 m; 300 Å² → 1.35 m, 20 %', () => {
+  it('ions: λ = k_B T/(p σ) (O’Hanlon 2003; computed) at 1e-5 mbar, 293 K: σ 50 Å² → 8.1 m, 3.6 % lost over 0.3 m; 300 Å² → 1.35 m, 20 %', () => {
     const small = ionMeanFreePath({ pressure: 1e-3, temperature: 293, crossSection: 50e-20 });
     const large = ionMeanFreePath({ pressure: 1e-3, temperature: 293, crossSection: 300e-20 });
     expectClose(small, 8.1, 0.01, 'λ small ion', 'relative');
@@ -50,7 +50,7 @@ describe('mean free path', () => {
   });
 });
 
-describe('pressure units (domain.md C19; NIST SP 811)', () => {
+describe('pressure units (NIST SP 811, 2008; CODATA 2018)', () => {
   it('1 Torr = 133.322 Pa = 1.33322 mbar; round trips', () => {
     expectClose(convertPressure(1, 'Torr', 'Pa'), 133.322, 1e-5, 'Torr→Pa', 'relative');
     expectClose(convertPressure(1, 'Torr', 'mbar'), 1.33322, 1e-5, 'Torr→mbar', 'relative');
@@ -59,11 +59,11 @@ describe('pressure units (domain.md C19; NIST SP 811)', () => {
   });
 });
 
-describe('ion-gauge gas correction (domain.md C11, F7; CRC-BA)', () => {
-  it('F7: He indicated 1.5e-5 mbar → true 8.33e-5 mbar', () => {
+describe('ion-gauge gas correction (CRC Handbook of Chemistry and Physics, Bayard–Alpert relative sensitivities)', () => {
+  it('He indicated 1.5e-5 mbar → true 8.33e-5 mbar', () => {
     expectClose(ionGaugeTruePressure({ indicated: 1.5e-5, gas: 'He' }), 8.33e-5, 1e-3, 'He', 'relative');
   });
-  it('C11 example: 8.4e-5 mbar of He reads about 1.5e-5 mbar', () => {
+  it('8.4e-5 mbar of He reads about 1.5e-5 mbar (He 0.18, CRC Bayard–Alpert table; computed)', () => {
     expectClose(ionGaugeIndicated({ truePressure: 8.4e-5, gas: 'He' }), 1.5e-5, 0.02, 'He reading', 'relative');
     expect(ionGaugeTruePressure({ indicated: 2e-6, gas: 'N2' })).toBe(2e-6);
     expectClose(ionGaugeTruePressure({ indicated: 1.4e-6, gas: 'Ar' }), 1e-6, 1e-12, 'Ar', 'relative');
@@ -76,7 +76,7 @@ describe('round rods (Douglas & Konenkov, Rapid Commun. Mass Spectrom. 2002)', (
     expectClose(best.radius, 4.52e-3, 1e-12, 'best', 'relative');
     expect(best.source).toMatch(/Douglas/);
     const noTwelve = roundRodRadius({ r0: 4e-3, choice: 'noDodecapole' });
-    expectClose(noTwelve.ratio, 1.1451, 1e-4, 'dodecapole ratio (physics.md 1.1451)', 'relative');
+    expectClose(noTwelve.ratio, 1.1451, 1e-4, 'dodecapole ratio (Douglas & Konenkov 2002: 1.1451)', 'relative');
     expectClose(fieldRadiusForRods({ rodRadius: noTwelve.radius, choice: 'noDodecapole' }), 4e-3, 1e-15, 'inverse', 'relative');
   });
 });

@@ -28,7 +28,7 @@ function card(root: HTMLElement, mz: number): HTMLElement {
 const value = (el: HTMLElement, id: string) => texts(el, `[data-testid="${id}"] .result-value`)[0];
 
 describe('Bench · expected voltages (Kestrel: r0 4.5 mm, 1 MHz, read-backs 0-p per rod)', () => {
-  it('apex line, m/z 69, 219, 502: V and U match the engine and domain.md F3 (V0p 100.91 V, U 16.94 V at m/z 69; 734.13 V at 502)', async () => {
+  it('apex line, m/z 69, 219, 502: V and U match the engine and the apex scan law (Dawson 1976, CODATA 2018; V0p 100.91 V, U 16.94 V at m/z 69; 734.13 V at 502)', async () => {
     const k = demo('kestrel');
     h = await mount(<Voltages />, k);
     const g = { r0: k.rodFieldRadius, frequency: k.rfFrequency };
@@ -36,7 +36,7 @@ describe('Bench · expected voltages (Kestrel: r0 4.5 mm, 1 MHz, read-backs 0-p 
       expect(value(card(h.root, mz), 'rf-readback')).toBe(`${formatNumber(rfForMass({ mz, ...g }), 5)} V 0-p`);
       expect(value(card(h.root, mz), 'dc-readback')).toBe(`${formatNumber(dcForMass({ mz, ...g }), 5)} V DC`);
     }
-    // F3 (Dawson 1976 formula with CODATA 2018 constants; computed in domain.md): tolerance ±0.05 %.
+    // Apex scan law V0p = 0.072218·M·r0²·f² (Dawson 1976 formula with CODATA 2018 constants; computed): tolerance ±0.05 %.
     const shown = (mz: number, id: string) => parseFloat(value(card(h!.root, mz), id));
     expectWithin(shown(69, 'rf-readback'), 100.91, 5e-4, 'V0p at m/z 69');
     expectWithin(shown(69, 'dc-readback'), 16.94, 5e-4, 'U at m/z 69');
@@ -59,7 +59,7 @@ describe('Bench · expected voltages (Kestrel: r0 4.5 mm, 1 MHz, read-backs 0-p 
     expect(all.length).toBe(8);
   });
 
-  it('a profile reading back rms between the pairs: V shown as √2·V0p and U as 2·U (domain.md §0.2 conventions)', async () => {
+  it('a profile reading back rms between the pairs: V shown as √2·V0p and U as 2·U (voltage conventions of Dawson 1976: rms = V0p/√2, between the pairs ×2)', async () => {
     const k = { ...demo('kestrel'), id: 'between-pairs-rms', readbackConvention: { amplitude: 'rms' as const, reference: 'between-pairs' as const } };
     h = await mount(<Voltages />, k);
     const v = rfForMass({ mz: 69, r0: k.rodFieldRadius, frequency: k.rfFrequency });
@@ -113,7 +113,7 @@ describe('Bench · expected voltages (Kestrel: r0 4.5 mm, 1 MHz, read-backs 0-p 
     expect(texts(h.root, '[data-testid="inverse-error-ppm"] .result-value')[0]).toBe(`${ppm >= 0 ? '+' : ''}${formatNumber(ppm, 4)} ppm`);
   });
 
-  it('proportionality: read-backs 100, 317.4, 735 V at 69/219/502 give k and a ✓ within 1 %', async () => {
+  it('proportionality: read-backs 100.9, 320.3, 734.1 V at 69/219/502 give k and a ✓ within 1 %; 760 V at 502 gives ✗', async () => {
     h = await mount(<Voltages />, demo('kestrel'));
     await typeInto(h.root, 'prop-rf-1', '100.9');
     await typeInto(h.root, 'prop-rf-2', '320.3');
