@@ -28,6 +28,7 @@ export const HANDS_ON_WORDS: readonly RegExp[] = [
   /\b(the oil|mist filter|exhaust line|gas ballast|blank flange|blank the|blanked)\b/i,
   /\b(chang(e|ing)|correct) (the )?(oil|cylinders?|regulators?|filament)\b|\b(moisture trap|gas lines?)\b/i,
   /\bbond\b/i,
+  /\b(leak detector|installation depth|housing)\b/i,
 ];
 
 /** The words of a node that say what the engineer does (answers and sources are not instructions). */

@@ -103,6 +103,7 @@ export const leakTree: Tree = {
       options: [opt('co2', 'm/z 44 large as well', 'HB4-co2'), opt('co', 'm/z 14 small and 12 present', 'HB4-coN2'), opt('n2', 'm/z 14 clearly present (N2)', 'HB4-coN2')],
     },
     leaf('HB4-co2', 'Carbon dioxide', 'CO2 and its CO fragment: dry ice nearby, contaminated carrier or organic decomposition.', ['Find the source (dry ice nearby, a contaminated carrier) and deal with it; check the carrier purity.'], 'm/z 44 and 28 against the baseline', {
+      access: 'covers-on',
       hazards: ['gas-cylinder'],
       cards: ['gas'],
     }),
@@ -159,7 +160,7 @@ export const leakTree: Tree = {
     ], 'the tracer response at the joint, and 28:32 and 18/28 against the baseline, before and after', { access: 'covers-off', hazards: ['venting', 'hot-surface'], cards: ['vacuum', 'lockout', 'hot-surface'] }),
     leaf('HB6-none', 'Leak not found with the tracer', 'Use a rate-of-rise test on isolable volumes (Leak check panel), or a helium leak detector (ISO 20485:2017, from memory), then escalate.', [
       'A rise that stays linear is a leak; one that levels off is outgassing or a virtual leak.',
-    ], 'the rate of rise and the 28:32 ratio', { escalate: true, hazards: ['venting'], cards: ['vacuum'] }),
+    ], 'the rate of rise and the 28:32 ratio', { escalate: true, access: 'covers-on', hazards: ['venting'], cards: ['vacuum'] }),
     {
       id: 'HB7',
       kind: 'choice',

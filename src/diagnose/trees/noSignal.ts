@@ -215,7 +215,7 @@ export const noSignalTree: Tree = {
     },
     leaf('NS3A-interlock', 'An interlock is holding the voltage off', 'Find the unmet condition: housing not closed or not recognised, gas pressure low, source not at temperature.', [
       'Restore that condition. Never bypass an interlock.',
-    ], 'the spray voltage read-back and a full scan', { hazards: ['high-voltage'], cards: ['high-voltage'] }),
+    ], 'the spray voltage read-back and a full scan', { access: 'covers-on', hazards: ['high-voltage'], cards: ['high-voltage'] }),
     {
       id: 'NS3A3',
       kind: 'question',

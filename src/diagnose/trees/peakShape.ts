@@ -31,7 +31,7 @@ export const peakShapeTree: Tree = {
       'Column installation depth at the inlet and at the MS; dead volume; flow too low.',
       'A cold spot: transfer line below the elution temperature, source too cold. Compare the temperature read-backs with their set points.',
       'LC: extra-column volume or a void in the column.',
-    ], 'peak width of a reference compound', { hazards: ['hot-surface'], cards: ['hot-surface'] }),
+    ], 'peak width of a reference compound', { access: 'covers-on', hazards: ['hot-surface'], cards: ['hot-surface'] }),
     gate('PSC-act-G', 'covers-off', USER_MAINTENANCE, ['lockout', 'vacuum', 'hot-surface', 'chemical'], 'PSC-act', 'PS-stop', 'Gate: inlet, column and EI source', 'The next step replaces the liner, trims the column and cleans the EI source: power locked out, inlet and source cool, MS vented.'),
     leaf('PSC-act', 'Chemical activity', 'Active sites hold back polar compounds.', ['Replace the liner, trim the column, clean the EI source by the procedure.'], 'tailing factor of an active compound', {
       access: 'covers-off',

@@ -36,7 +36,8 @@ export const sensitivityTree: Tree = {
       'GC: inlet liner, septum, split ratio, column installation depth, inlet leaks.',
       'LC: flow, mixing, column, matrix suppression, mobile-phase additives, sample preparation.',
       'The autosampler.',
-    ], 'the reference response against the baseline'),
+      'Let the inlet and oven cool before changing a liner, septum or column.',
+    ], 'the reference response against the baseline', { access: 'covers-on', hazards: ['hot-surface', 'chemical'], cards: ['hot-surface', 'chemical'] }),
     {
       id: 'LS3',
       kind: 'measure',
