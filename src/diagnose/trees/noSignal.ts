@@ -101,10 +101,10 @@ export const noSignalTree: Tree = {
         tolerance: { kind: 'relative', pass: 0.05, borderline: 0.1 },
       },
       source: 'Actual within about ±5 % of set (common practice).',
-      branches: { pass: 'NS3E3', borderline: 'NS3E3', low: 'NS3E-G', high: 'NS3E-reg' },
+      branches: { pass: 'NS3E3', borderline: 'NS3E3', low: 'NS3E-G', high: 'NS3E-reg-q' },
     },
     {
-      id: 'NS3E-reg',
+      id: 'NS3E-reg-q',
       kind: 'question',
       title: 'Emission above its set point: does the last good settings file fix it?',
       text: 'The emission regulation is not holding the set point. Reload the last good settings file and read the emission again.',
@@ -113,8 +113,8 @@ export const noSignalTree: Tree = {
     leaf('NS3E-reg-ok', 'Settings restored', 'The emission holds its set point with the last good settings file.', [
       'Record which setting had changed, and keep the good settings file as the reference.',
     ], 'the emission current against the set point'),
-    gate('NS3E-reg-G', 'covers-off', BEHIND_COVERS, ['lockout', 'stored-charge', 'high-voltage'], 'NS3E-reg-sup', 'NS-stop', 'Gate: emission supply with the power off', 'The next step tests and replaces the emission supply module with the instrument locked out and discharged.'),
-    leaf('NS3E-reg-sup', 'Test or replace the emission supply', 'The emission supply overshoots its set point.', [
+    gate('NS3E-reg-G', 'covers-off', BEHIND_COVERS, ['lockout', 'stored-charge', 'high-voltage'], 'NS3E-reg', 'NS-stop', 'Gate: emission supply with the power off', 'The next step tests and replaces the emission supply module with the instrument locked out and discharged.'),
+    leaf('NS3E-reg', 'Emission above its set point', 'The emission regulation is not holding the set point, even with the last good settings file: test or replace the emission supply.', [
       'With the power locked out and the discharge time passed, test the emission supply by the maker’s module-level procedure (a live test only as that procedure allows and your authorisation covers).',
       'Replace the supply module if it fails that test; escalate board-level repair.',
     ], 'the emission current against the set point', { access: 'covers-off', hazards: ['stored-charge', 'high-voltage'], cards: ['lockout', 'stored-charge', 'high-voltage'], escalate: true }),
