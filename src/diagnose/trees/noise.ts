@@ -55,10 +55,7 @@ export const noiseTree: Tree = {
       options: [opt('yes', 'Yes', 'NU3-em-G'), opt('no', 'No', 'NU4')],
     },
     gate('NU3-em-G', 'covers-off', BEHIND_COVERS, ['high-voltage', 'stored-charge', 'vacuum', 'lockout'], 'NU3-em', 'NU-stop', 'Gate: multiplier and HV feedthroughs', 'The next step works at the HV feedthroughs and may replace the multiplier: power locked out, discharge time passed, vented.'),
-    leaf('NU3-em', 'Multiplier discharge or ageing', 'Multiplier discharge, ageing or breakdown on an HV feedthrough.', [
-      'Check the pressure; with the power locked out and discharged, check HV feedthroughs for contamination or humidity.',
-      'Replace the multiplier if it persists.',
-    ], 'the dark noise at the working multiplier voltage', { access: 'covers-off', hazards: ['high-voltage', 'stored-charge', 'venting'], cards: ['high-voltage', 'stored-charge', 'vacuum', 'lockout'] }),
+    leaf('NU3-em', 'Multiplier discharge or ageing', 'Multiplier discharge, ageing or breakdown on an HV feedthrough.', ['Check the pressure; with the power locked out and discharged, check HV feedthroughs for contamination or humidity. Replace the multiplier if it persists.'], 'the dark noise at the working multiplier voltage', { access: 'covers-off', hazards: ['high-voltage', 'stored-charge', 'venting'], cards: ['high-voltage', 'stored-charge', 'vacuum', 'lockout'] }),
     {
       id: 'NU4',
       kind: 'choice',
@@ -85,11 +82,7 @@ export const noiseTree: Tree = {
     ], 'the noise spectrum', { access: 'covers-off', hazards: ['high-voltage', 'stored-charge'], cards: ['high-voltage', 'stored-charge', 'lockout'] }),
     leaf('NU4-pump', 'Vibration', 'Microphonics from a pump: check mounts, bellows and the bench.', ['Do not move a running turbo.'], 'the noise spectrum', { access: 'covers-on', hazards: ['rotating'], cards: ['turbo'] }),
     gate('NU4-smps-G', 'covers-off', BEHIND_COVERS, ['high-voltage', 'stored-charge', 'lockout'], 'NU4-smps', 'NU-stop', 'Gate: supply replacement', 'The next step replaces a switched-mode supply: equipment locked out, discharge time passed, absence of voltage proved.'),
-    leaf('NU4-smps', 'Failing switched-mode supply', 'A supply’s switching ripple gets into the signal.', ['Find the supply by elimination and replace it by the procedure.'], 'the noise spectrum', {
-      access: 'covers-off',
-      hazards: ['high-voltage', 'stored-charge'],
-      cards: ['high-voltage', 'stored-charge', 'lockout'],
-    }),
+    leaf('NU4-smps', 'Failing switched-mode supply', 'A supply’s switching ripple gets into the signal.', ['Find the supply by elimination and replace it by the procedure.'], 'the noise spectrum', { access: 'covers-off', hazards: ['high-voltage', 'stored-charge'], cards: ['high-voltage', 'stored-charge', 'lockout'] }),
     gate('NU4-conn-G', 'covers-off', BEHIND_COVERS, ['high-voltage', 'stored-charge', 'lockout'], 'NU4-conn', 'NU-stop', 'Gate: connectors and cables', 'The next step wiggle-tests connectors and cables: equipment locked out, discharge time passed.'),
     leaf('NU4-conn', 'Connectors or cables', 'Intermittent contacts.', [
       'Wiggle-test only de-energised, or live only as the procedure allows and your live-work authorisation covers.',

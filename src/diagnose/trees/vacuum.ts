@@ -64,11 +64,7 @@ export const vacuumTree: Tree = {
       'The exhaust must go to extraction.',
     ], 'the blank-off pressure and the oil appearance', { access: 'covers-on', hazards: ['chemical', 'hot-surface'], cards: ['chemical', 'hot-surface'] }),
     gate('VF3-exhaust-G', 'covers-off', USER_MAINTENANCE, ['chemical', 'hot-surface', 'lockout'], 'VF3-exhaust', 'VF-stop', 'Gate: exhaust filter and line', 'The next step opens the pump exhaust: pump switched off, unplugged or locked out, and cool.'),
-    leaf('VF3-exhaust', 'Exhaust restricted', 'Replace the mist filter and clear the line; the exhaust must go to extraction.', ['Lock the pump out before opening the exhaust.'], 'the blank-off pressure', {
-      access: 'covers-off',
-      hazards: ['chemical', 'hot-surface'],
-      cards: ['chemical', 'hot-surface', 'lockout'],
-    }),
+    leaf('VF3-exhaust', 'Exhaust restricted', 'Replace the mist filter and clear the line; the exhaust must go to extraction.', ['Lock the pump out before opening the exhaust.'], 'the blank-off pressure', { access: 'covers-off', hazards: ['chemical', 'hot-surface'], cards: ['chemical', 'hot-surface', 'lockout'] }),
     gate('VF3-worn-G', 'covers-off', BEHIND_COVERS, ['mechanical', 'hot-surface', 'lockout'], 'VF3-worn', 'VF-stop', 'Gate: pump service or exchange', 'The next step takes the rough pump out of service: switched off, unplugged or locked out, cool, and lifted with help.'),
     leaf('VF3-worn', 'Pump worn', 'Service or replace the pump.', ['Pumps are heavy: lift with help or aids.'], 'the blank-off pressure with the serviced pump', {
       access: 'covers-off',
