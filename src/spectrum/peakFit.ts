@@ -644,11 +644,38 @@ function judge(
     );
   }
   const lagLimit = Math.max(0.35, 4 / Math.sqrt(r.mz.length));
-  if (findings.length === 0 && (r.reducedChiSquare > 2 || r.autocorrelation > lagLimit)) {
-    findings.push('shape');
-    details.push(
-      `The residuals are ${Math.sqrt(r.reducedChiSquare).toFixed(1)} times the noise and run together (lag-1 correlation ${r.autocorrelation.toFixed(2)}, limit ${lagLimit.toFixed(2)}): the shape differs from every ideal peak tried.`,
-    );
+  const structured = r.reducedChiSquare > 2 || r.autocorrelation > lagLimit;
+  if (findings.length === 0 && structured) {
+    const why = `the residuals are ${Math.sqrt(r.reducedChiSquare).toFixed(1)} times the noise and run together (lag-1 correlation ${r.autocorrelation.toFixed(2)}, limit ${lagLimit.toFixed(2)})`;
+    // Name the misfit: the asymmetry against the ideal peak's, else where the largest excess lies.
+    let excess: { sum: number; at: number } | null = null;
+    let start = 0;
+    for (let i = 1; i <= res.length; i++) {
+      if (i === res.length || Math.sign(res[i]) !== Math.sign(res[start])) {
+        let sum = 0;
+        let weighted = 0;
+        for (let k = start; k < i; k++) {
+          sum += res[k];
+          weighted += res[k] * r.mz[k];
+        }
+        if (sum > 0 && (!excess || sum > excess.sum)) excess = { sum, at: weighted / sum };
+        start = i;
+      }
+    }
+    if (tailRatio > 1.2 || tailRatio < 1 / 1.2) {
+      const side = tailRatio > 1 ? 'high' : 'low';
+      findings.push(side === 'high' ? 'tailing-high' : 'tailing-low');
+      details.push(
+        `The peak tails to ${side} m/z: 10 % asymmetry ${r.asymmetryMeasured.toFixed(2)} measured against ${r.asymmetryModel.toFixed(2)} for the best ideal peak; ${why}.`,
+      );
+    } else if (excess && Math.abs(excess.at - apex) > 0.3 * main) {
+      const side = excess.at > apex ? 'high' : 'low';
+      findings.push(side === 'high' ? 'shoulder-high' : 'shoulder-low');
+      details.push(`Extra signal on the ${side} m/z side near m/z ${excess.at.toFixed(3)} (a shoulder) that no ideal operating point gives; ${why}.`);
+    } else {
+      findings.push('shape');
+      details.push(`The shape differs from every ideal peak tried: ${why}.`);
+    }
   }
   details.push(
     `Fit: U/V = ${r.ratio.value.toFixed(6)} ± ${r.ratio.sigma.toPrecision(2)}, ion energy ${r.axialVoltage.value.toPrecision(3)} ± ${r.axialVoltage.sigma.toPrecision(2)} eV per charge, offset ${r.offset.value.toPrecision(3)} u; residual ${r.residualNoise.toPrecision(3)} against baseline noise ${r.noise.toPrecision(3)}; reduced χ² ${r.reducedChiSquare.toFixed(2)}.`,
