@@ -118,9 +118,9 @@ export interface PeakFitResult {
   verdict: PeakVerdict;
 }
 
-const SEARCH_POINTS = 41;
+const SEARCH_POINTS = 33;
 const SEARCH_TOLERANCE = 1e-2;
-const FINAL_POINTS = 121;
+const FINAL_POINTS = 101;
 const FINAL_TOLERANCE = 3e-3;
 const MODEL_LIMITS =
   'Ideal hyperbolic field along the whole rod (no fringe fields), no space charge or collisions, a round uniformly filled entrance beam, one ion species; the scan is taken as a constant U/V line.';
@@ -339,7 +339,7 @@ export function fitPeak(request: PeakFitRequest, control: RunControl = {}): Peak
   const g0 = clampG(Math.log(apex - ratioForResolution(Math.min(Math.max(measuredR, 1), 1e6)).exact));
   const e0 = clampE(Math.log(startVoltage));
   const grid: [number, number][] = [];
-  for (const [dg, de] of [[0, 0], [-0.4, 0], [0.4, 0], [0, -1.1], [0, 1.1]]) grid.push([clampG(g0 + dg), clampE(e0 + de)]);
+  for (const [dg, de] of [[0, 0], [0, -1.1], [0, 1.1]]) grid.push([clampG(g0 + dg), clampE(e0 + de)]);
   let g = g0, e = e0, best = Infinity;
   const totalSteps = grid.length + 3 * 6 + 3;
   let step = 0;

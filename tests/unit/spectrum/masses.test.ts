@@ -16,6 +16,13 @@ function near(label: string, actual: number, expected: number, tolerance: number
   if (!(difference <= tolerance)) throw new Error(`${label}: got ${actual}, expected ${expected}, |Δ| = ${difference} > ${tolerance}`);
 }
 
+describe('element table', () => {
+  it('holds every element the spectrum screens need', () => {
+    const needed = 'H He B C N O F Ne Na Mg Al Si P S Cl Ar K Ca Fe Ni Cu Zn Br Kr Ag Sn I Xe Pt Hg Pb'.split(' ');
+    for (const symbol of needed) expect(KNOWN_ELEMENTS).toContain(symbol);
+  });
+});
+
 describe('parseFormula', () => {
   it('reads symbols, counts and nested parentheses', () => {
     expect(parseFormula('C9F20N')).toEqual({ C: 9, F: 20, N: 1 });
