@@ -334,7 +334,7 @@ export function fitPeak(request: PeakFitRequest, control: RunControl = {}): Peak
     return { r, fit, pr };
   };
 
-  // Start: U/V for the measured FWHM resolution; a small grid in energy and ratio.
+  // Start: U/V for the measured FWHM resolution; three ion energies (÷3, ×1, ×3 the given one).
   const measuredR = Math.max(peak.resolution, 1);
   const g0 = clampG(Math.log(apex - ratioForResolution(Math.min(Math.max(measuredR, 1), 1e6)).exact));
   const e0 = clampE(Math.log(startVoltage));
