@@ -1,4 +1,5 @@
-// Messages between the main thread and the peak-simulation worker, and the request runner the worker uses.
+// Messages between the main thread and the peak-simulation worker (engine peak runs and the spectrum module's
+// verdict fit), and the request runner the worker uses.
 // Pure: no DOM and no worker globals, so it is unit-tested in Node and compiled for both sides.
 import {
   InputRangeError,
@@ -13,11 +14,14 @@ import {
   type TransmissionVsResolution,
   type TransmissionVsResolutionParams,
 } from '../engine/index';
+import { fitPeak, type PeakFitRequest, type PeakFitResult } from '../spectrum/index';
 
 export interface SimKinds {
   transmission: { params: TransmissionParams; result: TransmissionResult };
   peakProfile: { params: PeakProfileParams; result: PeakProfile };
   transmissionVsResolution: { params: TransmissionVsResolutionParams; result: TransmissionVsResolution };
+  /** The verdict fit of one measured peak (src/spectrum/peakFit.ts). */
+  peakFit: { params: PeakFitRequest; result: PeakFitResult };
 }
 export type SimKind = keyof SimKinds;
 
@@ -90,6 +94,9 @@ export function runRequest(request: SimRequest, post: (message: SimResponse, tra
         break;
       case 'transmissionVsResolution':
         result = transmissionVsResolution(request.params as TransmissionVsResolutionParams, { onProgress });
+        break;
+      case 'peakFit':
+        result = fitPeak(request.params as PeakFitRequest, { onProgress });
         break;
       default:
         throw new Error(`Unknown simulation kind: ${String((request as { kind: unknown }).kind)}`);
