@@ -32,6 +32,11 @@
  *    max|x| ≤ max(|x_k|, |x_k+1|) + h²G/8·max|x|. With ε = h²G/8 (h = π/S) and the thinning factor (1 + δ),
  *    the true acceptance lies between the computed polygon A and (1 − ε)/(1 + δ)·A. Both are integrated (the inner
  *    one at every other phase): T_in ≤ T ≤ T_out. We return T_out − (T_out − T_in)/2 and add the half-width.
+ *    Cheaper inner end (option scaledInner): the entry density (uniform disc in (x0, y0) times Gaussians in the
+ *    slopes) does not increase along rays from the origin, so with z → (λx·zx, λy·zy) the inner set
+ *    λx·A_x × λy·A_y holds at least λx²·λy² of the ions in A_x × A_y (λx·λy with no transverse velocity, where the
+ *    slopes are fixed at 0): T_in ≥ λx²λy²·T_out per phase, with λ = 1 − ε. No second quadrature is needed; the
+ *    bracket is then ≈ 4ε·T instead of the integrated one (about half that).
  *  - Phase rule: |T_P − T_P/2| (the P/2 rule is the even subset; conservative for the exponentially convergent
  *    trapezoid rule on a smooth periodic integrand).
  *  - Growth beyond 1e10 (needle-shaped hulls lose their orientation digits): the phase is counted as 0 and the
@@ -43,7 +48,8 @@
 import { ConvexIndex, convexHull, insertIntoHull, polarPolygon, simplifyHull, transformRows } from './transmissionHull';
 import { gaussLegendre, meanNormalCdf, normalCdf, psiExcess } from './transmissionMath';
 import { fundamentalAt, monodromy, multiply2, periodTable, power2, type PeriodTable } from './trajectoryMathieu';
-import { flightModel, requireInteger, type FlightModel, type TransmissionParams } from './peakInput';
+import { flightModel, requireFinite, requireInteger, type FlightModel, type TransmissionParams } from './peakInput';
+import { InputRangeError } from './validate';
 
 export interface TransmissionResult {
   transmission: number;
@@ -62,9 +68,30 @@ export interface FastTransmissionOptions {
   quadratureOrder?: number;
   /** Magnus steps between samples; default 2. */
   substeps?: number;
+  /**
+   * Thinning of the whole-period hull, δ: true hull ⊆ (1 + δ)·kept hull, and δ widens the sampling bracket
+   * (see ERROR BOUND). Default 2e-6; a coarse, quick profile may take 1e-3.
+   */
+  hullTolerance?: number;
+  /** Hulls with at most this many vertices are kept exact; default 256. */
+  hullKeep?: number;
+  /**
+   * Inner end of the sampling bracket: false (default) integrates the (1 − ε)-scaled polygons; true takes the
+   * cheaper lower bound T_in ≥ λx^d·λy^d·T_out (λ = 1 − ε per axis, d = 2, or 1 with no transverse velocity),
+   * which holds because the ion density does not increase along rays from the origin (see ERROR BOUND).
+   */
+  scaledInner?: boolean;
 }
 
-export const FAST_DEFAULTS = { samplesPerPeriod: 128, phases: 16, quadratureOrder: 4, substeps: 2 } as const;
+export const FAST_DEFAULTS = {
+  samplesPerPeriod: 128,
+  phases: 16,
+  quadratureOrder: 4,
+  substeps: 2,
+  hullTolerance: 2e-6,
+  hullKeep: 256,
+  scaledInner: false,
+} as const;
 
 /**
  * Rows r(ξ) beyond this size make the hull a needle whose orientation tests lose their digits (aspect ratio
@@ -74,10 +101,10 @@ export const FAST_DEFAULTS = { samplesPerPeriod: 128, phases: 16, quadratureOrde
 const COLLAPSE_LIMIT = 1e10;
 
 /**
- * The core hull (whole periods) is thinned so that true hull ⊆ (1 + δ)·kept hull; δ enters the sampling bracket.
- * Long stable flights otherwise carry ~2 hull vertices per RF cycle into every phase.
+ * The core hull (whole periods) is thinned so that true hull ⊆ (1 + δ)·kept hull (δ = hullTolerance, default
+ * 2e-6); δ enters the sampling bracket. Long stable flights otherwise carry ~2 hull vertices per RF cycle into
+ * every phase.
  */
-const HULL_SIMPLIFICATION = 2e-6;
 
 /** Everything about one transverse axis that does not depend on the entry phase. */
 export interface AxisFlight {
@@ -96,7 +123,7 @@ export interface AxisFlight {
   /**
    * Relative shrink of the inner polygon: the true acceptance contains (1 − ε)/(1 + δ) times the computed one,
    * ε = h²G/8 the overshoot between samples, (1 + δ) the product over the simplifications of the core hull
-   * (≤ 1 + 1.6·HULL_SIMPLIFICATION).
+   * (≤ 1 + 1.6·hullTolerance).
    */
   epsilon: number;
   /**
@@ -106,7 +133,15 @@ export interface AxisFlight {
   candidates: { xi: Float64Array; u: Float64Array; w: Float64Array; count: number };
 }
 
-export function prepareAxis(A: number, Q: number, cycles: number, samples: number, substeps: number): AxisFlight {
+export function prepareAxis(
+  A: number,
+  Q: number,
+  cycles: number,
+  samples: number,
+  substeps: number,
+  hullTolerance: number = FAST_DEFAULTS.hullTolerance,
+  hullKeep: number = FAST_DEFAULTS.hullKeep,
+): AxisFlight {
   const table = periodTable(A, Q, samples, substeps);
   const m = monodromy(table);
   const h = Math.PI / samples;
@@ -132,12 +167,12 @@ export function prepareAxis(A: number, Q: number, cycles: number, samples: numbe
     let mk = m; // M^k
     const bits = coreEnd.toString(2);
     for (let i = 1; i < bits.length && !collapsed; i++) {
-      d = simplifyHull(mergeHull(d, d, mk), HULL_SIMPLIFICATION / 64);
-      growth *= 1 + HULL_SIMPLIFICATION / 64;
+      d = simplifyHull(mergeHull(d, d, mk), hullTolerance / 64, 64, hullKeep);
+      growth *= 1 + hullTolerance / 64;
       mk = multiply2(mk, mk);
       if (bits[i] === '1') {
-        d = simplifyHull(mergeHull(d, h1, mk), HULL_SIMPLIFICATION / 64);
-        growth *= 1 + HULL_SIMPLIFICATION / 64;
+        d = simplifyHull(mergeHull(d, h1, mk), hullTolerance / 64, 64, hullKeep);
+        growth *= 1 + hullTolerance / 64;
         mk = multiply2(mk, m);
       }
       if (maxAbs(mk) > COLLAPSE_LIMIT || maxAbs(d) > COLLAPSE_LIMIT) collapsed = true;
@@ -146,8 +181,8 @@ export function prepareAxis(A: number, Q: number, cycles: number, samples: numbe
     transformRows(d, d.length / 2, m, shifted, 0);
     if (collapsed) collapsedRows = shifted;
     else {
-      core = simplifyHull(convexHull(shifted, shifted.length / 2), HULL_SIMPLIFICATION);
-      growth *= 1 + HULL_SIMPLIFICATION;
+      core = simplifyHull(convexHull(shifted, shifted.length / 2), hullTolerance, 64, hullKeep);
+      growth *= 1 + hullTolerance;
     }
   }
   const epsilon = 1 - (1 - overshoot) / growth;
@@ -595,15 +630,18 @@ export function resolveOptions(options: FastTransmissionOptions = {}): Required<
   requireInteger('samplesPerPeriod', resolved.samplesPerPeriod, 4, 1 << 16);
   requireInteger('quadratureOrder', resolved.quadratureOrder, 2, 64);
   requireInteger('substeps', resolved.substeps, 1, 64);
+  requireFinite('hullTolerance', resolved.hullTolerance, 0, 0.01, 'none');
+  requireInteger('hullKeep', resolved.hullKeep, 3, 1 << 20);
+  if (typeof resolved.scaledInner !== 'boolean') throw new InputRangeError('scaledInner', resolved.scaledInner, 'true or false');
   return resolved;
 }
 
 export function prepareFlight(model: FlightModel, options: Required<FastTransmissionOptions>): FastContext {
-  const { samplesPerPeriod: S, substeps } = options;
+  const { samplesPerPeriod: S, substeps, hullTolerance, hullKeep } = options;
   return {
     model,
-    x: prepareAxis(model.a, model.q, model.cycles, S, substeps),
-    y: prepareAxis(-model.a, -model.q, model.cycles, S, substeps),
+    x: prepareAxis(model.a, model.q, model.cycles, S, substeps, hullTolerance, hullKeep),
+    y: prepareAxis(-model.a, -model.q, model.cycles, S, substeps, hullTolerance, hullKeep),
     options,
   };
 }
@@ -614,7 +652,7 @@ export function phaseBracket(ctx: FastContext, entryPhase: number): { outer: num
   if ('bound' in chains) return { outer: 0, inner: 0 };
   const { beamRadius, slopeSigma } = ctx.model;
   const outer = phaseTransmission(chains.x, chains.y, beamRadius, slopeSigma, ctx.options.quadratureOrder);
-  return { outer, inner: innerTransmission(ctx, chains) };
+  return { outer, inner: innerTransmission(ctx, chains, outer) };
 }
 
 /**
@@ -646,8 +684,12 @@ function phaseChains(ctx: FastContext, entry: number): PhaseChains | { bound: nu
   return { x: upperChain(ax.polygon), y: upperChain(ay.polygon), px: ax.polygon, py: ay.polygon };
 }
 
-function innerTransmission(ctx: FastContext, chains: PhaseChains): number {
+function innerTransmission(ctx: FastContext, chains: PhaseChains, outer: number): number {
   const { beamRadius, slopeSigma } = ctx.model;
+  if (ctx.options.scaledInner) {
+    const d = slopeSigma > 0 ? 2 : 1;
+    return Math.pow((1 - ctx.x.epsilon) * (1 - ctx.y.epsilon), d) * outer;
+  }
   return phaseTransmission(
     upperChain(chains.px, 1 - ctx.x.epsilon),
     upperChain(chains.py, 1 - ctx.y.epsilon),
@@ -685,7 +727,7 @@ export function evaluatePhases(ctx: FastContext, phases: number, previous: Phase
       continue;
     }
     if (!(reuse && k % 2 === 0)) outer[k] = phaseTransmission(chains.x, chains.y, beamRadius, slopeSigma, ctx.options.quadratureOrder);
-    if (k % 2 === 0) inner[k] = innerTransmission(ctx, chains);
+    if (k % 2 === 0) inner[k] = innerTransmission(ctx, chains, outer[k]);
   }
   return { phases, outer, inner, negligible };
 }
