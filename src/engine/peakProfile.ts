@@ -141,8 +141,8 @@ export function peakProfile(p: PeakProfileParams, options: PeakProfileOptions = 
 
 /**
  * Settings of the coarse, quick profile that peakProfileProgressive delivers first: 64 samples per period, 8
- * starting phases, whole-period hulls thinned to δ = 1e-3, the scaled inner bracket (see transmission.ts), error
- * bound ≤ 1 % of the peak height. The same rigorous bracket and phase rule as the full profile, only wider.
+ * starting phases, whole-period hulls thinned to δ = 1e-3, the scaled inner bracket (see transmission.ts),
+ * quadrature panels cut at ±s and ±2s only; error bound ≤ 1 % of the peak height. The same rigorous bracket and phase rule as the full profile, only wider.
  */
 export const COARSE_PROFILE_OPTIONS: Readonly<Required<Omit<FastTransmissionOptions, 'quadratureOrder' | 'substeps'>>> & {
   readonly relativeTolerance: number;
@@ -152,6 +152,7 @@ export const COARSE_PROFILE_OPTIONS: Readonly<Required<Omit<FastTransmissionOpti
   hullTolerance: 1e-3,
   hullKeep: 16,
   scaledInner: true,
+  panelLevels: [1, 2],
   relativeTolerance: 1e-2,
 };
 

@@ -81,6 +81,11 @@ export interface FastTransmissionOptions {
    * which holds because the ion density does not increase along rays from the origin (see ERROR BOUND).
    */
   scaledInner?: boolean;
+  /**
+   * Levels k at which the quadrature panels are cut where the chain crosses ±k·s (besides 0 and the chain ends);
+   * default [0.5, 1, 2, 4]. Fewer levels, fewer panels: the coarse profile takes [1, 2].
+   */
+  panelLevels?: readonly number[];
 }
 
 export const FAST_DEFAULTS = {
@@ -91,6 +96,7 @@ export const FAST_DEFAULTS = {
   hullTolerance: 2e-6,
   hullKeep: 256,
   scaledInner: false,
+  panelLevels: [0.5, 1, 2, 4] as readonly number[],
 } as const;
 
 /**
@@ -301,6 +307,19 @@ export function phaseAcceptance(
   return { polygon: polarPolygon(c), bound: 0 };
 }
 
+/** Scratch for constraintHull's point set (nothing keeps it: the hull routines return fresh arrays). */
+let hullScratch = new Float64Array(0);
+
+/** Append ±(x, y) unless inside the core hull; returns the new count. */
+function pushOutside(pts: Float64Array, count: number, index: ConvexIndex | null, x: number, y: number): number {
+  if (index && index.contains(x, y)) return count;
+  pts[2 * count] = x;
+  pts[2 * count + 1] = y;
+  pts[2 * count + 2] = -x;
+  pts[2 * count + 3] = -y;
+  return count + 2;
+}
+
 /**
  * Hull of ±c(ξ) over the sampled flight for entry phase ξ0 (c-space: x(ξ)/r0 = c·(x0, x0')/r0), counter-clockwise;
  * null if the axis collapsed. max over its vertices of |c·z| is the largest sampled |x|/r0 of the ion z.
@@ -311,24 +330,18 @@ export function constraintHull(axis: AxisFlight, entryPhase: number): Float64Arr
   const end = entryPhase + cycles * Math.PI;
   const lastPeriod = Math.floor(end / Math.PI);
   const coreCount = axis.core ? axis.core.length / 2 : 0;
-  const pts = new Float64Array(2 * (coreCount + 2 * (candidates.count + 2)));
+  const need = 2 * (coreCount + 2 * (candidates.count + 2));
+  if (hullScratch.length < need) hullScratch = new Float64Array(2 * need);
+  const pts = hullScratch;
   let count = 0;
   if (axis.core) {
     pts.set(axis.core);
     count = coreCount;
   }
   const index = axis.coreIndex;
-  const push = (x: number, y: number): void => {
-    if (index && index.contains(x, y)) return;
-    pts[2 * count] = x;
-    pts[2 * count + 1] = y;
-    pts[2 * count + 2] = -x;
-    pts[2 * count + 3] = -y;
-    count += 2;
-  };
   const entry = new Float64Array(4);
   fundamentalAt(table, entryPhase, entry);
-  push(entry[0], entry[1]);
+  count = pushOutside(pts, count, index, entry[0], entry[1]);
   // Samples strictly after the entry and not after the exit (period 0 and the periods after the core).
   for (let i = 0; i < candidates.count; i++) {
     const at = candidates.xi[i];
@@ -344,7 +357,7 @@ export function constraintHull(axis: AxisFlight, entryPhase: number): Float64Arr
   const exit = new Float64Array(4);
   const mEnd = power2(axis.monodromy, lastPeriod);
   fundamentalAt(table, end - lastPeriod * Math.PI, exit);
-  push(exit[0] * mEnd[0] + exit[1] * mEnd[2], exit[0] * mEnd[1] + exit[1] * mEnd[3]);
+  count = pushOutside(pts, count, index, exit[0] * mEnd[0] + exit[1] * mEnd[2], exit[0] * mEnd[1] + exit[1] * mEnd[3]);
 
   // Few points outside the core: insert them; many (growing motion): one full hull.
   const extraCount = count - coreCount;
@@ -632,6 +645,9 @@ export function resolveOptions(options: FastTransmissionOptions = {}): Required<
   requireInteger('substeps', resolved.substeps, 1, 64);
   requireFinite('hullTolerance', resolved.hullTolerance, 0, 0.01, 'none');
   requireInteger('hullKeep', resolved.hullKeep, 3, 1 << 20);
+  if (!Array.isArray(resolved.panelLevels) || resolved.panelLevels.length > 16 || !resolved.panelLevels.every((k) => Number.isFinite(k) && k > 0 && k <= 64)) {
+    throw new InputRangeError('panelLevels', resolved.panelLevels, 'a list of up to 16 numbers > 0 and ≤ 64');
+  }
   if (typeof resolved.scaledInner !== 'boolean') throw new InputRangeError('scaledInner', resolved.scaledInner, 'true or false');
   return resolved;
 }
@@ -651,7 +667,7 @@ export function phaseBracket(ctx: FastContext, entryPhase: number): { outer: num
   const chains = phaseChains(ctx, entryPhase);
   if ('bound' in chains) return { outer: 0, inner: 0 };
   const { beamRadius, slopeSigma } = ctx.model;
-  const outer = phaseTransmission(chains.x, chains.y, beamRadius, slopeSigma, ctx.options.quadratureOrder);
+  const outer = phaseTransmission(chains.x, chains.y, beamRadius, slopeSigma, ctx.options.quadratureOrder, undefined, ctx.options.panelLevels);
   return { outer, inner: innerTransmission(ctx, chains, outer) };
 }
 
@@ -696,6 +712,8 @@ function innerTransmission(ctx: FastContext, chains: PhaseChains, outer: number)
     beamRadius,
     slopeSigma,
     ctx.options.quadratureOrder,
+    undefined,
+    ctx.options.panelLevels,
   );
 }
 
@@ -726,7 +744,9 @@ export function evaluatePhases(ctx: FastContext, phases: number, previous: Phase
       negligible[k] = chains.bound;
       continue;
     }
-    if (!(reuse && k % 2 === 0)) outer[k] = phaseTransmission(chains.x, chains.y, beamRadius, slopeSigma, ctx.options.quadratureOrder);
+    if (!(reuse && k % 2 === 0)) {
+      outer[k] = phaseTransmission(chains.x, chains.y, beamRadius, slopeSigma, ctx.options.quadratureOrder, undefined, ctx.options.panelLevels);
+    }
     if (k % 2 === 0) inner[k] = innerTransmission(ctx, chains, outer[k]);
   }
   return { phases, outer, inner, negligible };

@@ -231,21 +231,30 @@ export class ConvexIndex {
 
 /**
  * Hull of a convex polygon (counter-clockwise) and a few extra points, by inserting the points one at a time:
- * the edges a point sees form one run; they are replaced by two edges through the point. O(m) per point.
+ * the edges a point sees form one run; they are replaced by two edges through the point. O(m) per point, in two
+ * scratch buffers (no allocation per point).
  */
+let scratchA = new Float64Array(0);
+let scratchB = new Float64Array(0);
 export function insertIntoHull(polygon: Float64Array, extra: Float64Array, extraCount: number): Float64Array {
-  let poly = polygon;
+  const capacity = polygon.length + 2 * extraCount;
+  if (scratchA.length < capacity) {
+    scratchA = new Float64Array(2 * capacity);
+    scratchB = new Float64Array(2 * capacity);
+  }
+  let poly = scratchA;
+  let next = scratchB;
+  poly.set(polygon);
+  let m = polygon.length / 2;
+  let changed = false;
   for (let e = 0; e < extraCount; e++) {
     const px = extra[2 * e];
     const py = extra[2 * e + 1];
-    const m = poly.length / 2;
-    const sees = (i: number): boolean => {
-      const j = i + 1 === m ? 0 : i + 1;
-      return (poly[2 * j] - poly[2 * i]) * (py - poly[2 * i + 1]) - (poly[2 * j + 1] - poly[2 * i + 1]) * (px - poly[2 * i]) < 0;
-    };
+    // Edge i (vertex i → i + 1) is seen from p when p is strictly to its right.
     let first = -1;
     for (let i = 0; i < m; i++) {
-      if (sees(i)) {
+      const j = i + 1 === m ? 0 : i + 1;
+      if ((poly[2 * j] - poly[2 * i]) * (py - poly[2 * i + 1]) - (poly[2 * j + 1] - poly[2 * i + 1]) * (px - poly[2 * i]) < 0) {
         first = i;
         break;
       }
@@ -253,21 +262,36 @@ export function insertIntoHull(polygon: Float64Array, extra: Float64Array, extra
     if (first < 0) continue;
     // Walk back to the start of the visible run, then forward to its end.
     let start = first;
-    while (sees((start + m - 1) % m) && (start + m - 1) % m !== first) start = (start + m - 1) % m;
+    for (;;) {
+      const i = start === 0 ? m - 1 : start - 1;
+      if (i === first) break;
+      const j = start;
+      if (!((poly[2 * j] - poly[2 * i]) * (py - poly[2 * i + 1]) - (poly[2 * j + 1] - poly[2 * i + 1]) * (px - poly[2 * i]) < 0)) break;
+      start = i;
+    }
     let end = first;
-    while (sees((end + 1) % m) && (end + 1) % m !== start) end = (end + 1) % m;
+    for (;;) {
+      const i = end + 1 === m ? 0 : end + 1;
+      if (i === start) break;
+      const j = i + 1 === m ? 0 : i + 1;
+      if (!((poly[2 * j] - poly[2 * i]) * (py - poly[2 * i + 1]) - (poly[2 * j + 1] - poly[2 * i + 1]) * (px - poly[2 * i]) < 0)) break;
+      end = i;
+    }
     // Keep vertices from end+1 round to start (inclusive), then the new point.
     const kept = ((start - (end + 1) + 2 * m) % m) + 1;
-    const next = new Float64Array(2 * (kept + 1));
     for (let t = 0, i = (end + 1) % m; t < kept; t++, i = i + 1 === m ? 0 : i + 1) {
       next[2 * t] = poly[2 * i];
       next[2 * t + 1] = poly[2 * i + 1];
     }
     next[2 * kept] = px;
     next[2 * kept + 1] = py;
+    m = kept + 1;
+    const swap = poly;
     poly = next;
+    next = swap;
+    changed = true;
   }
-  return poly === polygon ? polygon : cleanHull(poly);
+  return changed ? cleanHull(poly.slice(0, 2 * m)) : polygon;
 }
 
 /**

@@ -26,17 +26,20 @@ type PeakState = RunState<PeakProfile> | { status: 'coarse'; result: PeakProfile
 /** Start a run at most this long after the first unserved input change (later changes do not postpone it). */
 const SETTLE_MS = 150;
 /**
- * A run that is already computing (it has reported progress) keeps going after an input change until its coarse
- * profile is on screen — so a moving finger still sees the peak redrawn — but no longer than this; the newest
- * inputs start right after. A run still refining, or not yet under way, is cancelled at once.
+ * A run that is computing (it reported progress within this time) keeps going after an input change until its
+ * coarse profile is on screen — so a moving finger still sees the peak redrawn — but for no longer than this
+ * after the change; the newest inputs start right after. A run still refining, or not yet under way, is
+ * cancelled at once.
  */
 const COARSE_WAIT_MS = 600;
 
 interface ActiveRun {
   key: string;
   controller: AbortController;
-  started: number;
-  reporting: boolean;
+  /** Date.now() of the last progress message (0: none yet). */
+  lastProgress: number;
+  /** While a newer input waits for this run's coarse profile: when the wait ends. */
+  waitUntil: number | null;
   coarseShown: boolean;
 }
 
@@ -82,7 +85,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     cancelActive();
     const next = wanted.current;
     if (!next) return;
-    const entry: ActiveRun = { key: next.key, controller: new AbortController(), started: Date.now(), reporting: false, coarseShown: false };
+    const entry: ActiveRun = { key: next.key, controller: new AbortController(), lastProgress: 0, waitUntil: null, coarseShown: false };
     active.current = entry;
     const handOver = (): void => {
       // A newer input waited for this run's coarse profile: start it now.
@@ -92,7 +95,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
       .run('peakProfile', next.params, {
         signal: entry.controller.signal,
         onProgress: (f) => {
-          entry.reporting = true;
+          entry.lastProgress = Date.now();
           if (active.current !== entry) return;
           setPeak((s) => (s.status === 'coarse' && s.key === entry.key ? { ...s, progress: f } : { status: 'running', progress: f }));
         },
@@ -124,10 +127,13 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     if (current && current.key === run.key) return;
     setPeak((s) => (s.status === 'running' ? s : { status: 'running', progress: 0 }));
     const now = Date.now();
-    if (current && current.reporting && !current.coarseShown && now - current.started < COARSE_WAIT_MS) {
-      // Let it land its coarse profile (onPartial hands over); a stuck one is replaced after COARSE_WAIT_MS.
-      clearTimer();
-      timer.current = setTimeout(startWanted, current.started + COARSE_WAIT_MS - now);
+    if (current && !current.coarseShown && now - current.lastProgress < COARSE_WAIT_MS && (current.waitUntil ?? now + 1) > now) {
+      // Let it land its coarse profile (onPartial hands over); one that takes too long is replaced.
+      if (current.waitUntil === null) {
+        current.waitUntil = now + COARSE_WAIT_MS;
+        clearTimer();
+        timer.current = setTimeout(startWanted, COARSE_WAIT_MS);
+      }
       return;
     }
     cancelActive();
