@@ -167,7 +167,12 @@ export interface ProgressiveProfileOptions extends PeakProfileOptions {
 }
 
 /** True when every error bound of the profile is within `relative` of its peak height. */
-export function profileWithin(profile: PeakProfile, relative: number): boolean {
+export function profileWithin(profile: Pick<PeakProfile, 'errorBound' | 'peakTransmission'>, relative: number): boolean {
+  if (profile === null || typeof profile !== 'object' || !profile.errorBound || typeof profile.errorBound.length !== 'number') {
+    throw new InputRangeError('profile', profile, 'a peak profile (errorBound per point and peakTransmission)');
+  }
+  requireFinite('relative', relative, 0, 1);
+  requireFinite('profile.peakTransmission', profile.peakTransmission, 0, 1, 'none');
   let worst = 0;
   for (let i = 0; i < profile.errorBound.length; i++) worst = Math.max(worst, profile.errorBound[i]);
   return worst <= relative * profile.peakTransmission;
