@@ -23,8 +23,11 @@ type RunState<T> =
 /** The peak's run: as RunState, plus a coarse complete profile shown while the refined one computes. */
 type PeakState = RunState<PeakProfile> | { status: 'coarse'; result: PeakProfile; key: string; progress: number };
 
-/** Start a run at most this long after the first unserved input change (later changes do not postpone it). */
-const SETTLE_MS = 150;
+/**
+ * Start a run at most this long after the first unserved input change (later changes do not postpone it, so a
+ * moving finger still gets runs; a computing run is protected, below).
+ */
+const SETTLE_MS = 40;
 /**
  * A run that is computing (it reported progress within this time) keeps going after an input change until its
  * coarse profile is on screen — so a moving finger still sees the peak redrawn — but for no longer than this
@@ -56,7 +59,12 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
   const curveController = useRef<AbortController | null>(null);
   // The last finished (or coarse) peak stays on screen while a newer run computes (marked busy).
   const lastDone = useRef<PeakProfile | null>(null);
-  if (peak.status === 'done' || peak.status === 'coarse') lastDone.current = peak.result;
+  // Whether the peak on screen is a coarse one (error ≤ 1 % of the peak height, not 0.1 %).
+  const lastCoarse = useRef(false);
+  if (peak.status === 'done' || peak.status === 'coarse') {
+    lastDone.current = peak.result;
+    lastCoarse.current = peak.status === 'coarse';
+  }
 
   const errors: FieldErrors = {};
   const run = instrument ? buildPeakRun(inputs, instrument, errors) : null;
@@ -213,7 +221,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
   const hazard = run ? hazardousLive({ dc: run.dc, rf: run.rf }) : null;
   const result = lastDone.current;
   const stale = peak.status === 'running' || peak.status === 'coarse';
-  const coarse = peak.status === 'coarse';
+  const coarse = result !== null && lastCoarse.current;
   const mzText = inputs.mz.trim();
   const ctx: Record<string, string | number> = run
     ? { mz: mzText, resolutionSetting: inputs.resolution, ionEnergy: run.params.axialVoltage, beamRadius: run.params.beamRadius, transverseEnergy: run.params.transverseEnergy }
@@ -253,10 +261,10 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
             <progress max={1} value={peak.progress} aria-label="Simulation progress" /> Computing… {Math.round(100 * peak.progress)} %
           </p>
         )}
-        {peak.status === 'coarse' && (
+        {coarse && peak.status !== 'failed' && (
           <p class="hint" role="status" data-testid="peak-coarse">
             <strong>coarse — refining…</strong> (each point within 1 % of the peak height)
-            {peak.progress > 0 && <> · <progress max={1} value={peak.progress} aria-label="Refinement progress" /> {Math.round(100 * peak.progress)} %</>}
+            {peak.status === 'coarse' && peak.progress > 0 && <> · <progress max={1} value={peak.progress} aria-label="Refinement progress" /> {Math.round(100 * peak.progress)} %</>}
           </p>
         )}
         {peak.status === 'failed' && <p class="field-error" role="alert">The simulation stopped: {peak.message}</p>}
