@@ -44,6 +44,9 @@ export * from './massDrift';
 export { transmission, type TransmissionResult, type FastTransmissionOptions } from './transmission';
 export {
   peakProfile,
+  peakProfileProgressive,
+  profileWithin,
+  COARSE_PROFILE_OPTIONS,
   peakWidths,
   transmissionVsResolution,
   stableInterval,
@@ -51,6 +54,7 @@ export {
   type PeakProfile,
   type PeakProfileParams,
   type PeakProfileOptions,
+  type ProgressiveProfileOptions,
   type RunControl,
   type TransmissionVsResolution,
   type TransmissionVsResolutionParams,

@@ -104,21 +104,29 @@ export function peakProfile(p: PeakProfileParams, options: PeakProfileOptions = 
     if (r.transmission > peak) peak = r.transmission;
     report((0.6 * (i + 1)) / n);
   }
-  // Pass 2: refine where the bound is too large for the peak height.
+  // Pass 2: refine where the bound is too large for the peak height. Refinement can lower the peak, and with it
+  // the target, so repeat until every bound meets the target of the final peak (or the phase limit).
   // Absolute floor 1e-7: a window with no peak (T ≈ 0 everywhere) must not refine for ever.
-  const target = Math.max(relative * peak, 1e-7);
-  const pending: number[] = [];
-  for (let i = 0; i < n; i++) if (errorBound[i] > target) pending.push(i);
-  pending.forEach((i, done) => {
-    checkStop(options);
-    while (errorBound[i] > target && values[i].phases < MAX_PHASES) {
-      values[i] = evaluatePhases(contexts[i], values[i].phases * 2, values[i]);
-      const r = summarisePhases(values[i]);
-      transmission[i] = r.transmission;
-      errorBound[i] = r.errorBound;
-    }
-    report(0.6 + (0.4 * (done + 1)) / pending.length);
-  });
+  for (let round = 0; round < 4; round++) {
+    let top = 0;
+    for (let i = 0; i < n; i++) if (transmission[i] > top) top = transmission[i];
+    if (round > 0 && top === peak) break;
+    peak = top;
+    const target = Math.max(relative * peak, 1e-7);
+    const pending: number[] = [];
+    for (let i = 0; i < n; i++) if (errorBound[i] > target && values[i].phases < MAX_PHASES) pending.push(i);
+    if (pending.length === 0) break;
+    pending.forEach((i, done) => {
+      checkStop(options);
+      while (errorBound[i] > target && values[i].phases < MAX_PHASES) {
+        values[i] = evaluatePhases(contexts[i], values[i].phases * 2, values[i]);
+        const r = summarisePhases(values[i]);
+        transmission[i] = r.transmission;
+        errorBound[i] = r.errorBound;
+      }
+      if (round === 0) report(0.6 + (0.4 * (done + 1)) / pending.length);
+    });
+  }
   report(1);
   const widths = peakWidths(mz, transmission);
   // A "peak" no taller than ten times its own error bound (or below 1e-9) has no measurable width.
@@ -129,6 +137,67 @@ export function peakProfile(p: PeakProfileParams, options: PeakProfileOptions = 
     widths.resolution10 = 0;
   }
   return { mz, transmission, errorBound, ...widths };
+}
+
+/**
+ * Settings of the coarse, quick profile that peakProfileProgressive delivers first: 64 samples per period, 8
+ * starting phases, whole-period hulls thinned to δ = 1e-3, the scaled inner bracket (see transmission.ts),
+ * quadrature panels cut at ±s and ±2s only; error bound ≤ 1 % of the peak height. The same rigorous bracket and phase rule as the full profile, only wider.
+ */
+export const COARSE_PROFILE_OPTIONS: Readonly<Required<Omit<FastTransmissionOptions, 'quadratureOrder' | 'substeps'>>> & {
+  readonly relativeTolerance: number;
+} = {
+  samplesPerPeriod: 64,
+  phases: 8,
+  hullTolerance: 1e-3,
+  hullKeep: 16,
+  scaledInner: true,
+  panelLevels: [1, 2],
+  relativeTolerance: 1e-2,
+};
+
+export interface ProgressiveProfileOptions extends PeakProfileOptions {
+  /**
+   * Receives the coarse profile (COARSE_PROFILE_OPTIONS) before the refined one is computed — only when every
+   * point's error bound is within 1 % of its peak height, as the coarse stage promises.
+   */
+  onCoarse?: (coarse: PeakProfile) => void;
+  /** Fraction of the progress scale given to the coarse stage; default 0.35. */
+  coarseShare?: number;
+}
+
+/** True when every error bound of the profile is within `relative` of its peak height. */
+export function profileWithin(profile: Pick<PeakProfile, 'errorBound' | 'peakTransmission'>, relative: number): boolean {
+  if (profile === null || typeof profile !== 'object' || !profile.errorBound || typeof profile.errorBound.length !== 'number') {
+    throw new InputRangeError('profile', profile, 'a peak profile (errorBound per point and peakTransmission)');
+  }
+  requireFinite('relative', relative, 0, 1);
+  requireFinite('profile.peakTransmission', profile.peakTransmission, 0, 1, 'none');
+  let worst = 0;
+  for (let i = 0; i < profile.errorBound.length; i++) worst = Math.max(worst, profile.errorBound[i]);
+  return worst <= relative * profile.peakTransmission;
+}
+
+/**
+ * The peak in two stages: a coarse complete profile (error bound ≤ 1 % of the peak height, handed to onCoarse),
+ * then the refined one with `options` (default ≤ 1e-3 of the peak height), which is returned. Progress runs over
+ * both stages; cancellation is polled in both.
+ */
+export function peakProfileProgressive(p: PeakProfileParams, options: ProgressiveProfileOptions = {}): PeakProfile {
+  validateProfileParams(p);
+  const share = requireFinite('coarseShare', options.coarseShare ?? 0.35, 0, 1, 'none');
+  const { onCoarse, coarseShare: _share, onProgress, ...rest } = options;
+  if (onCoarse) {
+    const coarse = peakProfile(p, {
+      ...COARSE_PROFILE_OPTIONS,
+      shouldStop: options.shouldStop,
+      signal: options.signal,
+      onProgress: onProgress ? (f) => onProgress(share * f) : undefined,
+    });
+    if (profileWithin(coarse, COARSE_PROFILE_OPTIONS.relativeTolerance)) onCoarse(coarse);
+  }
+  const start = onCoarse ? share : 0;
+  return peakProfile(p, { ...rest, onProgress: onProgress ? (f) => onProgress(start + (1 - start) * f) : undefined });
 }
 
 /**

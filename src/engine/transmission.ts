@@ -32,18 +32,26 @@
  *    max|x| ≤ max(|x_k|, |x_k+1|) + h²G/8·max|x|. With ε = h²G/8 (h = π/S) and the thinning factor (1 + δ),
  *    the true acceptance lies between the computed polygon A and (1 − ε)/(1 + δ)·A. Both are integrated (the inner
  *    one at every other phase): T_in ≤ T ≤ T_out. We return T_out − (T_out − T_in)/2 and add the half-width.
+ *    Cheaper inner end (option scaledInner): the entry density (uniform disc in (x0, y0) times Gaussians in the
+ *    slopes) does not increase along rays from the origin, so with z → (λx·zx, λy·zy) the inner set
+ *    λx·A_x × λy·A_y holds at least λx²·λy² of the ions in A_x × A_y (λx·λy with no transverse velocity, where the
+ *    slopes are fixed at 0): T_in ≥ λx²λy²·T_out per phase, with λ = 1 − ε. No second quadrature is needed; the
+ *    bracket is then ≈ 4ε·T instead of the integrated one (about half that).
  *  - Phase rule: |T_P − T_P/2| (the P/2 rule is the even subset; conservative for the exponentially convergent
  *    trapezoid rule on a smooth periodic integrand).
  *  - Growth beyond 1e10 (needle-shaped hulls lose their orientation digits): the phase is counted as 0 and the
  *    strip bound of phaseAcceptance is added.
  *  The Magnus tables (≈3e-9 per period), erfc (1e-14) and the quadrature (< 1e-5 of peak) are below this and are
- *  checked by convergence tests. With S = 128 the bound is ≈ 1e-4·T near the apex; the profile refines phases
+ *  checked by convergence tests. (Panels cut at ±s, ±2s only — the coarse stage — move T by < 3e-4 of T in the
+ *  tests, far inside that stage's 1 % budget. Fewer than 64 samples per period let the Magnus error, which is not in
+ *  the bracket, show: the coarse stage keeps 64.) With S = 128 the bound is ≈ 1e-4·T near the apex; the profile refines phases
  *  until it is ≤ 1e-3 of the peak height. `uncertainty` is 0: nothing here is random.
  */
 import { ConvexIndex, convexHull, insertIntoHull, polarPolygon, simplifyHull, transformRows } from './transmissionHull';
 import { gaussLegendre, meanNormalCdf, normalCdf, psiExcess } from './transmissionMath';
 import { fundamentalAt, monodromy, multiply2, periodTable, power2, type PeriodTable } from './trajectoryMathieu';
-import { flightModel, requireInteger, type FlightModel, type TransmissionParams } from './peakInput';
+import { flightModel, requireFinite, requireInteger, type FlightModel, type TransmissionParams } from './peakInput';
+import { InputRangeError } from './validate';
 
 export interface TransmissionResult {
   transmission: number;
@@ -62,9 +70,36 @@ export interface FastTransmissionOptions {
   quadratureOrder?: number;
   /** Magnus steps between samples; default 2. */
   substeps?: number;
+  /**
+   * Thinning of the whole-period hull, δ: true hull ⊆ (1 + δ)·kept hull, and δ widens the sampling bracket
+   * (see ERROR BOUND). Default 2e-6; a coarse, quick profile may take 1e-3.
+   */
+  hullTolerance?: number;
+  /** Hulls with at most this many vertices are kept exact; default 256. */
+  hullKeep?: number;
+  /**
+   * Inner end of the sampling bracket: false (default) integrates the (1 − ε)-scaled polygons; true takes the
+   * cheaper lower bound T_in ≥ λx^d·λy^d·T_out (λ = 1 − ε per axis, d = 2, or 1 with no transverse velocity),
+   * which holds because the ion density does not increase along rays from the origin (see ERROR BOUND).
+   */
+  scaledInner?: boolean;
+  /**
+   * Levels k at which the quadrature panels are cut where the chain crosses ±k·s (besides 0 and the chain ends);
+   * default [0.5, 1, 2, 4]. Fewer levels, fewer panels: the coarse profile takes [1, 2].
+   */
+  panelLevels?: readonly number[];
 }
 
-export const FAST_DEFAULTS = { samplesPerPeriod: 128, phases: 16, quadratureOrder: 4, substeps: 2 } as const;
+export const FAST_DEFAULTS = {
+  samplesPerPeriod: 128,
+  phases: 16,
+  quadratureOrder: 4,
+  substeps: 2,
+  hullTolerance: 2e-6,
+  hullKeep: 256,
+  scaledInner: false,
+  panelLevels: [0.5, 1, 2, 4] as readonly number[],
+} as const;
 
 /**
  * Rows r(ξ) beyond this size make the hull a needle whose orientation tests lose their digits (aspect ratio
@@ -74,10 +109,10 @@ export const FAST_DEFAULTS = { samplesPerPeriod: 128, phases: 16, quadratureOrde
 const COLLAPSE_LIMIT = 1e10;
 
 /**
- * The core hull (whole periods) is thinned so that true hull ⊆ (1 + δ)·kept hull; δ enters the sampling bracket.
- * Long stable flights otherwise carry ~2 hull vertices per RF cycle into every phase.
+ * The core hull (whole periods) is thinned so that true hull ⊆ (1 + δ)·kept hull (δ = hullTolerance, default
+ * 2e-6); δ enters the sampling bracket. Long stable flights otherwise carry ~2 hull vertices per RF cycle into
+ * every phase.
  */
-const HULL_SIMPLIFICATION = 2e-6;
 
 /** Everything about one transverse axis that does not depend on the entry phase. */
 export interface AxisFlight {
@@ -96,7 +131,7 @@ export interface AxisFlight {
   /**
    * Relative shrink of the inner polygon: the true acceptance contains (1 − ε)/(1 + δ) times the computed one,
    * ε = h²G/8 the overshoot between samples, (1 + δ) the product over the simplifications of the core hull
-   * (≤ 1 + 1.6·HULL_SIMPLIFICATION).
+   * (≤ 1 + 1.6·hullTolerance).
    */
   epsilon: number;
   /**
@@ -106,7 +141,15 @@ export interface AxisFlight {
   candidates: { xi: Float64Array; u: Float64Array; w: Float64Array; count: number };
 }
 
-export function prepareAxis(A: number, Q: number, cycles: number, samples: number, substeps: number): AxisFlight {
+export function prepareAxis(
+  A: number,
+  Q: number,
+  cycles: number,
+  samples: number,
+  substeps: number,
+  hullTolerance: number = FAST_DEFAULTS.hullTolerance,
+  hullKeep: number = FAST_DEFAULTS.hullKeep,
+): AxisFlight {
   const table = periodTable(A, Q, samples, substeps);
   const m = monodromy(table);
   const h = Math.PI / samples;
@@ -132,12 +175,12 @@ export function prepareAxis(A: number, Q: number, cycles: number, samples: numbe
     let mk = m; // M^k
     const bits = coreEnd.toString(2);
     for (let i = 1; i < bits.length && !collapsed; i++) {
-      d = simplifyHull(mergeHull(d, d, mk), HULL_SIMPLIFICATION / 64);
-      growth *= 1 + HULL_SIMPLIFICATION / 64;
+      d = simplifyHull(mergeHull(d, d, mk), hullTolerance / 64, 64, hullKeep);
+      growth *= 1 + hullTolerance / 64;
       mk = multiply2(mk, mk);
       if (bits[i] === '1') {
-        d = simplifyHull(mergeHull(d, h1, mk), HULL_SIMPLIFICATION / 64);
-        growth *= 1 + HULL_SIMPLIFICATION / 64;
+        d = simplifyHull(mergeHull(d, h1, mk), hullTolerance / 64, 64, hullKeep);
+        growth *= 1 + hullTolerance / 64;
         mk = multiply2(mk, m);
       }
       if (maxAbs(mk) > COLLAPSE_LIMIT || maxAbs(d) > COLLAPSE_LIMIT) collapsed = true;
@@ -146,8 +189,8 @@ export function prepareAxis(A: number, Q: number, cycles: number, samples: numbe
     transformRows(d, d.length / 2, m, shifted, 0);
     if (collapsed) collapsedRows = shifted;
     else {
-      core = simplifyHull(convexHull(shifted, shifted.length / 2), HULL_SIMPLIFICATION);
-      growth *= 1 + HULL_SIMPLIFICATION;
+      core = simplifyHull(convexHull(shifted, shifted.length / 2), hullTolerance, 64, hullKeep);
+      growth *= 1 + hullTolerance;
     }
   }
   const epsilon = 1 - (1 - overshoot) / growth;
@@ -266,6 +309,35 @@ export function phaseAcceptance(
   return { polygon: polarPolygon(c), bound: 0 };
 }
 
+/** M^k for the exit period (k takes one or two values per flight): computed once per axis and k. */
+const powerCache = new WeakMap<AxisFlight, Map<number, Float64Array>>();
+function monodromyPower(axis: AxisFlight, k: number): Float64Array {
+  let byK = powerCache.get(axis);
+  if (!byK) {
+    byK = new Map();
+    powerCache.set(axis, byK);
+  }
+  let value = byK.get(k);
+  if (!value) {
+    value = power2(axis.monodromy, k);
+    byK.set(k, value);
+  }
+  return value;
+}
+
+/** Scratch for constraintHull's point set (nothing keeps it: the hull routines return fresh arrays). */
+let hullScratch = new Float64Array(0);
+
+/** Append ±(x, y) unless inside the core hull; returns the new count. */
+function pushOutside(pts: Float64Array, count: number, index: ConvexIndex | null, x: number, y: number): number {
+  if (index && index.contains(x, y)) return count;
+  pts[2 * count] = x;
+  pts[2 * count + 1] = y;
+  pts[2 * count + 2] = -x;
+  pts[2 * count + 3] = -y;
+  return count + 2;
+}
+
 /**
  * Hull of ±c(ξ) over the sampled flight for entry phase ξ0 (c-space: x(ξ)/r0 = c·(x0, x0')/r0), counter-clockwise;
  * null if the axis collapsed. max over its vertices of |c·z| is the largest sampled |x|/r0 of the ion z.
@@ -276,24 +348,18 @@ export function constraintHull(axis: AxisFlight, entryPhase: number): Float64Arr
   const end = entryPhase + cycles * Math.PI;
   const lastPeriod = Math.floor(end / Math.PI);
   const coreCount = axis.core ? axis.core.length / 2 : 0;
-  const pts = new Float64Array(2 * (coreCount + 2 * (candidates.count + 2)));
+  const need = 2 * (coreCount + 2 * (candidates.count + 2));
+  if (hullScratch.length < need) hullScratch = new Float64Array(2 * need);
+  const pts = hullScratch;
   let count = 0;
   if (axis.core) {
     pts.set(axis.core);
     count = coreCount;
   }
   const index = axis.coreIndex;
-  const push = (x: number, y: number): void => {
-    if (index && index.contains(x, y)) return;
-    pts[2 * count] = x;
-    pts[2 * count + 1] = y;
-    pts[2 * count + 2] = -x;
-    pts[2 * count + 3] = -y;
-    count += 2;
-  };
   const entry = new Float64Array(4);
   fundamentalAt(table, entryPhase, entry);
-  push(entry[0], entry[1]);
+  count = pushOutside(pts, count, index, entry[0], entry[1]);
   // Samples strictly after the entry and not after the exit (period 0 and the periods after the core).
   for (let i = 0; i < candidates.count; i++) {
     const at = candidates.xi[i];
@@ -307,9 +373,9 @@ export function constraintHull(axis: AxisFlight, entryPhase: number): Float64Arr
   }
   // Exit point.
   const exit = new Float64Array(4);
-  const mEnd = power2(axis.monodromy, lastPeriod);
+  const mEnd = monodromyPower(axis, lastPeriod);
   fundamentalAt(table, end - lastPeriod * Math.PI, exit);
-  push(exit[0] * mEnd[0] + exit[1] * mEnd[2], exit[0] * mEnd[1] + exit[1] * mEnd[3]);
+  count = pushOutside(pts, count, index, exit[0] * mEnd[0] + exit[1] * mEnd[2], exit[0] * mEnd[1] + exit[1] * mEnd[3]);
 
   // Few points outside the core: insert them; many (growing motion): one full hull.
   const extraCount = count - coreCount;
@@ -528,6 +594,12 @@ function rule(order: number): { nodes: Float64Array; weights: Float64Array } {
  * Transmission at one entry phase: (1/πb²)∫∫_disc P_x(x) P_y(y) dx dy
  *   = (4/πb) ∫_0^Θ P_x(b sin θ) C_y(b cos θ) cos θ dθ, using evenness of P_x and P_y.
  */
+// Scratch lists for phaseTransmission (emptied on each call; nothing keeps them).
+const featureScratchX: number[] = [];
+const featureScratchY: number[] = [];
+const cutScratch: number[] = [];
+const ascending = (p: number, q: number): number => p - q;
+
 export function phaseTransmission(
   fullX: UpperChain,
   fullY: UpperChain,
@@ -545,17 +617,21 @@ export function phaseTransmission(
   const chainY = clipChain(fullY, Math.min(b, fullY.extent));
   const fy = chainIntegral(chainY, s);
   const thetaMax = Math.asin(Math.min(1, limit / b));
-  const xFeatures: number[] = [];
+  const xFeatures = featureScratchX;
+  xFeatures.length = 0;
   chainFeatures(chainX, s, xFeatures, levels);
-  const yFeatures: number[] = [];
+  const yFeatures = featureScratchY;
+  yFeatures.length = 0;
   chainFeatures(chainY, s, yFeatures, levels);
-  const cuts: number[] = [0, thetaMax];
+  const cuts = cutScratch;
+  cuts.length = 0;
+  cuts.push(0, thetaMax);
   for (const x of xFeatures) if (x > 0 && x < limit) cuts.push(Math.asin(x / b));
   for (const y of yFeatures) if (y > 0 && y < b) {
     const t = Math.acos(y / b);
     if (t < thetaMax) cuts.push(t);
   }
-  cuts.sort((p, q) => p - q);
+  cuts.sort(ascending);
   const { nodes, weights } = rule(order);
   let sum = 0;
   for (let i = 0; i + 1 < cuts.length; i++) {
@@ -595,15 +671,21 @@ export function resolveOptions(options: FastTransmissionOptions = {}): Required<
   requireInteger('samplesPerPeriod', resolved.samplesPerPeriod, 4, 1 << 16);
   requireInteger('quadratureOrder', resolved.quadratureOrder, 2, 64);
   requireInteger('substeps', resolved.substeps, 1, 64);
+  requireFinite('hullTolerance', resolved.hullTolerance, 0, 0.01, 'none');
+  requireInteger('hullKeep', resolved.hullKeep, 3, 1 << 20);
+  if (!Array.isArray(resolved.panelLevels) || resolved.panelLevels.length > 16 || !resolved.panelLevels.every((k) => Number.isFinite(k) && k > 0 && k <= 64)) {
+    throw new InputRangeError('panelLevels', resolved.panelLevels, 'a list of up to 16 numbers > 0 and ≤ 64');
+  }
+  if (typeof resolved.scaledInner !== 'boolean') throw new InputRangeError('scaledInner', resolved.scaledInner, 'true or false');
   return resolved;
 }
 
 export function prepareFlight(model: FlightModel, options: Required<FastTransmissionOptions>): FastContext {
-  const { samplesPerPeriod: S, substeps } = options;
+  const { samplesPerPeriod: S, substeps, hullTolerance, hullKeep } = options;
   return {
     model,
-    x: prepareAxis(model.a, model.q, model.cycles, S, substeps),
-    y: prepareAxis(-model.a, -model.q, model.cycles, S, substeps),
+    x: prepareAxis(model.a, model.q, model.cycles, S, substeps, hullTolerance, hullKeep),
+    y: prepareAxis(-model.a, -model.q, model.cycles, S, substeps, hullTolerance, hullKeep),
     options,
   };
 }
@@ -613,8 +695,8 @@ export function phaseBracket(ctx: FastContext, entryPhase: number): { outer: num
   const chains = phaseChains(ctx, entryPhase);
   if ('bound' in chains) return { outer: 0, inner: 0 };
   const { beamRadius, slopeSigma } = ctx.model;
-  const outer = phaseTransmission(chains.x, chains.y, beamRadius, slopeSigma, ctx.options.quadratureOrder);
-  return { outer, inner: innerTransmission(ctx, chains) };
+  const outer = phaseTransmission(chains.x, chains.y, beamRadius, slopeSigma, ctx.options.quadratureOrder, undefined, ctx.options.panelLevels);
+  return { outer, inner: innerTransmission(ctx, chains, outer) };
 }
 
 /**
@@ -646,14 +728,20 @@ function phaseChains(ctx: FastContext, entry: number): PhaseChains | { bound: nu
   return { x: upperChain(ax.polygon), y: upperChain(ay.polygon), px: ax.polygon, py: ay.polygon };
 }
 
-function innerTransmission(ctx: FastContext, chains: PhaseChains): number {
+function innerTransmission(ctx: FastContext, chains: PhaseChains, outer: number): number {
   const { beamRadius, slopeSigma } = ctx.model;
+  if (ctx.options.scaledInner) {
+    const d = slopeSigma > 0 ? 2 : 1;
+    return Math.pow((1 - ctx.x.epsilon) * (1 - ctx.y.epsilon), d) * outer;
+  }
   return phaseTransmission(
     upperChain(chains.px, 1 - ctx.x.epsilon),
     upperChain(chains.py, 1 - ctx.y.epsilon),
     beamRadius,
     slopeSigma,
     ctx.options.quadratureOrder,
+    undefined,
+    ctx.options.panelLevels,
   );
 }
 
@@ -684,8 +772,10 @@ export function evaluatePhases(ctx: FastContext, phases: number, previous: Phase
       negligible[k] = chains.bound;
       continue;
     }
-    if (!(reuse && k % 2 === 0)) outer[k] = phaseTransmission(chains.x, chains.y, beamRadius, slopeSigma, ctx.options.quadratureOrder);
-    if (k % 2 === 0) inner[k] = innerTransmission(ctx, chains);
+    if (!(reuse && k % 2 === 0)) {
+      outer[k] = phaseTransmission(chains.x, chains.y, beamRadius, slopeSigma, ctx.options.quadratureOrder, undefined, ctx.options.panelLevels);
+    }
+    if (k % 2 === 0) inner[k] = innerTransmission(ctx, chains, outer[k]);
   }
   return { phases, outer, inner, negligible };
 }

@@ -105,19 +105,20 @@ function cross(points: Float64Array, o: number, a: number, b: number): number {
  */
 function prefilter(points: Float64Array, count: number): Uint32Array {
   if (count < 16) return Uint32Array.from({ length: count }, (_, i) => i);
-  const directions = [1, 0, 1, 1, 0, 1, -1, 1, -1, 0, -1, -1, 0, -1, 1, -1];
+  // Directions (1, 0), (1, 1), (0, 1), (−1, 1), (−1, 0), (−1, −1), (0, −1), (1, −1), unrolled.
   const best = new Int32Array(8);
-  const bestValue = new Float64Array(8).fill(-Infinity);
+  let b0 = -Infinity, b1 = -Infinity, b2 = -Infinity, b3 = -Infinity, b4 = -Infinity, b5 = -Infinity, b6 = -Infinity, b7 = -Infinity;
   for (let i = 0; i < count; i++) {
     const x = points[2 * i];
     const y = points[2 * i + 1];
-    for (let d = 0; d < 8; d++) {
-      const v = directions[2 * d] * x + directions[2 * d + 1] * y;
-      if (v > bestValue[d]) {
-        bestValue[d] = v;
-        best[d] = i;
-      }
-    }
+    if (x > b0) { b0 = x; best[0] = i; }
+    if (x + y > b1) { b1 = x + y; best[1] = i; }
+    if (y > b2) { b2 = y; best[2] = i; }
+    if (y - x > b3) { b3 = y - x; best[3] = i; }
+    if (-x > b4) { b4 = -x; best[4] = i; }
+    if (-x - y > b5) { b5 = -x - y; best[5] = i; }
+    if (-y > b6) { b6 = -y; best[6] = i; }
+    if (x - y > b7) { b7 = x - y; best[7] = i; }
   }
   // The extreme points in angular order of their directions form a convex polygon (possibly with repeats).
   const ring: number[] = [];
@@ -126,23 +127,36 @@ function prefilter(points: Float64Array, count: number): Uint32Array {
   const out = new Uint32Array(count);
   let kept = 0;
   const m = ring.length;
+  if (m < 3) {
+    for (let i = 0; i < count; i++) out[i] = i;
+    return out;
+  }
+  // Edge data once per edge (the same arithmetic as cross(), tolerance 1e-12·|edge|²).
+  const ex = new Float64Array(m);
+  const ey = new Float64Array(m);
+  const dx = new Float64Array(m);
+  const dy = new Float64Array(m);
+  const tol = new Float64Array(m);
+  for (let e = 0; e < m; e++) {
+    const a = ring[e];
+    const b = ring[(e + 1) % m];
+    ex[e] = points[2 * a];
+    ey[e] = points[2 * a + 1];
+    dx[e] = points[2 * b] - ex[e];
+    dy[e] = points[2 * b + 1] - ey[e];
+    tol[e] = 1e-12 * (dx[e] * dx[e] + dy[e] * dy[e]);
+  }
   for (let i = 0; i < count; i++) {
-    let inside = m >= 3;
+    const x = points[2 * i];
+    const y = points[2 * i + 1];
+    let inside = true;
+    // Strictly left of every edge (counter-clockwise ring) → strictly inside.
     for (let e = 0; e < m && inside; e++) {
-      const a = ring[e];
-      const b = ring[(e + 1) % m];
-      // Strictly left of every edge (counter-clockwise ring) → strictly inside.
-      if (cross(points, a, b, i) <= 1e-12 * scaleOf(points, a, b)) inside = false;
+      if (dx[e] * (y - ey[e]) - dy[e] * (x - ex[e]) <= tol[e]) inside = false;
     }
     if (!inside) out[kept++] = i;
   }
   return out.slice(0, kept);
-}
-
-function scaleOf(points: Float64Array, a: number, b: number): number {
-  const dx = points[2 * b] - points[2 * a];
-  const dy = points[2 * b + 1] - points[2 * a + 1];
-  return dx * dx + dy * dy;
 }
 
 /** Points p·B for row vectors p and a row-major 2×2 matrix B (appended into `into` at `offset`). */
@@ -231,21 +245,30 @@ export class ConvexIndex {
 
 /**
  * Hull of a convex polygon (counter-clockwise) and a few extra points, by inserting the points one at a time:
- * the edges a point sees form one run; they are replaced by two edges through the point. O(m) per point.
+ * the edges a point sees form one run; they are replaced by two edges through the point. O(m) per point, in two
+ * scratch buffers (no allocation per point).
  */
+let scratchA = new Float64Array(0);
+let scratchB = new Float64Array(0);
 export function insertIntoHull(polygon: Float64Array, extra: Float64Array, extraCount: number): Float64Array {
-  let poly = polygon;
+  const capacity = polygon.length + 2 * extraCount;
+  if (scratchA.length < capacity) {
+    scratchA = new Float64Array(2 * capacity);
+    scratchB = new Float64Array(2 * capacity);
+  }
+  let poly = scratchA;
+  let next = scratchB;
+  poly.set(polygon);
+  let m = polygon.length / 2;
+  let changed = false;
   for (let e = 0; e < extraCount; e++) {
     const px = extra[2 * e];
     const py = extra[2 * e + 1];
-    const m = poly.length / 2;
-    const sees = (i: number): boolean => {
-      const j = i + 1 === m ? 0 : i + 1;
-      return (poly[2 * j] - poly[2 * i]) * (py - poly[2 * i + 1]) - (poly[2 * j + 1] - poly[2 * i + 1]) * (px - poly[2 * i]) < 0;
-    };
+    // Edge i (vertex i → i + 1) is seen from p when p is strictly to its right.
     let first = -1;
     for (let i = 0; i < m; i++) {
-      if (sees(i)) {
+      const j = i + 1 === m ? 0 : i + 1;
+      if ((poly[2 * j] - poly[2 * i]) * (py - poly[2 * i + 1]) - (poly[2 * j + 1] - poly[2 * i + 1]) * (px - poly[2 * i]) < 0) {
         first = i;
         break;
       }
@@ -253,21 +276,36 @@ export function insertIntoHull(polygon: Float64Array, extra: Float64Array, extra
     if (first < 0) continue;
     // Walk back to the start of the visible run, then forward to its end.
     let start = first;
-    while (sees((start + m - 1) % m) && (start + m - 1) % m !== first) start = (start + m - 1) % m;
+    for (;;) {
+      const i = start === 0 ? m - 1 : start - 1;
+      if (i === first) break;
+      const j = start;
+      if (!((poly[2 * j] - poly[2 * i]) * (py - poly[2 * i + 1]) - (poly[2 * j + 1] - poly[2 * i + 1]) * (px - poly[2 * i]) < 0)) break;
+      start = i;
+    }
     let end = first;
-    while (sees((end + 1) % m) && (end + 1) % m !== start) end = (end + 1) % m;
+    for (;;) {
+      const i = end + 1 === m ? 0 : end + 1;
+      if (i === start) break;
+      const j = i + 1 === m ? 0 : i + 1;
+      if (!((poly[2 * j] - poly[2 * i]) * (py - poly[2 * i + 1]) - (poly[2 * j + 1] - poly[2 * i + 1]) * (px - poly[2 * i]) < 0)) break;
+      end = i;
+    }
     // Keep vertices from end+1 round to start (inclusive), then the new point.
     const kept = ((start - (end + 1) + 2 * m) % m) + 1;
-    const next = new Float64Array(2 * (kept + 1));
     for (let t = 0, i = (end + 1) % m; t < kept; t++, i = i + 1 === m ? 0 : i + 1) {
       next[2 * t] = poly[2 * i];
       next[2 * t + 1] = poly[2 * i + 1];
     }
     next[2 * kept] = px;
     next[2 * kept + 1] = py;
+    m = kept + 1;
+    const swap = poly;
     poly = next;
+    next = swap;
+    changed = true;
   }
-  return poly === polygon ? polygon : cleanHull(poly);
+  return changed ? cleanHull(poly.slice(0, 2 * m)) : polygon;
 }
 
 /**

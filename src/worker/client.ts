@@ -12,15 +12,18 @@ export interface WorkerLike {
   onerror: ((event: { message?: string }) => void) | null;
 }
 
-export interface RunOptions {
+export interface RunOptions<R = unknown> {
   signal?: AbortSignal;
   onProgress?: (fraction: number) => void;
+  /** A complete but coarse result ahead of the final one (peakProfile: error bound ≤ 1 % of the peak height). */
+  onPartial?: (result: R) => void;
 }
 
 interface Pending {
   resolve: (value: unknown) => void;
   reject: (reason: unknown) => void;
   onProgress?: (fraction: number) => void;
+  onPartial?: (result: unknown) => void;
   cleanup: () => void;
 }
 
@@ -49,8 +52,8 @@ export class SimClient {
     return this.worker !== null;
   }
 
-  run<K extends SimKind>(kind: K, params: SimKinds[K]['params'], options: RunOptions = {}): Promise<SimKinds[K]['result']> {
-    const { signal, onProgress } = options;
+  run<K extends SimKind>(kind: K, params: SimKinds[K]['params'], options: RunOptions<SimKinds[K]['result']> = {}): Promise<SimKinds[K]['result']> {
+    const { signal, onProgress, onPartial } = options;
     if (signal?.aborted) return Promise.reject(abortError());
     const worker = this.ensureWorker();
     const id = this.nextId++;
@@ -64,6 +67,7 @@ export class SimClient {
         resolve: resolve as (value: unknown) => void,
         reject,
         onProgress,
+        onPartial: onPartial as ((result: unknown) => void) | undefined,
         cleanup: () => signal?.removeEventListener('abort', onAbort),
       });
       const request: SimRequest<K> = { id, kind, params };
@@ -106,6 +110,10 @@ export class SimClient {
     if (!call) return;
     if (message.type === 'progress') {
       call.onProgress?.(message.fraction);
+      return;
+    }
+    if (message.type === 'partial') {
+      call.onPartial?.(message.result);
       return;
     }
     this.pending.delete(message.id);

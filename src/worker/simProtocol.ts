@@ -4,7 +4,7 @@
 import {
   InputRangeError,
   PeakCancelledError,
-  peakProfile,
+  peakProfileProgressive,
   transmission,
   transmissionVsResolution,
   type PeakProfile,
@@ -43,6 +43,8 @@ export interface SimErrorInfo {
 
 export type SimResponse =
   | { id: number; type: 'progress'; fraction: number }
+  /** A complete but coarse result ahead of the final one (peakProfile: error bound ≤ 1 % of the peak height). */
+  | { id: number; type: 'partial'; coarse: true; result: unknown }
   | { id: number; type: 'result'; result: unknown }
   | { id: number; type: 'error'; error: SimErrorInfo };
 
@@ -67,7 +69,8 @@ export function errorInfo(error: unknown): SimErrorInfo {
 }
 
 /**
- * Run one request and report through `post` (progress at most every 1 % or 100 ms; then one result or error).
+ * Run one request and report through `post` (progress at most every 1 % or 100 ms; for peakProfile a coarse
+ * 'partial' result first; then one result or error).
  * `post` receives the transfer list for result messages.
  */
 export function runRequest(request: SimRequest, post: (message: SimResponse, transfer?: ArrayBuffer[]) => void, now: () => number = Date.now): void {
@@ -90,7 +93,11 @@ export function runRequest(request: SimRequest, post: (message: SimResponse, tra
         onProgress(1);
         break;
       case 'peakProfile':
-        result = peakProfile(request.params as PeakProfileParams, { onProgress });
+        // Coarse complete profile first (posted as 'partial'), then the refined one.
+        result = peakProfileProgressive(request.params as PeakProfileParams, {
+          onProgress,
+          onCoarse: (coarse) => post({ id, type: 'partial', coarse: true, result: coarse }, transferables(coarse)),
+        });
         break;
       case 'transmissionVsResolution':
         result = transmissionVsResolution(request.params as TransmissionVsResolutionParams, { onProgress });

@@ -20,8 +20,31 @@ type RunState<T> =
   | { status: 'done'; result: T; key: string }
   | { status: 'failed'; message: string };
 
-/** Wait this long after the last slider move before starting a run (the previous run is cancelled at once). */
-const SETTLE_MS = 150;
+/** The peak's run: as RunState, plus a coarse complete profile shown while the refined one computes. */
+type PeakState = RunState<PeakProfile> | { status: 'coarse'; result: PeakProfile; key: string; progress: number };
+
+/**
+ * Start a run at most this long after the first unserved input change (later changes do not postpone it, so a
+ * moving finger still gets runs; a computing run is protected, below).
+ */
+const SETTLE_MS = 40;
+/**
+ * A run that is computing (it reported progress within this time) keeps going after an input change until its
+ * coarse profile is on screen — so a moving finger still sees the peak redrawn — but for no longer than this
+ * after the change; the newest inputs start right after. A run still refining, or not yet under way, is
+ * cancelled at once.
+ */
+const COARSE_WAIT_MS = 600;
+
+interface ActiveRun {
+  key: string;
+  controller: AbortController;
+  /** Date.now() of the last progress message (0: none yet). */
+  lastProgress: number;
+  /** While a newer input waits for this run's coarse profile: when the wait ends. */
+  waitUntil: number | null;
+  coarseShown: boolean;
+}
 
 /** The curve runs in a worker of its own, so a slider move (which terminates the peak worker) does not kill it. */
 let curveWorkerClient: SimClient | null = null;
@@ -31,37 +54,111 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
   const client = props.client ?? simClient();
   const curveClient = props.curveClient ?? (curveWorkerClient ??= new SimClient());
   const [inputs, update] = usePersistentInputs<PeakInputs>('peak', peakDefaults);
-  const [peak, setPeak] = useState<RunState<PeakProfile>>({ status: 'idle' });
+  const [peak, setPeak] = useState<PeakState>({ status: 'idle' });
   const [curve, setCurve] = useState<RunState<TransmissionVsResolution>>({ status: 'idle' });
   const curveController = useRef<AbortController | null>(null);
-  // The last finished peak stays on screen while a newer run computes (marked busy).
+  // The last finished (or coarse) peak stays on screen while a newer run computes (marked busy).
   const lastDone = useRef<PeakProfile | null>(null);
-  if (peak.status === 'done') lastDone.current = peak.result;
+  // Whether the peak on screen is a coarse one (error ≤ 1 % of the peak height, not 0.1 %).
+  const lastCoarse = useRef(false);
+  if (peak.status === 'done' || peak.status === 'coarse') {
+    lastDone.current = peak.result;
+    lastCoarse.current = peak.status === 'coarse';
+  }
 
   const errors: FieldErrors = {};
   const run = instrument ? buildPeakRun(inputs, instrument, errors) : null;
   const runKey = run?.key ?? null;
 
-  useEffect(() => {
-    if (!run) return;
-    const controller = new AbortController();
-    setPeak((s) => ({ status: 'running', progress: s.status === 'running' ? s.progress : 0 }));
-    const timer = setTimeout(() => {
-      client
-        .run('peakProfile', run.params, { signal: controller.signal, onProgress: (f) => setPeak({ status: 'running', progress: f }) })
-        .then((result) => setPeak({ status: 'done', result, key: run.key }))
-        .catch((error: unknown) => {
-          if (isAbortError(error)) return; // a newer run replaces this one
-          setPeak({ status: 'failed', message: error instanceof Error ? error.message : String(error) });
-        });
-    }, SETTLE_MS);
-    return () => {
-      clearTimeout(timer);
-      controller.abort();
+  const active = useRef<ActiveRun | null>(null);
+  const wanted = useRef<typeof run>(null);
+  wanted.current = run;
+  const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
+  const unservedSince = useRef<number | null>(null);
+
+  function clearTimer(): void {
+    if (timer.current !== null) clearTimeout(timer.current);
+    timer.current = null;
+  }
+
+  function cancelActive(): void {
+    active.current?.controller.abort();
+    active.current = null;
+  }
+
+  /** Start the newest wanted run now (cancelling whatever still runs). */
+  function startWanted(): void {
+    clearTimer();
+    unservedSince.current = null;
+    cancelActive();
+    const next = wanted.current;
+    if (!next) return;
+    const entry: ActiveRun = { key: next.key, controller: new AbortController(), lastProgress: 0, waitUntil: null, coarseShown: false };
+    active.current = entry;
+    const handOver = (): void => {
+      // A newer input waited for this run's coarse profile: start it now.
+      if (active.current === entry && wanted.current && wanted.current.key !== entry.key) startWanted();
     };
+    client
+      .run('peakProfile', next.params, {
+        signal: entry.controller.signal,
+        onProgress: (f) => {
+          entry.lastProgress = Date.now();
+          if (active.current !== entry) return;
+          setPeak((s) => (s.status === 'coarse' && s.key === entry.key ? { ...s, progress: f } : { status: 'running', progress: f }));
+        },
+        onPartial: (result) => {
+          entry.coarseShown = true;
+          setPeak({ status: 'coarse', result, key: entry.key, progress: 0 });
+          handOver();
+        },
+      })
+      .then((result) => {
+        if (active.current === entry) active.current = null;
+        setPeak({ status: 'done', result, key: entry.key });
+      })
+      .catch((error: unknown) => {
+        if (active.current === entry) active.current = null;
+        if (isAbortError(error)) return; // a newer run replaces this one
+        setPeak({ status: 'failed', message: error instanceof Error ? error.message : String(error) });
+      });
+  }
+
+  useEffect(() => {
+    if (!run) {
+      clearTimer();
+      unservedSince.current = null;
+      cancelActive();
+      return;
+    }
+    const current = active.current;
+    if (current && current.key === run.key) return;
+    setPeak((s) => (s.status === 'running' ? s : { status: 'running', progress: 0 }));
+    const now = Date.now();
+    if (current && !current.coarseShown && now - current.lastProgress < COARSE_WAIT_MS && (current.waitUntil ?? now + 1) > now) {
+      // Let it land its coarse profile (onPartial hands over); one that takes too long is replaced.
+      if (current.waitUntil === null) {
+        current.waitUntil = now + COARSE_WAIT_MS;
+        clearTimer();
+        timer.current = setTimeout(startWanted, COARSE_WAIT_MS);
+      }
+      return;
+    }
+    cancelActive();
+    unservedSince.current ??= now;
+    clearTimer();
+    timer.current = setTimeout(startWanted, Math.max(0, unservedSince.current + SETTLE_MS - now));
     // runKey captures every input of the run.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [runKey]);
+  useEffect(
+    () => () => {
+      clearTimer();
+      cancelActive();
+    },
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+    [],
+  );
 
   // The T-vs-R curve belongs to the beam settings it was computed for: drop it when they change.
   useEffect(() => {
@@ -71,7 +168,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
   useEffect(() => () => curveController.current?.abort(), []);
 
   const peakData = useMemo(() => {
-    if (peak.status !== 'done') return null;
+    if (peak.status !== 'done' && peak.status !== 'coarse') return null;
     const percent = Float64Array.from(peak.result.transmission, (t) => 100 * t);
     return [Array.from(peak.result.mz), Array.from(percent)] as [number[], number[]];
   }, [peak]);
@@ -123,7 +220,8 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
 
   const hazard = run ? hazardousLive({ dc: run.dc, rf: run.rf }) : null;
   const result = lastDone.current;
-  const stale = peak.status === 'running';
+  const stale = peak.status === 'running' || peak.status === 'coarse';
+  const coarse = result !== null && lastCoarse.current;
   const mzText = inputs.mz.trim();
   const ctx: Record<string, string | number> = run
     ? { mz: mzText, resolutionSetting: inputs.resolution, ionEnergy: run.params.axialVoltage, beamRadius: run.params.beamRadius, transverseEnergy: run.params.transverseEnergy }
@@ -163,6 +261,12 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
             <progress max={1} value={peak.progress} aria-label="Simulation progress" /> Computing… {Math.round(100 * peak.progress)} %
           </p>
         )}
+        {coarse && peak.status !== 'failed' && (
+          <p class="hint" role="status" data-testid="peak-coarse">
+            <strong>coarse — refining…</strong> (each point within 1 % of the peak height)
+            {peak.status === 'coarse' && peak.progress > 0 && <> · <progress max={1} value={peak.progress} aria-label="Refinement progress" /> {Math.round(100 * peak.progress)} %</>}
+          </p>
+        )}
         {peak.status === 'failed' && <p class="field-error" role="alert">The simulation stopped: {peak.message}</p>}
         {result && (
           <>
@@ -188,7 +292,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
                   axes: [{ label: 'm/z' }, { label: 'Transmission (%)' }],
                 })} />
             )}
-            <p class="hint">Numerical error of each point ≤ 0.1 % of the peak height (deterministic: no counting noise).</p>
+            <p class="hint">Numerical error of each point ≤ {coarse ? '1' : '0.1'} % of the peak height (deterministic: no counting noise).</p>
           </>
         )}
       </div>

@@ -218,6 +218,18 @@ const cases: Case[] = [
     valid: { ...beam, mzFrom: 499, mzTo: 501, points: 5 },
     bad: { mzFrom: [...NON_FINITE, -1], mzTo: [NaN, 498], points: [NaN, 1, 2.5, -3], r0: POSITIVE, rodLength: POSITIVE, axialVoltage: POSITIVE },
   },
+  {
+    name: 'peakProfileProgressive',
+    call: (p) => engine.peakProfileProgressive(p as never, { onCoarse: () => undefined }),
+    valid: { ...beam, mzFrom: 499, mzTo: 501, points: 5 },
+    bad: { mzFrom: [...NON_FINITE, -1], mzTo: [NaN, 498], points: [NaN, 1, 2.5, -3], r0: POSITIVE, rodLength: POSITIVE, axialVoltage: POSITIVE },
+  },
+  {
+    name: 'profileWithin',
+    call: (p) => engine.profileWithin(p.profile as never, p.relative as number),
+    valid: { profile: { errorBound: [1e-4, 2e-4], peakTransmission: 0.05 }, relative: 0.01 },
+    bad: { profile: [null, undefined, 3, { errorBound: null, peakTransmission: 0.05 }, { errorBound: [1e-4], peakTransmission: NaN }], relative: POSITIVE },
+  },
   { name: 'leastSquares', call: (p) => engine.leastSquares(p.xs as number[], p.ys as number[]), valid: { xs: [0, 1, 2], ys: [1, 2, 4] }, bad: { xs: [null, [0, NaN, 2], [0, Infinity, 2], [0, '1', 2]], ys: [undefined, [1, NaN, 4]] } },
   { name: 'seededRandom', call: (p) => engine.seededRandom(p.seed as number), valid: { seed: 42 }, bad: { seed: [NaN, Infinity, '1', null, 1.5] } },
   { name: 'peakWidths', call: (p) => engine.peakWidths(p.mz as never, p.transmission as never), valid: { mz: [1, 2, 3], transmission: [0, 1, 0] }, bad: { mz: [[], [1], null, [1, NaN, 3], [3, 2, 1]], transmission: [[0, 1], null, [0, -1, 0], [0, NaN, 0]] } },

@@ -1,0 +1,156 @@
+// @vitest-environment happy-dom
+// Coarse → refined on the Peak screen: the worker posts a coarse complete profile (bound ≤ 1 % of the peak
+// height) before the refined one; the screen shows it labelled "coarse — refining…" until the refinement lands.
+// A run that is already computing is let finish its coarse profile when a slider moves; a run that is refining
+// is cancelled at once.
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { act } from 'preact/test-utils';
+import { COARSE_PROFILE_OPTIONS, peakProfile, profileWithin, type PeakProfile } from '../../../src/engine';
+import { PeakSimulation } from '../../../src/ui/peak/PeakSimulation';
+import { buildPeakRun, peakDefaults } from '../../../src/ui/peak/peakInputs';
+import { SimClient, type WorkerLike } from '../../../src/worker/client';
+import { runRequest, type SimRequest, type SimResponse } from '../../../src/worker/simProtocol';
+import { formatNumber } from '../../../src/ui/format';
+import { demo, mount, settle, texts, type Harness } from '../ui/appHarness';
+
+vi.mock('../../../src/ui/components/Chart', () => ({
+  Chart: (props: { data: number[][]; testId?: string; label: string }) => (
+    <figure data-testid={props.testId} data-points={props.data[0].length} data-first={props.data[1][50]} aria-label={props.label} />
+  ),
+}));
+
+/** Computes each request with the real protocol but hands its messages over one at a time, on request. */
+class SteppedWorker implements WorkerLike {
+  onmessage: ((event: { data: SimResponse }) => void) | null = null;
+  onerror: ((event: { message?: string }) => void) | null = null;
+  terminated = false;
+  outbox: SimResponse[] = [];
+  requests: SimRequest[] = [];
+  postMessage(message: unknown): void {
+    const request = message as SimRequest;
+    this.requests.push(request);
+    runRequest(request, (response) => this.outbox.push(response));
+  }
+  terminate(): void {
+    this.terminated = true;
+  }
+  /** Deliver messages up to and including the first of `type`. */
+  deliverThrough(type: SimResponse['type']): SimResponse {
+    for (;;) {
+      const next = this.outbox.shift();
+      if (!next) throw new Error(`no ${type} message left`);
+      if (!this.terminated) this.onmessage?.({ data: next });
+      if (next.type === type) return next;
+    }
+  }
+}
+
+let h: Harness | null = null;
+afterEach(() => {
+  h?.unmount();
+  h = null;
+});
+
+async function waitFor(condition: () => boolean, what: string): Promise<void> {
+  for (let i = 0; i < 200; i++) {
+    if (condition()) return;
+    await act(async () => {
+      await new Promise((r) => setTimeout(r, 10));
+    });
+  }
+  throw new Error(`timed out waiting for ${what}`);
+}
+
+const kept = { mz: '100', resolution: '200', axialVoltage: '20' };
+
+describe('worker: coarse then refined', () => {
+  it('posts a partial coarse profile (bound ≤ 1 % of its peak) before the refined result', () => {
+    const k = demo('kestrel');
+    const run = buildPeakRun({ ...peakDefaults(k), ...kept }, k, {})!;
+    const messages: SimResponse[] = [];
+    runRequest({ id: 3, kind: 'peakProfile', params: run.params }, (m) => messages.push(m));
+    const types = messages.filter((m) => m.type !== 'progress').map((m) => m.type);
+    expect(types).toEqual(['partial', 'result']);
+    const partial = messages.find((m) => m.type === 'partial') as Extract<SimResponse, { type: 'partial' }>;
+    expect(partial.coarse).toBe(true);
+    const coarse = partial.result as PeakProfile;
+    expect(coarse.transmission).toHaveLength(101);
+    expect(profileWithin(coarse, COARSE_PROFILE_OPTIONS.relativeTolerance)).toBe(true);
+    const refined = (messages[messages.length - 1] as { result: PeakProfile }).result;
+    expect(Array.from(refined.transmission)).toEqual(Array.from(peakProfile(run.params).transmission));
+  });
+});
+
+describe('PeakSimulation: coarse → refined', () => {
+  it('labels the coarse profile until the refinement lands, then shows the refined values', async () => {
+    const workers: SteppedWorker[] = [];
+    const client = new SimClient(() => {
+      const w = new SteppedWorker();
+      workers.push(w);
+      return w;
+    });
+    const k = demo('kestrel');
+    h = await mount(<PeakSimulation client={client} curveClient={new SimClient(() => new SteppedWorker())} />, k, { [`inputs:peak:${k.id}`]: kept });
+    await waitFor(() => workers.length === 1 && workers[0].outbox.length > 0, 'the first run');
+    const worker = workers[0];
+    const partial = worker.deliverThrough('partial') as Extract<SimResponse, { type: 'partial' }>;
+    await settle();
+    const coarse = partial.result as PeakProfile;
+    const label = h.root.querySelector('[data-testid="peak-coarse"]');
+    expect(label?.textContent).toMatch(/coarse — refining…/);
+    expect(h.root.querySelector('[data-testid="peak-result"]')?.getAttribute('aria-busy')).toBe('true');
+    const value = (id: string) => texts(h!.root, `[data-testid="${id}"] .result-value`)[0];
+    expect(value('peak-transmission')).toContain(`${formatNumber(100 * coarse.peakTransmission, 3)} %`);
+    expect(h.root.querySelector('[data-testid="peak-chart"]')?.getAttribute('data-points')).toBe('101');
+    expect(h.root.textContent).toMatch(/≤ 1 % of the peak height/);
+
+    const final = worker.deliverThrough('result') as Extract<SimResponse, { type: 'result' }>;
+    await settle();
+    const refined = final.result as PeakProfile;
+    expect(h.root.querySelector('[data-testid="peak-coarse"]')).toBeNull();
+    expect(h.root.querySelector('[data-testid="peak-result"]')?.getAttribute('aria-busy')).toBe('false');
+    expect(value('peak-transmission')).toContain(`${formatNumber(100 * refined.peakTransmission, 3)} %`);
+    expect(value('peak-r50')).toBe(formatNumber(refined.resolution50, 4));
+    expect(h.root.textContent).toMatch(/≤ 0.1 % of the peak height/);
+  });
+
+  it('a slider move lets a computing run land its coarse profile, then starts the newest inputs; a refining run is cancelled', async () => {
+    const workers: SteppedWorker[] = [];
+    const client = new SimClient(() => {
+      const w = new SteppedWorker();
+      workers.push(w);
+      return w;
+    });
+    const k = demo('kestrel');
+    h = await mount(<PeakSimulation client={client} curveClient={new SimClient(() => new SteppedWorker())} />, k, { [`inputs:peak:${k.id}`]: kept });
+    await waitFor(() => workers.length === 1 && workers[0].outbox.length > 0, 'the first run');
+    // The run has started reporting progress …
+    workers[0].deliverThrough('progress');
+    await settle();
+    // … so a slider move does not kill it before its coarse profile.
+    const slider = h.root.querySelector<HTMLInputElement>('#peak-beam-slider')!;
+    await act(async () => {
+      slider.value = '0.3';
+      slider.dispatchEvent(new Event('input', { bubbles: true }));
+    });
+    await settle();
+    expect(workers[0].terminated).toBe(false);
+    workers[0].deliverThrough('partial');
+    await settle();
+    // Coarse drawn, and the newer inputs start at once (the old run's refinement is dropped).
+    expect(workers[0].terminated).toBe(true);
+    expect(h.root.querySelector('[data-testid="peak-chart"]')).not.toBeNull();
+    await waitFor(() => workers.length === 2 && workers[1].requests.length === 1, 'the newer run');
+    const run = buildPeakRun({ ...peakDefaults(k), ...kept, beamRadiusMm: '0.3' }, k, {})!;
+    expect(workers[1].requests[0].params).toEqual(run.params);
+    // While refining, a move cancels at once.
+    workers[1].deliverThrough('partial');
+    await settle();
+    await act(async () => {
+      slider.value = '0.32';
+      slider.dispatchEvent(new Event('input', { bubbles: true }));
+    });
+    await settle();
+    expect(workers[1].terminated).toBe(true);
+  });
+});
