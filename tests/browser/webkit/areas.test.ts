@@ -79,6 +79,7 @@ describe('WebKit: every area', () => {
     });
     expect(state.failed).toBe(false);
     expect(state.heading).toMatch(heading);
+    await s.appReady();
     // Numbers on screen never read NaN or undefined.
     const text = await s.run<string>(`return document.querySelector('main').textContent;`);
     expect(text).not.toMatch(/\bNaN\b|\bundefined\b/);

@@ -81,6 +81,7 @@ describe('WebKit: data kept on the device', () => {
       return t && /3 profiles on this device/.test(t) ? t : undefined;
     });
     expect(current).toMatch(/\(demo\)/);
+    await s.appReady();
   });
 
   it('creates a profile and a visit through the screens', async () => {
@@ -105,6 +106,7 @@ describe('WebKit: data kept on the device', () => {
       return /^\/visits\/visit-/.test(p) ? p : undefined;
     });
     await waitFor('the visit summary', async () => (await s.texts('[data-testid="visit-summary"]')).some((t) => t.includes(SITE)));
+    await s.appReady();
   });
 
   it('keeps both across a full reload and in a new tab (read back from IndexedDB)', async () => {
@@ -165,12 +167,14 @@ describe('WebKit: data kept on the device', () => {
     expect(result).toMatch(/Restored: [1-9]\d* added, 0 updated, \d+ unchanged/);
     const after = await dumpDatabase(s);
     expect(after).toEqual(before);
+    await s.appReady();
   });
 
   it('offline: with the server stopped, a reload and deep links still render from the service worker', async () => {
     const s = session!;
     await s.goto(origin + '/');
     await waitFor('the service worker to control the page', () => s.run<boolean>(`return !!navigator.serviceWorker.controller;`));
+    await s.appReady();
     const stopping = stopPreview(server);
     (server!.httpServer as unknown as { closeAllConnections?: () => void }).closeAllConnections?.();
     await stopping;
@@ -180,6 +184,7 @@ describe('WebKit: data kept on the device', () => {
 
     await s.reload();
     await waitFor('the overview after an offline reload', async () => (await heading(s)) === 'Overview');
+    await s.appReady();
     for (const [path, title] of [
       ['/stability/resolution', 'Stability · resolution planner'],
       [visitPath, null],
@@ -195,6 +200,7 @@ describe('WebKit: data kept on the device', () => {
       });
       if (title) expect(h).toBe(title);
       expect(await mainText(s)).not.toMatch(/could not be loaded/);
+      await s.appReady();
     }
     await waitFor('the restored profile offline', async () => (await instrumentNames(s)).some((t) => t.includes(PROFILE)));
     await s.goto(origin + visitPath);

@@ -217,6 +217,16 @@ export class WebKitSession {
     await this.click(el);
   }
 
+  /**
+   * Wait until the app has opened its database and listed the instruments (the picker in the top bar has entries).
+   * Tests wait for this before leaving a page. Seen here: leaving a page in WebKit before its first database work had
+   * finished sometimes left the next page waiting for its data for good (likely the old page, frozen in WebKit's
+   * back-forward cache, still holding its IndexedDB connection; not yet confirmed).
+   */
+  async appReady(timeout = 30_000): Promise<void> {
+    await waitFor('the app to open its data (instrument picker filled)', () => this.run<boolean>(`return !!document.querySelector('.picker select option');`), timeout);
+  }
+
   /** Text of every element matching `css`. */
   texts(css: string): Promise<string[]> {
     return this.run<string[]>(`return [...document.querySelectorAll(arguments[0])].map((e) => e.textContent || '');`, css);
