@@ -5,6 +5,8 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   test: {
     include: ['tests/browser/**/*.test.ts'],
+    // WebKit has its own pass (vitest.webkit.config.ts, scripts/webkit-tests.mjs).
+    exclude: ['tests/browser/webkit/**', '**/node_modules/**'],
     environment: 'node',
     testTimeout: 180_000,
     hookTimeout: 180_000,

@@ -1,4 +1,5 @@
-// `npm test`: type check, unit and reference tests, production build with size report, browser tests.
+// `npm test`: type check, unit and reference tests, production build with size report, browser tests in Chromium,
+// then in WebKit (WebKitGTK under the C locale).
 // Prints one closing line "N passed, N failed" over every test that ran.
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, readFileSync, existsSync, rmSync } from 'node:fs';
@@ -12,6 +13,7 @@ const steps = [
   { name: 'unit and reference tests', cmd: ['npx', 'vitest', 'run', '--config', 'vitest.config.ts', '--reporter=default', '--reporter=json', `--outputFile.json=${reportDir}/unit.json`], report: `${reportDir}/unit.json` },
   { name: 'build', cmd: ['npm', 'run', '--silent', 'build'] },
   { name: 'browser tests', cmd: ['node', 'scripts/browser-tests.mjs', '--reporter=default', '--reporter=json', `--outputFile.json=${reportDir}/browser.json`], report: `${reportDir}/browser.json` },
+  { name: 'WebKit browser tests', cmd: ['node', 'scripts/webkit-tests.mjs', '--reporter=default', '--reporter=json', `--outputFile.json=${reportDir}/webkit.json`], report: `${reportDir}/webkit.json` },
 ];
 
 let passed = 0;

@@ -1,3 +1,4 @@
+import './ui/localeGuard';
 import { render } from 'preact';
 import 'uplot/dist/uPlot.min.css';
 import './ui/styles.css';

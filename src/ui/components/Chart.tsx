@@ -4,6 +4,8 @@
 // uPlot draws on a canvas with its own colours (black axes), which vanish on the dark theme: every chart takes its
 // colours from our palette instead, and is drawn again when the device switches between light and dark.
 import { useEffect, useRef, useState } from 'preact/hooks';
+// Before uPlot: it formats numbers with navigator.language as soon as its module loads.
+import '../localeGuard';
 import uPlot from 'uplot';
 
 export type ChartOptions = Omit<uPlot.Options, 'width' | 'height'>;

@@ -6,6 +6,7 @@ import { noteThis } from '../noteThis';
 import { plainNote, visitNote } from './diagnose/toVisit';
 import { useApp } from '../context';
 import { formatNumber } from '../format';
+import { formatDateTime, formatTime } from '../locale';
 import { markSaved, markUnsaved } from '../offline';
 import { navigate, usePath } from '../router';
 import { LeakCheckPanel, type LeakTyped } from './diagnose/LeakCheckPanel';
@@ -283,7 +284,7 @@ function Walk() {
     <div class="walk">
       {resumed && (
         <p class="notice" data-testid="resumed">
-          Resumed the walk started {new Date(walk.startedAt).toLocaleString()} — nothing was lost.
+          Resumed the walk started {formatDateTime(new Date(walk.startedAt))} — nothing was lost.
         </p>
       )}
       <div class="walk-head">
@@ -377,7 +378,7 @@ function WalkSummary(props: { walk: WalkState }) {
                     : 'No expected value'}
                 {r.tolerance ? `; pass ${r.tolerance.passLow === null ? '…' : formatNumber(r.tolerance.passLow)} to ${r.tolerance.passHigh === null ? '…' : formatNumber(r.tolerance.passHigh)} ${r.unit}` : ''}
                 {r.judgedBy === 'engineer' ? '; judged by the engineer' : ''}
-                {` · step ${r.treeId}/${r.nodeId} · ${new Date(r.at).toLocaleTimeString()}`}
+                {` · step ${r.treeId}/${r.nodeId} · ${formatTime(new Date(r.at))}`}
               </p>
             </li>
           ))}

@@ -1,4 +1,5 @@
 // Getting a file off the device: the share sheet where the browser offers one for files, else a download.
+import { formatDateTime } from '../locale';
 
 export type SaveOutcome = 'shared' | 'downloaded' | 'cancelled';
 
@@ -53,7 +54,7 @@ export function toLocalInput(iso: string): string {
 export function showDate(iso: string): string {
   const d = new Date(iso);
   if (!Number.isFinite(d.getTime())) return iso;
-  return d.toLocaleString(undefined, { year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' });
+  return formatDateTime(d, { year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' });
 }
 
 export function errorText(err: unknown): string {
