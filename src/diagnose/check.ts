@@ -5,7 +5,7 @@ import { EXPECTATION_INFO } from './expectations';
 import { HAZARD_CARD, SAFETY_CARDS } from './safety';
 import type { CalcRef, DiagnoseNode, Expectation, GateItem, Option, Tree } from './types';
 import { TREE_IDS } from './types';
-import { sameDimension, unitKnown } from './units';
+import { sameDimension, unitKnown } from '../records/units';
 
 /** Gates in front of covers-off or energised work must ask all of these. */
 export const GATE_MUST_ASK: readonly GateItem[] = ['role', 'lockout', 'ppe', 'procedure'];

@@ -8,7 +8,7 @@
 import type { IDBPDatabase } from 'idb';
 import {
   draftProblems, instrumentProblems, readingProblems, settingProblems, shown, visitProblems, walkProblems,
-} from './records';
+} from '../records/validate';
 import type { RodsideSchema } from './schema';
 import { DB_VERSION } from './schema';
 import { sha256Hex } from './sha256';

@@ -1,42 +1,31 @@
 // The store: the only module that talks to IndexedDB. Everything the app keeps goes through here.
 import { deleteDB, openDB, type IDBPDatabase, type IDBPTransaction } from 'idb';
-import { dcForMass, rfForMass } from '../engine';
 import { exportBackupText, importBackupText, type ImportResult } from './backup';
-import { catalogue, resolveUnit, typeAliases, type ReadingType } from './catalogue';
-import { readingsCsv } from './csv';
-import { demoInstruments, demoReadings, demoVisits, DEMO_LAB } from './demo';
+import { catalogue, resolveUnit, typeAliases, type ReadingType } from '../records/catalogue';
+import { readingsCsv } from '../records/csv';
+import { demoInstruments, demoReadings, demoVisits, DEMO_LAB } from './demoData';
 import { describeStorageError, StoreError } from './errors';
 import { newId, nowIso } from './ids';
 import {
-  checkEntry, checkMakerLimit, judgeWithLimit, makerLimitsFrom, makerLimitsKey, type EngineFunctions, type Expectation, type Judgement,
+  checkEntry, checkMakerLimit, defaultEngine, judgeWithLimit, makerLimitsFrom, makerLimitsKey, type EngineFunctions, type Expectation, type Judgement,
   type MakerLimit, type MakerLimitDraft, type ReadingContext,
-} from './judge';
-import { profileRecordProblems, type ProfileFields } from './profile';
-import { readingProblems, visitProblems, walkProblems } from './records';
-import { backupReminder, type BackupReminder } from './reminder';
-import { visitReportHtml } from './report';
+} from '../records/judge';
+import { profileRecordProblems, type ProfileFields } from '../records/profile';
+import { readingProblems, visitProblems, walkProblems } from '../records/validate';
+import { backupReminder, type BackupReminder } from '../records/reminder';
+import { visitReportHtml } from '../records/report';
 import { DB_NAME, DB_VERSION, upgrade, type RodsideSchema } from './schema';
-import { buildTrend, DEFAULT_MULTIPLIER_LIMIT, seriesOf, type TrendData, type TrendOptions } from './trends';
-import type { DraftRecord, InstrumentProfile, Reading, ReadingPhase, Visit, WalkRecord } from './types';
+import { buildTrend, DEFAULT_MULTIPLIER_LIMIT, seriesOf, type TrendData, type TrendOptions } from '../records/trends';
+import type { DraftRecord, InstrumentProfile, Reading, ReadingPhase, Visit, WalkRecord } from '../records/types';
 import {
   allTypes, assess, expectationOf, OWN_TYPES_SETTING, ownTypeFromDraft, ownTypesFrom, pickBaselineVisit, type BaselineSet, type OwnTypeDraft,
   type VisitFields,
-} from './visits';
+} from '../records/visits';
 
-export * from './types';
-export * from './profile';
+export * from '../records';
 export { StoreError, describeStorageError } from './errors';
 export { DB_NAME, DB_VERSION } from './schema';
-export { demoInstruments, demoVisits, DEMO_LAB } from './demo';
-export * from './units';
-export * from './catalogue';
-export * from './judge';
-export * from './trends';
-export * from './visits';
-export * from './reminder';
-export { visitReasons, LIMITS } from './records';
-export { csvCell, toCsv, readingsCsv, CSV_BOM } from './csv';
-export { escapeHtml, REPORT_PRINT_CSS, visitReportHtml, visitReportSection, shownValue } from './report';
+export { demoInstruments, demoVisits, DEMO_LAB } from './demoData';
 export { BACKUP_FORMAT, BACKUP_VERSION, BackupError, canonicalJson, type ImportResult } from './backup';
 export { sha256Hex } from './sha256';
 
@@ -240,8 +229,6 @@ async function guard<T>(action: string, fn: () => Promise<T>): Promise<T> {
   }
 }
 
-/** The engine's scan law: V and U at the apex of the first stability region, per rod to ground. */
-export const defaultEngine: EngineFunctions = { rfForMass, dcForMass };
 
 export async function openStore(name: string = DB_NAME, events: StoreEvents = {}, given: StoreOptions = {}): Promise<Store> {
   const options: StoreOptions = { engine: defaultEngine, ...given };

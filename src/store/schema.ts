@@ -1,6 +1,6 @@
 // IndexedDB schema and its stepwise migrations. Only src/store imports idb.
 import type { DBSchema, IDBPDatabase, IDBPTransaction, StoreNames } from 'idb';
-import type { DraftRecord, InstrumentProfile, Reading, SettingRecord, Visit, WalkRecord } from './types';
+import type { DraftRecord, InstrumentProfile, Reading, SettingRecord, Visit, WalkRecord } from '../records/types';
 
 export const DB_NAME = 'rodside';
 export const DB_VERSION = 2;

@@ -2,8 +2,8 @@
 // instrument's baseline. No storage here.
 import { catalogue, catalogueType, type BadSide, type ReadingType, type ToleranceRule } from './catalogue';
 import { contextMatches, expectationFor, judgeWithLimit, type EngineFunctions, type Expectation, type MakerLimit, type ReadingContext } from './judge';
-import { parseNumber } from './profile';
-import { LIMITS, shown, visitReasons } from './records';
+import { parseNumber } from './numberText';
+import { LIMITS, shown, visitReasons } from './validate';
 import type { InstrumentProfile, Reading, Verdict, Visit, VisitReason } from './types';
 
 /** What the visit form holds: text as typed. */

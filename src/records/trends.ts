@@ -1,6 +1,7 @@
 // Trends across visits: chart-ready columns (uPlot's [xs, ...ys] with null for gaps), an ordinary
 // least-squares line, and for the multiplier voltage the date the trend reaches the supply's limit.
 // Pure: the store gathers the records, this module only computes.
+import { leastSquares, type LinearFit } from '../engine/linearFit';
 import type { ReadingType } from './catalogue';
 import { contextMatches, type ReadingContext } from './judge';
 import type { Reading, Visit } from './types';
@@ -10,10 +11,6 @@ export const SECONDS_PER_MONTH = (365.2425 / 12) * 86400;
 
 /** Used when a profile does not state its multiplier supply's limit: top of the usual discrete-dynode range (common practice). */
 export const DEFAULT_MULTIPLIER_LIMIT = 3000;
-
-export { leastSquares, type LinearFit } from '../engine/linearFit';
-import type { LinearFit } from '../engine/linearFit';
-import { leastSquares } from '../engine/linearFit';
 
 export interface Projection {
   limit: number;

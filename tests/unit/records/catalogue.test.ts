@@ -1,9 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import {
   catalogue, catalogueType, checkEntry, expectationFor, fromBase, judge, PASCAL_PER_MBAR, PASCAL_PER_TORR, toBase, unitOf,
-  demoInstruments, type Expectation,
-} from '../../../src/store';
-import { testEngine } from './helpers';
+  type Expectation,
+} from '../../../src/records';
+import { demoInstruments } from '../../../src/store';
+import { testEngine } from '../store/helpers';
 
 const type = (id: string) => {
   const t = catalogueType(id);
@@ -190,7 +191,7 @@ describe('catalogue', () => {
 
 describe('expected RF and DC from the engine itself', () => {
   it('agrees with the worked values: m/z 69 → 100.91 V and 16.94 V; m/z 502 → 734.13 V (r0 4.5 mm, 1 MHz; domain F3, Dawson 1976 formula with CODATA 2018 constants, computed; ±0.05 %)', async () => {
-    const { defaultEngine } = await import('../../../src/store');
+    const { defaultEngine } = await import('../../../src/records');
     const kestrel = demoInstruments[0];
     const rf69 = expectationFor({ type: type('rf-amplitude'), instrument: kestrel, context: { mz: 69 }, engine: defaultEngine })!.value!;
     const dc69 = expectationFor({ type: type('dc-amplitude'), instrument: kestrel, context: { mz: 69 }, engine: defaultEngine })!.value!;
@@ -200,7 +201,7 @@ describe('expected RF and DC from the engine itself', () => {
     expect(Math.abs(rf502 / 734.13 - 1)).toBeLessThan(5e-4);
   });
   it('an m/z the engine refuses gives no calculated value instead of an error', async () => {
-    const { defaultEngine } = await import('../../../src/store');
+    const { defaultEngine } = await import('../../../src/records');
     expect(expectationFor({ type: type('rf-amplitude'), instrument: demoInstruments[0], context: { mz: 1e12 }, engine: defaultEngine })).toBeUndefined();
   });
 });

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { buildTrend, catalogueType, leastSquares, projectToLimit, SECONDS_PER_MONTH, type Reading, type Visit } from '../../../src/store';
+import { leastSquares } from '../../../src/engine/linearFit';
+import { buildTrend, catalogueType, projectToLimit, SECONDS_PER_MONTH, type Reading, type Visit } from '../../../src/records';
 
 describe('least-squares line', () => {
   it('matches a hand-worked example', () => {

@@ -249,4 +249,3 @@ export function draftProblems(path: string, v: unknown): string[] {
   return p;
 }
 
-export type { DraftRecord, InstrumentProfile, Reading, SettingRecord, Visit, WalkRecord };
