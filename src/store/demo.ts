@@ -1,1 +1,73 @@
+// Loading and removing the invented demo scenario (the data itself is in demoData.ts).
+import { assess, catalogue, checkEntry, pickBaselineVisit, type Reading, type Visit } from '../records';
+import type { Store, StoreContext } from './api';
+import { demoInstruments, demoReadings, demoVisits } from './demoData';
+import { guard, StoreError } from './errors';
+import { deleteVisitIn } from './visits';
+
 export * from './demoData';
+
+/** The demo readings of one visit, judged by the same rules as real ones against the baseline known by then. */
+function demoReadingsOf(v: Visit, baseline: { visit: Visit; readings: Reading[] } | undefined, engine: StoreContext['engine']): Reading[] {
+  const instrument = demoInstruments.find((i) => i.id === v.instrumentId);
+  return demoReadings.filter((r) => r.visitId === v.id).map((seed) => {
+    const type = catalogue.find((t) => t.id === seed.typeId)!;
+    const entry = checkEntry(type, seed.text, seed.unitId, seed.context ?? {});
+    if (!entry.ok) throw new StoreError(`Demo data is inconsistent (${Object.values(entry.errors).join(' ')}).`);
+    const unit = type.units.find((u) => u.id === seed.unitId)!;
+    const verdict = assess(type, instrument, v.id, entry.value, entry.context, baseline, engine);
+    return {
+      id: `demo-rdg-${v.id.replace(/^demo-visit-/, '')}-${seed.phase}-${seed.typeId}${seed.context?.mz ? `-${seed.context.mz}` : ''}`,
+      visitId: v.id, instrumentId: v.instrumentId, typeId: type.id, phase: seed.phase, value: entry.value,
+      entered: { text: seed.text, unit: unit.label }, context: entry.context, ...verdict,
+      note: seed.note ?? '', takenAt: seed.takenAt ?? new Date(Date.parse(v.startedAt) + (seed.phase === 'as-left' ? 5 : 1) * 3600_000).toISOString(),
+      origin: 'entered', demo: true,
+    };
+  });
+}
+
+export function demoMethods({ db, engine }: StoreContext): Pick<Store, 'loadDemo' | 'removeDemo'> {
+  return {
+    loadDemo: (force = false) =>
+      guard('load the demo instruments', async () => {
+        const tx = db.transaction(['instruments', 'settings', 'visits', 'readings'], 'readwrite');
+        if ((await tx.objectStore('settings').get('demoLoaded')) && !force) {
+          await tx.done;
+          return false;
+        }
+        for (const p of demoInstruments) if (!(await tx.objectStore('instruments').get(p.id))) await tx.objectStore('instruments').put({ ...p });
+        // In date order, so each visit is judged against the baseline known by then.
+        const visits = [...demoVisits].sort((a, b) => (a.startedAt < b.startedAt ? -1 : 1));
+        for (const v of visits) if (!(await tx.objectStore('visits').get(v.id))) await tx.objectStore('visits').put({ ...v });
+        const done = new Map<string, Reading[]>();
+        for (const v of visits) {
+          const baselineVisit = pickBaselineVisit(visits.filter((x) => x.instrumentId === v.instrumentId && x.startedAt <= v.startedAt));
+          const list = demoReadingsOf(v, baselineVisit ? { visit: baselineVisit, readings: done.get(baselineVisit.id) ?? [] } : undefined, engine);
+          for (const r of list) if (!(await tx.objectStore('readings').get(r.id))) await tx.objectStore('readings').put(r);
+          done.set(v.id, list);
+        }
+        await tx.objectStore('settings').put({ key: 'demoLoaded', value: true });
+        await tx.done;
+        return true;
+      }),
+
+    removeDemo: () =>
+      guard('remove the demo data', async () => {
+        // Demo visits, readings and walks go too; a demo instrument's own visits are removed with it.
+        const tx = db.transaction(['instruments', 'visits', 'readings', 'walks'], 'readwrite');
+        const demoIds = new Set<string>();
+        for (let c = await tx.objectStore('instruments').openCursor(); c; c = await c.continue()) {
+          if (!c.value.demo) continue;
+          demoIds.add(c.value.id);
+          await c.delete();
+        }
+        for (let c = await tx.objectStore('visits').openCursor(); c; c = await c.continue()) {
+          if (c.value.demo || demoIds.has(c.value.instrumentId)) await deleteVisitIn(tx, c.value);
+        }
+        for (let c = await tx.objectStore('readings').openCursor(); c; c = await c.continue()) if (c.value.demo) await c.delete();
+        for (let c = await tx.objectStore('walks').openCursor(); c; c = await c.continue()) if (c.value.demo) await c.delete();
+        await tx.done;
+        return demoIds.size;
+      }),
+  };
+}

@@ -20,7 +20,7 @@ export function registerCleanup(): void {
 /** Every record in every store, sorted by key: two equal dumps mean the database did not change. */
 export async function dump(store: Store): Promise<Record<string, unknown[]>> {
   const out: Record<string, unknown[]> = {};
-  for (const s of ['instruments', 'visits', 'readings', 'walks', 'settings', 'drafts'] as const) {
+  for (const s of ['instruments', 'visits', 'readings', 'walks', 'settings', 'drafts', 'makerLimits', 'ownTypes', 'currentVisits', 'undoCopies'] as const) {
     out[s] = await store.db.getAll(s);
   }
   return out;
