@@ -80,13 +80,17 @@ export interface ReadingType {
   own?: boolean;
 }
 
-export const gaugeGasChoices = [
-  { value: 'N2-equivalent', label: 'N2-equivalent (as the gauge shows)' },
-  { value: 'He', label: 'corrected for helium' },
-  { value: 'H2', label: 'corrected for hydrogen' },
-  { value: 'Ar', label: 'corrected for argon' },
-  { value: 'other', label: 'corrected for another gas (say which in the note)' },
-] as const;
+const gaugeGasWords = {
+  'N2-equivalent': 'N2-equivalent (as the gauge shows)',
+  He: 'corrected for helium',
+  H2: 'corrected for hydrogen',
+  Ar: 'corrected for argon',
+  other: 'corrected for another gas (say which in the note)',
+} as const;
+
+/** How a gauge reading was taken: the gauge's own N2 scale, or corrected for a gas. */
+export const gaugeGasChoices: readonly { value: keyof typeof gaugeGasWords; label: string }[] =
+  (Object.keys(gaugeGasWords) as (keyof typeof gaugeGasWords)[]).map((value) => ({ value, label: gaugeGasWords[value] }));
 
 const gaugeGas: ContextField = {
   key: 'gaugeGas', label: 'Gauge reading', kind: 'choice', choices: gaugeGasChoices, required: true,
@@ -118,6 +122,20 @@ export const isotopeRatioByMz: Readonly<Record<number, { percent: number; formul
 
 const gcKinds: InstrumentKind[] = ['gc-ms-single', 'gc-ms-triple'];
 const lcKinds: InstrumentKind[] = ['lc-ms-single', 'lc-ms-triple'];
+
+/** A leak-check peak as a percentage of the reference ion, with the generic ceiling for GC-MS and LC-MS (from memory). */
+function leakPeak(mz: number, gas: string, ceiling: number, help: string): ReadingType {
+  return {
+    id: `leak-${gas}-${mz}`, label: `Leak check: ${gas}, m/z ${mz}`, group: 'leak-check', baseUnit: '%', units: percentUnits,
+    defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'high',
+    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
+    generic: [{ kinds: [...gcKinds, ...lcKinds], high: ceiling, source: `m/z ${mz} below about ${ceiling} % of the reference ion (from memory)` }],
+    genericMargin: { kind: 'factor', pass: 1, borderline: 2 },
+    context: [{ key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true, defaultValue: 69 }],
+    matchContext: ['referenceMz'], trendScale: 'log',
+    help,
+  };
+}
 
 export const catalogue: readonly ReadingType[] = [
   {
@@ -250,26 +268,8 @@ export const catalogue: readonly ReadingType[] = [
     context: [ionMz('Ion m/z (M)')], matchContext: ['mz'], trendScale: 'linear',
     help: 'A ratio well above theory on a strong ion points to detector saturation.',
   },
-  {
-    id: 'leak-water-18', label: 'Leak check: water, m/z 18', group: 'leak-check', baseUnit: '%', units: percentUnits,
-    defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'high',
-    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
-    generic: [{ kinds: [...gcKinds, ...lcKinds], high: 20, source: 'm/z 18 below about 20 % of the reference ion (from memory)' }],
-    genericMargin: { kind: 'factor', pass: 1, borderline: 2 },
-    context: [{ key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true, defaultValue: 69 }],
-    matchContext: ['referenceMz'], trendScale: 'log',
-    help: 'Intensity of m/z 18 as a percentage of the reference ion. Water falls for hours after a vent.',
-  },
-  {
-    id: 'leak-nitrogen-28', label: 'Leak check: nitrogen, m/z 28', group: 'leak-check', baseUnit: '%', units: percentUnits,
-    defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'high',
-    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
-    generic: [{ kinds: [...gcKinds, ...lcKinds], high: 10, source: 'm/z 28 below about 10 % of the reference ion (from memory)' }],
-    genericMargin: { kind: 'factor', pass: 1, borderline: 2 },
-    context: [{ key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true, defaultValue: 69 }],
-    matchContext: ['referenceMz'], trendScale: 'log',
-    help: 'Intensity of m/z 28 as a percentage of the reference ion.',
-  },
+  leakPeak(18, 'water', 20, 'Intensity of m/z 18 as a percentage of the reference ion. Water falls for hours after a vent.'),
+  leakPeak(28, 'nitrogen', 10, 'Intensity of m/z 28 as a percentage of the reference ion.'),
   {
     id: 'leak-ratio-28-32', label: 'Leak check: ratio m/z 28 to 32', group: 'leak-check', baseUnit: 'ratio', units: ratioUnits,
     defaultUnit: 'ratio', plausible: { min: 0, max: 10000 }, badSide: 'both',

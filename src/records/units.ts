@@ -2,7 +2,8 @@
 // importer and the diagnosis walker. Pressure factors come from the engine's constants (1 Torr = 101325/760 Pa
 // exactly, 1 mbar = 100 Pa); the RF and DC read-back forms come from the engine's voltage conventions.
 import { PASCAL_PER_MBAR, PASCAL_PER_TORR } from '../engine/constants';
-import { convertDc, convertRf, type DcForm, type RfForm } from '../engine/voltageConventions';
+import { convertDc, convertRf, RF_FORMS, type DcForm, type RfForm } from '../engine/voltageConventions';
+import { rfFormWords } from './conventions';
 
 export { PASCAL_PER_MBAR, PASCAL_PER_TORR };
 
@@ -105,22 +106,21 @@ function entry(symbol: string, base: string, id = symbol, label = symbol): UnitD
 
 export const pressureUnits: readonly UnitDef[] = [entry('mbar', 'Pa'), entry('Torr', 'Pa'), entry('Pa', 'Pa')];
 
-/** A read-back form in the engine's convention: base = typed × (zero-to-peak per rod per unit of the form). */
-const rfEntry = (id: string, label: string, form: RfForm): UnitDef => ({ id, label, factor: convertRf(1, form, 'zeroToPeakPerRod') });
-const dcEntry = (id: string, label: string, form: DcForm): UnitDef => ({ id, label, factor: convertDc(1, form, 'perRod') });
+/** The visit log's unit id of an RF form, e.g. "Vpp-rod" for peak-to-peak one rod to ground. */
+export function rfUnitId(form: RfForm): string {
+  const amplitude = form.startsWith('zeroToPeak') ? 'V0p' : form.startsWith('peakToPeak') ? 'Vpp' : 'Vrms';
+  return `${amplitude}-${form.endsWith('PerRod') ? 'rod' : 'pairs'}`;
+}
 
 /**
  * RF amplitude. Base: V zero-to-peak, one rod to ground (the engine's convention). For a rod at ±V cos Ωt:
  * one rod p-p = 2V, rms = V/√2; between the pairs the swing is doubled (0-p 2V, p-p 4V, rms √2·V).
  */
-export const rfAmplitudeUnits: readonly UnitDef[] = [
-  rfEntry('V0p-rod', 'V zero-to-peak, one rod to ground', 'zeroToPeakPerRod'),
-  rfEntry('Vpp-rod', 'V peak-to-peak, one rod to ground', 'peakToPeakPerRod'),
-  rfEntry('Vrms-rod', 'V rms, one rod to ground', 'rmsPerRod'),
-  rfEntry('V0p-pairs', 'V zero-to-peak, between the rod pairs', 'zeroToPeakBetweenPairs'),
-  rfEntry('Vpp-pairs', 'V peak-to-peak, between the rod pairs', 'peakToPeakBetweenPairs'),
-  rfEntry('Vrms-pairs', 'V rms, between the rod pairs', 'rmsBetweenPairs'),
-];
+export const rfAmplitudeUnits: readonly UnitDef[] = RF_FORMS.map((form) => ({
+  id: rfUnitId(form), label: `V ${rfFormWords[form]}`, factor: convertRf(1, form, 'zeroToPeakPerRod'),
+}));
+
+const dcEntry = (id: string, label: string, form: DcForm): UnitDef => ({ id, label, factor: convertDc(1, form, 'perRod') });
 
 /** DC. Base: V on one rod pair to ground; between the pairs the difference is twice that. */
 export const dcUnits: readonly UnitDef[] = [

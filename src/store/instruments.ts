@@ -2,7 +2,7 @@
 import { profileRecordProblems, type InstrumentProfile } from '../records';
 import type { Store, StoreContext } from './api';
 import { guard, StoreError } from './errors';
-import { newId, nowIso } from './ids';
+import { newId, nowIso, stamp } from './ids';
 
 type InstrumentMethods = 'listInstruments' | 'getInstrument' | 'saveInstrument' | 'duplicateInstrument';
 
@@ -21,14 +21,7 @@ export function instrumentMethods({ db }: StoreContext): Pick<Store, InstrumentM
         const tx = db.transaction('instruments', 'readwrite');
         const existing = id ? await tx.store.get(id) : undefined;
         if (id && !existing) throw new StoreError(`Could not save: the instrument profile ${id} no longer exists.`);
-        const now = nowIso();
-        const record: InstrumentProfile = {
-          ...fields,
-          id: existing?.id ?? newId('inst'),
-          createdAt: existing?.createdAt ?? now,
-          updatedAt: now,
-          ...(existing?.demo ? { demo: true } : {}),
-        };
+        const record: InstrumentProfile = { ...fields, ...stamp('inst', existing), ...(existing?.demo ? { demo: true } : {}) };
         const problems = profileRecordProblems(record);
         if (problems.length) throw new StoreError(`Could not save the instrument profile: ${problems.join('; ')}.`);
         await tx.store.put(record);

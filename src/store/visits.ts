@@ -4,7 +4,7 @@ import type { IDBPTransaction, StoreNames } from 'idb';
 import { pickBaselineVisit, visitProblems, type Visit, type VisitFields } from '../records';
 import type { Store, StoreContext, VisitBundle } from './api';
 import { guard, StoreError } from './errors';
-import { newId, nowIso } from './ids';
+import { nowIso, stamp } from './ids';
 import { currentVisitIdIn, setCurrentVisitIn } from './marks';
 import type { RodsideSchema } from './schema';
 
@@ -43,12 +43,9 @@ export async function saveVisitIn(tx: WriteTx, fields: VisitFields, id?: string)
   if (existing && existing.instrumentId !== fields.instrumentId) {
     throw new StoreError('Could not save the visit: a visit cannot move to another instrument (its readings belong to the first).');
   }
-  const now = nowIso();
   const record: Visit = {
     ...fields,
-    id: existing?.id ?? newId('visit'),
-    createdAt: existing?.createdAt ?? now,
-    updatedAt: now,
+    ...stamp('visit', existing),
     ...(existing?.baseline ? { baseline: true } : {}),
     ...(existing?.demo ? { demo: true } : {}),
   };
