@@ -112,7 +112,7 @@ const setpoint = (unit: string, min: number, max: number): ContextField => ({
   help: 'The value the instrument was set to, in the same unit as the reading; the reading is judged against it.',
 });
 
-/** Calibrant ions with a published M+1/M, for the isotope-ratio check (C15). */
+/** Calibrant ions with a published M+1/M, for the isotope-ratio check (IUPAC CIAAW isotopic compositions, Meija et al., Pure Appl. Chem. 88 (2016) 293). */
 export const isotopeRatioByMz: Readonly<Record<number, { percent: number; formula: string }>> = {
   // IUPAC CIAAW isotopic abundances: 13C/12C = 0.01082, 15N/14N = 0.00365; M+1/M ≈ nC·1.082 % + nN·0.365 %.
   69: { percent: 1 * 1.082, formula: 'CF3+' },
@@ -167,7 +167,7 @@ export const catalogue: readonly ReadingType[] = [
   {
     id: 'rf-amplitude', label: 'RF amplitude at a parked m/z', group: 'analyser', baseUnit: 'V (zero-to-peak, one rod to ground)',
     units: rfAmplitudeUnits, defaultUnit: 'V0p-rod', plausible: { min: 0, max: 20000 }, badSide: 'both',
-    // Proportionality V ∝ m/z should hold within about ±1 % (common practice; domain C5).
+    // Proportionality V ∝ m/z should hold within about ±1 % (V ∝ m/z at fixed f and r0: Dawson, Quadrupole Mass Spectrometry and Its Applications, 1976; the ±1 % is common practice).
     baselineTolerance: { kind: 'relative', pass: 0.01, borderline: 0.02 },
     computed: 'rf-amplitude',
     // The instrument's operating point sits a little below the apex q and its r0 and f are nominal: 3 % and 6 %
@@ -191,7 +191,7 @@ export const catalogue: readonly ReadingType[] = [
   {
     id: 'rf-frequency', label: 'RF frequency', group: 'analyser', baseUnit: 'Hz', units: frequencyUnits,
     defaultUnit: 'MHz', plausible: { min: 1e4, max: 5e7 }, badSide: 'both',
-    // δm/m ≈ 2·δf/f (domain C6): 0.02 % of f is 0.2 u at m/z 500, the edge of ±0.1–0.2 u mass accuracy.
+    // δm/m ≈ 2·δf/f (from q = 4eV/(m r0²Ω²), Dawson, Quadrupole Mass Spectrometry and Its Applications, 1976): 0.02 % of f is 0.2 u at m/z 500, the edge of ±0.1–0.2 u mass accuracy.
     baselineTolerance: { kind: 'relative', pass: 0.0001, borderline: 0.0002 },
     computed: 'rf-frequency',
     computedTolerance: { kind: 'relative', pass: 0.005, borderline: 0.02 },
@@ -202,7 +202,7 @@ export const catalogue: readonly ReadingType[] = [
   {
     id: 'multiplier-voltage', label: 'Multiplier voltage (as set for the target gain)', group: 'detector', baseUnit: 'V', units: voltageUnits,
     defaultUnit: 'V', plausible: { min: 0, max: 6000 }, badSide: 'high',
-    // The voltage climbs as the multiplier ages (domain C18); +10 % over the baseline is worth planning for [cp].
+    // The voltage climbs as the multiplier ages (common practice); +10 % over the baseline is worth planning for [cp].
     baselineTolerance: { kind: 'relative', pass: 0.1, borderline: 0.2 },
     generic: [{ low: 1000, high: 3000, source: 'discrete-dynode multipliers 1000 to 3000 V (common practice)' }],
     genericMargin: { kind: 'relative', pass: 0, borderline: 0.1 },
@@ -214,7 +214,7 @@ export const catalogue: readonly ReadingType[] = [
     defaultUnit: 'uA', plausible: { min: 0, max: 0.02 }, badSide: 'low',
     baselineTolerance: { kind: 'relative', pass: 0.05, borderline: 0.2 },
     computed: 'setpoint',
-    // Signal scales with emission (domain C26): a 20 % shortfall is 20 % less signal.
+    // Signal scales with emission, I⁺ = K·I_e·p (CRC Handbook of Chemistry and Physics, Bayard–Alpert gauge relation): a 20 % shortfall is 20 % less signal.
     computedTolerance: { kind: 'relative', pass: 0.05, borderline: 0.2 },
     computedSource: 'the set value (signal scales with emission current)',
     generic: [
@@ -282,7 +282,7 @@ export const catalogue: readonly ReadingType[] = [
     defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
     context: [], matchContext: [], trendScale: 'linear',
-    help: 'About 1.7 % of m/z 28 in an air leak (domain C14, computed from dry-air composition).',
+    help: 'About 1.7 % of m/z 28 in an air leak (computed from dry-air composition, N2 78.08 %, Ar 0.934 %: CRC Handbook of Chemistry and Physics, composition of dry air).',
   },
   {
     id: 'noted-value', label: 'Noted value', group: 'own', baseUnit: 'as noted', units: [{ id: 'as-noted', label: 'as noted', factor: 1 }],

@@ -20,7 +20,7 @@ export interface EngineFunctions {
   dcForMass?(args: { mz: number; r0: number; frequency: number }): number;
 }
 
-/** Apex U/V of the first stability region, a/(2q) = 0.23699/(2·0.70600) (Dawson 1976; domain F1). */
+/** Apex U/V of the first stability region, a/(2q) = 0.23699/(2·0.70600) (Dawson, Quadrupole Mass Spectrometry and Its Applications, 1976). */
 export const APEX_DC_TO_RF = 0.16784;
 
 export type ExpectationBasis = 'baseline' | 'maker limit' | 'calculated' | 'set value' | 'published' | 'generic';

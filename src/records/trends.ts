@@ -112,7 +112,7 @@ export function buildTrend(type: ReadingType, visits: readonly Visit[], readings
 
 /**
  * When does the fitted line reach the limit? Assumes linear ageing: the voltage the tune needs rises at a
- * steady rate (domain C18, end of life = (V_max − V_now)/(dV/dt)). Real multipliers often speed up near the end,
+ * steady rate (end of life = (V_max − V_now)/(dV/dt); common practice). Real multipliers often speed up near the end,
  * so treat the date as the latest sensible time to order a replacement, not a promise.
  */
 export function projectToLimit(line: LinearFit, lastX: number, lastY: number, limit: number): Projection {
