@@ -1,5 +1,5 @@
-// `npm test`: type check, unit and reference tests, production build with size report, browser tests in Chromium,
-// then in WebKit (WebKitGTK under the C locale).
+// `npm test`: type check, lint, unit and reference tests, production build with size report, browser tests in
+// Chromium, then in WebKit (WebKitGTK under the C locale).
 // Prints one closing line "N passed, N failed" over every test that ran.
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, readFileSync, existsSync, rmSync } from 'node:fs';
@@ -10,6 +10,7 @@ mkdirSync(reportDir, { recursive: true });
 
 const steps = [
   { name: 'type check', cmd: ['npm', 'run', '--silent', 'typecheck'] },
+  { name: 'lint', cmd: ['npm', 'run', '--silent', 'lint'] },
   { name: 'unit and reference tests', cmd: ['npx', 'vitest', 'run', '--config', 'vitest.config.ts', '--reporter=default', '--reporter=json', `--outputFile.json=${reportDir}/unit.json`], report: `${reportDir}/unit.json` },
   { name: 'build', cmd: ['npm', 'run', '--silent', 'build'] },
   { name: 'browser tests', cmd: ['node', 'scripts/browser-tests.mjs', '--reporter=default', '--reporter=json', `--outputFile.json=${reportDir}/browser.json`], report: `${reportDir}/browser.json` },

@@ -5,7 +5,7 @@ import { EXPECTATION_INFO } from './expectations';
 import { GATE_ASKS, GATE_MUST_NOT_ASK, HAZARD_CARD, SAFETY_CARDS } from './safety';
 import type { CalcRef, DiagnoseNode, Expectation, Option, Tree } from './types';
 import { TREE_IDS } from './types';
-import { sameDimension, unitKnown } from './units';
+import { sameDimension, unitKnown } from '../records/units';
 
 /**
  * Words that put hands inside the instrument or on live parts: opening, cleaning, replacing, unplugging,

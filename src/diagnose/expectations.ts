@@ -7,10 +7,10 @@
  * selected instrument's read-back convention so that the number can be compared with what the engineer reads.
  */
 import { expectedPressure, gasLoad, rateOfRise } from '../engine/leak';
+import { rfFormOf, type RfForm } from '../engine/voltageConventions';
+import { formatNumber, readbackName } from '../records';
 import { engineFace } from './engineLink';
 import type { DiagnoseInstrument } from './types';
-
-type RfForm = 'zeroToPeakPerRod' | 'peakToPeakPerRod' | 'rmsPerRod' | 'zeroToPeakBetweenPairs' | 'peakToPeakBetweenPairs' | 'rmsBetweenPairs';
 
 /** The parts of the engine's public face the registry uses (SI; mz in u/e; V zero-to-peak per rod to ground). */
 export interface EngineFace {
@@ -71,16 +71,8 @@ export const EXPECTATION_INFO: Record<string, ExpectationInfo> = {
 
 // ---------------------------------------------------------------------------
 
-const SUPERSCRIPT: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' };
-/** A number for a sentence: 4 significant figures, very large or small ones as m×10ⁿ. */
-const fmt = (x: number, digits = 4): string => {
-  if (!Number.isFinite(x)) return '—';
-  if (Math.abs(x) >= 1e4 || (Math.abs(x) < 1e-2 && x !== 0)) {
-    const [m, e] = x.toExponential(digits - 1).split('e');
-    return `${m}×10${[...String(Number(e))].map((c) => SUPERSCRIPT[c] ?? c).join('')}`;
-  }
-  return String(Number(x.toPrecision(digits)));
-};
+/** A number for a sentence: the records layer's one formatter, screen style (m×10ⁿ). */
+const fmt = (x: number, digits = 4): string => formatNumber(x, digits, 'screen');
 
 function need(instrument: DiagnoseInstrument | null, name: string): DiagnoseInstrument {
   if (!instrument) throw new RangeError(`${name} needs an instrument: pick one to see the expected value`);
@@ -94,18 +86,6 @@ function input(inputs: Record<string, number>, key: string, min: number, max: nu
   return v;
 }
 
-/** The engine's name for an instrument's RF read-back form. */
-export function rfFormOf(instrument: DiagnoseInstrument): RfForm {
-  const { amplitude, reference } = instrument.readbackConvention;
-  const a = amplitude === 'zero-to-peak' ? 'zeroToPeak' : amplitude === 'peak-to-peak' ? 'peakToPeak' : 'rms';
-  return `${a}${reference === 'per-rod' ? 'PerRod' : 'BetweenPairs'}` as RfForm;
-}
-
-export function readbackName(instrument: DiagnoseInstrument): string {
-  const { amplitude, reference } = instrument.readbackConvention;
-  return `${amplitude} ${reference === 'per-rod' ? 'per rod to ground' : 'between the rod pairs'}`;
-}
-
 const geometry = (i: DiagnoseInstrument) =>
   `r0 ${fmt(i.rodFieldRadius * 1e3)} mm, f ${fmt(i.rfFrequency / 1e6)} MHz`;
 
@@ -116,11 +96,11 @@ export function makeRegistry(engine: EngineFace): Record<string, ExpectationFn> 
       const i = need(instrument, 'rfAtMass');
       const mz = input(inputs, 'mz', 1, 10000, 'u');
       const v0p = engine.rfForMass({ mz, r0: i.rodFieldRadius, frequency: i.rfFrequency });
-      const shown = engine.convertRf(v0p, 'zeroToPeakPerRod', rfFormOf(i));
+      const shown = engine.convertRf(v0p, 'zeroToPeakPerRod', rfFormOf(i.readbackConvention));
       return {
         value: shown,
         unit: 'V',
-        basis: `RF for m/z ${fmt(mz)} at the first-region apex (${geometry(i)}): ${fmt(v0p)} V zero-to-peak per rod${shown !== v0p ? `, shown ${readbackName(i)}` : ''}. Formula q = 4eV/(m r0² Ω²), Dawson 1976.`,
+        basis: `RF for m/z ${fmt(mz)} at the first-region apex (${geometry(i)}): ${fmt(v0p)} V zero-to-peak per rod${shown !== v0p ? `, shown ${readbackName(i.readbackConvention)}` : ''}. Formula q = 4eV/(m r0² Ω²), Dawson 1976.`,
       };
     },
     dcAtMass(instrument, inputs) {
@@ -148,12 +128,12 @@ export function makeRegistry(engine: EngineFace): Record<string, ExpectationFn> 
     rfOnlyCutoff(instrument, inputs) {
       const i = need(instrument, 'rfOnlyCutoff');
       const rfRead = input(inputs, 'rf', 1e-3, 1e5, 'V');
-      const v0p = engine.convertRf(rfRead, rfFormOf(i), 'zeroToPeakPerRod');
+      const v0p = engine.convertRf(rfRead, rfFormOf(i.readbackConvention), 'zeroToPeakPerRod');
       const low = engine.rfOnlyLowMassCutoff({ rf: v0p, r0: i.rodFieldRadius, frequency: i.rfFrequency });
       return {
         value: low,
         unit: 'u',
-        basis: `With DC off, ions below the RF-only edge are unstable: read-back ${fmt(rfRead)} V (${readbackName(i)}) is ${fmt(v0p)} V zero-to-peak per rod; lowest stable m/z ${fmt(low)} (${geometry(i)}; edge q ≈ 0.908, Dawson 1976).`,
+        basis: `With DC off, ions below the RF-only edge are unstable: read-back ${fmt(rfRead)} V (${readbackName(i.readbackConvention)}) is ${fmt(v0p)} V zero-to-peak per rod; lowest stable m/z ${fmt(low)} (${geometry(i)}; edge q ≈ 0.908, Dawson 1976).`,
       };
     },
     topMass(instrument) {

@@ -1,3 +1,4 @@
+import { formatNumber } from '../records/numberText';
 import type { Tolerance, Verdict } from './types';
 
 export interface Judgement {
@@ -19,7 +20,7 @@ export interface ExpectedInUnit {
 
 /** Plain words for a limit pair, e.g. "95–105 V" or "at most 2.7e+3 V". */
 export function describeLimits(low: number, high: number, unit: string): string {
-  const f = (x: number) => (Math.abs(x) >= 1e4 || (Math.abs(x) < 1e-2 && x !== 0) ? x.toExponential(2) : Number(x.toPrecision(4)).toString());
+  const f = (x: number) => formatNumber(x);
   if (Number.isFinite(low) && Number.isFinite(high)) return `${f(low)} to ${f(high)} ${unit}`;
   if (Number.isFinite(high)) return `at most ${f(high)} ${unit}`;
   if (Number.isFinite(low)) return `at least ${f(low)} ${unit}`;

@@ -8,28 +8,15 @@
  * Node IDs are short and stable: saved walks refer to them. Never renumber a shipped node.
  */
 
-export type InstrumentKind = 'gc-ms-single' | 'lc-ms-triple' | 'lc-ms-single' | 'gc-ms-triple' | 'rga';
+import type { InstrumentKind, InstrumentProfile } from '../records/types';
+
+export type { InstrumentKind };
 
 /** The fields of an instrument profile that diagnosis needs (structural, so any full profile fits). */
-export interface DiagnoseInstrument {
-  id: string;
-  name: string;
-  kind: InstrumentKind;
-  /** r0, m */
-  rodFieldRadius: number;
-  /** m */
-  rodLength: number;
-  /** Hz */
-  rfFrequency: number;
-  /** V zero-to-peak per rod */
-  maxRfAmplitude: number;
-  /** eV */
-  axialEnergy: number;
-  readbackConvention: {
-    amplitude: 'zero-to-peak' | 'peak-to-peak' | 'rms';
-    reference: 'per-rod' | 'between-pairs';
-  };
-}
+export type DiagnoseInstrument = Pick<
+  InstrumentProfile,
+  'id' | 'name' | 'kind' | 'rodFieldRadius' | 'rodLength' | 'rfFrequency' | 'maxRfAmplitude' | 'axialEnergy' | 'readbackConvention'
+>;
 
 export type TreeId = 'entry' | 'vacuum' | 'leak' | 'no-signal' | 'mass-axis' | 'peak-shape' | 'sensitivity' | 'noise';
 

@@ -28,7 +28,7 @@ import type {
   VerdictBranch,
 } from './types';
 import { SYMPTOM_ORDER } from './types';
-import { convert, sameDimension, toSI, UNITS } from './units';
+import { convert, sameDimension, toSI, UNITS } from '../records/units';
 
 export const WALK_FORMAT = 'rodside-walk/1';
 

@@ -42,3 +42,25 @@ export function convertDc(value: number, from: DcForm, to: DcForm): number {
   const factor = { perRod: 1, betweenPairs: 2 } as const;
   return (value / factor[f]) * factor[t];
 }
+
+/** How an instrument's read-back states an amplitude: its form. */
+export type AmplitudeForm = 'zero-to-peak' | 'peak-to-peak' | 'rms';
+/** What a read-back amplitude is measured against: one rod to ground, or one pair against the other. */
+export type AmplitudeReference = 'per-rod' | 'between-pairs';
+
+/** How an instrument's own read-backs state RF/DC: the form of the amplitude and what it is measured against. */
+export interface ReadbackConvention {
+  amplitude: AmplitudeForm;
+  reference: AmplitudeReference;
+}
+
+/** The RF form of a read-back convention, in the names convertRf takes. */
+export function rfFormOf(c: ReadbackConvention): RfForm {
+  const amp = c.amplitude === 'zero-to-peak' ? 'zeroToPeak' : c.amplitude === 'peak-to-peak' ? 'peakToPeak' : 'rms';
+  return `${amp}${c.reference === 'per-rod' ? 'PerRod' : 'BetweenPairs'}` as RfForm;
+}
+
+/** The DC form of a read-back convention, in the names convertDc takes. */
+export function dcFormOf(c: ReadbackConvention): DcForm {
+  return c.reference === 'per-rod' ? 'perRod' : 'betweenPairs';
+}

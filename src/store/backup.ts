@@ -8,7 +8,9 @@
 import type { IDBPDatabase } from 'idb';
 import {
   draftProblems, instrumentProblems, readingProblems, settingProblems, shown, visitProblems, walkProblems,
-} from './records';
+} from '../records/validate';
+import { abortQuietly } from './errors';
+import { allSettings, typedSetting, writeSetting } from './marks';
 import type { RodsideSchema } from './schema';
 import { DB_VERSION } from './schema';
 import { sha256Hex } from './sha256';
@@ -19,6 +21,8 @@ export const BACKUP_VERSION = 1;
 export const BACKUP_MAX_CHARS = 64 * 1024 * 1024;
 
 export const backupStores = ['instruments', 'visits', 'readings', 'walks', 'settings', 'drafts'] as const;
+/** Stores a backup holds as settings records (see marks.ts). */
+const typedStores = ['makerLimits', 'ownTypes', 'currentVisits'] as const;
 type BackupStore = (typeof backupStores)[number];
 
 const keyOf: Record<BackupStore, 'id' | 'key'> = {
@@ -59,16 +63,17 @@ export function canonicalJson(v: unknown): string {
 }
 
 export async function exportBackupText(db: IDBPDatabase<RodsideSchema>, now = new Date()): Promise<string> {
-  const tx = db.transaction([...backupStores], 'readonly');
+  const tx = db.transaction([...backupStores, ...typedStores], 'readonly');
   const data: Record<BackupStore, unknown[]> = {
     instruments: await tx.objectStore('instruments').getAll(),
     visits: await tx.objectStore('visits').getAll(),
     readings: await tx.objectStore('readings').getAll(),
     walks: await tx.objectStore('walks').getAll(),
-    settings: await tx.objectStore('settings').getAll(),
-    // The undo copy of a deleted instrument stays on this device only: the user deleted it, and a large copy
-    // could push the draft past the size a backup accepts.
-    drafts: (await tx.objectStore('drafts').getAll()).filter((d) => !d.key.startsWith('undo:')),
+    // The typed stores travel as the settings they were before database version 3, so the file format stays.
+    settings: await allSettings(tx),
+    // The undo copy of a deleted instrument (its own store) stays on this device only: the user deleted it, and a
+    // large copy could push the file past the size a backup accepts.
+    drafts: await tx.objectStore('drafts').getAll(),
   };
   await tx.done;
   const dataText = JSON.stringify(data);
@@ -166,12 +171,12 @@ export async function parseBackup(text: unknown): Promise<Record<BackupStore, Re
  */
 export async function importBackupText(db: IDBPDatabase<RodsideSchema>, text: unknown): Promise<ImportResult> {
   const incoming = await parseBackup(text);
-  const tx = db.transaction([...backupStores], 'readwrite');
+  const tx = db.transaction([...backupStores, ...typedStores], 'readwrite');
   const result: ImportResult = { added: 0, updated: 0, unchanged: 0 };
   try {
     const existing = {} as Record<BackupStore, Map<string, unknown>>;
     for (const s of backupStores) {
-      const all = (await tx.objectStore(s).getAll()) as unknown as Record<string, string>[];
+      const all = (s === 'settings' ? await allSettings(tx) : await tx.objectStore(s).getAll()) as unknown as Record<string, string>[];
       existing[s] = new Map(all.map((r) => [r[keyOf[s]], r]));
     }
     // Links must hold in the merged result: visits → instruments, readings → visits (same instrument), walks → visits.
@@ -203,14 +208,14 @@ export async function importBackupText(db: IDBPDatabase<RodsideSchema>, text: un
         if (was === undefined) result.added++;
         else if (JSON.stringify(was) === JSON.stringify(rec) || canonicalJson(was) === canonicalJson(rec)) { result.unchanged++; continue; }
         else result.updated++;
-        writes.push(store.put(rec as never));
+        if (s === 'settings' && typedSetting(rec.key as string)) writes.push(writeSetting(tx, rec.key as string, rec.value));
+        else writes.push(store.put(rec as never));
       }
     }
     await Promise.all(writes);
     await tx.done;
   } catch (err) {
-    try { tx.abort(); } catch { /* already finished or aborted */ }
-    await tx.done.catch(() => undefined);
+    abortQuietly(tx);
     throw err;
   }
   return result;

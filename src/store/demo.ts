@@ -1,164 +1,73 @@
-// The demo scenario: an invented contract-testing lab and its three invented instruments.
-// Geometry and supplies are plausible for their classes (common practice), not any real product.
-import type { InstrumentProfile, ReadingPhase, Visit } from './types';
+// Loading and removing the invented demo scenario (the data itself is in demoData.ts).
+import { assess, catalogue, checkEntry, pickBaselineVisit, type Reading, type Visit } from '../records';
+import type { Store, StoreContext } from './api';
+import { demoInstruments, demoReadings, demoVisits } from './demoData';
+import { guard, StoreError } from './errors';
+import { deleteVisitIn } from './visits';
 
-export const DEMO_LAB = 'Harrowgate Basin Environmental Testing (invented demo lab)';
+export * from './demoData';
 
-const created = '2026-01-05T09:00:00.000Z';
+/** The demo readings of one visit, judged by the same rules as real ones against the baseline known by then. */
+function demoReadingsOf(v: Visit, baseline: { visit: Visit; readings: Reading[] } | undefined, engine: StoreContext['engine']): Reading[] {
+  const instrument = demoInstruments.find((i) => i.id === v.instrumentId);
+  return demoReadings.filter((r) => r.visitId === v.id).map((seed) => {
+    const type = catalogue.find((t) => t.id === seed.typeId)!;
+    const entry = checkEntry(type, seed.text, seed.unitId, seed.context ?? {});
+    if (!entry.ok) throw new StoreError(`Demo data is inconsistent (${Object.values(entry.errors).join(' ')}).`);
+    const unit = type.units.find((u) => u.id === seed.unitId)!;
+    const verdict = assess(type, instrument, v.id, entry.value, entry.context, baseline, engine);
+    return {
+      id: `demo-rdg-${v.id.replace(/^demo-visit-/, '')}-${seed.phase}-${seed.typeId}${seed.context?.mz ? `-${seed.context.mz}` : ''}`,
+      visitId: v.id, instrumentId: v.instrumentId, typeId: type.id, phase: seed.phase, value: entry.value,
+      entered: { text: seed.text, unit: unit.label }, context: entry.context, ...verdict,
+      note: seed.note ?? '', takenAt: seed.takenAt ?? new Date(Date.parse(v.startedAt) + (seed.phase === 'as-left' ? 5 : 1) * 3600_000).toISOString(),
+      origin: 'entered', demo: true,
+    };
+  });
+}
 
-export const demoInstruments: readonly InstrumentProfile[] = [
-  {
-    id: 'demo-gcms-kestrel',
-    name: 'Kestrel — GC-MS single quad (demo)',
-    kind: 'gc-ms-single',
-    rodFieldRadius: 4.5e-3,
-    rodLength: 0.15,
-    rfFrequency: 1.0e6,
-    maxRfAmplitude: 1600,
-    axialEnergy: 5,
-    multiplierVoltageLimit: 2600,
-    readbackConvention: { amplitude: 'zero-to-peak', reference: 'per-rod' },
-    notes: 'Volatiles bench, basement room B-04. Helium carrier about 1 mL/min. Invented demo instrument.',
-    demo: true,
-    createdAt: created,
-    updatedAt: created,
-  },
-  {
-    id: 'demo-lcms-heron',
-    name: 'Heron — LC-MS triple quad, Q1/Q3 (demo)',
-    kind: 'lc-ms-triple',
-    rodFieldRadius: 4.0e-3,
-    rodLength: 0.2,
-    rfFrequency: 1.2e6,
-    maxRfAmplitude: 4200,
-    axialEnergy: 2,
-    readbackConvention: { amplitude: 'peak-to-peak', reference: 'per-rod' },
-    notes: 'Pesticides suite. Read-backs are peak-to-peak on one rod. Invented demo instrument.',
-    demo: true,
-    createdAt: created,
-    updatedAt: created,
-  },
-  {
-    id: 'demo-rga-wren',
-    name: 'Wren — residual gas analyser on coater 2 (demo)',
-    kind: 'rga',
-    rodFieldRadius: 3.0e-3,
-    rodLength: 0.1,
-    rfFrequency: 2.5e6,
-    maxRfAmplitude: 900,
-    axialEnergy: 8,
-    readbackConvention: { amplitude: 'zero-to-peak', reference: 'per-rod' },
-    notes: 'Range 1–100 u, Faraday cup and electron multiplier. Invented demo instrument.',
-    demo: true,
-    createdAt: created,
-    updatedAt: created,
-  },
-];
-
-// ---- Invented visits, about two years of them --------------------------------------------------
-// Kestrel's multiplier voltage creeps up visit after visit (ageing), one visit finds an air leak at a
-// transfer-line nut, and the rough-pump oil is changed once. Every name and number here is made up.
-
-const demoEngineer = 'T. Placeholder (invented demo engineer)';
-const demoSite = 'Harrowgate Basin Environmental Testing, basement B-04 (invented)';
-
-function visit(id: string, instrumentId: string, startedAt: string, reason: Visit['reason'], notes: string, partsUsed: string, extra: Partial<Visit> = {}): Visit {
+export function demoMethods({ db, engine }: StoreContext): Pick<Store, 'loadDemo' | 'removeDemo'> {
   return {
-    id: `demo-visit-${id}`, instrumentId, startedAt, site: demoSite, engineer: demoEngineer, reason,
-    notes: `${notes} (Invented demo visit.)`, partsUsed, demo: true, createdAt: startedAt, updatedAt: startedAt, ...extra,
+    loadDemo: (force = false) =>
+      guard('load the demo instruments', async () => {
+        const tx = db.transaction(['instruments', 'settings', 'visits', 'readings'], 'readwrite');
+        if ((await tx.objectStore('settings').get('demoLoaded')) && !force) {
+          await tx.done;
+          return false;
+        }
+        for (const p of demoInstruments) if (!(await tx.objectStore('instruments').get(p.id))) await tx.objectStore('instruments').put({ ...p });
+        // In date order, so each visit is judged against the baseline known by then.
+        const visits = [...demoVisits].sort((a, b) => (a.startedAt < b.startedAt ? -1 : 1));
+        for (const v of visits) if (!(await tx.objectStore('visits').get(v.id))) await tx.objectStore('visits').put({ ...v });
+        const done = new Map<string, Reading[]>();
+        for (const v of visits) {
+          const baselineVisit = pickBaselineVisit(visits.filter((x) => x.instrumentId === v.instrumentId && x.startedAt <= v.startedAt));
+          const list = demoReadingsOf(v, baselineVisit ? { visit: baselineVisit, readings: done.get(baselineVisit.id) ?? [] } : undefined, engine);
+          for (const r of list) if (!(await tx.objectStore('readings').get(r.id))) await tx.objectStore('readings').put(r);
+          done.set(v.id, list);
+        }
+        await tx.objectStore('settings').put({ key: 'demoLoaded', value: true });
+        await tx.done;
+        return true;
+      }),
+
+    removeDemo: () =>
+      guard('remove the demo data', async () => {
+        // Demo visits, readings and walks go too; a demo instrument's own visits are removed with it.
+        const tx = db.transaction(['instruments', 'visits', 'readings', 'walks'], 'readwrite');
+        const demoIds = new Set<string>();
+        for (let c = await tx.objectStore('instruments').openCursor(); c; c = await c.continue()) {
+          if (!c.value.demo) continue;
+          demoIds.add(c.value.id);
+          await c.delete();
+        }
+        for (let c = await tx.objectStore('visits').openCursor(); c; c = await c.continue()) {
+          if (c.value.demo || demoIds.has(c.value.instrumentId)) await deleteVisitIn(tx, c.value);
+        }
+        for (let c = await tx.objectStore('readings').openCursor(); c; c = await c.continue()) if (c.value.demo) await c.delete();
+        for (let c = await tx.objectStore('walks').openCursor(); c; c = await c.continue()) if (c.value.demo) await c.delete();
+        await tx.done;
+        return demoIds.size;
+      }),
   };
 }
-
-export const demoVisits: readonly Visit[] = [
-  visit('k1', 'demo-gcms-kestrel', '2024-12-10T09:00:00.000Z', 'installation', 'Installation and first tune. As-left values set as the baseline.', 'None', { baseline: true, testEquipment: 'Demo DMM DM-01, calibration due 2025-11 (invented)' }),
-  visit('k2', 'demo-gcms-kestrel', '2025-03-18T09:30:00.000Z', 'preventive', 'Six-month check. Source clean, rough-pump oil looks fine.', 'Source insulator kit'),
-  visit('k3', 'demo-gcms-kestrel', '2025-06-24T10:00:00.000Z', 'preventive', 'Routine. Multiplier needs a little more voltage at tune.', 'None'),
-  visit('k4', 'demo-gcms-kestrel', '2025-09-30T08:45:00.000Z', 'after-venting-or-cleaning', 'Vented for a column change; pumped down overnight, water falling.', 'Column nut and ferrule'),
-  visit('k5', 'demo-gcms-kestrel', '2026-01-13T09:15:00.000Z', 'preventive', 'Rough-pump oil changed; fore-vacuum back to normal.', 'Rough-pump oil, 1 L'),
-  visit('k6', 'demo-gcms-kestrel', '2026-04-21T13:00:00.000Z', 'sensitivity-loss', 'Area counts down by a third. Air check showed m/z 28 high with 28:32 near 3.8: loose transfer-line nut, tightened. <script>alert("notes are plain text")</script>', 'Transfer-line ferrule'),
-  visit('k7', 'demo-gcms-kestrel', '2026-07-28T09:00:00.000Z', 'preventive', 'Routine. Multiplier voltage keeps rising about 15 V a month; plan a replacement.', 'None'),
-  visit('k8', 'demo-gcms-kestrel', '2026-10-27T09:00:00.000Z', 'preventive', 'Routine. Quote sent for a new multiplier.', 'Filament'),
-  visit('h1', 'demo-lcms-heron', '2025-05-06T09:00:00.000Z', 'installation', 'Installation. Baseline set. Read-backs are peak-to-peak.', 'None', { baseline: true }),
-  visit('h2', 'demo-lcms-heron', '2025-11-18T09:00:00.000Z', 'preventive', 'Routine; cone cleaned.', 'Cone O-ring'),
-  visit('h3', 'demo-lcms-heron', '2026-05-19T09:00:00.000Z', 'preventive', 'Routine.', 'None'),
-  visit('w1', 'demo-rga-wren', '2025-02-04T10:00:00.000Z', 'installation', 'RGA fitted to coater 2. Baseline set after bake-out.', 'Gasket', { baseline: true }),
-  visit('w2', 'demo-rga-wren', '2025-10-07T10:00:00.000Z', 'failure', 'Process chamber base pressure high: 28:32 near 3.9 and argon at m/z 40, an air leak at a viewport. Resealed.', 'Viewport gasket'),
-  visit('w3', 'demo-rga-wren', '2026-06-09T10:00:00.000Z', 'preventive', 'Routine.', 'None'),
-];
-
-export interface DemoReadingSeed {
-  visitId: string;
-  typeId: string;
-  phase: ReadingPhase;
-  /** As typed, in unitId. */
-  text: string;
-  unitId: string;
-  context?: Record<string, string>;
-  note?: string;
-  takenAt?: string;
-}
-
-const seeds: DemoReadingSeed[] = [];
-function add(v: string, typeId: string, phase: ReadingPhase, text: string, unitId: string, context?: Record<string, string>, note?: string): void {
-  seeds.push({ visitId: `demo-visit-${v}`, typeId, phase, text, unitId, ...(context ? { context } : {}), ...(note ? { note } : {}) });
-}
-
-// Kestrel: as-found and as-left per visit. [multiplier V, high vacuum Torr, fore-vacuum mbar]
-const kestrel: [string, number, number, string, string, string, string][] = [
-  // visit, multiplier found, multiplier left, high vac found, high vac left, fore found, fore left
-  ['k1', 1400, 1420, '1.2e-5', '1.1e-5', '3.0e-2', '3.0e-2'],
-  ['k2', 1465, 1460, '1.2e-5', '1.15e-5', '3.4e-2', '3.3e-2'],
-  ['k3', 1520, 1505, '1.25e-5', '1.2e-5', '4.1e-2', '4.0e-2'],
-  ['k4', 1560, 1545, '2.9e-5', '1.3e-5', '4.6e-2', '4.4e-2'],
-  ['k5', 1610, 1600, '1.3e-5', '1.2e-5', '6.8e-2', '3.1e-2'],
-  ['k6', 1690, 1650, '3.8e-5', '1.25e-5', '3.5e-2', '3.4e-2'],
-  ['k7', 1720, 1705, '1.3e-5', '1.2e-5', '3.9e-2', '3.8e-2'],
-  ['k8', 1770, 1750, '1.3e-5', '1.25e-5', '4.2e-2', '4.1e-2'],
-];
-for (const [v, mvFound, mvLeft, hvFound, hvLeft, fvFound, fvLeft] of kestrel) {
-  add(v, 'multiplier-voltage', 'as-found', String(mvFound), 'V');
-  add(v, 'multiplier-voltage', 'as-left', String(mvLeft), 'V');
-  add(v, 'vacuum-high', 'as-found', hvFound, 'Torr', { gaugeGas: 'N2-equivalent' });
-  add(v, 'vacuum-high', 'as-left', hvLeft, 'Torr', { gaugeGas: 'N2-equivalent' });
-  add(v, 'vacuum-fore', 'as-found', fvFound, 'mbar', { gaugeGas: 'N2-equivalent' });
-  add(v, 'vacuum-fore', 'as-left', fvLeft, 'mbar', { gaugeGas: 'N2-equivalent' });
-  add(v, 'emission-current', 'as-left', v === 'k8' ? '34.9' : '34.5', 'uA', { setpoint: '35' });
-  add(v, 'source-temperature', 'as-left', '230.4', 'degC', { setpoint: '230' });
-}
-// RF at two parked masses on the installation and last visit (one rod to ground, zero-to-peak).
-add('k1', 'rf-amplitude', 'as-left', '100.4', 'V0p-rod', { mz: '69' });
-add('k1', 'rf-amplitude', 'as-left', '731.0', 'V0p-rod', { mz: '502' });
-add('k8', 'rf-amplitude', 'as-found', '100.6', 'V0p-rod', { mz: '69' });
-add('k8', 'rf-amplitude', 'as-found', '738.9', 'V0p-rod', { mz: '502' }, 'Slightly high at 502: linearity worth a look next visit.');
-add('k1', 'rf-frequency', 'as-left', '1.00012', 'MHz');
-add('k8', 'rf-frequency', 'as-found', '1.00013', 'MHz');
-for (const [v, w69, w219, w502] of [['k1', '0.60', '0.61', '0.62'], ['k5', '0.61', '0.62', '0.64'], ['k8', '0.62', '0.63', '0.69']]) {
-  add(v, 'peak-width', 'as-left', w69, 'u', { mz: '69' });
-  add(v, 'peak-width', 'as-left', w219, 'u', { mz: '219' });
-  add(v, 'peak-width', 'as-left', w502, 'u', { mz: '502' });
-  add(v, 'relative-abundance', 'as-left', v === 'k8' ? '41' : '48', 'percent', { mz: '219', referenceMz: '69' });
-  add(v, 'relative-abundance', 'as-left', v === 'k8' ? '3.1' : '3.6', 'percent', { mz: '502', referenceMz: '69' });
-  add(v, 'isotope-ratio', 'as-left', v === 'k8' ? '4.5' : '4.3', 'percent', { mz: '219' });
-}
-add('k4', 'leak-water-18', 'as-found', '35', 'percent', { referenceMz: '69' }, 'Water still falling after the vent.');
-add('k6', 'leak-nitrogen-28', 'as-found', '24', 'percent', { referenceMz: '69' });
-add('k6', 'leak-ratio-28-32', 'as-found', '3.8', 'ratio', undefined, 'Air-like ratio.');
-add('k6', 'leak-nitrogen-28', 'as-left', '4.5', 'percent', { referenceMz: '69' });
-add('k1', 'leak-nitrogen-28', 'as-left', '4', 'percent', { referenceMz: '69' });
-add('k1', 'leak-water-18', 'as-left', '8', 'percent', { referenceMz: '69' });
-// Heron: read-backs are peak-to-peak, one rod to ground.
-for (const [v, mv, rf] of [['h1', '1750', '2018'], ['h2', '1820', '2021'], ['h3', '1905', '2015']] as const) {
-  add(v, 'multiplier-voltage', 'as-left', mv, 'V');
-  add(v, 'rf-amplitude', 'as-left', rf, 'Vpp-rod', { mz: '609' });
-  add(v, 'vacuum-fore', 'as-left', v === 'h3' ? '2.4' : '2.1', 'mbar', { gaugeGas: 'N2-equivalent' });
-}
-// Wren: RGA on a coater.
-for (const [v, hv, ratio, em] of [['w1', '2.0e-7', '1.2', '1.00'], ['w2', '6.5e-6', '3.9', '0.97'], ['w3', '2.2e-7', '1.3', '0.99']] as const) {
-  add(v, 'vacuum-high', v === 'w2' ? 'as-found' : 'as-left', hv, 'mbar', { gaugeGas: 'N2-equivalent' });
-  add(v, 'leak-ratio-28-32', v === 'w2' ? 'as-found' : 'as-left', ratio, 'ratio');
-  add(v, 'emission-current', 'as-left', em, 'mA', { setpoint: '1' });
-}
-add('w2', 'vacuum-high', 'as-left', '2.3e-7', 'mbar', { gaugeGas: 'N2-equivalent' });
-add('w2', 'leak-ratio-28-32', 'as-left', '1.3', 'ratio');
-
-export const demoReadings: readonly DemoReadingSeed[] = seeds;

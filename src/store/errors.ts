@@ -29,3 +29,24 @@ export function describeStorageError(action: string, err: unknown): StoreError {
   const detail = err instanceof Error ? err.message : String(err);
   return new StoreError(`Could not ${action}: the device refused to save (${detail || name || 'unknown error'}). What you typed is still here; try again.`, err);
 }
+
+/** Run a storage action; whatever it throws reaches the caller as a StoreError with a sentence for the user. */
+export async function guard<T>(action: string, fn: () => Promise<T>): Promise<T> {
+  try {
+    return await fn();
+  } catch (err) {
+    throw describeStorageError(action, err);
+  }
+}
+
+/** Abort a transaction that may already be finished; its `done` then rejects with the abort, which is expected. */
+export function abortQuietly(tx: { abort(): void; done: Promise<void> }): void {
+  tx.done.catch((e: unknown) => {
+    if ((e as { name?: string } | null)?.name !== 'AbortError') console.error('Rodside: a transaction failed while being aborted', e);
+  });
+  try {
+    tx.abort();
+  } catch {
+    // Already committed or aborted: there is nothing left to undo.
+  }
+}

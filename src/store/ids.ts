@@ -10,3 +10,9 @@ export function newId(prefix: string): string {
 export function nowIso(): string {
   return new Date().toISOString();
 }
+
+/** Identity and times of a record being saved: kept from the record it replaces, new when there is none. */
+export function stamp(prefix: string, existing: { id: string; createdAt: string } | undefined): { id: string; createdAt: string; updatedAt: string } {
+  const now = nowIso();
+  return { id: existing?.id ?? newId(prefix), createdAt: existing?.createdAt ?? now, updatedAt: now };
+}

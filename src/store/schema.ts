@@ -1,9 +1,38 @@
 // IndexedDB schema and its stepwise migrations. Only src/store imports idb.
 import type { DBSchema, IDBPDatabase, IDBPTransaction, StoreNames } from 'idb';
-import type { DraftRecord, InstrumentProfile, Reading, SettingRecord, Visit, WalkRecord } from './types';
+import type { MakerLimit, ReadingType } from '../records';
+import type { DraftRecord, InstrumentProfile, Reading, SettingRecord, Visit, WalkRecord } from '../records/types';
+import { migrateToTyped } from './migrateV3';
 
 export const DB_NAME = 'rodside';
-export const DB_VERSION = 2;
+export const DB_VERSION = 3;
+
+/** The maker's (or site's) limits of one instrument, one per reading type. */
+export interface MakerLimitsRecord {
+  instrumentId: string;
+  limits: MakerLimit[];
+}
+
+/** One reading type the user added on this device; `order` keeps them in the order they were added. */
+export interface OwnTypeRecord {
+  id: string;
+  order: number;
+  type: ReadingType;
+}
+
+/** The visit "Note this" and the Visits screen treat as open for an instrument. */
+export interface CurrentVisitRecord {
+  instrumentId: string;
+  visitId: string;
+}
+
+/** The copy kept after an instrument is deleted, so undo works across a reload. */
+export interface UndoCopyRecord {
+  instrumentId: string;
+  profile: InstrumentProfile;
+  bundles: { visit: Visit; readings: Reading[]; walks: WalkRecord[] }[];
+  deletedAt: string;
+}
 
 export interface RodsideSchema extends DBSchema {
   instruments: { key: string; value: InstrumentProfile; indexes: { byName: string } };
@@ -12,12 +41,17 @@ export interface RodsideSchema extends DBSchema {
   readings: { key: string; value: Reading; indexes: { byVisit: string; byInstrumentType: [string, string] } };
   walks: { key: string; value: WalkRecord; indexes: { byVisit: string } };
   drafts: { key: string; value: DraftRecord };
+  makerLimits: { key: string; value: MakerLimitsRecord };
+  ownTypes: { key: string; value: OwnTypeRecord };
+  currentVisits: { key: string; value: CurrentVisitRecord };
+  undoCopies: { key: string; value: UndoCopyRecord };
 }
 
 /**
  * Version 1 kept instrument profiles in display units (mm, MHz) with a single "rfIsPeakToPeak" flag and had
  * only the instruments and settings stores. Version 2 moves profiles to SI, states the read-back convention in
- * full, and adds visits, readings, walks and drafts.
+ * full, and adds visits, readings, walks and drafts. Version 3 moves maker's limits, own reading types, current-visit
+ * marks and undo copies out of the untyped settings and drafts stores into typed stores of their own.
  */
 export interface InstrumentV1 {
   id: string;
@@ -34,7 +68,7 @@ export interface InstrumentV1 {
   updatedAt: string;
 }
 
-type UpgradeTx = IDBPTransaction<RodsideSchema, StoreNames<RodsideSchema>[], 'versionchange'>;
+export type UpgradeTx = IDBPTransaction<RodsideSchema, StoreNames<RodsideSchema>[], 'versionchange'>;
 
 export async function upgrade(db: IDBPDatabase<RodsideSchema>, oldVersion: number, tx: UpgradeTx): Promise<void> {
   if (oldVersion < 1) {
@@ -77,4 +111,5 @@ export async function upgrade(db: IDBPDatabase<RodsideSchema>, oldVersion: numbe
     walks.createIndex('byVisit', 'visitId');
     db.createObjectStore('drafts', { keyPath: 'key' });
   }
+  if (oldVersion < 3) await migrateToTyped(db, tx);
 }

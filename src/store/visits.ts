@@ -1,210 +1,148 @@
-// Visit form rules, user-defined reading types, and the pure part of judging a reading against the
-// instrument's baseline. No storage here.
-import { catalogue, catalogueType, type BadSide, type ReadingType, type ToleranceRule } from './catalogue';
-import { contextMatches, expectationFor, judgeWithLimit, type EngineFunctions, type Expectation, type MakerLimit, type ReadingContext } from './judge';
-import { parseNumber } from './profile';
-import { LIMITS, shown, visitReasons } from './records';
-import type { InstrumentProfile, Reading, Verdict, Visit, VisitReason } from './types';
+// Visits: create, change, delete with everything hanging off them (and put back), the baseline mark, and the
+// instrument's open visit (the "current visit" mark that "Note this" and the Visits screen use).
+import type { IDBPTransaction, StoreNames } from 'idb';
+import { pickBaselineVisit, visitProblems, type Visit, type VisitFields } from '../records';
+import type { Store, StoreContext, VisitBundle } from './api';
+import { guard, StoreError } from './errors';
+import { nowIso, stamp } from './ids';
+import { currentVisitIdIn, setCurrentVisitIn } from './marks';
+import type { RodsideSchema } from './schema';
 
-/** What the visit form holds: text as typed. */
-export interface VisitDraft {
-  instrumentId: string;
-  /** Local date and time as the form gives it ("2026-03-01T09:30") or a full ISO string. */
-  startedAt: string;
-  site: string;
-  engineer: string;
-  reason: string;
-  notes: string;
-  partsUsed: string;
-  testEquipment: string;
+type Names = StoreNames<RodsideSchema>;
+// Transactions are typed over every store: idb's types do not let a transaction over more stores stand in for one
+// over fewer, so each helper says in words which stores it needs.
+/** A read-write transaction. */
+export type WriteTx = IDBPTransaction<RodsideSchema, Names[], 'readwrite'>;
+/** Any transaction. */
+export type ReadTx = IDBPTransaction<RodsideSchema, Names[], IDBTransactionMode>;
+
+/** Delete a visit with its readings and walks inside the caller's transaction; returns what went, for undo. */
+export async function deleteVisitIn(tx: WriteTx, visit: Visit): Promise<VisitBundle> {
+  const readings = await tx.objectStore('readings').index('byVisit').getAll(visit.id);
+  const walks = await tx.objectStore('walks').index('byVisit').getAll(visit.id);
+  for (const r of readings) await tx.objectStore('readings').delete(r.id);
+  for (const w of walks) await tx.objectStore('walks').delete(w.id);
+  await tx.objectStore('visits').delete(visit.id);
+  return { visit, readings, walks };
 }
 
-export type VisitFields = Omit<Visit, 'id' | 'createdAt' | 'updatedAt' | 'demo' | 'baseline'>;
-
-export function emptyVisitDraft(instrumentId: string, now = new Date()): VisitDraft {
-  return {
-    instrumentId, startedAt: now.toISOString().slice(0, 16), site: '', engineer: '', reason: 'preventive',
-    notes: '', partsUsed: '', testEquipment: '',
-  };
+/** Put a visit back with its readings and walks, inside the caller's transaction. */
+export async function putBundle(tx: WriteTx, b: VisitBundle): Promise<void> {
+  await tx.objectStore('visits').put(b.visit);
+  for (const r of b.readings) await tx.objectStore('readings').put(r);
+  for (const w of b.walks) await tx.objectStore('walks').put(w);
 }
 
-export function draftFromVisit(v: Visit): VisitDraft {
-  return {
-    instrumentId: v.instrumentId, startedAt: v.startedAt, site: v.site, engineer: v.engineer, reason: v.reason,
-    notes: v.notes, partsUsed: v.partsUsed, testEquipment: v.testEquipment ?? '',
-  };
-}
-
-/** Check the visit form. Dates without a zone are read as the device's local time. */
-export function validateVisitDraft(d: VisitDraft): { ok: true; fields: VisitFields } | { ok: false; errors: Partial<Record<keyof VisitDraft, string>> } {
-  const errors: Partial<Record<keyof VisitDraft, string>> = {};
-  const when = Date.parse(d.startedAt);
-  if (d.startedAt.trim() === '') errors.startedAt = 'Date and time is empty: enter when the visit started.';
-  else if (!Number.isFinite(when)) errors.startedAt = `Date and time “${d.startedAt}” is not a date: use the picker or write 2026-03-01 09:30.`;
-  else if (when < Date.UTC(1970, 0, 1) || when > Date.UTC(2200, 0, 1)) errors.startedAt = 'Date and time is out of range: enter a date between 1970 and 2200.';
-  if (!d.instrumentId) errors.instrumentId = 'Instrument is not chosen: pick the instrument this visit is for.';
-  const text = (k: 'site' | 'engineer' | 'notes' | 'partsUsed' | 'testEquipment', label: string, max: number, required = false) => {
-    const v = d[k];
-    if (required && v.trim() === '') errors[k] = `${label} is empty: enter 1 to ${max} characters.`;
-    else if (v.length > max) errors[k] = `${label} is ${v.length} characters long: keep it to ${max}.`;
-  };
-  text('site', 'Site', LIMITS.shortText);
-  text('engineer', 'Engineer', LIMITS.shortText, true);
-  text('notes', 'Notes', LIMITS.longText);
-  text('partsUsed', 'Parts used', LIMITS.longText);
-  text('testEquipment', 'Test equipment', LIMITS.longText);
-  if (!visitReasons.some((r) => r.value === d.reason)) errors.reason = `Reason “${d.reason}” is not one of: ${visitReasons.map((r) => r.label).join('; ')}.`;
-  if (Object.keys(errors).length) return { ok: false, errors };
-  return {
-    ok: true,
-    fields: {
-      instrumentId: d.instrumentId, startedAt: new Date(when).toISOString(), site: d.site.trim(), engineer: d.engineer.trim(),
-      reason: d.reason as VisitReason, notes: d.notes, partsUsed: d.partsUsed,
-      ...(d.testEquipment.trim() ? { testEquipment: d.testEquipment } : {}),
-    },
-  };
-}
-
-// ---- User-defined reading types ------------------------------------------------------------------
-
-export const OWN_TYPES_SETTING = 'ownReadingTypes';
-
-export interface OwnTypeDraft {
-  label: string;
-  unit: string;
-  min: string;
-  max: string;
-  badSide: string;
-  toleranceKind: string;
-  pass: string;
-  borderline: string;
-  expectedLow: string;
-  expectedHigh: string;
-  source: string;
-}
-
-export function emptyOwnTypeDraft(): OwnTypeDraft {
-  return { label: '', unit: '', min: '', max: '', badSide: 'both', toleranceKind: 'relative', pass: '5', borderline: '10', expectedLow: '', expectedHigh: '', source: '' };
-}
-
-function slug(s: string): string {
-  return s.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 40) || 'reading';
-}
-
-/**
- * Turn the "add your own reading" form into a reading type. Relative tolerances are typed in per cent.
- * The type is judged against the baseline, or against the typed range when there is no baseline.
- */
-export function ownTypeFromDraft(d: OwnTypeDraft, takenIds: ReadonlySet<string>): { ok: true; type: ReadingType } | { ok: false; errors: Partial<Record<keyof OwnTypeDraft, string>> } {
-  const errors: Partial<Record<keyof OwnTypeDraft, string>> = {};
-  const label = d.label.trim();
-  const unit = d.unit.trim();
-  if (label === '' || label.length > 80) errors.label = 'Name is empty or too long: enter 1 to 80 characters.';
-  if (unit === '' || unit.length > 30) errors.unit = 'Unit is empty or too long: enter 1 to 30 characters (for example “L/min”).';
-  const n = (k: keyof OwnTypeDraft, label: string, lo: number, hi: number, optional = false): number | undefined => {
-    const t = d[k].trim();
-    if (t === '' && optional) return undefined;
-    const v = parseNumber(t);
-    if (v === null || v < lo || v > hi) {
-      errors[k] = `${label} “${t}” is not accepted: enter a number between ${lo} and ${hi}.`;
-      return undefined;
-    }
-    return v;
-  };
-  const min = n('min', 'Lowest plausible value', -1e12, 1e12);
-  const max = n('max', 'Highest plausible value', -1e12, 1e12);
-  if (min !== undefined && max !== undefined && !(max > min)) errors.max = 'Highest plausible value must be above the lowest.';
-  if (!['both', 'high', 'low'].includes(d.badSide)) errors.badSide = 'Which way is bad must be one of: both, too high, too low.';
-  if (!['relative', 'absolute'].includes(d.toleranceKind)) errors.toleranceKind = 'Tolerance kind must be per cent or absolute.';
-  const rel = d.toleranceKind === 'relative';
-  const pass = n('pass', `Pass tolerance${rel ? ' (%)' : ''}`, 0, rel ? 1000 : 1e12);
-  const borderline = n('borderline', `Borderline tolerance${rel ? ' (%)' : ''}`, 0, rel ? 1000 : 1e12);
-  if (pass !== undefined && borderline !== undefined && borderline < pass) errors.borderline = 'Borderline tolerance must be at least the pass tolerance.';
-  const low = n('expectedLow', 'Expected range, low end', -1e12, 1e12, true);
-  const high = n('expectedHigh', 'Expected range, high end', -1e12, 1e12, true);
-  if (low !== undefined && high !== undefined && high < low) errors.expectedHigh = 'The high end of the expected range must not be below the low end.';
-  if (d.source.length > 300) errors.source = 'Source is too long: keep it to 300 characters.';
-  if (Object.keys(errors).length) return { ok: false, errors };
-  let id = `own-${slug(label)}`;
-  for (let i = 2; takenIds.has(id) || catalogueType(id); i++) id = `own-${slug(label)}-${i}`;
-  const tolerance: ToleranceRule = rel
-    ? { kind: 'relative', pass: pass! / 100, borderline: borderline! / 100 }
-    : { kind: 'absolute', pass: pass!, borderline: borderline! };
-  const type: ReadingType = {
-    id, label, group: 'own', baseUnit: unit, units: [{ id: 'own', label: unit, factor: 1 }], defaultUnit: 'own',
-    plausible: { min: min!, max: max! }, badSide: d.badSide as BadSide, baselineTolerance: tolerance,
-    ...(low !== undefined || high !== undefined
-      ? { generic: [{ low, high, source: d.source.trim() || 'entered by the user' }], genericMargin: tolerance.kind === 'relative' ? { kind: 'relative' as const, pass: 0, borderline: tolerance.borderline } : { kind: 'absolute' as const, pass: 0, borderline: tolerance.borderline } }
-      : {}),
-    context: [], matchContext: [], trendScale: 'linear', help: 'Added on this device.', own: true,
-  };
-  return { ok: true, type };
-}
-
-/** Check reading types read back from settings (they may come from an imported backup). */
-export function ownTypesFrom(value: unknown): ReadingType[] {
-  if (!Array.isArray(value)) return [];
-  return value.filter((t): t is ReadingType => {
-    if (typeof t !== 'object' || t === null) return false;
-    const r = t as Partial<ReadingType>;
-    return typeof r.id === 'string' && r.id.startsWith('own-') && typeof r.label === 'string' && Array.isArray(r.units) &&
-      r.units.length > 0 && r.units.every((u) => typeof u?.factor === 'number' && Number.isFinite(u.factor) && u.factor !== 0) &&
-      typeof r.plausible?.min === 'number' && typeof r.plausible?.max === 'number' && typeof r.baselineTolerance?.pass === 'number';
-  }).map((t) => ({ ...t, context: t.context ?? [], matchContext: t.matchContext ?? [], own: true }));
-}
-
-export function allTypes(own: readonly ReadingType[]): ReadingType[] {
-  return [...catalogue, ...own];
-}
-
-// ---- Judging a reading ---------------------------------------------------------------------------
-
-export interface BaselineSet {
-  visit: Visit;
-  readings: readonly Reading[];
-}
-
-/** The baseline visit of an instrument: the latest visit marked as baseline. */
-export function pickBaselineVisit(visits: readonly Visit[]): Visit | undefined {
-  let best: Visit | undefined;
-  for (const v of visits) if (v.baseline && (!best || v.startedAt > best.startedAt)) best = v;
-  return best;
-}
-
-/**
- * The usual expectation for a reading: the instrument's baseline (its as-left value of the same type and
- * matching context), else a calculation, else a generic range. A visit is never compared with itself.
- */
-export function expectationOf(
-  type: ReadingType, instrument: InstrumentProfile | undefined, visitId: string, context: ReadingContext,
-  baseline: BaselineSet | undefined, engine: EngineFunctions | undefined,
-): Expectation | undefined {
-  let base: { value: number; visitStartedAt: string } | undefined;
-  if (baseline && baseline.visit.id !== visitId) {
-    let match: Reading | undefined;
-    for (const r of baseline.readings) {
-      if (r.typeId === type.id && r.phase === 'as-left' && contextMatches(type, r.context, context) && (!match || r.takenAt > match.takenAt)) match = r;
-    }
-    if (match) base = { value: match.value, visitStartedAt: baseline.visit.startedAt };
+/** Create (no id) or update a visit inside the caller's transaction; the baseline mark and demo flag are kept. */
+export async function saveVisitIn(tx: WriteTx, fields: VisitFields, id?: string): Promise<Visit> {
+  const existing = id ? await tx.objectStore('visits').get(id) : undefined;
+  if (id && !existing) throw new StoreError(`Could not save: the visit ${id} no longer exists.`);
+  if (!(await tx.objectStore('instruments').get(fields.instrumentId))) {
+    throw new StoreError('Could not save the visit: its instrument profile no longer exists.');
   }
-  return expectationFor({ type, instrument, context, baseline: base, engine });
+  if (existing && existing.instrumentId !== fields.instrumentId) {
+    throw new StoreError('Could not save the visit: a visit cannot move to another instrument (its readings belong to the first).');
+  }
+  const record: Visit = {
+    ...fields,
+    ...stamp('visit', existing),
+    ...(existing?.baseline ? { baseline: true } : {}),
+    ...(existing?.demo ? { demo: true } : {}),
+  };
+  const problems = visitProblems('visit', record);
+  if (problems.length) throw new StoreError(`Could not save the visit: ${problems.join('; ')}.`);
+  await tx.objectStore('visits').put(record);
+  return record;
 }
 
-/** Expected value and verdict for a value (base units), with the instrument's own limit taken into account. */
-export function assess(
-  type: ReadingType, instrument: InstrumentProfile | undefined, visitId: string, value: number, context: ReadingContext,
-  baseline: BaselineSet | undefined, engine: EngineFunctions | undefined, limit?: MakerLimit,
-): { expected?: Reading['expected']; verdict?: Verdict } {
-  const r = judgeWithLimit(value, type.baseUnit, expectationOf(type, instrument, visitId, context, baseline, engine), limit);
-  if (!r) return {};
-  const e = r.expectation;
-  const expected: NonNullable<Reading['expected']> = { basis: e.basis, source: e.source, summary: r.judgement.summary };
-  if (e.value !== undefined) expected.value = e.value;
-  if (e.low !== undefined) expected.low = e.low;
-  if (e.high !== undefined) expected.high = e.high;
-  return { expected, verdict: r.judgement.verdict };
+/** The instrument's open visit, read inside the caller's transaction (a stale or foreign mark gives undefined). */
+export async function currentVisitIn(tx: ReadTx, instrumentId: string): Promise<Visit | undefined> {
+  const id = await currentVisitIdIn(tx, instrumentId);
+  const v = id ? await tx.objectStore('visits').get(id) : undefined;
+  return v && v.instrumentId === instrumentId ? v : undefined;
 }
 
-export function describeType(typeId: string, types: readonly ReadingType[]): string {
-  return types.find((t) => t.id === typeId)?.label ?? `reading type ${shown(typeId)}`;
+/** Set or clear the baseline mark of one visit; one baseline per instrument. */
+async function markBaselineIn(tx: WriteTx, visitId: string, on: boolean): Promise<Visit> {
+  const store = tx.objectStore('visits');
+  const v = await store.get(visitId);
+  if (!v) throw new StoreError(`Could not mark the baseline: the visit ${visitId} no longer exists.`);
+  const now = nowIso();
+  if (on) {
+    // Later readings compare with this visit's as-left values: any earlier mark on the instrument goes.
+    for (const other of await store.index('byInstrument').getAll(v.instrumentId)) {
+      if (other.baseline && other.id !== visitId) {
+        const next = { ...other, updatedAt: now };
+        delete next.baseline;
+        await store.put(next);
+      }
+    }
+  }
+  const next: Visit = { ...v, updatedAt: now };
+  if (on) next.baseline = true;
+  else delete next.baseline;
+  await store.put(next);
+  return next;
+}
+
+type VisitMethods = 'listVisits' | 'getVisit' | 'saveVisit' | 'deleteVisit' | 'restoreVisit' | 'markBaseline' | 'getBaseline' | 'setCurrentVisit' | 'currentVisit';
+
+export function visitMethods({ db }: StoreContext): Pick<Store, VisitMethods> {
+  return {
+    listVisits: (instrumentId) =>
+      guard('read the visits', async () => {
+        const list = instrumentId ? await db.getAllFromIndex('visits', 'byInstrument', instrumentId) : await db.getAll('visits');
+        return list.sort((a, b) => (a.startedAt < b.startedAt ? 1 : a.startedAt > b.startedAt ? -1 : 0));
+      }),
+    getVisit: (id) => guard('read the visit', () => db.get('visits', id)),
+    saveVisit: (fields, id) =>
+      guard('save the visit', async () => {
+        const tx = db.transaction(['visits', 'instruments'], 'readwrite');
+        const record = await saveVisitIn(tx, fields, id);
+        await tx.done;
+        return record;
+      }),
+    deleteVisit: (id) =>
+      guard('delete the visit', async () => {
+        const tx = db.transaction(['visits', 'readings', 'walks'], 'readwrite');
+        const v = await tx.objectStore('visits').get(id);
+        const bundle = v ? await deleteVisitIn(tx, v) : undefined;
+        await tx.done;
+        return bundle;
+      }),
+    restoreVisit: (bundle) =>
+      guard('restore the visit', async () => {
+        const tx = db.transaction(['visits', 'readings', 'walks'], 'readwrite');
+        await putBundle(tx, bundle);
+        await tx.done;
+      }),
+    markBaseline: (visitId, on = true) =>
+      guard('mark the baseline', async () => {
+        const tx = db.transaction(['visits'], 'readwrite');
+        const next = await markBaselineIn(tx, visitId, on);
+        await tx.done;
+        return next;
+      }),
+    getBaseline: (instrumentId) =>
+      guard('read the baseline', async () => {
+        const tx = db.transaction(['visits', 'readings'], 'readonly');
+        const visit = pickBaselineVisit(await tx.objectStore('visits').index('byInstrument').getAll(instrumentId));
+        const readings = visit ? (await tx.objectStore('readings').index('byVisit').getAll(visit.id)).filter((r) => r.phase === 'as-left') : [];
+        await tx.done;
+        return visit ? { visit, readings } : undefined;
+      }),
+    setCurrentVisit: (instrumentId, visitId) =>
+      guard('remember the open visit', async () => {
+        const tx = db.transaction(['currentVisits'], 'readwrite');
+        await setCurrentVisitIn(tx, instrumentId, visitId);
+        await tx.done;
+      }),
+    currentVisit: (instrumentId) =>
+      guard('read the open visit', async () => {
+        const tx = db.transaction(['currentVisits', 'visits'], 'readonly');
+        const v = await currentVisitIn(tx, instrumentId);
+        await tx.done;
+        return v;
+      }),
+  };
 }

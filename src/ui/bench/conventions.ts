@@ -1,24 +1,8 @@
 // The instrument's read-back convention in the engine's names, and words for every form.
 import { convertDc, convertRf, type DcForm, type RfForm } from '../../engine';
-import type { ReadbackConvention } from '../../store';
 
-export function rfFormOf(c: ReadbackConvention): RfForm {
-  const amp = c.amplitude === 'zero-to-peak' ? 'zeroToPeak' : c.amplitude === 'peak-to-peak' ? 'peakToPeak' : 'rms';
-  return `${amp}${c.reference === 'per-rod' ? 'PerRod' : 'BetweenPairs'}` as RfForm;
-}
-
-export function dcFormOf(c: ReadbackConvention): DcForm {
-  return c.reference === 'per-rod' ? 'perRod' : 'betweenPairs';
-}
-
-export const rfFormWords: Record<RfForm, string> = {
-  zeroToPeakPerRod: 'zero-to-peak, one rod to ground',
-  peakToPeakPerRod: 'peak-to-peak, one rod to ground',
-  rmsPerRod: 'rms, one rod to ground',
-  zeroToPeakBetweenPairs: 'zero-to-peak, between the rod pairs',
-  peakToPeakBetweenPairs: 'peak-to-peak, between the rod pairs',
-  rmsBetweenPairs: 'rms, between the rod pairs',
-};
+export { dcFormOf, rfFormOf } from '../../engine';
+export { rfFormWords } from '../../records';
 
 /** Short unit suffix for a form, e.g. "V 0-p". */
 export const rfFormUnit: Record<RfForm, string> = {

@@ -1,7 +1,7 @@
 // Screen inputs kept as typed, per instrument profile and screen, in the store's settings, so a reload, a
 // profile switch or an update never loses them. Parsing accepts a decimal comma (gloved thumbs, EU keypads).
 import { useEffect, useRef, useState } from 'preact/hooks';
-import { readNumber, type InstrumentProfile } from '../../store';
+import { readNumber, type InstrumentProfile } from '../../records';
 import { useApp } from '../context';
 
 export type Inputs = Record<string, string>;

@@ -135,7 +135,6 @@ export function Chart(props: ChartProps) {
       plot.current = null;
     };
     // Options are read once per theme: a new series layout needs a new key on the component.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [dark]);
 
   useEffect(() => {
@@ -148,6 +147,8 @@ export function Chart(props: ChartProps) {
     u.batch(() => {
       for (const [scale, [min, max]] of Object.entries(props.view!.ranges)) u.setScale(scale, { min, max });
     });
+    // A view is applied when its key changes, not each time the caller builds the same view object again.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [props.view?.key]);
 
   useEffect(() => {

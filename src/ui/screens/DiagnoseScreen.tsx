@@ -113,6 +113,8 @@ function Walk() {
         setLoaded(true);
       }
     })();
+    // Read once per store; notify only reports a failure and must not start the read again.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [store, loaded]);
 
   /** Keep the walk: every answer, reading and keystroke goes to the walks store at once. */

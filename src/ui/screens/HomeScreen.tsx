@@ -37,6 +37,8 @@ export function HomeScreen() {
       })
       .catch(() => undefined);
     return () => { live = false; };
+    // Read again when another instrument is chosen, not when the same profile object is rebuilt.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [store, instrument?.id]);
 
   return (

@@ -61,6 +61,8 @@ export function ScanLawChart(props: { profile: InstrumentProfile; top: number })
   // 64 inverse band solutions: a few ms, redone only when a setting changes.
   const data = useMemo(
     () => lawColumns(widthLine, resLine, profile.maxRfAmplitude, top, r0, frequency) as unknown as uPlot.AlignedData,
+    // The lines are rebuilt on every render; their slope and offset are what the columns depend on.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
     [widthLine?.slope, widthLine?.offset, resLine?.slope, top, r0, frequency, profile.maxRfAmplitude],
   );
 

@@ -127,8 +127,13 @@ describe('migration from schema version 1', () => {
     expect(b.notes).toBe('<b>kept as text</b>');
     expect(b.rfFrequency).toBe(2.5e6);
     expect(await store.getSetting('theme')).toBe('dark');
-    // The new stores exist and work.
-    expect(Array.from(store.db.objectStoreNames).sort()).toEqual(['drafts', 'instruments', 'readings', 'settings', 'visits', 'walks']);
+    // The new stores exist and work: version 2's, then version 3's typed ones.
+    expect(Array.from(store.db.objectStoreNames).sort()).toEqual([
+      'currentVisits', 'drafts', 'instruments', 'makerLimits', 'ownTypes', 'readings', 'settings', 'undoCopies', 'visits', 'walks',
+    ]);
+    expect(store.db.version).toBe(3);
+    await store.setCurrentVisit('old-a', 'no-such-visit');
+    expect(await store.db.get('currentVisits', 'old-a')).toEqual({ instrumentId: 'old-a', visitId: 'no-such-visit' });
     store.close();
   });
 });

@@ -3,7 +3,7 @@
 import 'fake-indexeddb/auto';
 import { describe, expect, it } from 'vitest';
 import { answer, enter, record, start, treeById, trees, type DiagnoseInstrument } from '../../../src/diagnose';
-import { catalogue } from '../../../src/store/catalogue';
+import { catalogue } from '../../../src/records/catalogue';
 import { demoInstruments, openStore } from '../../../src/store';
 import { noteThis } from '../../../src/ui/noteThis';
 import { plainNote, visitNote } from '../../../src/ui/screens/diagnose/toVisit';

@@ -8,7 +8,7 @@ import {
   type OutgassingFit,
   type PressureSample,
   type RateOfRiseResult,
-} from '../../../diagnose';
+} from '../../../engine';
 import { formatNumber } from '../../format';
 import { parseNumber } from './parse';
 import { SafetyCards } from './SafetyCards';

@@ -9,7 +9,6 @@ import {
   toleranceIn,
   record,
   treeById,
-  UNITS,
   type ActionNode,
   type ChoiceNode,
   type GateItem,
@@ -22,6 +21,7 @@ import {
   type TreeId,
   type WalkState,
 } from '../../../diagnose';
+import { UNITS } from '../../../records';
 import { formatNumber } from '../../format';
 import { parseNumber } from './parse';
 import { SafetyCards } from './SafetyCards';

@@ -1,5 +1,5 @@
 // Reading numbers as typed on a phone: decimal comma or point, exponent as e-5 or ×10^-5, a typographic minus.
-import { readNumber } from '../../../store';
+import { readNumber } from '../../../records';
 
 export type Parsed = { ok: true; value: number } | { ok: false; message: string };
 

@@ -1,6 +1,7 @@
 // A walk reading as a visit-log note: the catalogue type where the step names one (so it is judged and trended
 // with the other visits), with the unit and context that type expects; otherwise a plain noted value.
-import { convert, treeById, type DiagnoseInstrument, type Reading as WalkReading } from '../../../diagnose';
+import { treeById, type DiagnoseInstrument, type Reading as WalkReading } from '../../../diagnose';
+import { convert } from '../../../records';
 import type { NoteInput } from '../../noteThis';
 
 function rfUnitId(i: DiagnoseInstrument): string {

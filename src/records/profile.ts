@@ -1,5 +1,6 @@
 // Instrument profile fields: display units, accepted ranges, parsing and validation.
 // Pure: no storage here, so the form and the importer share one set of rules.
+import { parseNumber } from './numberText';
 import type { AmplitudeForm, AmplitudeReference, InstrumentKind, InstrumentProfile } from './types';
 
 export interface NumericFieldSpec {
@@ -94,29 +95,6 @@ export function emptyDraft(): ProfileDraft {
     name: '', kind: 'gc-ms-single', rodFieldRadius: '', rodLength: '', rfFrequency: '', maxRfAmplitude: '',
     axialEnergy: '', amplitude: 'zero-to-peak', reference: 'per-rod', notes: '',
   };
-}
-
-/** What reading typed text as a number gave: the value, or why there is none. */
-export type NumberReading = { value: number } | { problem: 'empty' | 'not-a-number' | 'too-large' };
-
-/**
- * Read a number as typed on a phone: spaces dropped, a decimal comma ("4,5") and exponent forms ("1e-5")
- * accepted. `extraForms` rewrites screen-specific spellings (e.g. "×10^-5") on the compacted text before the
- * check. The one number reader behind the profile form, the visit log and the screens.
- */
-export function readNumber(text: string, extraForms?: (compact: string) => string): NumberReading {
-  let t = text.trim().replace(/\s+/g, '').replace(',', '.');
-  if (extraForms) t = extraForms(t);
-  if (t === '') return { problem: 'empty' };
-  if (!/^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i.test(t)) return { problem: 'not-a-number' };
-  const v = Number(t);
-  return Number.isFinite(v) ? { value: v } : { problem: 'too-large' };
-}
-
-/** A finite number as typed in the field, or null (see readNumber). */
-export function parseNumber(text: string): number | null {
-  const r = readNumber(text);
-  return 'value' in r ? r.value : null;
 }
 
 function rangeText(spec: NumericFieldSpec): string {

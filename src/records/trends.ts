@@ -1,6 +1,7 @@
 // Trends across visits: chart-ready columns (uPlot's [xs, ...ys] with null for gaps), an ordinary
 // least-squares line, and for the multiplier voltage the date the trend reaches the supply's limit.
 // Pure: the store gathers the records, this module only computes.
+import { leastSquares, type LinearFit } from '../engine/linearFit';
 import type { ReadingType } from './catalogue';
 import { contextMatches, type ReadingContext } from './judge';
 import type { Reading, Visit } from './types';
@@ -10,10 +11,6 @@ export const SECONDS_PER_MONTH = (365.2425 / 12) * 86400;
 
 /** Used when a profile does not state its multiplier supply's limit: top of the usual discrete-dynode range (common practice). */
 export const DEFAULT_MULTIPLIER_LIMIT = 3000;
-
-export { leastSquares, type LinearFit } from '../engine/linearFit';
-import type { LinearFit } from '../engine/linearFit';
-import { leastSquares } from '../engine/linearFit';
 
 export interface Projection {
   limit: number;
@@ -115,7 +112,7 @@ export function buildTrend(type: ReadingType, visits: readonly Visit[], readings
 
 /**
  * When does the fitted line reach the limit? Assumes linear ageing: the voltage the tune needs rises at a
- * steady rate (domain C18, end of life = (V_max − V_now)/(dV/dt)). Real multipliers often speed up near the end,
+ * steady rate (end of life = (V_max − V_now)/(dV/dt); common practice). Real multipliers often speed up near the end,
  * so treat the date as the latest sensible time to order a replacement, not a promise.
  */
 export function projectToLimit(line: LinearFit, lastX: number, lastY: number, limit: number): Projection {

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { buildTrend, catalogueType, leastSquares, projectToLimit, SECONDS_PER_MONTH, type Reading, type Visit } from '../../../src/store';
+import { leastSquares } from '../../../src/engine/linearFit';
+import { buildTrend, catalogueType, projectToLimit, SECONDS_PER_MONTH, type Reading, type Visit } from '../../../src/records';
 
 describe('least-squares line', () => {
   it('matches a hand-worked example', () => {
@@ -25,8 +26,8 @@ describe('least-squares line', () => {
   });
 });
 
-describe('multiplier voltage projection (linear ageing, domain C18)', () => {
-  it('3000 V limit, 2400 V now, rising 15 V/month → about 40 months (domain C18 worked example, computed)', () => {
+describe('multiplier voltage projection (linear ageing, common practice)', () => {
+  it('3000 V limit, 2400 V now, rising 15 V/month → about 40 months (computed: (3000 − 2400)/15 = 40)', () => {
     const m = SECONDS_PER_MONTH;
     const xs = [0, 6, 12, 18].map((k) => k * m);
     const ys = [2130, 2220, 2310, 2400];

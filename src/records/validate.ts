@@ -67,6 +67,11 @@ function id(p: Problems, path: string, v: unknown, optional = false): void {
   }
 }
 
+/** The identifier fields of a record, each required. */
+function ids(p: Problems, path: string, v: Obj, keys: readonly string[]): void {
+  for (const k of keys) id(p, `${path}.${k}`, v[k]);
+}
+
 function date(p: Problems, path: string, v: unknown, optional = false): void {
   if (v === undefined && optional) return;
   if (typeof v !== 'string' || !isoPattern.test(v) || !Number.isFinite(Date.parse(v))) {
@@ -138,8 +143,7 @@ export function visitProblems(path: string, v: unknown): string[] {
   if (!isObj(v)) return [`${path}: expected a visit object, got ${shown(v)}`];
   const p: Problems = [];
   allowedKeys(p, path, v, visitKeys);
-  id(p, `${path}.id`, v.id);
-  id(p, `${path}.instrumentId`, v.instrumentId);
+  ids(p, path, v, ['id', 'instrumentId']);
   date(p, `${path}.startedAt`, v.startedAt);
   str(p, `${path}.site`, v.site, LIMITS.shortText);
   str(p, `${path}.engineer`, v.engineer, LIMITS.shortText);
@@ -161,10 +165,7 @@ export function readingProblems(path: string, v: unknown): string[] {
   if (!isObj(v)) return [`${path}: expected a reading object, got ${shown(v)}`];
   const p: Problems = [];
   allowedKeys(p, path, v, readingKeys);
-  id(p, `${path}.id`, v.id);
-  id(p, `${path}.visitId`, v.visitId);
-  id(p, `${path}.instrumentId`, v.instrumentId);
-  id(p, `${path}.typeId`, v.typeId);
+  ids(p, path, v, ['id', 'visitId', 'instrumentId', 'typeId']);
   oneOf(p, `${path}.phase`, v.phase, phases);
   finite(p, `${path}.value`, v.value);
   if (typeof v.value === 'number' && Number.isFinite(v.value) && typeof v.typeId === 'string') {
@@ -249,4 +250,3 @@ export function draftProblems(path: string, v: unknown): string[] {
   return p;
 }
 
-export type { DraftRecord, InstrumentProfile, Reading, SettingRecord, Visit, WalkRecord };

@@ -1,15 +1,9 @@
 // Record shapes kept on the device. SI units inside records; the UI converts for display.
+import type { AmplitudeForm, AmplitudeReference, ReadbackConvention } from '../engine/voltageConventions';
+
+export type { AmplitudeForm, AmplitudeReference, ReadbackConvention };
 
 export type InstrumentKind = 'gc-ms-single' | 'gc-ms-triple' | 'lc-ms-single' | 'lc-ms-triple' | 'rga';
-
-export type AmplitudeForm = 'zero-to-peak' | 'peak-to-peak' | 'rms';
-export type AmplitudeReference = 'per-rod' | 'between-pairs';
-
-/** How an instrument's own read-backs state RF/DC: the form of the amplitude and what it is measured against. */
-export interface ReadbackConvention {
-  amplitude: AmplitudeForm;
-  reference: AmplitudeReference;
-}
 
 export interface InstrumentProfile {
   id: string;

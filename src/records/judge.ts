@@ -1,9 +1,11 @@
 // Reading entry checks, expected values and verdicts. Pure functions: no storage, no DOM.
+import { dcForMass, rfForMass } from '../engine/scanLaw';
 import type { BadSide, ReadingType, ToleranceRule } from './catalogue';
 import { isotopeRatioByMz, unitOf } from './catalogue';
-import { parseNumber } from './profile';
+import { parseNumber } from './numberText';
 import type { InstrumentProfile, Verdict } from './types';
-import { formatNumber, fromBase, toBase } from './units';
+import { formatNumber } from './numberText';
+import { fromBase, toBase } from './units';
 
 export type ReadingContext = Record<string, string | number>;
 
@@ -18,7 +20,7 @@ export interface EngineFunctions {
   dcForMass?(args: { mz: number; r0: number; frequency: number }): number;
 }
 
-/** Apex U/V of the first stability region, a/(2q) = 0.23699/(2·0.70600) (Dawson 1976; domain F1). */
+/** Apex U/V of the first stability region, a/(2q) = 0.23699/(2·0.70600) (Dawson, Quadrupole Mass Spectrometry and Its Applications, 1976). */
 export const APEX_DC_TO_RF = 0.16784;
 
 export type ExpectationBasis = 'baseline' | 'maker limit' | 'calculated' | 'set value' | 'published' | 'generic';
@@ -360,3 +362,6 @@ export function checkMakerLimit(type: ReadingType | undefined, d: MakerLimitDraf
   if (Object.keys(errors).length) return { ok: false, errors };
   return { ok: true, limit: { typeId: type.id, ...(low !== undefined ? { low } : {}), ...(high !== undefined ? { high } : {}), source: d.source.trim() } };
 }
+
+/** The engine's scan law: V and U at the apex of the first stability region, per rod to ground. */
+export const defaultEngine: EngineFunctions = { rfForMass, dcForMass };

@@ -3,9 +3,10 @@
 // a hand-over summary, readings grouped by phase, and sign-off lines.
 import type { ReadingType } from './catalogue';
 import { verdictWords } from './judge';
-import { visitReasons } from './records';
+import { visitReasons } from './validate';
 import type { InstrumentProfile, Reading, Visit, WalkRecord } from './types';
-import { formatNumber, fromBase } from './units';
+import { formatNumber } from './numberText';
+import { fromBase } from './units';
 
 /** Escape text for HTML element content and double-quoted attributes. */
 export function escapeHtml(s: string): string {

@@ -1,9 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import {
   catalogue, catalogueType, checkEntry, expectationFor, fromBase, judge, PASCAL_PER_MBAR, PASCAL_PER_TORR, toBase, unitOf,
-  demoInstruments, type Expectation,
-} from '../../../src/store';
-import { testEngine } from './helpers';
+  type Expectation,
+} from '../../../src/records';
+import { demoInstruments } from '../../../src/store';
+import { testEngine } from '../store/helpers';
 
 const type = (id: string) => {
   const t = catalogueType(id);
@@ -18,7 +19,7 @@ describe('unit conversions on entry', () => {
     const torr = unitOf(type('vacuum-high'), 'Torr')!;
     expect(toBase(torr, 1)).toBe(101325 / 760);
   });
-  it('1 mbar = 100 Pa (NIST SP 811 B.8: 1 bar = 1 E+05 Pa); 1 Torr = 1.33322 mbar (domain C19)', () => {
+  it('1 mbar = 100 Pa (NIST SP 811 B.8: 1 bar = 1 E+05 Pa); 1 Torr = 1.33322 mbar (NIST SP 811, 2008, Appendix B.8: 1.333 224 E+02 Pa)', () => {
     expect(PASCAL_PER_MBAR).toBe(100);
     const t = type('vacuum-fore');
     const mbarPerTorr = toBase(unitOf(t, 'Torr')!, 1) / toBase(unitOf(t, 'mbar')!, 1);
@@ -129,7 +130,7 @@ describe('verdicts', () => {
 
 describe('expected values', () => {
   const kestrel = demoInstruments[0];
-  it('RF amplitude from the engine: m/z 69 at r0 4.5 mm, 1 MHz → 100.91 V 0-p (domain F3, Dawson 1976 formula, computed)', () => {
+  it('RF amplitude from the engine: m/z 69 at r0 4.5 mm, 1 MHz → 100.91 V 0-p (Dawson, Quadrupole Mass Spectrometry and Its Applications, 1976, q = 4eV/(m r0²Ω²); CODATA 2018 constants; computed)', () => {
     const e = expectationFor({ type: type('rf-amplitude'), instrument: kestrel, context: { mz: 69 }, engine: testEngine });
     expect(e?.basis).toBe('calculated');
     expect(e?.value).toBeCloseTo(100.91, 1);
@@ -139,7 +140,7 @@ describe('expected values', () => {
     const slip = checkEntry(type('rf-amplitude'), '100.9', 'Vpp-rod', { mz: '69' });
     expect(slip.ok && judge(slip.value, e!).verdict).toBe('fail');
   });
-  it('DC from apex U/V 0.16784: m/z 69 → 16.94 V (domain C2, computed)', () => {
+  it('DC from apex U/V 0.16784: m/z 69 → 16.94 V (Dawson 1976, a = 8eU/(m r0²Ω²) at the apex; computed)', () => {
     const e = expectationFor({ type: type('dc-amplitude'), instrument: kestrel, context: { mz: 69 }, engine: testEngine });
     expect(e?.value).toBeCloseTo(16.94, 1);
   });
@@ -153,7 +154,7 @@ describe('expected values', () => {
     expect(g).toMatchObject({ basis: 'generic', low: 1000, high: 3000 });
     expect(g?.source).toMatch(/common practice/);
   });
-  it('isotope ratio M+1/M of m/z 219 (C4F9+) is 4.33 % (IUPAC CIAAW 13C abundance, computed; domain F10)', () => {
+  it('isotope ratio M+1/M of m/z 219 (C4F9+) is 4.33 % (IUPAC CIAAW 13C abundance, Meija et al., Pure Appl. Chem. 88 (2016) 293; computed)', () => {
     const e = expectationFor({ type: type('isotope-ratio'), context: { mz: 219 } });
     expect(e?.value).toBeCloseTo(4.33, 2);
     expect(expectationFor({ type: type('isotope-ratio'), context: { mz: 502 } })?.value).toBeCloseTo(10.1, 1);
@@ -189,8 +190,8 @@ describe('catalogue', () => {
 });
 
 describe('expected RF and DC from the engine itself', () => {
-  it('agrees with the worked values: m/z 69 → 100.91 V and 16.94 V; m/z 502 → 734.13 V (r0 4.5 mm, 1 MHz; domain F3, Dawson 1976 formula with CODATA 2018 constants, computed; ±0.05 %)', async () => {
-    const { defaultEngine } = await import('../../../src/store');
+  it('agrees with the worked values: m/z 69 → 100.91 V and 16.94 V; m/z 502 → 734.13 V (r0 4.5 mm, 1 MHz; Dawson 1976 formula with CODATA 2018 constants, computed; ±0.05 %)', async () => {
+    const { defaultEngine } = await import('../../../src/records');
     const kestrel = demoInstruments[0];
     const rf69 = expectationFor({ type: type('rf-amplitude'), instrument: kestrel, context: { mz: 69 }, engine: defaultEngine })!.value!;
     const dc69 = expectationFor({ type: type('dc-amplitude'), instrument: kestrel, context: { mz: 69 }, engine: defaultEngine })!.value!;
@@ -200,7 +201,7 @@ describe('expected RF and DC from the engine itself', () => {
     expect(Math.abs(rf502 / 734.13 - 1)).toBeLessThan(5e-4);
   });
   it('an m/z the engine refuses gives no calculated value instead of an error', async () => {
-    const { defaultEngine } = await import('../../../src/store');
+    const { defaultEngine } = await import('../../../src/records');
     expect(expectationFor({ type: type('rf-amplitude'), instrument: demoInstruments[0], context: { mz: 1e12 }, engine: defaultEngine })).toBeUndefined();
   });
 });

@@ -1,7 +1,7 @@
 // CSV export of readings that opens cleanly in spreadsheets: RFC 4180 quoting and CRLF line ends, a UTF-8
 // byte-order mark so µ and ° survive, and text cells that a spreadsheet could run as a formula defused.
 import type { ReadingType } from './catalogue';
-import { visitReasons } from './records';
+import { visitReasons } from './validate';
 import type { InstrumentProfile, Reading, Visit } from './types';
 
 export type CsvValue = string | number | null | undefined;

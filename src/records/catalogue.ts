@@ -80,13 +80,17 @@ export interface ReadingType {
   own?: boolean;
 }
 
-export const gaugeGasChoices = [
-  { value: 'N2-equivalent', label: 'N2-equivalent (as the gauge shows)' },
-  { value: 'He', label: 'corrected for helium' },
-  { value: 'H2', label: 'corrected for hydrogen' },
-  { value: 'Ar', label: 'corrected for argon' },
-  { value: 'other', label: 'corrected for another gas (say which in the note)' },
-] as const;
+const gaugeGasWords = {
+  'N2-equivalent': 'N2-equivalent (as the gauge shows)',
+  He: 'corrected for helium',
+  H2: 'corrected for hydrogen',
+  Ar: 'corrected for argon',
+  other: 'corrected for another gas (say which in the note)',
+} as const;
+
+/** How a gauge reading was taken: the gauge's own N2 scale, or corrected for a gas. */
+export const gaugeGasChoices: readonly { value: keyof typeof gaugeGasWords; label: string }[] =
+  (Object.keys(gaugeGasWords) as (keyof typeof gaugeGasWords)[]).map((value) => ({ value, label: gaugeGasWords[value] }));
 
 const gaugeGas: ContextField = {
   key: 'gaugeGas', label: 'Gauge reading', kind: 'choice', choices: gaugeGasChoices, required: true,
@@ -108,7 +112,7 @@ const setpoint = (unit: string, min: number, max: number): ContextField => ({
   help: 'The value the instrument was set to, in the same unit as the reading; the reading is judged against it.',
 });
 
-/** Calibrant ions with a published M+1/M, for the isotope-ratio check (C15). */
+/** Calibrant ions with a published M+1/M, for the isotope-ratio check (IUPAC CIAAW isotopic compositions, Meija et al., Pure Appl. Chem. 88 (2016) 293). */
 export const isotopeRatioByMz: Readonly<Record<number, { percent: number; formula: string }>> = {
   // IUPAC CIAAW isotopic abundances: 13C/12C = 0.01082, 15N/14N = 0.00365; M+1/M ≈ nC·1.082 % + nN·0.365 %.
   69: { percent: 1 * 1.082, formula: 'CF3+' },
@@ -118,6 +122,20 @@ export const isotopeRatioByMz: Readonly<Record<number, { percent: number; formul
 
 const gcKinds: InstrumentKind[] = ['gc-ms-single', 'gc-ms-triple'];
 const lcKinds: InstrumentKind[] = ['lc-ms-single', 'lc-ms-triple'];
+
+/** A leak-check peak as a percentage of the reference ion, with the generic ceiling for GC-MS and LC-MS (from memory). */
+function leakPeak(mz: number, gas: string, ceiling: number, help: string): ReadingType {
+  return {
+    id: `leak-${gas}-${mz}`, label: `Leak check: ${gas}, m/z ${mz}`, group: 'leak-check', baseUnit: '%', units: percentUnits,
+    defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'high',
+    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
+    generic: [{ kinds: [...gcKinds, ...lcKinds], high: ceiling, source: `m/z ${mz} below about ${ceiling} % of the reference ion (from memory)` }],
+    genericMargin: { kind: 'factor', pass: 1, borderline: 2 },
+    context: [{ key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true, defaultValue: 69 }],
+    matchContext: ['referenceMz'], trendScale: 'log',
+    help,
+  };
+}
 
 export const catalogue: readonly ReadingType[] = [
   {
@@ -149,7 +167,7 @@ export const catalogue: readonly ReadingType[] = [
   {
     id: 'rf-amplitude', label: 'RF amplitude at a parked m/z', group: 'analyser', baseUnit: 'V (zero-to-peak, one rod to ground)',
     units: rfAmplitudeUnits, defaultUnit: 'V0p-rod', plausible: { min: 0, max: 20000 }, badSide: 'both',
-    // Proportionality V ∝ m/z should hold within about ±1 % (common practice; domain C5).
+    // Proportionality V ∝ m/z should hold within about ±1 % (V ∝ m/z at fixed f and r0: Dawson, Quadrupole Mass Spectrometry and Its Applications, 1976; the ±1 % is common practice).
     baselineTolerance: { kind: 'relative', pass: 0.01, borderline: 0.02 },
     computed: 'rf-amplitude',
     // The instrument's operating point sits a little below the apex q and its r0 and f are nominal: 3 % and 6 %
@@ -173,7 +191,7 @@ export const catalogue: readonly ReadingType[] = [
   {
     id: 'rf-frequency', label: 'RF frequency', group: 'analyser', baseUnit: 'Hz', units: frequencyUnits,
     defaultUnit: 'MHz', plausible: { min: 1e4, max: 5e7 }, badSide: 'both',
-    // δm/m ≈ 2·δf/f (domain C6): 0.02 % of f is 0.2 u at m/z 500, the edge of ±0.1–0.2 u mass accuracy.
+    // δm/m ≈ 2·δf/f (from q = 4eV/(m r0²Ω²), Dawson, Quadrupole Mass Spectrometry and Its Applications, 1976): 0.02 % of f is 0.2 u at m/z 500, the edge of ±0.1–0.2 u mass accuracy.
     baselineTolerance: { kind: 'relative', pass: 0.0001, borderline: 0.0002 },
     computed: 'rf-frequency',
     computedTolerance: { kind: 'relative', pass: 0.005, borderline: 0.02 },
@@ -184,7 +202,7 @@ export const catalogue: readonly ReadingType[] = [
   {
     id: 'multiplier-voltage', label: 'Multiplier voltage (as set for the target gain)', group: 'detector', baseUnit: 'V', units: voltageUnits,
     defaultUnit: 'V', plausible: { min: 0, max: 6000 }, badSide: 'high',
-    // The voltage climbs as the multiplier ages (domain C18); +10 % over the baseline is worth planning for [cp].
+    // The voltage climbs as the multiplier ages (common practice); +10 % over the baseline is worth planning for [cp].
     baselineTolerance: { kind: 'relative', pass: 0.1, borderline: 0.2 },
     generic: [{ low: 1000, high: 3000, source: 'discrete-dynode multipliers 1000 to 3000 V (common practice)' }],
     genericMargin: { kind: 'relative', pass: 0, borderline: 0.1 },
@@ -196,7 +214,7 @@ export const catalogue: readonly ReadingType[] = [
     defaultUnit: 'uA', plausible: { min: 0, max: 0.02 }, badSide: 'low',
     baselineTolerance: { kind: 'relative', pass: 0.05, borderline: 0.2 },
     computed: 'setpoint',
-    // Signal scales with emission (domain C26): a 20 % shortfall is 20 % less signal.
+    // Signal scales with emission, I⁺ = K·I_e·p (CRC Handbook of Chemistry and Physics, Bayard–Alpert gauge relation): a 20 % shortfall is 20 % less signal.
     computedTolerance: { kind: 'relative', pass: 0.05, borderline: 0.2 },
     computedSource: 'the set value (signal scales with emission current)',
     generic: [
@@ -250,26 +268,8 @@ export const catalogue: readonly ReadingType[] = [
     context: [ionMz('Ion m/z (M)')], matchContext: ['mz'], trendScale: 'linear',
     help: 'A ratio well above theory on a strong ion points to detector saturation.',
   },
-  {
-    id: 'leak-water-18', label: 'Leak check: water, m/z 18', group: 'leak-check', baseUnit: '%', units: percentUnits,
-    defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'high',
-    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
-    generic: [{ kinds: [...gcKinds, ...lcKinds], high: 20, source: 'm/z 18 below about 20 % of the reference ion (from memory)' }],
-    genericMargin: { kind: 'factor', pass: 1, borderline: 2 },
-    context: [{ key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true, defaultValue: 69 }],
-    matchContext: ['referenceMz'], trendScale: 'log',
-    help: 'Intensity of m/z 18 as a percentage of the reference ion. Water falls for hours after a vent.',
-  },
-  {
-    id: 'leak-nitrogen-28', label: 'Leak check: nitrogen, m/z 28', group: 'leak-check', baseUnit: '%', units: percentUnits,
-    defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'high',
-    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
-    generic: [{ kinds: [...gcKinds, ...lcKinds], high: 10, source: 'm/z 28 below about 10 % of the reference ion (from memory)' }],
-    genericMargin: { kind: 'factor', pass: 1, borderline: 2 },
-    context: [{ key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true, defaultValue: 69 }],
-    matchContext: ['referenceMz'], trendScale: 'log',
-    help: 'Intensity of m/z 28 as a percentage of the reference ion.',
-  },
+  leakPeak(18, 'water', 20, 'Intensity of m/z 18 as a percentage of the reference ion. Water falls for hours after a vent.'),
+  leakPeak(28, 'nitrogen', 10, 'Intensity of m/z 28 as a percentage of the reference ion.'),
   {
     id: 'leak-ratio-28-32', label: 'Leak check: ratio m/z 28 to 32', group: 'leak-check', baseUnit: 'ratio', units: ratioUnits,
     defaultUnit: 'ratio', plausible: { min: 0, max: 10000 }, badSide: 'both',
@@ -282,7 +282,7 @@ export const catalogue: readonly ReadingType[] = [
     defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
     context: [], matchContext: [], trendScale: 'linear',
-    help: 'About 1.7 % of m/z 28 in an air leak (domain C14, computed from dry-air composition).',
+    help: 'About 1.7 % of m/z 28 in an air leak (computed from dry-air composition, N2 78.08 %, Ar 0.934 %: CRC Handbook of Chemistry and Physics, composition of dry air).',
   },
   {
     id: 'noted-value', label: 'Noted value', group: 'own', baseUnit: 'as noted', units: [{ id: 'as-noted', label: 'as noted', factor: 1 }],

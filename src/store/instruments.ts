@@ -1,0 +1,45 @@
+// Instrument profiles: list, read, create or change (validated again here), duplicate.
+import { profileRecordProblems, type InstrumentProfile } from '../records';
+import type { Store, StoreContext } from './api';
+import { guard, StoreError } from './errors';
+import { newId, nowIso, stamp } from './ids';
+
+type InstrumentMethods = 'listInstruments' | 'getInstrument' | 'saveInstrument' | 'duplicateInstrument';
+
+export function instrumentMethods({ db }: StoreContext): Pick<Store, InstrumentMethods> {
+  return {
+    listInstruments: () =>
+      guard('read instrument profiles', async () => {
+        const all = await db.getAll('instruments');
+        return all.sort((x, y) => x.name.localeCompare(y.name));
+      }),
+
+    getInstrument: (id) => guard('read the instrument profile', () => db.get('instruments', id)),
+
+    saveInstrument: (fields, id) =>
+      guard('save the instrument profile', async () => {
+        const tx = db.transaction('instruments', 'readwrite');
+        const existing = id ? await tx.store.get(id) : undefined;
+        if (id && !existing) throw new StoreError(`Could not save: the instrument profile ${id} no longer exists.`);
+        const record: InstrumentProfile = { ...fields, ...stamp('inst', existing), ...(existing?.demo ? { demo: true } : {}) };
+        const problems = profileRecordProblems(record);
+        if (problems.length) throw new StoreError(`Could not save the instrument profile: ${problems.join('; ')}.`);
+        await tx.store.put(record);
+        await tx.done;
+        return record;
+      }),
+
+    duplicateInstrument: (id) =>
+      guard('duplicate the instrument profile', async () => {
+        const tx = db.transaction('instruments', 'readwrite');
+        const source = await tx.store.get(id);
+        if (!source) throw new StoreError(`Could not duplicate: the instrument profile ${id} no longer exists.`);
+        const now = nowIso();
+        const copy: InstrumentProfile = { ...source, id: newId('inst'), name: `${source.name} (copy)`.slice(0, 80), createdAt: now, updatedAt: now };
+        delete copy.demo;
+        await tx.store.put(copy);
+        await tx.done;
+        return copy;
+      }),
+  };
+}
