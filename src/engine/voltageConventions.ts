@@ -54,13 +54,18 @@ export interface ReadbackConvention {
   reference: AmplitudeReference;
 }
 
+const AMPLITUDE_FORMS: readonly AmplitudeForm[] = ['zero-to-peak', 'peak-to-peak', 'rms'];
+const AMPLITUDE_REFERENCES: readonly AmplitudeReference[] = ['per-rod', 'between-pairs'];
+
 /** The RF form of a read-back convention, in the names convertRf takes. */
 export function rfFormOf(c: ReadbackConvention): RfForm {
-  const amp = c.amplitude === 'zero-to-peak' ? 'zeroToPeak' : c.amplitude === 'peak-to-peak' ? 'peakToPeak' : 'rms';
-  return `${amp}${c.reference === 'per-rod' ? 'PerRod' : 'BetweenPairs'}` as RfForm;
+  const amplitude = checkChoice('amplitude', c?.amplitude, AMPLITUDE_FORMS);
+  const reference = checkChoice('reference', c?.reference, AMPLITUDE_REFERENCES);
+  const amp = amplitude === 'zero-to-peak' ? 'zeroToPeak' : amplitude === 'peak-to-peak' ? 'peakToPeak' : 'rms';
+  return `${amp}${reference === 'per-rod' ? 'PerRod' : 'BetweenPairs'}` as RfForm;
 }
 
 /** The DC form of a read-back convention, in the names convertDc takes. */
 export function dcFormOf(c: ReadbackConvention): DcForm {
-  return c.reference === 'per-rod' ? 'perRod' : 'betweenPairs';
+  return checkChoice('reference', c?.reference, AMPLITUDE_REFERENCES) === 'per-rod' ? 'perRod' : 'betweenPairs';
 }

@@ -103,6 +103,18 @@ const cases: Case[] = [
     bad: { value: NON_FINITE, from: ['pole'], to: [undefined] },
   },
   {
+    name: 'rfFormOf',
+    call: (p) => engine.rfFormOf({ amplitude: p.amplitude, reference: p.reference } as never),
+    valid: { amplitude: 'rms', reference: 'between-pairs' },
+    bad: { amplitude: ['rms-ish', undefined, 3], reference: ['pairs', null] },
+  },
+  {
+    name: 'dcFormOf',
+    call: (p) => engine.dcFormOf({ reference: p.reference } as never),
+    valid: { reference: 'per-rod' },
+    bad: { reference: ['rod', undefined] },
+  },
+  {
     name: 'rfCycles',
     call: (p) => engine.rfCycles(p as never),
     valid: { mz: 100, rodLength: 0.2, frequency: 1e6, axialEnergy: 5 },
