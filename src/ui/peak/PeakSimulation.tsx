@@ -156,7 +156,6 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
       clearTimer();
       cancelActive();
     },
-    // eslint-disable-next-line react-hooks/exhaustive-deps
     [],
   );
 
