@@ -1,3 +1,4 @@
+import { More } from '../components/Fold';
 import { StorageStatus } from '../components/StorageStatus';
 import { IconCaution } from '../components/icons';
 import { SAFETY_CARDS, type SafetyCardId } from '../../diagnose';
@@ -35,8 +36,7 @@ export function SafetyScreen() {
         <StorageStatus />
       </div>
 
-      <div class="card">
-        <h2 class="card-title">Published sources the computations are checked against</h2>
+      <More title="Published sources the computations are checked against">
         <ul class="sources">
           <li>DLMF, NIST Digital Library of Mathematical Functions, ch. 28 (Mathieu functions and Hill's equation).</li>
           <li>M. Abramowitz, I. A. Stegun, Handbook of Mathematical Functions, 1964, ch. 20 (eq. 20.2.25 small-q series).</li>
@@ -49,7 +49,7 @@ export function SafetyScreen() {
           <li>CRC Handbook of Chemistry and Physics: ion-gauge relative sensitivities; composition of dry air.</li>
           <li>IEC 61010-1 (safety of laboratory equipment); NFPA 70E; ISO 7010 and ISO 3864-1 (safety signs).</li>
         </ul>
-      </div>
+      </More>
       <p class="muted">Rodside version <span data-testid="app-version">{__APP_VERSION__}</span>. Names, icons and layout are Rodside's own; demo instruments and visits are invented.</p>
     </section>
   );

@@ -5,6 +5,7 @@ import {
   DEMO_LAB, formatNumber, fromBase, shownValue, visitReasons, type InstrumentProfile, type Reading, type ReadingType, type Visit,
   type WalkRecord,
 } from '../../store';
+import { More } from '../components/Fold';
 import { useApp } from '../context';
 import { navigate, usePath } from '../router';
 import { BackupPanel, BackupReminderNote } from '../visits/BackupPanel';
@@ -104,12 +105,12 @@ function VisitList() {
               })}
             </ul>
           )}
-          {types.length > 0 && <TrendPanel instrumentId={instrument.id} types={types} />}
+          {types.length > 0 && <More title="Trends across visits" class="more-tool" testId="trend-fold"><TrendPanel instrumentId={instrument.id} types={types} /></More>}
           {types.length > 0 && <MakerLimits key={instrument.id} instrument={instrument} types={types} />}
           <OwnTypeForm onAdded={reloadTypes} />
         </>
       )}
-      <BackupPanel />
+      <More title="Backup and export" class="more-tool" testId="backup-fold" open={typeof location !== 'undefined' && location.hash === '#backup'}><BackupPanel /></More>
     </section>
   );
 }
