@@ -8,7 +8,7 @@ import { NumberField } from '../components/Field';
 import { CautionLine, InputsFold, More } from '../components/Fold';
 import { InstrumentLine, scanLineSummary } from '../components/InstrumentLine';
 import { useApp } from '../context';
-import { formatConvention, formatNumber, formatSi } from '../format';
+import { formatNumber, formatSi } from '../format';
 import { ionListsFor, defaultIons } from './calibrants';
 import { dcAs, dcFormOf, dcFormUnitId, dcFormWords, rfAs, rfFormOf, rfFormUnit, rfFormUnitId, rfFormWords } from './conventions';
 import { tryEngine, type FieldErrors } from './engineErrors';
@@ -77,7 +77,7 @@ export function Voltages() {
       </InputsFold>
 
       {anyHazard && (
-        <CautionLine testId="hv-short" text={<><strong>Hazardous live</strong> rod voltages: read RF only at the monitor point or with a rated probe.</>}>
+        <CautionLine testId="hv-short" text={<><strong>Hazardous live</strong> rods: monitor point or rated probe only</>}>
           <HvCaution exceeded={exceeded} id="hv-caution" />
         </CautionLine>
       )}
@@ -92,7 +92,6 @@ export function Voltages() {
 
       <div class="card">
         <h2 class="card-title">{profile.name}</h2>
-        <p class="muted">r0 {formatSi(profile.rodFieldRadius * 1e3, 'mm')} · RF {formatSi(profile.rfFrequency / 1e6, 'MHz')} · read-backs {formatConvention(profile.readbackConvention)}</p>
         {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
         {top !== null && (
           <Result label={`Top of the mass range at the supply's largest RF (${formatSi(profile.maxRfAmplitude, 'V 0-p')}, one rod to ground, apex q)`}

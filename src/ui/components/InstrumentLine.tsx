@@ -8,7 +8,7 @@ export function InstrumentLine(props: { profile: InstrumentProfile; rods?: boole
   return (
     <p class="instrument-line" data-testid="instrument-line">
       <span class="visually-hidden">{p.name}: </span>
-      <span>r0 {formatSi(p.rodFieldRadius * 1e3, 'mm')}{props.rods ? ` · rods ${formatSi(p.rodLength * 1e3, 'mm')}` : ''} · RF {formatSi(p.rfFrequency / 1e6, 'MHz')} · read-backs {formatConvention(p.readbackConvention)}</span>
+      <span class="instrument-facts">r0 {formatSi(p.rodFieldRadius * 1e3, 'mm')}{props.rods ? ` · rods ${formatSi(p.rodLength * 1e3, 'mm')}` : ''} · RF {formatSi(p.rfFrequency / 1e6, 'MHz')} · read-backs {formatConvention(p.readbackConvention)}</span>
       {' '}<a class="instrument-edit" href={`/instruments/${encodeURIComponent(p.id)}`}>Edit profile</a>
     </p>
   );

@@ -198,7 +198,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
       </div>
 
       {hazard?.hazardous && (
-        <CautionLine testId="hv-short" text={<><strong>Hazardous live</strong> at these settings: the rods carry these voltages.</>}>
+        <CautionLine testId="hv-short" text={<><strong>Hazardous live</strong> rods at these settings</>}>
           <HvCaution exceeded={hazard.exceeded} />
         </CautionLine>
       )}

@@ -19,7 +19,7 @@ export function BenchScreen() {
       {vacuum ? <VacuumCheck /> : (
         <>
           <Voltages />
-          <p class="lede">Expected RF and DC for each m/z on this analyser, in the convention its read-backs use and in every other, from ideal-field physics.</p>
+          <p class="hint">Expected RF and DC for each m/z on this analyser, from ideal-field physics.</p>
         </>
       )}
     </section>

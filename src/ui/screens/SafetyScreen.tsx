@@ -24,17 +24,15 @@ export function SafetyScreen() {
         <p class="muted">The guided diagnosis shows the matching hazard card at each step and asks for acknowledgement before invasive work.</p>
       </div>
 
-      <section aria-labelledby="cards-heading" class="screen">
-        <h2 id="cards-heading">Hazard cards</h2>
+      <More title={`Hazard cards (${Object.keys(SAFETY_CARDS).length})`} testId="hazard-cards">
         <p class="muted">The same cards the diagnosis shows at each step. Tap one to open it.</p>
         <SafetyCards ids={Object.keys(SAFETY_CARDS) as SafetyCardId[]} />
-      </section>
+      </More>
 
-      <div class="card">
-        <h2 class="card-title">Your data</h2>
+      <More title="Your data">
         <p>Instrument profiles, visits, readings and diagnosis walks are kept only in this browser's storage on this device. Nothing is sent anywhere.</p>
         <StorageStatus />
-      </div>
+      </More>
 
       <More title="Published sources the computations are checked against">
         <ul class="sources">

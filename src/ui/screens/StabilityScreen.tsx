@@ -25,7 +25,6 @@ export function StabilityScreen() {
       ) : (
         <>
           <StabilityDiagram />
-          <p class="lede">Where each ion sits in the first stability region at the current U and V, and which m/z the filter passes.</p>
         </>
       )}
     </section>

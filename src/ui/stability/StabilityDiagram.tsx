@@ -135,9 +135,11 @@ export function StabilityDiagram() {
   }
 
   const inputsInvalid = !!(errors.setMz || errors.mzList || errors.measuredU || errors.measuredV || errors.width || errors.referenceMz || errors.resolution);
+  // The other m/z as typed, without the set one (it leads the summary).
+  const others = inputs.mzList.split(/[;,\s]+/).filter((t) => t && t !== inputs.setMz.trim()).join(', ');
   const summary = measured
-    ? `measured U ${inputs.measuredU.trim() || '—'} V · V ${inputs.measuredV.trim() || '—'} ${rfFormUnit[readForm]} · others ${inputs.mzList.trim() || '—'}`
-    : `set m/z ${inputs.setMz.trim() || '—'} · ${scanLineSummary(inputs)} · others ${inputs.mzList.trim() || '—'}`;
+    ? `measured U ${inputs.measuredU.trim() || '—'} V · V ${inputs.measuredV.trim() || '—'} ${rfFormUnit[readForm]}${others ? ` · m/z ${others}` : ''}`
+    : `m/z ${inputs.setMz.trim() || '—'}${others ? ` (+ ${others})` : ''} · ${scanLineSummary(inputs)}`;
 
   return (
     <>
@@ -180,6 +182,7 @@ export function StabilityDiagram() {
         </label>
         <details class="legend-fold">
         <summary>Legend: edges, operating line, markers</summary>
+        <p class="hint">Where each ion sits in the first stability region at the current U and V, and which m/z the filter passes.</p>
         <ul class="legend" aria-label="Legend">
           <li><LineSample dash="" width={3} /> x edge b₁(q), solid: right of the apex, the low-mass cut-off</li>
           <li><LineSample dash="7 4" width={3} /> y edge −a₀(q), dashed: left of the apex, the high-mass cut-off</li>
@@ -194,8 +197,10 @@ export function StabilityDiagram() {
         <p class="hint">{tapMiss ? 'No point within reach of that tap: tap closer to a point, or pick one from the list below.' : 'Tap a point (or a list entry below) to read its values. Use the zoom buttons: the chart has no pinch zoom.'}</p>
       </div>
 
+      {chosen && <PointPanel point={chosen} />}
+
       {dc !== null && rf !== null && isHazardousLive(dc, rf) && (
-        <CautionLine testId="hv-short" text={<><strong>Hazardous live</strong> at this setting: the rods carry these voltages.</>}>
+        <CautionLine testId="hv-short" text={<><strong>Hazardous live</strong> rods at this setting</>}>
           <HvCaution compact />
         </CautionLine>
       )}
@@ -208,13 +213,15 @@ export function StabilityDiagram() {
             note={{ label: `DC at the current setting (set m/z ${inputs.setMz.trim()})`, value: dcAs(readDc, dc) ?? NaN, unit: dcFormUnitId[readDc], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'dc-amplitude' }} />
           <Result label={`V, ${rfFormWords[readForm]} (read-back form)`} value={`${formatNumber(rfAs(readForm, rf) ?? NaN, 5)} ${rfFormUnit[readForm]}`}
             note={{ label: `RF at the current setting (set m/z ${inputs.setMz.trim()})`, value: rfAs(readForm, rf) ?? NaN, unit: rfFormUnitId[readForm], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'rf-amplitude' }} />
-          <Result label="U/V (V zero-to-peak, one rod to ground)" value={formatNumber(dc / rf, 6)} testId="band-ratio"
-            note={{ label: 'DC/RF ratio U/V at the current setting', value: dc / rf, unit: '', origin: 'calculator' }} />
           {band ? (
             <>
               <p class="big" data-testid="band-interval">
                 {Number.isFinite(band.high) ? `m/z ${formatNumber(band.low, 6)} – ${formatNumber(band.high, 6)} passes` : `m/z above ${formatNumber(band.low, 6)} passes (RF only)`}
               </p>
+              <details class="band-more">
+                <summary>Edges, width and U/V</summary>
+                <Result label="U/V (V zero-to-peak, one rod to ground)" value={formatNumber(dc / rf, 6)} testId="band-ratio"
+                  note={{ label: 'DC/RF ratio U/V at the current setting', value: dc / rf, unit: '', origin: 'calculator' }} />
               <Result label="Lowest m/z passed (x edge, low-mass cut-off)" value={`${formatNumber(band.low, 6)} u`} testId="band-low"
                 note={{ label: 'Pass band low-mass edge', value: band.low, unit: 'u', origin: 'calculator', context: { dc, rf } }} />
               {Number.isFinite(band.high) && (
@@ -229,14 +236,17 @@ export function StabilityDiagram() {
                     note={{ label: 'Ideal resolution of the pass band', value: band.resolution, unit: '', origin: 'calculator', context: { dc, rf } }} />
                 </>
               )}
+              </details>
             </>
           ) : (
-            <p data-testid="band-interval"><span class="verdict verdict-fail">✗ nothing passes</span> U/V is at or above the apex ratio: no m/z is stable in both directions.</p>
+            <>
+              <p data-testid="band-interval"><span class="verdict verdict-fail">✗ nothing passes</span> U/V is at or above the apex ratio: no m/z is stable in both directions.</p>
+              <Result label="U/V (V zero-to-peak, one rod to ground)" value={formatNumber(dc / rf, 6)} testId="band-ratio"
+                note={{ label: 'DC/RF ratio U/V at the current setting', value: dc / rf, unit: '', origin: 'calculator' }} />
+            </>
           )}
         </div>
       )}
-
-      {chosen && <PointPanel point={chosen} />}
 
       <div class="card">
         <h2 class="card-title">Operating points</h2>
