@@ -132,7 +132,7 @@ describe('visit log offline', () => {
     expect(firstDoc.format).toBe('rodside-backup');
     expect(firstDoc.data.visits.some((v: { notes: string }) => v.notes === hostileNotes)).toBe(true);
 
-    await page.locator('details', { hasText: 'Erase this device' }).locator('summary').click();
+    await page.locator('summary', { hasText: 'Erase this device' }).click();
     await page.getByRole('button', { name: 'Erase everything on this device' }).click();
     await expect.poll(() => page.locator('[data-testid="visit-item"]').count()).toBe(0);
 

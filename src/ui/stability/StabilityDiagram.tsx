@@ -168,7 +168,7 @@ export function StabilityDiagram() {
 
       <div class="card">
         <h2 class="card-title">First stability region</h2>
-        <Chart data={data} options={options} height={320} zoomButtons zoomScales={['x', 'y']} view={view} redrawKey={redrawKey}
+        <Chart data={data} options={options} height={300} zoomButtons zoomScales={['x', 'y']} view={view} redrawKey={redrawKey}
           onTap={onTap} testId="stability-chart"
           label={`Stability diagram, a against q: the first region bounded by the y edge on the left and the x edge on the right, apex at q ${apex.q.toFixed(4)}, a ${apex.a.toFixed(5)}; ${points.length} operating points, listed below.`} />
         <div class="row" role="group" aria-label="Chart view">
