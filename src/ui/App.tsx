@@ -3,6 +3,7 @@ import { openStore, type InstrumentProfile, type Store } from '../store';
 import { areaForPath, areas } from './areas';
 import { AppContext, useApp, type AppContextValue } from './context';
 import { UpdateBanner } from './components/UpdateBanner';
+import { FieldModeToggle } from './components/FieldModeToggle';
 import { usePath } from './router';
 import { routeFor } from './routes';
 
@@ -99,6 +100,7 @@ export function App() {
           <span class="brand-name">Rodside</span>
         </a>
         <InstrumentPicker />
+        <FieldModeToggle />
       </header>
       <UpdateBanner />
       {storeProblem && (

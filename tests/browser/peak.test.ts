@@ -42,6 +42,8 @@ describe('peak simulation keeps the page responsive', () => {
       }, true);
     });
 
+    // The settings are folded to one line under the instrument: open them.
+    await page.locator('[data-testid="peak-fold"] .fold-toggle').click();
     // A slow setting: low ion energy (many RF cycles) at high resolution.
     await page.locator('#peak-resolution').fill('3000');
     await page.locator('#peak-axial').fill('0.5');

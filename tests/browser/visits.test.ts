@@ -126,12 +126,13 @@ describe('visit log offline', () => {
     const { page } = session!;
     page.on('dialog', (d) => void d.accept());
     await page.goto(origin + '/visits');
+    await openBackup(page);
     const first = await download(page, () => page.getByRole('button', { name: 'Download backup' }).click(), 'first.json');
     const firstDoc = JSON.parse(first);
     expect(firstDoc.format).toBe('rodside-backup');
     expect(firstDoc.data.visits.some((v: { notes: string }) => v.notes === hostileNotes)).toBe(true);
 
-    await page.locator('details', { hasText: 'Erase this device' }).locator('summary').click();
+    await page.locator('summary', { hasText: 'Erase this device' }).click();
     await page.getByRole('button', { name: 'Erase everything on this device' }).click();
     await expect.poll(() => page.locator('[data-testid="visit-item"]').count()).toBe(0);
 
@@ -149,6 +150,7 @@ describe('visit log offline', () => {
     await page.goto(origin + visitPath);
     await expect.poll(() => rows(page, 'as-found')).toEqual([expect.stringMatching(/1900 V.*✓ pass/)]);
     await page.goto(origin + '/visits');
+    await openBackup(page);
     const second = await download(page, () => page.getByRole('button', { name: 'Download backup' }).click(), 'second.json');
     expect(JSON.parse(second).data).toEqual(firstDoc.data);
     await screenshot(page, 'visits-restored');
@@ -159,3 +161,9 @@ describe('visit log offline', () => {
     expect(session!.foreignRequests).toEqual([]);
   });
 });
+
+/** Backup and export sit behind a disclosure on the visit list: open it (once) before using them. */
+async function openBackup(page: Page): Promise<void> {
+  const fold = page.locator('[data-testid="backup-fold"]');
+  if (!(await fold.evaluate((d) => (d as HTMLDetailsElement).open))) await fold.locator('> summary').click();
+}

@@ -5,8 +5,10 @@ import {
 } from '../../engine';
 import type { InstrumentProfile } from '../../store';
 import { NumberField } from '../components/Field';
+import { CautionLine, InputsFold, More } from '../components/Fold';
+import { InstrumentLine, scanLineSummary } from '../components/InstrumentLine';
 import { useApp } from '../context';
-import { formatConvention, formatNumber, formatSi } from '../format';
+import { formatNumber, formatSi } from '../format';
 import { ionListsFor, defaultIons } from './calibrants';
 import { dcAs, dcFormOf, dcFormUnitId, dcFormWords, rfAs, rfFormOf, rfFormUnit, rfFormUnitId, rfFormWords } from './conventions';
 import { tryEngine, type FieldErrors } from './engineErrors';
@@ -54,37 +56,30 @@ export function Voltages() {
   const anyHazard = hazards.some((h) => h.hazardous);
   const exceeded = [...new Set(hazards.flatMap((h) => h.exceeded))];
 
+  const inputsInvalid = !!(errors.mz || errors.width || errors.referenceMz || errors.resolution);
+
   return (
     <>
-      <div class="card">
-        <h2 class="card-title">{profile.name}</h2>
-        <p class="muted">r0 {formatSi(profile.rodFieldRadius * 1e3, 'mm')} · RF {formatSi(profile.rfFrequency / 1e6, 'MHz')} · read-backs {formatConvention(profile.readbackConvention)}</p>
-        <p><a class="btn btn-small" href={`/instruments/${encodeURIComponent(profile.id)}`}>Edit profile</a></p>
-        {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
-        {top !== null && (
-          <Result label={`Top of the mass range at the supply's largest RF (${formatSi(profile.maxRfAmplitude, 'V 0-p')}, one rod to ground, apex q)`}
-            value={`m/z ${formatNumber(top, 4)}`} testId="mass-range-top"
-            note={{ label: 'Top of mass range from the supply’s largest RF', value: top, unit: 'u', origin: 'calculator', context: { maxRf: profile.maxRfAmplitude } }} />
-        )}
-      </div>
-
-      <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="expected-title">
-        <h2 class="card-title" id="expected-title">Expected voltages</h2>
-        <NumberField id="bench-mz" inputMode="text" label="m/z (one or a list)" value={inputs.mzList} error={errors.mz} onInput={(t) => update({ mzList: t })}
-          hint="Separate values with commas or spaces." />
-        <div class="row" role="group" aria-label="Ion lists">
-          {ionListsFor(profile).map((l) => (
-            <button key={l.label} type="button" class="btn btn-small" onClick={() => update({ mzList: l.values.join(', ') })}>{l.label}</button>
-          ))}
-        </div>
-        <ScanLineFields idPrefix="bench" values={inputs} errors={errors} onChange={update} />
-        {built && <p class="hint" data-testid="scan-line">Scan line: {built.description}.</p>}
-      </form>
+      <InstrumentLine profile={profile} />
+      <InputsFold id="bench-inputs" summary={`m/z ${inputs.mzList.trim() || '—'} · ${scanLineSummary(inputs)}`} invalid={inputsInvalid} testId="bench-fold">
+        <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="expected-title">
+          <h2 class="card-title" id="expected-title">Expected voltages</h2>
+          <NumberField id="bench-mz" inputMode="text" label="m/z (one or a list)" value={inputs.mzList} error={errors.mz} onInput={(t) => update({ mzList: t })}
+            hint="Separate values with commas or spaces." />
+          <div class="row" role="group" aria-label="Ion lists">
+            {ionListsFor(profile).map((l) => (
+              <button key={l.label} type="button" class="btn btn-small" onClick={() => update({ mzList: l.values.join(', ') })}>{l.label}</button>
+            ))}
+          </div>
+          <ScanLineFields idPrefix="bench" values={inputs} errors={errors} onChange={update} />
+          {built && <p class="hint" data-testid="scan-line">Scan line: {built.description}.</p>}
+        </form>
+      </InputsFold>
 
       {anyHazard && (
-        <p class="notice" role="note" data-testid="hv-short">
-          ⚠ <strong>Hazardous live.</strong> These rod voltages can burn and shock: read RF only at the monitor point or with a probe rated for it. <a href="#hv-caution">The full caution</a> follows the results.
-        </p>
+        <CautionLine testId="hv-short" text={<><strong>Hazardous live</strong> rods: monitor point or rated probe only</>}>
+          <HvCaution exceeded={exceeded} id="hv-caution" />
+        </CautionLine>
       )}
 
       <ul class="cards" aria-label="Expected voltages per m/z" data-testid="expected-list">
@@ -95,10 +90,18 @@ export function Voltages() {
         ))}
       </ul>
 
-      {anyHazard && <HvCaution exceeded={exceeded} id="hv-caution" />}
+      <div class="card">
+        <h2 class="card-title">{profile.name}</h2>
+        {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
+        {top !== null && (
+          <Result label={`Top of the mass range at the supply's largest RF (${formatSi(profile.maxRfAmplitude, 'V 0-p')}, one rod to ground, apex q)`}
+            value={`m/z ${formatNumber(top, 4)}`} testId="mass-range-top"
+            note={{ label: 'Top of mass range from the supply’s largest RF', value: top, unit: 'u', origin: 'calculator', context: { maxRf: profile.maxRfAmplitude } }} />
+        )}
+      </div>
 
-      <InverseCheck inputs={inputs} update={update} built={built} profile={profile} />
-      <Proportionality inputs={inputs} update={update} profile={profile} />
+      <More title="Which m/z does a measured RF pass?" class="more-tool"><InverseCheck inputs={inputs} update={update} built={built} profile={profile} /></More>
+      <More title="Proportionality check from read-backs" class="more-tool"><Proportionality inputs={inputs} update={update} profile={profile} /></More>
     </>
   );
 }

@@ -7,6 +7,7 @@ import { useEffect, useRef, useState } from 'preact/hooks';
 // Before uPlot: it formats numbers with navigator.language as soon as its module loads.
 import '../localeGuard';
 import uPlot from 'uplot';
+import { FIELD_MODE_EVENT, fieldModeActive } from '../fieldMode';
 
 export type ChartOptions = Omit<uPlot.Options, 'width' | 'height'>;
 
@@ -43,11 +44,15 @@ export function chartPalette(): ChartPalette {
 export function themedOptions(options: ChartOptions, palette: ChartPalette): ChartOptions {
   // uPlot's default axis room (50 px plus 30 px for a title) leaves a 360 px phone a plot half the card wide:
   // tighter titles and x-axis room give the curve the space, callers still set a y size for wide tick labels.
+  const field = fieldModeActive();
   const axes = (options.axes ?? [{}, {}]).map((axis, i) => ({
     labelSize: 20,
     labelGap: 0,
+    // Field mode: axis numbers and titles big and bold enough to read in glare.
+    ...(field ? { font: '600 15px system-ui, sans-serif', labelFont: '700 16px system-ui, sans-serif', labelSize: 24 } : {}),
     ...(i === 0 ? { size: 40 } : {}),
     ...axis,
+    ...(field && typeof axis.size === 'number' ? { size: Math.round(axis.size * 1.3) } : {}),
     stroke: axis.stroke ?? palette.ink,
     grid: { stroke: palette.grid, width: 1, ...axis.grid },
     ticks: { stroke: palette.grid, ...axis.ticks },
@@ -99,6 +104,13 @@ export function Chart(props: ChartProps) {
     query.addEventListener?.('change', onChange);
     return () => query.removeEventListener?.('change', onChange);
   }, []);
+  // Field mode swaps the palette and the axis type: draw again in it.
+  const [fieldMode, setFieldMode] = useState(fieldModeActive);
+  useEffect(() => {
+    const onChange = () => setFieldMode(fieldModeActive());
+    window.addEventListener(FIELD_MODE_EVENT, onChange);
+    return () => window.removeEventListener(FIELD_MODE_EVENT, onChange);
+  }, []);
 
   useEffect(() => {
     const el = host.current!;
@@ -134,8 +146,8 @@ export function Chart(props: ChartProps) {
       u.destroy();
       plot.current = null;
     };
-    // Options are read once per theme: a new series layout needs a new key on the component.
-  }, [dark]);
+    // Options are read once per theme and mode: a new series layout needs a new key on the component.
+  }, [dark, fieldMode]);
 
   useEffect(() => {
     plot.current?.setData(props.data);

@@ -6,6 +6,8 @@ import { apexRatio, hazardousLive, type PeakProfile, type TransmissionVsResoluti
 import { isAbortError, simClient, SimClient } from '../../worker/client';
 import { Chart } from '../components/Chart';
 import { NumberField } from '../components/Field';
+import { CautionLine, InputsFold, More } from '../components/Fold';
+import { InstrumentLine } from '../components/InstrumentLine';
 import { useApp } from '../context';
 import { formatNumber, formatSi } from '../format';
 import { usePersistentInputs } from '../bench/inputs';
@@ -228,30 +230,32 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
 
   return (
     <>
-      <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="peak-settings-title">
-        <h2 class="card-title" id="peak-settings-title">Settings · {instrument.name}</h2>
-        <p class="muted">r0 {formatSi(instrument.rodFieldRadius * 1e3, 'mm')} · rods {formatSi(instrument.rodLength * 1e3, 'mm')} · RF {formatSi(instrument.rfFrequency / 1e6, 'MHz')}</p>
-        {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
-        <div class="pair">
-          <NumberField id="peak-mz" label="m/z" unit="u" value={inputs.mz} error={errors.mz} onInput={(t) => update({ mz: t })} />
-          <NumberField id="peak-resolution" label="Ideal resolution m/Δm" value={inputs.resolution} error={errors.resolution}
-            onInput={(t) => update({ resolution: t })} hint="Sets U/V from the exact stability edges." />
-        </div>
-        <Slider id="peak-axial" label="Ion energy" unit="eV per charge" value={inputs.axialVoltage} range={SLIDERS.axialVoltage}
-          error={errors.axialVoltage} onInput={(t) => update({ axialVoltage: t })} />
-        <Slider id="peak-beam" label="Beam radius" unit="mm" value={inputs.beamRadiusMm} range={SLIDERS.beamRadiusMm}
-          error={errors.beamRadiusMm} onInput={(t) => update({ beamRadiusMm: t })} />
-        <Slider id="peak-transverse" label="Transverse energy" unit="eV" value={inputs.transverseEnergy} range={SLIDERS.transverseEnergy}
-          error={errors.transverseEnergy} onInput={(t) => update({ transverseEnergy: t })} />
-        {run && (
-          <p class="hint" data-testid="peak-operating">
-            U/V {formatNumber(run.ratio, 6)} · V {formatSi(run.rf, 'V 0-p')} and U {formatSi(run.dc, 'V')}, one rod to ground ·
-            ideal band {formatNumber(run.band.low, 6)}–{formatNumber(run.band.high, 6)} u · {formatNumber(run.cycles, 3)} RF cycles in the rods
-          </p>
-        )}
-      </form>
+      <InstrumentLine profile={instrument} rods />
+      <InputsFold id="peak-inputs-fold" testId="peak-fold" invalid={Object.keys(errors).some((k) => k !== 'profile')}
+        summary={`m/z ${inputs.mz.trim() || '—'} · m/Δm ${inputs.resolution.trim() || '—'} · ${inputs.axialVoltage.trim() || '—'} eV · beam ${inputs.beamRadiusMm.trim() || '—'} mm · transverse ${inputs.transverseEnergy.trim() || '—'} eV`}>
+        <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="peak-settings-title">
+          <h2 class="card-title" id="peak-settings-title">Settings · {instrument.name}</h2>
+          <div class="pair">
+            <NumberField id="peak-mz" label="m/z" unit="u" value={inputs.mz} error={errors.mz} onInput={(t) => update({ mz: t })} />
+            <NumberField id="peak-resolution" label="Ideal resolution m/Δm" value={inputs.resolution} error={errors.resolution}
+              onInput={(t) => update({ resolution: t })} hint="Sets U/V from the exact stability edges." />
+          </div>
+          <Slider id="peak-axial" label="Ion energy" unit="eV per charge" value={inputs.axialVoltage} range={SLIDERS.axialVoltage}
+            error={errors.axialVoltage} onInput={(t) => update({ axialVoltage: t })} />
+          <Slider id="peak-beam" label="Beam radius" unit="mm" value={inputs.beamRadiusMm} range={SLIDERS.beamRadiusMm}
+            error={errors.beamRadiusMm} onInput={(t) => update({ beamRadiusMm: t })} />
+          <Slider id="peak-transverse" label="Transverse energy" unit="eV" value={inputs.transverseEnergy} range={SLIDERS.transverseEnergy}
+            error={errors.transverseEnergy} onInput={(t) => update({ transverseEnergy: t })} />
+          {run && (
+            <p class="hint" data-testid="peak-operating">
+              U/V {formatNumber(run.ratio, 6)} · V {formatSi(run.rf, 'V 0-p')} and U {formatSi(run.dc, 'V')}, one rod to ground ·
+              ideal band {formatNumber(run.band.low, 6)}–{formatNumber(run.band.high, 6)} u · {formatNumber(run.cycles, 3)} RF cycles in the rods
+            </p>
+          )}
+        </form>
+      </InputsFold>
+      {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
 
-      {hazard?.hazardous && <HvCaution exceeded={hazard.exceeded} />}
 
       <div class="card" data-testid="peak-result" aria-busy={stale ? 'true' : 'false'}>
         <h2 class="card-title">Simulated peak</h2>
@@ -269,6 +273,15 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
         {peak.status === 'failed' && <p class="field-error" role="alert">The simulation stopped: {peak.message}</p>}
         {result && (
           <>
+            {peakData && (
+              <Chart key="peak" data={peakData} height={260} zoomButtons testId="peak-chart"
+                label={`Simulated transmission against m/z from ${formatNumber(peakData[0][0], 6)} to ${formatNumber(peakData[0][peakData[0].length - 1], 6)}; peak ${formatNumber(100 * result.peakTransmission, 3)} %`}
+                options={({ teal }) => ({
+                  scales: { x: { time: false } },
+                  series: [{ label: 'm/z' }, { label: 'Transmission (%)', stroke: teal, width: 2 }],
+                  axes: [{ label: 'm/z' }, { label: 'Transmission (%)' }],
+                })} />
+            )}
             <Result label="Peak transmission" value={`${formatNumber(100 * result.peakTransmission, 3)} % at m/z ${formatNumber(result.peakMz, 6)}`} testId="peak-transmission"
               note={{ label: `Simulated peak transmission at m/z ${mzText}`, value: 100 * result.peakTransmission, unit: '%', origin: 'calculator', context: ctx }} />
             <Result label="Resolution m/Δm at 50 % height" value={result.resolution50 > 0 ? formatNumber(result.resolution50, 4) : 'no measurable width in this range'} testId="peak-r50"
@@ -282,22 +295,18 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
                 Meaningful when the ideal band is much wider than the peak, i.e. when the flight, not U/V, sets the width.
               </p>
             )}
-            {peakData && (
-              <Chart key="peak" data={peakData} height={260} zoomButtons testId="peak-chart"
-                label={`Simulated transmission against m/z from ${formatNumber(peakData[0][0], 6)} to ${formatNumber(peakData[0][peakData[0].length - 1], 6)}; peak ${formatNumber(100 * result.peakTransmission, 3)} %`}
-                options={({ teal }) => ({
-                  scales: { x: { time: false } },
-                  series: [{ label: 'm/z' }, { label: 'Transmission (%)', stroke: teal, width: 2 }],
-                  axes: [{ label: 'm/z' }, { label: 'Transmission (%)' }],
-                })} />
-            )}
             <p class="hint">Numerical error of each point ≤ {coarse ? '1' : '0.1'} % of the peak height (deterministic: no counting noise).</p>
           </>
         )}
       </div>
 
-      <div class="card" data-testid="peak-curve">
-        <h2 class="card-title">Transmission against resolution</h2>
+      {hazard?.hazardous && (
+        <CautionLine testId="hv-short" text={<><strong>Hazardous live</strong> rods at these settings</>}>
+          <HvCaution exceeded={hazard.exceeded} />
+        </CautionLine>
+      )}
+
+      <More title="Transmission against resolution" class="more-tool"><div class="card" data-testid="peak-curve">
         <p class="hint">Steps U/V towards the apex at this m/z and these beam settings, and records the peak transmission against the resolution at 50 % height.</p>
         <div class="row">
           <button type="button" class="btn" onClick={computeCurve} disabled={!run || curve.status === 'running'}>Compute the curve</button>
@@ -318,9 +327,9 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
               axes: [{ label: 'm/Δm at 50 % (log)' }, { label: 'Peak transmission (%)' }],
             })} />
         )}
-      </div>
+      </div></More>
 
-      <details class="card" open>
+      <details class="card more">
         <summary><strong>Model and its assumptions</strong></summary>
         <ul>
           <li>Ideal hyperbolic field over the whole rod length: no fringe fields at the ends, no collisions, no space charge, perfect rods and supplies.</li>

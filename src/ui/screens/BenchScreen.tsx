@@ -18,8 +18,8 @@ export function BenchScreen() {
       <SubNav label="Bench parts" current={vacuum ? '/bench/vacuum' : '/bench'} items={benchParts} />
       {vacuum ? <VacuumCheck /> : (
         <>
-          <p class="lede">Expected RF and DC for each m/z on this analyser, in the convention its read-backs use and in every other, from ideal-field physics.</p>
           <Voltages />
+          <p class="hint">Expected RF and DC for each m/z on this analyser, from ideal-field physics.</p>
         </>
       )}
     </section>

@@ -6,6 +6,7 @@ import { areas } from '../areas';
 import { useApp } from '../context';
 import { formatConvention, formatSi } from '../format';
 import { subscribeOffline, type OfflineState } from '../offline';
+import { More } from '../components/Fold';
 import { StorageStatus } from '../components/StorageStatus';
 import { showDate } from '../visits/files';
 
@@ -94,12 +95,11 @@ export function HomeScreen() {
           </li>
         ))}
       </ul>
-      <div class="card">
-        <h2 class="card-title">This device</h2>
+      <More title={`This device: ${offline?.offlineReady ? '✓ ready offline' : '… preparing offline use'}`}>
         <p>{offline?.offlineReady ? '✓ Ready to work offline.' : '… Preparing offline use (needs one complete load).'}</p>
         <StorageStatus />
         <p class="hint">Expected values, stability, peak simulation, guided diagnosis and the visit log all run on this device, with or without a network. Ideal-field physics throughout; the instrument maker's limits and procedures come first.</p>
-      </div>
+      </More>
     </section>
   );
 }

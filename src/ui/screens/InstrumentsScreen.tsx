@@ -109,6 +109,8 @@ function InstrumentList() {
               {p.id === instrument?.id && <span class="tag">in use</span>}
               {p.demo && <span class="tag tag-muted">demo</span>}
             </h2>
+            <details class="facts-fold">
+            <summary>{instrumentKinds.find((k) => k.value === p.kind)?.label ?? p.kind} · r0 {formatSi(p.rodFieldRadius * 1e3, 'mm')} · RF {formatSi(p.rfFrequency / 1e6, 'MHz')}</summary>
             <dl class="facts">
               <div><dt>Type</dt><dd>{instrumentKinds.find((k) => k.value === p.kind)?.label ?? p.kind}</dd></div>
               <div><dt>r0</dt><dd>{formatSi(p.rodFieldRadius * 1e3, 'mm')}</dd></div>
@@ -118,7 +120,8 @@ function InstrumentList() {
               <div><dt>Ion energy</dt><dd>{formatSi(p.axialEnergy, 'eV')}</dd></div>
               <div><dt>Read-backs</dt><dd>{formatConvention(p.readbackConvention)}</dd></div>
             </dl>
-            {p.notes && <p class="notes">{p.notes}</p>}
+            </details>
+            {p.notes && <details class="notes-fold"><summary>Notes</summary><p class="notes">{p.notes}</p></details>}
             <div class="row">
               {p.id !== instrument?.id && (
                 <button type="button" class="btn" onClick={() => selectInstrument(p.id)}>Use this one</button>

@@ -1,3 +1,4 @@
+import { More } from '../components/Fold';
 import { StorageStatus } from '../components/StorageStatus';
 import { IconCaution } from '../components/icons';
 import { SAFETY_CARDS, type SafetyCardId } from '../../diagnose';
@@ -24,20 +25,17 @@ export function SafetyScreen() {
         <p class="muted">The guided diagnosis shows the matching hazard card at each step and asks for acknowledgement before invasive work.</p>
       </div>
 
-      <section aria-labelledby="cards-heading" class="screen">
-        <h2 id="cards-heading">Hazard cards</h2>
+      <More title={`Hazard cards (${Object.keys(SAFETY_CARDS).length})`} testId="hazard-cards">
         <p class="muted">The same cards the diagnosis shows at each step. Tap one to open it.</p>
         <SafetyCards ids={Object.keys(SAFETY_CARDS) as SafetyCardId[]} />
-      </section>
+      </More>
 
-      <div class="card">
-        <h2 class="card-title">Your data</h2>
+      <More title="Your data">
         <p>Instrument profiles, visits, readings and diagnosis walks are kept only in this browser's storage on this device. Nothing is sent anywhere.</p>
         <StorageStatus />
-      </div>
+      </More>
 
-      <div class="card">
-        <h2 class="card-title">Published sources the computations are checked against</h2>
+      <More title="Published sources the computations are checked against">
         <ul class="sources">
           <li>DLMF, NIST Digital Library of Mathematical Functions, ch. 28 (Mathieu functions and Hill's equation).</li>
           <li>M. Abramowitz, I. A. Stegun, Handbook of Mathematical Functions, 1964, ch. 20 (eq. 20.2.25 small-q series).</li>
@@ -50,7 +48,7 @@ export function SafetyScreen() {
           <li>CRC Handbook of Chemistry and Physics: ion-gauge relative sensitivities; composition of dry air.</li>
           <li>IEC 61010-1:2010 (3rd ed.), safety of laboratory equipment; NFPA 70E, 2024 edition; ISO 7010:2019 and ISO 3864-1:2011 (safety signs); IEC TS 60479-2:2017; IEC 60079-20-1:2010 — editions from memory. The hazard cards list the rest with their editions.</li>
         </ul>
-      </div>
+      </More>
       <p class="muted">Rodside version <span data-testid="app-version">{__APP_VERSION__}</span>. Names, icons and layout are Rodside's own; demo instruments and visits are invented.</p>
     </section>
   );

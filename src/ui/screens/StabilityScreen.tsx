@@ -19,12 +19,11 @@ export function StabilityScreen() {
       <SubNav label="Stability parts" current={resolution ? '/stability/resolution' : '/stability'} items={stabilityParts} />
       {resolution ? (
         <>
-          <p class="lede">What resolution a setting gives, what limits it, the setting for a target resolution, and how long a scan takes.</p>
           <ResolutionPlanner />
+          <p class="lede">What resolution a setting gives, what limits it, the setting for a target resolution, and how long a scan takes.</p>
         </>
       ) : (
         <>
-          <p class="lede">Where each ion sits in the first stability region at the current U and V, and which m/z the filter passes.</p>
           <StabilityDiagram />
         </>
       )}

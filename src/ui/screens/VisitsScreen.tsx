@@ -5,6 +5,7 @@ import {
   DEMO_LAB, formatNumber, fromBase, shownValue, visitReasons, type InstrumentProfile, type Reading, type ReadingType, type Visit,
   type WalkRecord,
 } from '../../store';
+import { More } from '../components/Fold';
 import { useApp } from '../context';
 import { navigate, usePath } from '../router';
 import { BackupPanel, BackupReminderNote } from '../visits/BackupPanel';
@@ -87,30 +88,45 @@ function VisitList() {
           {problem && <p class="banner banner-problem" role="alert">{problem}</p>}
           {visits && visits.length === 0 && <p class="notice">No visits recorded for this instrument yet.</p>}
           {visits && visits.length > 0 && (
-            <ul class="visit-list" aria-label={`Visits to ${instrument.name}`}>
-              {visits.map((v) => {
-                const c = counts[v.id];
-                return (
-                  <li key={v.id}>
-                    <a class="visit-item" href={`/visits/${encodeURIComponent(v.id)}`} data-testid="visit-item">
-                      <span class="when">{showDate(v.startedAt)} · {reasonLabel(v.reason)}{v.baseline ? ' · ★ baseline' : ''}{v.demo ? ' · demo' : ''}</span>
-                      <span class="counts">
-                        {v.engineer || 'engineer not recorded'}{v.site ? ` · ${v.site}` : ''} · {c?.n ?? 0} readings
-                        {c?.fail ? ` · ✗ ${c.fail} fail` : ''}{c?.borderline ? ` · △ ${c.borderline} borderline` : ''}
-                      </span>
-                    </a>
-                  </li>
-                );
-              })}
-            </ul>
+            <VisitItems label={`Visits to ${instrument.name}`} visits={visits.slice(0, RECENT_VISITS)} counts={counts} />
           )}
-          {types.length > 0 && <TrendPanel instrumentId={instrument.id} types={types} />}
+          {visits && visits.length > RECENT_VISITS && (
+            <details class="card more" data-testid="older-visits">
+              <summary><strong>Older visits ({visits.length - RECENT_VISITS})</strong></summary>
+              <VisitItems label={`Older visits to ${instrument.name}`} visits={visits.slice(RECENT_VISITS)} counts={counts} />
+            </details>
+          )}
+          {types.length > 0 && <More title="Trends across visits" class="more-tool" testId="trend-fold"><TrendPanel instrumentId={instrument.id} types={types} /></More>}
           {types.length > 0 && <MakerLimits key={instrument.id} instrument={instrument} types={types} />}
           <OwnTypeForm onAdded={reloadTypes} />
         </>
       )}
-      <BackupPanel />
+      <More title="Backup and export" class="more-tool" testId="backup-fold" open={typeof location !== 'undefined' && location.hash === '#backup'}><BackupPanel /></More>
     </section>
+  );
+}
+
+/** How many visits the list shows before the rest fold away under "Older visits". */
+const RECENT_VISITS = 4;
+
+function VisitItems(props: { label: string; visits: Visit[]; counts: Record<string, { n: number; fail: number; borderline: number }> }) {
+  return (
+    <ul class="visit-list" aria-label={props.label}>
+      {props.visits.map((v) => {
+        const c = props.counts[v.id];
+        return (
+          <li key={v.id}>
+            <a class="visit-item" href={`/visits/${encodeURIComponent(v.id)}`} data-testid="visit-item">
+              <span class="when">{showDate(v.startedAt)} · {reasonLabel(v.reason)}{v.baseline ? ' · ★ baseline' : ''}{v.demo ? ' · demo' : ''}</span>
+              <span class="counts">
+                {v.engineer || 'engineer not recorded'}{v.site ? ` · ${v.site}` : ''} · {c?.n ?? 0} readings
+                {c?.fail ? ` · ✗ ${c.fail} fail` : ''}{c?.borderline ? ` · △ ${c.borderline} borderline` : ''}
+              </span>
+            </a>
+          </li>
+        );
+      })}
+    </ul>
   );
 }
 

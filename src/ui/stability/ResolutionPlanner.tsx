@@ -7,6 +7,8 @@ import {
 } from '../../engine';
 import type { InstrumentProfile } from '../../store';
 import { NumberField, SelectField } from '../components/Field';
+import { InputsFold, More } from '../components/Fold';
+import { InstrumentLine } from '../components/InstrumentLine';
 import { useApp } from '../context';
 import { formatNumber, formatSi } from '../format';
 import { rfAs, rfFormOf, rfFormUnit, rfFormUnitId } from '../bench/conventions';
@@ -70,20 +72,26 @@ export function ResolutionPlanner() {
   const ctx = { ratio: inputs.ratio.trim(), mz: inputs.mz.trim(), rodLengthMm: inputs.rodLength.trim(), frequencyMHz: inputs.frequency.trim(), axialEnergyEv: inputs.axialEnergy.trim() };
   const top = frequency !== null ? tryEngine(() => massRangeTop({ maxRf: profile.maxRfAmplitude, r0: profile.rodFieldRadius, frequency }), { frequency: 'frequency' }, errors, 'frequency') : null;
 
+  const inputsInvalid = !!(errors.ratio || errors.mz || errors.rodLength || errors.frequency || errors.axialEnergy || errors.wantedWidth);
+
   return (
     <>
-      <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="res-fwd">
-        <h2 class="card-title" id="res-fwd">Resolution at a setting</h2>
-        <div class="pair">
-          <NumberField id="res-ratio" label="U/V" value={inputs.ratio} error={errors.ratio} onInput={(t) => update({ ratio: t })} hint={`apex ${apexRatio().toFixed(5)}`} />
-          <NumberField id="res-mz" label="m/z" unit="u" value={inputs.mz} error={errors.mz} onInput={(t) => update({ mz: t })} />
-          <NumberField id="res-length" label="Rod length" unit="mm" value={inputs.rodLength} error={errors.rodLength} onInput={(t) => update({ rodLength: t })} />
-          <NumberField id="res-freq" label="RF frequency" unit="MHz" value={inputs.frequency} error={errors.frequency} onInput={(t) => update({ frequency: t })} />
-          <NumberField id="res-energy" label="Ion energy" unit="eV" value={inputs.axialEnergy} error={errors.axialEnergy} onInput={(t) => update({ axialEnergy: t })} />
-          <NumberField id="res-wanted" label="Wanted Δm" unit="u" value={inputs.wantedWidth} error={errors.wantedWidth} onInput={(t) => update({ wantedWidth: t })} />
-        </div>
-        <SelectField id="res-k" label="Cycle-limit constant K" value={k} options={kChoices} onChange={(v) => update({ k: v })} />
-      </form>
+      <InstrumentLine profile={profile} rods />
+      <InputsFold id="res-inputs-fold" testId="resolution-fold" invalid={inputsInvalid}
+        summary={`U/V ${inputs.ratio.trim() || '—'} · m/z ${inputs.mz.trim() || '—'} · rods ${inputs.rodLength.trim() || '—'} mm · ${inputs.frequency.trim() || '—'} MHz · ${inputs.axialEnergy.trim() || '—'} eV · Δm ${inputs.wantedWidth.trim() || '—'} u`}>
+        <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="res-fwd">
+          <h2 class="card-title" id="res-fwd">Resolution at a setting</h2>
+          <div class="pair">
+            <NumberField id="res-ratio" label="U/V" value={inputs.ratio} error={errors.ratio} onInput={(t) => update({ ratio: t })} hint={`apex ${apexRatio().toFixed(5)}`} />
+            <NumberField id="res-mz" label="m/z" unit="u" value={inputs.mz} error={errors.mz} onInput={(t) => update({ mz: t })} />
+            <NumberField id="res-length" label="Rod length" unit="mm" value={inputs.rodLength} error={errors.rodLength} onInput={(t) => update({ rodLength: t })} />
+            <NumberField id="res-freq" label="RF frequency" unit="MHz" value={inputs.frequency} error={errors.frequency} onInput={(t) => update({ frequency: t })} />
+            <NumberField id="res-energy" label="Ion energy" unit="eV" value={inputs.axialEnergy} error={errors.axialEnergy} onInput={(t) => update({ axialEnergy: t })} />
+            <NumberField id="res-wanted" label="Wanted Δm" unit="u" value={inputs.wantedWidth} error={errors.wantedWidth} onInput={(t) => update({ wantedWidth: t })} />
+          </div>
+          <SelectField id="res-k" label="Cycle-limit constant K" value={k} options={kChoices} onChange={(v) => update({ k: v })} />
+        </form>
+      </InputsFold>
 
       <div class="card" data-testid="resolution-forward">
         <h2 class="card-title">Ideal field and RF-cycle limits</h2>
@@ -118,7 +126,7 @@ export function ResolutionPlanner() {
         )}
       </div>
 
-      <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="res-rev">
+      <More title="Setting for a target resolution" class="more-tool" testId="reverse-fold"><form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="res-rev">
         <h2 class="card-title" id="res-rev">Setting for a target resolution</h2>
         <NumberField id="res-target" label="Target m/Δm" value={inputs.targetR} error={errors.targetR} onInput={(t) => update({ targetR: t })} />
         {reverse && (
@@ -144,10 +152,10 @@ export function ResolutionPlanner() {
         {reversePoint && mz !== null && target !== null && rodLength !== null && frequency !== null && axialEnergy !== null && (
           <TransmissionCost mz={mz} dc={reversePoint.dc} rf={reversePoint.rf} r0={profile.rodFieldRadius} frequency={frequency} rodLength={rodLength} axialEnergy={axialEnergy} targetR={target} />
         )}
-      </form>
+      </form></More>
 
-      {top !== null && <ScanLawChart profile={profile} top={top} />}
-      <ScanPlanning />
+      {top !== null && <More title="The two scan laws across the mass range" class="more-tool"><ScanLawChart profile={profile} top={top} /></More>}
+      <More title="Scan planning: time per scan and S/N" class="more-tool"><ScanPlanning /></More>
     </>
   );
 }

@@ -9,6 +9,8 @@ import { HvCaution, isHazardousLive } from '../bench/HvCaution';
 import type { InstrumentProfile } from '../../store';
 import { Chart, type ChartOptions, type ChartPalette, type uPlot } from '../components/Chart';
 import { NumberField, SelectField } from '../components/Field';
+import { CautionLine, InputsFold } from '../components/Fold';
+import { InstrumentLine, scanLineSummary } from '../components/InstrumentLine';
 import { useApp } from '../context';
 import { formatNumber, formatSi } from '../format';
 import { dcAs, dcFormOf, dcFormUnitId, dcFormWords, rfAs, rfFormOf, rfFormUnit, rfFormUnitId, rfFormWords } from '../bench/conventions';
@@ -132,26 +134,76 @@ export function StabilityDiagram() {
     } else setTapMiss(true);
   }
 
+  const inputsInvalid = !!(errors.setMz || errors.mzList || errors.measuredU || errors.measuredV || errors.width || errors.referenceMz || errors.resolution);
+  // The other m/z as typed, without the set one (it leads the summary).
+  const others = inputs.mzList.split(/[;,\s]+/).filter((t) => t && t !== inputs.setMz.trim()).join(', ');
+  const summary = measured
+    ? `measured U ${inputs.measuredU.trim() || '—'} V · V ${inputs.measuredV.trim() || '—'} ${rfFormUnit[readForm]}${others ? ` · m/z ${others}` : ''}`
+    : `m/z ${inputs.setMz.trim() || '—'}${others ? ` (+ ${others})` : ''} · ${scanLineSummary(inputs)}`;
+
   return (
     <>
-      <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="stab-inputs">
-        <h2 class="card-title" id="stab-inputs">Where the filter is set</h2>
-        <SelectField id="stab-source" label="U and V from" value={inputs.source === 'measured' ? 'measured' : 'scan-line'}
-          options={[{ value: 'scan-line', label: 'The scan line at the set m/z' }, { value: 'measured', label: 'Measured read-backs' }]}
-          onChange={(v) => update({ source: v })} />
-        <NumberField id="stab-set" label="Set m/z" unit="u" value={inputs.setMz} error={errors.setMz} onInput={(t) => update({ setMz: t })} />
-        {inputs.source === 'measured' ? (
-          <div class="pair">
-            <NumberField id="stab-u" inputMode="text" label={`U (${dcFormWords[readDc]})`} unit="V" value={inputs.measuredU} error={errors.measuredU} onInput={(t) => update({ measuredU: t })} />
-            <NumberField id="stab-v" label={`V (${rfFormWords[readForm]})`} unit={rfFormUnit[readForm]} value={inputs.measuredV} error={errors.measuredV} onInput={(t) => update({ measuredV: t })} />
-          </div>
-        ) : (
-          <ScanLineFields idPrefix="stab" values={inputs} errors={errors} onChange={update} />
-        )}
-        <NumberField id="stab-list" inputMode="text" label="Other m/z to place on the diagram" value={inputs.mzList} error={errors.mzList} onInput={(t) => update({ mzList: t })}
-          hint="Neighbours of the set m/z show which side of the band they fall on." />
-        {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
-      </form>
+      <InstrumentLine profile={profile} />
+      <InputsFold id="stab-inputs-fold" summary={summary} invalid={inputsInvalid} testId="stability-fold">
+        <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="stab-inputs">
+          <h2 class="card-title" id="stab-inputs">Where the filter is set</h2>
+          <SelectField id="stab-source" label="U and V from" value={inputs.source === 'measured' ? 'measured' : 'scan-line'}
+            options={[{ value: 'scan-line', label: 'The scan line at the set m/z' }, { value: 'measured', label: 'Measured read-backs' }]}
+            onChange={(v) => update({ source: v })} />
+          <NumberField id="stab-set" label="Set m/z" unit="u" value={inputs.setMz} error={errors.setMz} onInput={(t) => update({ setMz: t })} />
+          {inputs.source === 'measured' ? (
+            <div class="pair">
+              <NumberField id="stab-u" inputMode="text" label={`U (${dcFormWords[readDc]})`} unit="V" value={inputs.measuredU} error={errors.measuredU} onInput={(t) => update({ measuredU: t })} />
+              <NumberField id="stab-v" label={`V (${rfFormWords[readForm]})`} unit={rfFormUnit[readForm]} value={inputs.measuredV} error={errors.measuredV} onInput={(t) => update({ measuredV: t })} />
+            </div>
+          ) : (
+            <ScanLineFields idPrefix="stab" values={inputs} errors={errors} onChange={update} />
+          )}
+          <NumberField id="stab-list" inputMode="text" label="Other m/z to place on the diagram" value={inputs.mzList} error={errors.mzList} onInput={(t) => update({ mzList: t })}
+            hint="Neighbours of the set m/z show which side of the band they fall on." />
+          {measured && dc !== null && rf !== null && isHazardousLive(dc, rf) && <HvCaution compact />}
+          {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
+        </form>
+      </InputsFold>
+
+      <div class="card">
+        <h2 class="card-title">First stability region</h2>
+        <Chart data={data} options={options} height={300} zoomButtons zoomScales={['x', 'y']} view={view} redrawKey={redrawKey}
+          onTap={onTap} testId="stability-chart"
+          label={`Stability diagram, a against q: the first region bounded by the y edge on the left and the x edge on the right, apex at q ${apex.q.toFixed(4)}, a ${apex.a.toFixed(5)}; ${points.length} operating points, listed below.`} />
+        <div class="row" role="group" aria-label="Chart view">
+          <button type="button" class="btn btn-small" onClick={() => setView({ key: Date.now(), ranges: { x: WHOLE.x, y: WHOLE.y } })}>Whole region</button>
+          <button type="button" class="btn btn-small" data-testid="zoom-apex"
+            onClick={() => setView({ key: Date.now(), ranges: { x: [apex.q - 0.016, apex.q + 0.016], y: [apex.a - 0.012, apex.a + 0.006] } })}>Apex close-up</button>
+        </div>
+        <label class="check">
+          <input type="checkbox" checked={showIso} onChange={(e) => update({ isoBeta: (e.target as HTMLInputElement).checked ? 'yes' : 'no' })} />
+          Show iso-β lines (β = {ISO_BETAS.join(', ')})
+        </label>
+        <details class="legend-fold">
+        <summary>Legend: edges, operating line, markers</summary>
+        <p class="hint">Where each ion sits in the first stability region at the current U and V, and which m/z the filter passes.</p>
+        <ul class="legend" aria-label="Legend">
+          <li><LineSample dash="" width={3} /> x edge b₁(q), solid: right of the apex, the low-mass cut-off</li>
+          <li><LineSample dash="7 4" width={3} /> y edge −a₀(q), dashed: left of the apex, the high-mass cut-off</li>
+          <li><LineSample dash="2 4" width={2} /> operating line: every m/z at the current U and V</li>
+          {showIso && <li><LineSample dash="" width={1} /> thin solid: β_x = {ISO_BETAS.join(', ')} (β_x reaches 1 on the x edge)</li>}
+          {showIso && <li><LineSample dash="1 3" width={1} /> thin dotted: β_y = {ISO_BETAS.join(', ')} (β_y is 0 on the y edge and grows away from it)</li>}
+          <li><Marker kind="pass" /> passes (filled circle)</li>
+          <li><Marker kind="fail" /> does not pass (open square with a cross)</li>
+          <li><Marker kind="apex" /> apex</li>
+        </ul>
+        </details>
+        <p class="hint">{tapMiss ? 'No point within reach of that tap: tap closer to a point, or pick one from the list below.' : 'Tap a point (or a list entry below) to read its values. Use the zoom buttons: the chart has no pinch zoom.'}</p>
+      </div>
+
+      {chosen && <PointPanel point={chosen} />}
+
+      {dc !== null && rf !== null && isHazardousLive(dc, rf) && (
+        <CautionLine testId="hv-short" text={<><strong>Hazardous live</strong> rods at this setting</>}>
+          <HvCaution compact />
+        </CautionLine>
+      )}
 
       {dc !== null && rf !== null && (
         <div class="card" data-testid="pass-band">
@@ -161,13 +213,15 @@ export function StabilityDiagram() {
             note={{ label: `DC at the current setting (set m/z ${inputs.setMz.trim()})`, value: dcAs(readDc, dc) ?? NaN, unit: dcFormUnitId[readDc], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'dc-amplitude' }} />
           <Result label={`V, ${rfFormWords[readForm]} (read-back form)`} value={`${formatNumber(rfAs(readForm, rf) ?? NaN, 5)} ${rfFormUnit[readForm]}`}
             note={{ label: `RF at the current setting (set m/z ${inputs.setMz.trim()})`, value: rfAs(readForm, rf) ?? NaN, unit: rfFormUnitId[readForm], origin: inputs.source === 'measured' ? 'entered' : 'calculator', context: setMz.ok ? { mz: setMz.value } : {}, typeId: 'rf-amplitude' }} />
-          <Result label="U/V (V zero-to-peak, one rod to ground)" value={formatNumber(dc / rf, 6)} testId="band-ratio"
-            note={{ label: 'DC/RF ratio U/V at the current setting', value: dc / rf, unit: '', origin: 'calculator' }} />
           {band ? (
             <>
               <p class="big" data-testid="band-interval">
                 {Number.isFinite(band.high) ? `m/z ${formatNumber(band.low, 6)} – ${formatNumber(band.high, 6)} passes` : `m/z above ${formatNumber(band.low, 6)} passes (RF only)`}
               </p>
+              <details class="band-more">
+                <summary>Edges, width and U/V</summary>
+                <Result label="U/V (V zero-to-peak, one rod to ground)" value={formatNumber(dc / rf, 6)} testId="band-ratio"
+                  note={{ label: 'DC/RF ratio U/V at the current setting', value: dc / rf, unit: '', origin: 'calculator' }} />
               <Result label="Lowest m/z passed (x edge, low-mass cut-off)" value={`${formatNumber(band.low, 6)} u`} testId="band-low"
                 note={{ label: 'Pass band low-mass edge', value: band.low, unit: 'u', origin: 'calculator', context: { dc, rf } }} />
               {Number.isFinite(band.high) && (
@@ -182,42 +236,17 @@ export function StabilityDiagram() {
                     note={{ label: 'Ideal resolution of the pass band', value: band.resolution, unit: '', origin: 'calculator', context: { dc, rf } }} />
                 </>
               )}
+              </details>
             </>
           ) : (
-            <p data-testid="band-interval"><span class="verdict verdict-fail">✗ nothing passes</span> U/V is at or above the apex ratio: no m/z is stable in both directions.</p>
+            <>
+              <p data-testid="band-interval"><span class="verdict verdict-fail">✗ nothing passes</span> U/V is at or above the apex ratio: no m/z is stable in both directions.</p>
+              <Result label="U/V (V zero-to-peak, one rod to ground)" value={formatNumber(dc / rf, 6)} testId="band-ratio"
+                note={{ label: 'DC/RF ratio U/V at the current setting', value: dc / rf, unit: '', origin: 'calculator' }} />
+            </>
           )}
-          {isHazardousLive(dc, rf) && <HvCaution compact />}
         </div>
       )}
-
-      <div class="card">
-        <h2 class="card-title">First stability region</h2>
-        <div class="row" role="group" aria-label="Chart view">
-          <button type="button" class="btn btn-small" onClick={() => setView({ key: Date.now(), ranges: { x: WHOLE.x, y: WHOLE.y } })}>Whole region</button>
-          <button type="button" class="btn btn-small" data-testid="zoom-apex"
-            onClick={() => setView({ key: Date.now(), ranges: { x: [apex.q - 0.016, apex.q + 0.016], y: [apex.a - 0.012, apex.a + 0.006] } })}>Apex close-up</button>
-        </div>
-        <Chart data={data} options={options} height={320} zoomButtons zoomScales={['x', 'y']} view={view} redrawKey={redrawKey}
-          onTap={onTap} testId="stability-chart"
-          label={`Stability diagram, a against q: the first region bounded by the y edge on the left and the x edge on the right, apex at q ${apex.q.toFixed(4)}, a ${apex.a.toFixed(5)}; ${points.length} operating points, listed below.`} />
-        <label class="check">
-          <input type="checkbox" checked={showIso} onChange={(e) => update({ isoBeta: (e.target as HTMLInputElement).checked ? 'yes' : 'no' })} />
-          Show iso-β lines (β = {ISO_BETAS.join(', ')})
-        </label>
-        <ul class="legend" aria-label="Legend">
-          <li><LineSample dash="" width={3} /> x edge b₁(q), solid: right of the apex, the low-mass cut-off</li>
-          <li><LineSample dash="7 4" width={3} /> y edge −a₀(q), dashed: left of the apex, the high-mass cut-off</li>
-          <li><LineSample dash="2 4" width={2} /> operating line: every m/z at the current U and V</li>
-          {showIso && <li><LineSample dash="" width={1} /> thin solid: β_x = {ISO_BETAS.join(', ')} (β_x reaches 1 on the x edge)</li>}
-          {showIso && <li><LineSample dash="1 3" width={1} /> thin dotted: β_y = {ISO_BETAS.join(', ')} (β_y is 0 on the y edge and grows away from it)</li>}
-          <li><Marker kind="pass" /> passes (filled circle)</li>
-          <li><Marker kind="fail" /> does not pass (open square with a cross)</li>
-          <li><Marker kind="apex" /> apex</li>
-        </ul>
-        <p class="hint">{tapMiss ? 'No point within reach of that tap: tap closer to a point, or pick one from the list below.' : 'Tap a point (or a list entry below) to read its values. Use the zoom buttons: the chart has no pinch zoom.'}</p>
-      </div>
-
-      {chosen && <PointPanel point={chosen} />}
 
       <div class="card">
         <h2 class="card-title">Operating points</h2>

@@ -20,8 +20,11 @@ export function BackupReminderNote() {
   if (!status?.due) return null;
   return (
     <div class="card reminder" role="note" data-testid="backup-reminder">
-      <p><strong>⚠ Time for a backup.</strong> {status.message}</p>
-      <a class="btn btn-small" href="/visits#backup">Back up now</a>
+      <div class="reminder-line">
+        <p><strong>⚠ Time for a backup.</strong></p>
+        <a class="btn btn-small" href="/visits#backup">Back up now</a>
+      </div>
+      <details class="reminder-why"><summary>Why now</summary><p>{status.message}</p></details>
     </div>
   );
 }

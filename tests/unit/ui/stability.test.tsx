@@ -24,8 +24,9 @@ describe('Stability · diagram (Kestrel)', () => {
     expect(texts(h.root, '[data-testid="band-low"] .result-value')[0]).toBe(`${formatNumber(band.low, 6)} u`);
     expect(texts(h.root, '[data-testid="band-high"] .result-value')[0]).toBe(`${formatNumber(band.high, 6)} u`);
     expect(texts(h.root, '[data-testid="band-ratio"] .result-value')[0]).toBe(formatNumber(sp.dc / sp.rf, 6));
-    // 100 V on the rods is hazardous live: the caution and its deferral show beside the values.
-    expect(h.root.querySelector('[data-testid="pass-band"] [data-testid="hv-caution"]')?.textContent).toMatch(/maker's procedures/);
+    // 100 V on the rods is hazardous live: a one-line caution sits beside the values, its full card (with the
+    // deferral) one tap away.
+    expect(h.root.querySelector('[data-testid="hv-short"] [data-testid="hv-caution"]')?.textContent).toMatch(/maker's procedures/);
     // The band is centred on the set m/z and is 1 u wide at the reference m/z 219 (constant-width line).
     expect(Math.abs((band.low + band.high) / 2 - 69)).toBeLessThan(1e-6);
     const list = texts(h.root, '[data-testid="op-list"] li');

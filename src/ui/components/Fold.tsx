@@ -1,0 +1,60 @@
+// Phone-first folding: inputs that keep their values between visits fold to one line, so the answer comes first;
+// a one-line caution opens the full card in place; long secondary material waits behind a disclosure.
+import type { ComponentChildren } from 'preact';
+import { useEffect, useRef, useState } from 'preact/hooks';
+
+/**
+ * Inputs folded to a one-line summary ("m/z 69 · constant Δm 1 u — change"). The whole line is a button with
+ * aria-expanded; opening it moves focus to the first field. The fields stay in the page while folded (hidden), so
+ * what was typed is never dropped; an invalid field opens the fold by itself so its message is seen.
+ */
+export function InputsFold(props: { id: string; summary: string; invalid?: boolean; children: ComponentChildren; testId?: string }) {
+  const [open, setOpen] = useState(!!props.invalid);
+  const body = useRef<HTMLDivElement>(null);
+  const focusFirst = useRef(false);
+  useEffect(() => {
+    if (props.invalid) setOpen(true);
+  }, [props.invalid]);
+  useEffect(() => {
+    if (!open || !focusFirst.current) return;
+    focusFirst.current = false;
+    body.current?.querySelector<HTMLElement>('input, select, textarea')?.focus();
+  }, [open]);
+  const bodyId = `${props.id}-fields`;
+  return (
+    <div class={open ? 'fold fold-open' : 'fold'} data-testid={props.testId}>
+      <button type="button" class="fold-toggle" id={`${props.id}-toggle`} aria-expanded={open ? 'true' : 'false'} aria-controls={bodyId}
+        onClick={() => {
+          focusFirst.current = !open;
+          setOpen(!open);
+        }}>
+        <span class="fold-summary">{props.summary}</span>
+        <span class="fold-action" aria-hidden="true">{open ? 'done' : 'change'}</span>
+        <span class="visually-hidden">{open ? ' — fold the fields' : ' — change'}</span>
+      </button>
+      <div id={bodyId} ref={body} class="fold-body" hidden={!open}>
+        {props.children}
+      </div>
+    </div>
+  );
+}
+
+/** A one-line caution whose full card is one tap away (for screens that only compute). */
+export function CautionLine(props: { text: ComponentChildren; children: ComponentChildren; testId?: string }) {
+  return (
+    <details class="caution-line" data-testid={props.testId}>
+      <summary><span class="caution-mark" aria-hidden="true">⚠</span><span>{props.text}</span></summary>
+      <div class="caution-line-body">{props.children}</div>
+    </details>
+  );
+}
+
+/** Secondary material (assumptions, sources, conventions, further tools) behind a full-height disclosure. */
+export function More(props: { title: ComponentChildren; children: ComponentChildren; testId?: string; open?: boolean; class?: string }) {
+  return (
+    <details class={props.class ? `card more ${props.class}` : 'card more'} data-testid={props.testId} open={props.open}>
+      <summary><strong>{props.title}</strong></summary>
+      <div class="more-body">{props.children}</div>
+    </details>
+  );
+}
