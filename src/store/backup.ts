@@ -210,7 +210,9 @@ export async function importBackupText(db: IDBPDatabase<RodsideSchema>, text: un
     await tx.done;
   } catch (err) {
     try { tx.abort(); } catch { /* already finished or aborted */ }
-    await tx.done.catch(() => undefined);
+    // Wait for the roll-back to finish before reporting. tx.done rejects with the abort asked for just above;
+    // that rejection is expected and carries nothing new: the error that caused the abort is rethrown below.
+    await tx.done.then(() => undefined, (aborted: unknown) => aborted);
     throw err;
   }
   return result;

@@ -17,6 +17,7 @@ import { Proportionality } from './Proportionality';
 import { Result } from './NoteButton';
 import { buildScanLine, expectedFor, type BuiltLine, type Expected } from './scanLine';
 import { ScanLineFields } from './ScanLineFields';
+import { DraftProblem } from '../components/DraftProblem';
 
 export type BenchInputs = {
   mzList: string; mode: string; width: string; referenceMz: string; resolution: string;
@@ -35,7 +36,7 @@ export function benchDefaults(p: InstrumentProfile | null): BenchInputs {
 
 export function Voltages() {
   const { instrument } = useApp();
-  const [inputs, update] = usePersistentInputs<BenchInputs>('bench', benchDefaults);
+  const [inputs, update, inputsProblem] = usePersistentInputs<BenchInputs>('bench', benchDefaults);
   if (!instrument) return <p class="notice">Pick or add an instrument first: every expected value comes from its profile. <a href="/instruments/new">Add an instrument</a></p>;
   const profile = instrument;
   const errors: FieldErrors = {};
@@ -58,6 +59,7 @@ export function Voltages() {
     <>
       <div class="card">
         <h2 class="card-title">{profile.name}</h2>
+        <DraftProblem problem={inputsProblem} />
         <p class="muted">r0 {formatSi(profile.rodFieldRadius * 1e3, 'mm')} · RF {formatSi(profile.rfFrequency / 1e6, 'MHz')} · read-backs {formatConvention(profile.readbackConvention)}</p>
         <p><a class="btn btn-small" href={`/instruments/${encodeURIComponent(profile.id)}`}>Edit profile</a></p>
         {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}

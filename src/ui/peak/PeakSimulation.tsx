@@ -13,6 +13,7 @@ import { HvCaution } from '../bench/HvCaution';
 import { Result } from '../bench/NoteButton';
 import type { FieldErrors } from '../bench/engineErrors';
 import { buildPeakRun, peakDefaults, SLIDERS, type PeakInputs } from './peakInputs';
+import { DraftProblem } from '../components/DraftProblem';
 
 type RunState<T> =
   | { status: 'idle' }
@@ -30,7 +31,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
   const { instrument } = useApp();
   const client = props.client ?? simClient();
   const curveClient = props.curveClient ?? (curveWorkerClient ??= new SimClient());
-  const [inputs, update] = usePersistentInputs<PeakInputs>('peak', peakDefaults);
+  const [inputs, update, inputsProblem] = usePersistentInputs<PeakInputs>('peak', peakDefaults);
   const [peak, setPeak] = useState<RunState<PeakProfile>>({ status: 'idle' });
   const [curve, setCurve] = useState<RunState<TransmissionVsResolution>>({ status: 'idle' });
   const curveController = useRef<AbortController | null>(null);
@@ -133,6 +134,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     <>
       <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="peak-settings-title">
         <h2 class="card-title" id="peak-settings-title">Settings · {instrument.name}</h2>
+        <DraftProblem problem={inputsProblem} />
         <p class="muted">r0 {formatSi(instrument.rodFieldRadius * 1e3, 'mm')} · rods {formatSi(instrument.rodLength * 1e3, 'mm')} · RF {formatSi(instrument.rfFrequency / 1e6, 'MHz')}</p>
         {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
         <div class="pair">

@@ -24,6 +24,7 @@ export function HomeScreen() {
   const [offline, setOffline] = useState<OfflineState | null>(null);
   const [latestVisit, setLatestVisit] = useState<Visit | null | undefined>(undefined);
   const [openWalk, setOpenWalk] = useState<{ record: WalkRecord; title: string } | null>(null);
+  const [walkProblem, setWalkProblem] = useState<string | null>(null);
   useEffect(() => subscribeOffline(setOffline), []);
   useEffect(() => {
     if (!store || !instrument) return;
@@ -35,7 +36,10 @@ export function HomeScreen() {
         const title = w ? await walkTitle(w.treeId) : '';
         if (live) setOpenWalk(w ? { record: w, title } : null);
       })
-      .catch(() => undefined);
+      .catch((err: unknown) => {
+        // The start page stays usable; the Diagnose screen reads the walk again and reports there too.
+        if (live) setWalkProblem(`Could not check for a walk in progress: ${(err as { userMessage?: string }).userMessage ?? String(err)}`);
+      });
     return () => { live = false; };
   }, [store, instrument?.id]);
 
@@ -62,6 +66,7 @@ export function HomeScreen() {
         ) : (
           <p>No instrument profile yet. <a href="/instruments/new">Create one</a> to get expected values.</p>
         )}
+        {walkProblem && <p class="hint" role="status">{walkProblem}</p>}
         {openWalk && (
           <p class="notice" data-testid="home-open-walk">
             A walk is in progress: {openWalk.title}, last step {showDate(openWalk.record.updatedAt)}. <a class="tap-link" href="/diagnose">Carry on with it</a>

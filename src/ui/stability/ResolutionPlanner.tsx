@@ -17,6 +17,7 @@ import { HvCaution, isHazardousLive } from '../bench/HvCaution';
 import { ScanLawChart } from './ScanLawChart';
 import { ScanPlanning } from './ScanPlanning';
 import { TransmissionCost } from './TransmissionCost';
+import { DraftProblem } from '../components/DraftProblem';
 
 type PlannerInputs = {
   ratio: string; mz: string; rodLength: string; frequency: string; axialEnergy: string; k: string; wantedWidth: string; targetR: string;
@@ -35,7 +36,7 @@ const kChoices = Object.entries(CYCLE_LIMIT_CONSTANTS).map(([key, v]) => ({ valu
 
 export function ResolutionPlanner() {
   const { instrument } = useApp();
-  const [inputs, update] = usePersistentInputs<PlannerInputs>('resolution', plannerDefaults);
+  const [inputs, update, inputsProblem] = usePersistentInputs<PlannerInputs>('resolution', plannerDefaults);
   if (!instrument) return <p class="notice">Pick or add an instrument first: the planner starts from its rods and RF. <a href="/instruments/new">Add an instrument</a></p>;
   const profile = instrument;
   const errors: FieldErrors = {};
@@ -74,6 +75,7 @@ export function ResolutionPlanner() {
     <>
       <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="res-fwd">
         <h2 class="card-title" id="res-fwd">Resolution at a setting</h2>
+        <DraftProblem problem={inputsProblem} />
         <div class="pair">
           <NumberField id="res-ratio" label="U/V" value={inputs.ratio} error={errors.ratio} onInput={(t) => update({ ratio: t })} hint={`apex ${apexRatio().toFixed(5)}`} />
           <NumberField id="res-mz" label="m/z" unit="u" value={inputs.mz} error={errors.mz} onInput={(t) => update({ mz: t })} />

@@ -34,7 +34,7 @@ export function BackupPanel() {
   const [problem, setProblem] = useState<string | null>(null);
   const share = canShareFiles();
 
-  const refresh = () => void store?.backupStatus().then(setStatus).catch(() => undefined);
+  const refresh = () => void store?.backupStatus().then(setStatus).catch((err: unknown) => setProblem(`The last backup date could not be read: ${errorText(err)}`));
   useEffect(refresh, [store]);
 
   async function exportBackup(viaShare: boolean) {

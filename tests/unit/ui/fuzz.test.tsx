@@ -6,11 +6,11 @@ import fc from 'fast-check';
 import { Voltages } from '../../../src/ui/bench/Voltages';
 import { VacuumCheck } from '../../../src/ui/bench/VacuumCheck';
 import { StabilityDiagram } from '../../../src/ui/stability/StabilityDiagram';
-import { demo, mount, typeInto, type Harness } from './appHarness';
+import { demo, mount, typeInto, waitFor, type Harness } from './appHarness';
 
 let h: Harness | null = null;
-afterEach(() => {
-  h?.unmount();
+afterEach(async () => {
+  await h?.unmount();
   h = null;
 });
 
