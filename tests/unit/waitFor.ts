@@ -16,6 +16,7 @@ function nextTurn(): Promise<void> {
 /**
  * Wait until `condition()` returns a truthy value (or a promise of one) without throwing, and return that value.
  * `what` names the condition in the timeout message ("the restore offer to disappear").
+ * Call it outside act(): inside one, Preact holds every render until that act ends, so the wait could never end.
  */
 export async function waitFor<T>(condition: () => T | Promise<T>, what = 'the condition', limitMs = WAIT_LIMIT_MS): Promise<T> {
   const started = Date.now();

@@ -5,7 +5,8 @@ import { render } from 'preact';
 import { act } from 'preact/test-utils';
 import { AppContext, type AppContextValue } from '../../../src/ui/context';
 import { VisitsScreen } from '../../../src/ui/screens/VisitsScreen';
-import { demoInstruments, eraseStore, openStore, type Store } from '../../../src/store';
+import { demoInstruments, describeStorageError, eraseStore, openStore, type Store } from '../../../src/store';
+import { waitFor } from '../waitFor';
 
 const names: string[] = [];
 let store: Store | null = null;
@@ -26,11 +27,7 @@ async function mount(path: string): Promise<HTMLElement> {
   return host;
 }
 
-async function settle(page: HTMLElement, until: () => boolean) {
-  for (let i = 0; i < 50 && !until(); i++) await act(async () => { await new Promise((r) => setTimeout(r, 10)); });
-  expect(until()).toBe(true);
-  return page;
-}
+const settle = (page: HTMLElement, until: () => boolean, what = 'the page') => waitFor(until, what).then(() => page);
 
 function type(el: Element | null, text: string) {
   const input = el as HTMLInputElement;
@@ -39,7 +36,9 @@ function type(el: Element | null, text: string) {
 }
 
 afterEach(async () => {
+  for (const host of document.body.children) render(null, host);
   document.body.innerHTML = '';
+  vi.restoreAllMocks();
   store?.close();
   store = null;
   while (names.length) await eraseStore(names.pop()!);
@@ -80,6 +79,18 @@ describe('visit page', () => {
     const saved = (await store!.listReadings('demo-visit-k8')).filter((r) => r.entered.text === '1760');
     expect(saved).toHaveLength(1);
     expect(saved[0]).toMatchObject({ verdict: 'fail', value: 1760, expected: { basis: 'baseline', value: 1420 } });
+  });
+
+  it('when the reading draft cannot be kept, says so beside the form and keeps the typed value', async () => {
+    const host = await mount('/visits/demo-visit-k8');
+    await settle(host, () => host.querySelector('#reading-value') !== null, 'the reading form');
+    const full = Object.assign(new Error('The quota has been exceeded.'), { name: 'QuotaExceededError' });
+    vi.spyOn(store!, 'putDraft').mockRejectedValue(describeStorageError('keep a draft', full));
+    await act(async () => { type(host.querySelector('#reading-value'), '1500'); });
+    await settle(host, () => host.querySelector('[data-testid="draft-problem"]') !== null, 'the draft problem message');
+    const form = host.querySelector('[data-testid="reading-form"]')!;
+    expect(form.querySelector('[data-testid="draft-problem"]')?.textContent).toMatch(/^Couldn't save your draft on this device: this device has no storage space left for Rodside\. Your input is still here;/);
+    expect((host.querySelector('#reading-value') as HTMLInputElement).value).toBe('1500');
   });
 
   it('says so plainly when a visit does not exist', async () => {
