@@ -81,6 +81,9 @@ export function useDraft<T>(options: DraftOptions<T>): Draft<T> {
   const typedSinceLoad = useRef(false);
   // Only the newest write decides what is shown: an older failure must not hide a newer success, nor the reverse.
   const writes = useRef(0);
+  // The copy this tab last put on the device (or found there). Another tab editing the same record shares the key:
+  // a save here must not delete input that tab kept since (see clear()).
+  const lastKept = useRef<string | null>(null);
 
   // A new key (another record or profile) starts over.
   if (state.key !== key) {
@@ -109,6 +112,7 @@ export function useDraft<T>(options: DraftOptions<T>): Draft<T> {
       if (kept !== undefined && kept !== null && (o.accept?.(kept) ?? true)) {
         const value = whileLoading === 'initial' && typeof kept === 'object' && !Array.isArray(kept) ? { ...o.initial(), ...kept } : kept;
         latest.current = value;
+        lastKept.current = JSON.stringify(kept);
         setState({ key, value, restored: true });
         if (kind === 'draft' && o.unsaved !== false && (o.unsavedWhenRestored?.(kept) ?? true)) markUnsaved(key, o.what);
       } else start();
@@ -129,7 +133,10 @@ export function useDraft<T>(options: DraftOptions<T>): Draft<T> {
     if (!store || opts.current.keep === false) return Promise.resolve();
     const n = ++writes.current;
     return writeKept(store, kind, key, value).then(
-      () => { if (n === writes.current) setProblem(null); },
+      () => {
+        lastKept.current = JSON.stringify(value);
+        if (n === writes.current) setProblem(null);
+      },
       (err: unknown) => { if (n === writes.current) setProblem(draftProblemText(err)); },
     );
   }
@@ -164,7 +171,11 @@ export function useDraft<T>(options: DraftOptions<T>): Draft<T> {
       if (!store) return;
       writes.current += 1;
       try {
-        await store.clearDraft(key);
+        // Two tabs on one record share this copy. If the copy on the device is not the one this tab kept, the other
+        // tab has typed since: leave it for that tab (its reload restores it). The later save wins either way.
+        const onDevice = await store.getDraft<unknown>(key);
+        if (onDevice !== undefined && JSON.stringify(onDevice) === lastKept.current) await store.clearDraft(key);
+        lastKept.current = null;
         setProblem(null);
       } catch (err) {
         // The input was saved; only the spare copy stays behind. Say so: it would come back as a restored draft.
