@@ -18,14 +18,14 @@ function nextTurn(): Promise<void> {
  * `what` names the condition in the timeout message ("the restore offer to disappear").
  * Call it outside act(): inside one, Preact holds every render until that act ends, so the wait could never end.
  */
-export async function waitFor<T>(condition: () => T | Promise<T>, what = 'the condition', limitMs = WAIT_LIMIT_MS): Promise<T> {
+export async function waitFor<T>(condition: () => T | Promise<T>, what = 'the condition', limitMs = WAIT_LIMIT_MS): Promise<NonNullable<T>> {
   const started = Date.now();
   let lastError: unknown = null;
   let lastValue: unknown;
   for (;;) {
     try {
       const value = await condition();
-      if (value) return value;
+      if (value) return value as NonNullable<T>;
       lastValue = value;
       lastError = null;
     } catch (err) {

@@ -195,7 +195,9 @@ function Walk() {
     if (!store || !instrumentId) return null;
     try {
       return (await store.currentVisit(instrumentId))?.id ?? null;
-    } catch {
+    } catch (err) {
+      // The walk is still kept, only without its visit: say so, so the engineer can add it to a visit by hand.
+      notify(`The walk is kept, but the open visit could not be read to link it: ${(err as { userMessage?: string }).userMessage ?? String(err)}`);
       return null;
     }
   }

@@ -29,8 +29,12 @@ export function HomeScreen() {
   useEffect(() => {
     if (!store || !instrument) return;
     let live = true;
-    // What is already under way; a failed read leaves the line out rather than showing an error on the start page.
-    store.listVisits(instrument.id).then((v) => live && setLatestVisit(v[0] ?? null), () => live && setLatestVisit(undefined));
+    // What is already under way; a failed read leaves the line out and says so in one quiet line.
+    store.listVisits(instrument.id).then((v) => live && setLatestVisit(v[0] ?? null), (err: unknown) => {
+      if (!live) return;
+      setLatestVisit(undefined);
+      setWalkProblem(`Could not read the latest visit: ${(err as { userMessage?: string }).userMessage ?? String(err)}`);
+    });
     store.latestInProgressWalk()
       .then(async (w) => {
         const title = w ? await walkTitle(w.treeId) : '';

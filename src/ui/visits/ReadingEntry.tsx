@@ -70,7 +70,11 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
     const r = checkEntry(type, draft.text, draft.unitId, draft.context);
     if (!r.ok) { setPreview(null); return; }
     let stale = false;
-    void store.previewReading(visit.id, type.id, r.value, r.context).then((p) => { if (!stale) setPreview(p); }).catch(() => setPreview(null));
+    void store.previewReading(visit.id, type.id, r.value, r.context).then((p) => { if (!stale) setPreview(p); }).catch((err: unknown) => {
+      if (stale) return;
+      setPreview(null);
+      setProblem(`The expected value could not be worked out here: ${errorText(err)} The reading can still be saved.`);
+    });
     return () => { stale = true; };
   }, [store, draft, type, visit.id]);
 
