@@ -215,7 +215,8 @@ export async function importBackupText(db: IDBPDatabase<RodsideSchema>, text: un
     await Promise.all(writes);
     await tx.done;
   } catch (err) {
-    abortQuietly(tx);
+    // Wait for the roll-back to finish before reporting: the error that caused the abort is rethrown below.
+    await abortQuietly(tx);
     throw err;
   }
   return result;

@@ -39,14 +39,21 @@ export async function guard<T>(action: string, fn: () => Promise<T>): Promise<T>
   }
 }
 
-/** Abort a transaction that may already be finished; its `done` then rejects with the abort, which is expected. */
-export function abortQuietly(tx: { abort(): void; done: Promise<void> }): void {
-  tx.done.catch((e: unknown) => {
-    if ((e as { name?: string } | null)?.name !== 'AbortError') console.error('Rodside: a transaction failed while being aborted', e);
-  });
+/**
+ * Abort a transaction that may already be finished; its `done` then rejects with the abort, which is expected.
+ * The promise settles when the roll-back has finished (await it before reporting the error that caused it).
+ */
+export function abortQuietly(tx: { abort(): void; done: Promise<void> }): Promise<void> {
+  const settled = tx.done.then(
+    () => undefined,
+    (e: unknown) => {
+      if ((e as { name?: string } | null)?.name !== 'AbortError') console.error('Rodside: a transaction failed while being aborted', e);
+    },
+  );
   try {
     tx.abort();
   } catch {
     // Already committed or aborted: there is nothing left to undo.
   }
+  return settled;
 }

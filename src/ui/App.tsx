@@ -66,9 +66,11 @@ export function App() {
   const selectInstrument = useCallback(
     (id: string) => {
       setCurrentId(id);
-      void store?.setSetting(CURRENT_INSTRUMENT_KEY, id).catch(() => undefined);
+      // The choice holds for this session either way; if it cannot be kept, say that a reload will forget it.
+      void store?.setSetting(CURRENT_INSTRUMENT_KEY, id).catch((err: unknown) =>
+        notify(`This profile is chosen for now, but the choice could not be kept on this device: ${(err as { userMessage?: string }).userMessage ?? String(err)}`));
     },
-    [store],
+    [store, notify],
   );
 
   const ctx: AppContextValue = useMemo(

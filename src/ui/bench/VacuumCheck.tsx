@@ -11,6 +11,7 @@ import { formatNumber, formatSi } from '../format';
 import { tryEngine, type FieldErrors } from './engineErrors';
 import { parseNumber, usePersistentInputs } from './inputs';
 import { Result } from './NoteButton';
+import { DraftProblem } from '../components/DraftProblem';
 
 type VacuumInputs = { reading: string; unit: string; gas: string; temperature: string; rodLength: string };
 
@@ -32,7 +33,7 @@ function verdictOf(unscattered: number): Verdict {
 
 export function VacuumCheck() {
   const { instrument } = useApp();
-  const [inputs, update] = usePersistentInputs<VacuumInputs>('vacuum', vacuumDefaults);
+  const [inputs, update, inputsProblem] = usePersistentInputs<VacuumInputs>('vacuum', vacuumDefaults);
   const errors: FieldErrors = {};
   const unit = ((PRESSURE_UNITS as readonly string[]).includes(inputs.unit) ? inputs.unit : 'mbar') as PressureUnit;
   const gas = ((GAUGE_GASES as readonly string[]).includes(inputs.gas) ? inputs.gas : 'N2') as GaugeGas;
@@ -68,6 +69,7 @@ export function VacuumCheck() {
     <>
       <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="vac-title">
         <h2 class="card-title" id="vac-title">Gauge reading</h2>
+        <DraftProblem problem={inputsProblem} />
         {instrument && <p class="hint">Rod length starts from the profile of {instrument.name}.</p>}
         <div class="pair">
           <NumberField id="vac-reading" inputMode="text" label="Ion-gauge reading (N2-equivalent)" value={inputs.reading} error={errors.reading} onInput={(t) => update({ reading: t })} hint="e.g. 1.5e-5" />

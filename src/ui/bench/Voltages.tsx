@@ -19,6 +19,7 @@ import { Proportionality } from './Proportionality';
 import { Result } from './NoteButton';
 import { buildScanLine, expectedFor, type BuiltLine, type Expected } from './scanLine';
 import { ScanLineFields } from './ScanLineFields';
+import { DraftProblem } from '../components/DraftProblem';
 
 export type BenchInputs = {
   mzList: string; mode: string; width: string; referenceMz: string; resolution: string;
@@ -37,7 +38,7 @@ export function benchDefaults(p: InstrumentProfile | null): BenchInputs {
 
 export function Voltages() {
   const { instrument } = useApp();
-  const [inputs, update] = usePersistentInputs<BenchInputs>('bench', benchDefaults);
+  const [inputs, update, inputsProblem] = usePersistentInputs<BenchInputs>('bench', benchDefaults);
   if (!instrument) return <p class="notice">Pick or add an instrument first: every expected value comes from its profile. <a href="/instruments/new">Add an instrument</a></p>;
   const profile = instrument;
   const errors: FieldErrors = {};
@@ -61,6 +62,7 @@ export function Voltages() {
   return (
     <>
       <InstrumentLine profile={profile} />
+      <DraftProblem problem={inputsProblem} />
       <InputsFold id="bench-inputs" summary={`m/z ${inputs.mzList.trim() || '—'} · ${scanLineSummary(inputs)}`} invalid={inputsInvalid} testId="bench-fold">
         <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="expected-title">
           <h2 class="card-title" id="expected-title">Expected voltages</h2>

@@ -1,45 +1,31 @@
 // Screen inputs kept as typed, per instrument profile and screen, in the store's settings, so a reload, a
-// profile switch or an update never loses them. Parsing accepts a decimal comma (gloved thumbs, EU keypads).
-import { useEffect, useRef, useState } from 'preact/hooks';
+// profile switch or an update never loses them (through the one draft hook, which says so when the device
+// refuses to keep them). Parsing accepts a decimal comma (gloved thumbs, EU keypads).
 import { readNumber, type InstrumentProfile } from '../../records';
 import { useApp } from '../context';
+import { useDraft } from '../components/useDraft';
 
 export type Inputs = Record<string, string>;
 
-/** Inputs for `screen` on the current instrument: [values, update]. Defaults fill anything never typed. */
-export function usePersistentInputs<T extends Inputs>(screen: string, defaults: (p: InstrumentProfile | null) => T): [T, (patch: Partial<T>) => void] {
+/**
+ * Inputs for `screen` on the current instrument: [values, update, problem]. Defaults fill anything never typed;
+ * typing before the kept values arrive wins over them. `problem` is the sentence to show (with DraftProblem)
+ * when the device would not keep the inputs, else null.
+ */
+export function usePersistentInputs<T extends Inputs>(screen: string, defaults: (p: InstrumentProfile | null) => T): [T, (patch: Partial<T>) => void, string | null] {
   const { store, instrument } = useApp();
-  const key = `inputs:${screen}:${instrument?.id ?? 'none'}`;
-  const [state, setState] = useState<{ key: string; values: T }>(() => ({ key, values: defaults(instrument) }));
-  const defaultsRef = useRef(defaults);
-  defaultsRef.current = defaults;
-  // Typing before the kept values arrive wins over them: nothing typed is lost.
-  const typedSinceLoad = useRef(false);
-
-  useEffect(() => {
-    let cancelled = false;
-    const base = defaultsRef.current(instrument);
-    typedSinceLoad.current = false;
-    setState({ key, values: base });
-    if (!store || !instrument) return;
-    store.getSetting<Partial<T>>(key).then((kept) => {
-      if (!cancelled && !typedSinceLoad.current && kept && typeof kept === 'object') setState({ key, values: { ...base, ...kept } });
-    }).catch(() => undefined);
-    return () => {
-      cancelled = true;
-    };
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [key, store]);
-
-  function update(patch: Partial<T>) {
-    typedSinceLoad.current = true;
-    setState((s) => {
-      const values = { ...s.values, ...patch } as T;
-      if (store && instrument) void store.setSetting(s.key, values).catch(() => undefined);
-      return { key: s.key, values };
-    });
-  }
-  return [state.values, update];
+  const draft = useDraft<T>({
+    key: `inputs:${screen}:${instrument?.id ?? 'none'}`,
+    initial: () => defaults(instrument),
+    what: `the ${screen} inputs`,
+    kind: 'setting',
+    whileLoading: 'initial',
+    ready: Boolean(store && instrument),
+    // Without a profile the inputs are only shown: they belong to no instrument.
+    keep: Boolean(instrument),
+    accept: (kept) => typeof kept === 'object' && kept !== null,
+  });
+  return [draft.value ?? defaults(instrument), (patch: Partial<T>) => void draft.update(patch), draft.problem];
 }
 
 export type Parsed = { ok: true; value: number } | { ok: false; message: string };

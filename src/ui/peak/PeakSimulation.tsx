@@ -15,6 +15,7 @@ import { HvCaution } from '../bench/HvCaution';
 import { Result } from '../bench/NoteButton';
 import type { FieldErrors } from '../bench/engineErrors';
 import { buildPeakRun, peakDefaults, SLIDERS, type PeakInputs } from './peakInputs';
+import { DraftProblem } from '../components/DraftProblem';
 
 type RunState<T> =
   | { status: 'idle' }
@@ -55,7 +56,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
   const { instrument } = useApp();
   const client = props.client ?? simClient();
   const curveClient = props.curveClient ?? (curveWorkerClient ??= new SimClient());
-  const [inputs, update] = usePersistentInputs<PeakInputs>('peak', peakDefaults);
+  const [inputs, update, inputsProblem] = usePersistentInputs<PeakInputs>('peak', peakDefaults);
   const [peak, setPeak] = useState<PeakState>({ status: 'idle' });
   const [curve, setCurve] = useState<RunState<TransmissionVsResolution>>({ status: 'idle' });
   const curveController = useRef<AbortController | null>(null);
@@ -231,6 +232,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
   return (
     <>
       <InstrumentLine profile={instrument} rods />
+      <DraftProblem problem={inputsProblem} />
       <InputsFold id="peak-inputs-fold" testId="peak-fold" invalid={Object.keys(errors).some((k) => k !== 'profile')}
         summary={`m/z ${inputs.mz.trim() || '—'} · m/Δm ${inputs.resolution.trim() || '—'} · ${inputs.axialVoltage.trim() || '—'} eV · beam ${inputs.beamRadiusMm.trim() || '—'} mm · transverse ${inputs.transverseEnergy.trim() || '—'} eV`}>
         <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="peak-settings-title">

@@ -8,6 +8,8 @@ import { useApp } from '../context';
 import { formatNumber } from '../format';
 import { formatDateTime, formatTime } from '../locale';
 import { markSaved, markUnsaved } from '../offline';
+import { DraftProblem } from '../components/DraftProblem';
+import { useDraft } from '../components/useDraft';
 import { navigate, usePath } from '../router';
 import { LeakCheckPanel, type LeakTyped } from './diagnose/LeakCheckPanel';
 import { NodeView, TREE_TITLE, type Typed } from './diagnose/NodeView';
@@ -48,28 +50,15 @@ export function DiagnoseScreen() {
 }
 
 function LeakCheck() {
-  const { store } = useApp();
-  const [typed, setTyped] = useState<LeakTyped | null>(null);
-  const { storeProblem } = useApp();
-  useEffect(() => {
-    if (!store) return;
-    // Never let a late read overwrite what was typed meanwhile.
-    void store.getDraft<LeakTyped>(LEAK_DRAFT_KEY).then((t) => setTyped((cur) => cur ?? t ?? {})).catch(() => setTyped((cur) => cur ?? {}));
-  }, [store]);
-  if (!typed && store && !storeProblem) return <p>Loading…</p>;
-  const current = typed ?? {};
+  const { store, storeProblem } = useApp();
+  // Typing before the kept copy is read wins over it; two inputs in one frame merge into the latest copy.
+  const kept = useDraft<LeakTyped>({ key: LEAK_DRAFT_KEY, what: 'the leak check', initial: () => ({}), unsaved: false });
+  if (!kept.value && store && !storeProblem) return <p>Loading…</p>;
   return (
-    <LeakCheckPanel
-      typed={current}
-      onTyped={(patch) => {
-        // Merge into the latest copy: two inputs in one frame must not overwrite each other.
-        setTyped((cur) => {
-          const next = { ...(cur ?? {}), ...patch };
-          void store?.putDraft(LEAK_DRAFT_KEY, next).catch(() => undefined);
-          return next;
-        });
-      }}
-    />
+    <>
+      <DraftProblem problem={kept.problem} />
+      <LeakCheckPanel typed={kept.value ?? {}} onTyped={(patch) => void kept.update(patch)} />
+    </>
   );
 }
 
@@ -83,6 +72,8 @@ function Walk() {
   latest.current = draft;
   // The walk's record id in the store, and a queue so saves land in order and never create two records.
   const walkId = useRef<string | null>(null);
+  // The walk was picked up from an older build's form draft, which is removed once the walk is saved.
+  const legacyDraft = useRef(false);
   const saving = useRef<Promise<void>>(Promise.resolve());
   const pending = useRef(0);
   // The visit this walk belongs to (the instrument's open visit), so the visit log lists it.
@@ -98,6 +89,7 @@ function Walk() {
         // An older build kept the walk as a form draft: pick it up once, then keep it in the walks store.
         const kept: unknown = rec ? rec.state : await store.getDraft<unknown>(WALK_DRAFT_KEY);
         if (kept === undefined) return;
+        legacyDraft.current = !rec;
         if (isWalkDraft(kept) && trees.some((t) => t.id === kept.walk.treeId)) {
           walkId.current = rec?.id ?? null;
           visitId.current = rec?.visitId ?? null;
@@ -142,7 +134,13 @@ function Walk() {
           status: status ?? (next.finished ? 'finished' : 'in-progress'),
         });
         walkId.current = rec.id;
-        await store.clearDraft(WALK_DRAFT_KEY).catch(() => undefined);
+        if (legacyDraft.current) {
+          // The walk now lives in the walks store; the old copy is only spare. Removing it may fail: say so
+          // once (it would be offered again after a reload), the walk itself is kept either way.
+          legacyDraft.current = false;
+          await store.clearDraft(WALK_DRAFT_KEY).catch((err: unknown) =>
+            notify(`The walk is kept, but its older copy could not be removed: ${(err as { userMessage?: string }).userMessage ?? String(err)}`));
+        }
       } catch (err) {
         ok = false;
         notify((err as { userMessage?: string }).userMessage ?? `The walk could not be kept on this device: ${String(err)}`);
@@ -200,7 +198,9 @@ function Walk() {
     if (!store || !instrumentId) return null;
     try {
       return (await store.currentVisit(instrumentId))?.id ?? null;
-    } catch {
+    } catch (err) {
+      // The walk is still kept, only without its visit: say so, so the engineer can add it to a visit by hand.
+      notify(`The walk is kept, but the open visit could not be read to link it: ${(err as { userMessage?: string }).userMessage ?? String(err)}`);
       return null;
     }
   }

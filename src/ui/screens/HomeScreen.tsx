@@ -25,18 +25,26 @@ export function HomeScreen() {
   const [offline, setOffline] = useState<OfflineState | null>(null);
   const [latestVisit, setLatestVisit] = useState<Visit | null | undefined>(undefined);
   const [openWalk, setOpenWalk] = useState<{ record: WalkRecord; title: string } | null>(null);
+  const [walkProblem, setWalkProblem] = useState<string | null>(null);
   useEffect(() => subscribeOffline(setOffline), []);
   useEffect(() => {
     if (!store || !instrument) return;
     let live = true;
-    // What is already under way; a failed read leaves the line out rather than showing an error on the start page.
-    store.listVisits(instrument.id).then((v) => live && setLatestVisit(v[0] ?? null), () => live && setLatestVisit(undefined));
+    // What is already under way; a failed read leaves the line out and says so in one quiet line.
+    store.listVisits(instrument.id).then((v) => live && setLatestVisit(v[0] ?? null), (err: unknown) => {
+      if (!live) return;
+      setLatestVisit(undefined);
+      setWalkProblem(`Could not read the latest visit: ${(err as { userMessage?: string }).userMessage ?? String(err)}`);
+    });
     store.latestInProgressWalk()
       .then(async (w) => {
         const title = w ? await walkTitle(w.treeId) : '';
         if (live) setOpenWalk(w ? { record: w, title } : null);
       })
-      .catch(() => undefined);
+      .catch((err: unknown) => {
+        // The start page stays usable; the Diagnose screen reads the walk again and reports there too.
+        if (live) setWalkProblem(`Could not check for a walk in progress: ${(err as { userMessage?: string }).userMessage ?? String(err)}`);
+      });
     return () => { live = false; };
     // Read again when another instrument is chosen, not when the same profile object is rebuilt.
     // eslint-disable-next-line react-hooks/exhaustive-deps
@@ -65,6 +73,7 @@ export function HomeScreen() {
         ) : (
           <p>No instrument profile yet. <a href="/instruments/new">Create one</a> to get expected values.</p>
         )}
+        {walkProblem && <p class="hint" role="status">{walkProblem}</p>}
         {openWalk && (
           <p class="notice" data-testid="home-open-walk">
             A walk is in progress: {openWalk.title}, last step {showDate(openWalk.record.updatedAt)}. <a class="tap-link" href="/diagnose">Carry on with it</a>

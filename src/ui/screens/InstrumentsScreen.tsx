@@ -5,7 +5,8 @@ import {
 } from '../../store';
 import { useApp } from '../context';
 import { NumberField, SelectField } from '../components/Field';
-import { markSaved, markUnsaved } from '../offline';
+import { DraftProblem } from '../components/DraftProblem';
+import { useDraft } from '../components/useDraft';
 import { navigate, usePath } from '../router';
 import { formatConvention, formatSi } from '../format';
 
@@ -23,8 +24,12 @@ function InstrumentList() {
   const [deleted, setDeleted] = useState<DeletedInstrument | undefined>(undefined);
   const hasDemo = instruments.some((p) => p.demo);
 
-  const checkDeleted = () => void store?.deletedInstrument().then(setDeleted).catch(() => setDeleted(undefined));
-  useEffect(checkDeleted, [store]);
+  // If the kept copy cannot be read, no restore is offered, and the user is told why.
+  const checkDeleted = () => void store?.deletedInstrument().then(setDeleted).catch((err: unknown) => {
+    setDeleted(undefined);
+    notify(`A deleted profile that could still be restored could not be read: ${(err as { userMessage?: string }).userMessage ?? String(err)}`);
+  });
+  useEffect(checkDeleted, [store, notify]);
 
   async function restore(profile: InstrumentProfile) {
     if (!store) return;
@@ -141,35 +146,19 @@ function InstrumentForm(props: { id: string | null }) {
   const { store, instruments, reloadInstruments, selectInstrument, notify } = useApp();
   const existing = props.id ? instruments.find((p) => p.id === props.id) : undefined;
   const draftKey = `instrument-form:${props.id ?? 'new'}`;
-  const [draft, setDraft] = useState<ProfileDraft | null>(null);
   const [errors, setErrors] = useState<ProfileErrors>({});
   const [saveProblem, setSaveProblem] = useState<string | null>(null);
-  const [restored, setRestored] = useState(false);
-  const dirty = useRef(false);
-  // The latest draft, so two inputs in one frame never overwrite each other with a stale copy.
-  const latest = useRef<ProfileDraft | null>(null);
-  latest.current = draft;
-
   // Start from a kept draft if there is one (nothing typed is ever lost), else from the profile.
-  useEffect(() => {
-    if (!store || draft) return;
-    if (props.id && !existing) return;
-    void store.getDraft<ProfileDraft>(draftKey).then((kept) => {
-      if (kept) {
-        setDraft(kept);
-        setRestored(true);
-        dirty.current = true;
-        markUnsaved(draftKey, 'the instrument profile form');
-      } else {
-        setDraft(existing ? draftFromProfile(existing) : emptyDraft());
-      }
-    }).catch(() => setDraft(existing ? draftFromProfile(existing) : emptyDraft()));
-  }, [store, existing, draftKey, draft, props.id]);
-
-  useEffect(() => () => {
-    // Leaving the form keeps the draft; only the "unsaved" mark for updates is dropped with the screen.
-    markSaved(draftKey);
-  }, [draftKey]);
+  const kept = useDraft<ProfileDraft>({
+    key: draftKey,
+    what: 'the instrument profile form',
+    ready: !(props.id && !existing),
+    initial: () => (existing ? draftFromProfile(existing) : emptyDraft()),
+  });
+  const draft = kept.value;
+  const restored = kept.restored;
+  const dirty = useRef(false);
+  if (restored) dirty.current = true;
 
   if (props.id && store && !existing) {
     return (
@@ -183,23 +172,19 @@ function InstrumentForm(props: { id: string | null }) {
   if (!draft) return <section class="screen"><p>Loading…</p></section>;
 
   function update(patch: Partial<ProfileDraft>) {
-    const next = { ...latest.current!, ...patch };
-    latest.current = next;
-    setDraft(next);
+    const next = kept.update(patch);
     dirty.current = true;
-    markUnsaved(draftKey, 'the instrument profile form');
     // Re-check only fields already flagged, so messages clear as soon as they are fixed.
     if (Object.keys(errors).length) {
       const r = validateDraft(next);
       setErrors(r.ok ? {} : Object.fromEntries(Object.entries(r.errors).filter(([k]) => k in errors)));
     }
-    void store?.putDraft(draftKey, next).catch(() => undefined);
   }
 
   async function save(e: Event) {
     e.preventDefault();
     setSaveProblem(null);
-    const r = validateDraft(draft!);
+    const r = validateDraft(kept.latest()!);
     if (!r.ok) {
       setErrors(r.errors);
       const first = Object.keys(r.errors)[0];
@@ -213,9 +198,8 @@ function InstrumentForm(props: { id: string | null }) {
     }
     try {
       const saved = await store.saveInstrument(r.fields, existing?.id);
-      await store.clearDraft(draftKey).catch(() => undefined);
+      await kept.clear();
       dirty.current = false;
-      markSaved(draftKey);
       await reloadInstruments();
       if (!existing) selectInstrument(saved.id);
       notify(existing ? `Saved “${saved.name}”.` : `Created “${saved.name}”.`);
@@ -226,9 +210,8 @@ function InstrumentForm(props: { id: string | null }) {
   }
 
   async function discard() {
-    await store?.clearDraft(draftKey).catch(() => undefined);
+    await kept.clear();
     dirty.current = false;
-    markSaved(draftKey);
     navigate('/instruments');
   }
 
@@ -236,6 +219,7 @@ function InstrumentForm(props: { id: string | null }) {
     <section class="screen">
       <h1>{existing ? `Edit ${existing.name}` : 'New instrument profile'}</h1>
       {restored && <p class="notice">Restored the input you had not saved yet.</p>}
+      <DraftProblem problem={kept.problem} />
       <form class="form" onSubmit={save} noValidate>
         <div class={errors.name ? 'field has-error' : 'field'}>
           <label for="profile-name">Name</label>

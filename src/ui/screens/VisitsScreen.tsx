@@ -30,11 +30,11 @@ export function VisitsScreen() {
 const reasonLabel = (r: string) => visitReasons.find((x) => x.value === r)?.label ?? r;
 
 function useReadingTypes(): [ReadingType[], () => void] {
-  const { store } = useApp();
+  const { store, notify } = useApp();
   const [types, setTypes] = useState<ReadingType[]>([]);
   const reload = useCallback(() => {
-    if (store) void store.listReadingTypes().then(setTypes).catch(() => undefined);
-  }, [store]);
+    if (store) void store.listReadingTypes().then(setTypes).catch((err: unknown) => notify(`The reading types could not be read: ${errorText(err)}`));
+  }, [store, notify]);
   useEffect(reload, [reload]);
   return [types, reload];
 }
@@ -163,12 +163,14 @@ function VisitPage(props: { id: string; sub?: string }) {
       if (v) {
         setReadings(await store.listReadings(v.id));
         setWalks(await store.listWalks(v.id));
-        await store.setCurrentVisit(v.instrumentId, v.id).catch(() => undefined);
+        // Opening a visit makes it the one "Note this" writes to; if that cannot be kept, the visit still shows.
+        await store.setCurrentVisit(v.instrumentId, v.id).catch((err: unknown) =>
+          notify(`This visit is shown, but “Note this” could not be pointed at it: ${errorText(err)}`));
       }
     } catch (err) {
       setProblem(errorText(err));
     }
-  }, [store, props.id]);
+  }, [store, props.id, notify]);
   useEffect(() => void load(), [load]);
 
   if (problem) return <section class="screen"><p class="banner banner-problem" role="alert">{problem}</p></section>;

@@ -19,6 +19,7 @@ import { HvCaution, isHazardousLive } from '../bench/HvCaution';
 import { ScanLawChart } from './ScanLawChart';
 import { ScanPlanning } from './ScanPlanning';
 import { TransmissionCost } from './TransmissionCost';
+import { DraftProblem } from '../components/DraftProblem';
 
 type PlannerInputs = {
   ratio: string; mz: string; rodLength: string; frequency: string; axialEnergy: string; k: string; wantedWidth: string; targetR: string;
@@ -37,7 +38,7 @@ const kChoices = Object.entries(CYCLE_LIMIT_CONSTANTS).map(([key, v]) => ({ valu
 
 export function ResolutionPlanner() {
   const { instrument } = useApp();
-  const [inputs, update] = usePersistentInputs<PlannerInputs>('resolution', plannerDefaults);
+  const [inputs, update, inputsProblem] = usePersistentInputs<PlannerInputs>('resolution', plannerDefaults);
   if (!instrument) return <p class="notice">Pick or add an instrument first: the planner starts from its rods and RF. <a href="/instruments/new">Add an instrument</a></p>;
   const profile = instrument;
   const errors: FieldErrors = {};
@@ -77,6 +78,7 @@ export function ResolutionPlanner() {
   return (
     <>
       <InstrumentLine profile={profile} rods />
+      <DraftProblem problem={inputsProblem} />
       <InputsFold id="res-inputs-fold" testId="resolution-fold" invalid={inputsInvalid}
         summary={`U/V ${inputs.ratio.trim() || '—'} · m/z ${inputs.mz.trim() || '—'} · rods ${inputs.rodLength.trim() || '—'} mm · ${inputs.frequency.trim() || '—'} MHz · ${inputs.axialEnergy.trim() || '—'} eV · Δm ${inputs.wantedWidth.trim() || '—'} u`}>
         <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="res-fwd">

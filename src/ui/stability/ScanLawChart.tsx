@@ -9,6 +9,7 @@ import { formatNumber } from '../format';
 import { tryEngine, type FieldErrors } from '../bench/engineErrors';
 import { parseNumber, usePersistentInputs } from '../bench/inputs';
 import { Result } from '../bench/NoteButton';
+import { DraftProblem } from '../components/DraftProblem';
 
 type LawInputs = { width: string; referenceMz: string; resolution: string };
 const lawDefaults = (p: InstrumentProfile | null): LawInputs => ({ width: '1', referenceMz: p?.kind === 'rga' ? '28' : '219', resolution: p?.kind === 'rga' ? '100' : '500' });
@@ -45,7 +46,7 @@ export function lawColumns(widthLine: ScanLine | null, resLine: ScanLine | null,
 
 export function ScanLawChart(props: { profile: InstrumentProfile; top: number }) {
   const { profile, top } = props;
-  const [inputs, update] = usePersistentInputs<LawInputs>('scanlaw', lawDefaults);
+  const [inputs, update, inputsProblem] = usePersistentInputs<LawInputs>('scanlaw', lawDefaults);
   const errors: FieldErrors = {};
   const r0 = profile.rodFieldRadius;
   const frequency = profile.rfFrequency;
@@ -87,6 +88,7 @@ export function ScanLawChart(props: { profile: InstrumentProfile; top: number })
   return (
     <div class="card">
       <h2 class="card-title">Scan laws across the mass range</h2>
+      <DraftProblem problem={inputsProblem} />
       <div class="pair">
         <NumberField id="law-width" label="Constant Δm" unit="u" value={inputs.width} error={errors.width} onInput={(t) => update({ width: t })} />
         <NumberField id="law-ref" label="set at m/z" unit="u" value={inputs.referenceMz} error={errors.referenceMz} onInput={(t) => update({ referenceMz: t })} />

@@ -6,6 +6,7 @@ import { formatNumber, formatSi } from '../format';
 import { tryEngine, type FieldErrors } from '../bench/engineErrors';
 import { parseNumber, usePersistentInputs } from '../bench/inputs';
 import { Result } from '../bench/NoteButton';
+import { DraftProblem } from '../components/DraftProblem';
 
 type PlanInputs = { mzStart: string; mzEnd: string; step: string; dwell: string; settle: string; scans: string; countRate: string };
 const planDefaults = (p: InstrumentProfile | null): PlanInputs =>
@@ -21,7 +22,7 @@ function duration(seconds: number): string {
 }
 
 export function ScanPlanning() {
-  const [inputs, update] = usePersistentInputs<PlanInputs>('scanplan', planDefaults);
+  const [inputs, update, inputsProblem] = usePersistentInputs<PlanInputs>('scanplan', planDefaults);
   const errors: FieldErrors = {};
   const values: Record<string, number> = {};
   const labels: Record<keyof PlanInputs, [string, string]> = {
@@ -53,6 +54,7 @@ export function ScanPlanning() {
   return (
     <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="plan-title">
       <h2 class="card-title" id="plan-title">Scan planning</h2>
+      <DraftProblem problem={inputsProblem} />
       <div class="pair">
         {field('mzStart', 'plan-from', 'u')}
         {field('mzEnd', 'plan-to', 'u')}

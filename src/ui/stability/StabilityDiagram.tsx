@@ -20,6 +20,7 @@ import { Result } from '../bench/NoteButton';
 import { buildScanLine, expectedFor } from '../bench/scanLine';
 import { ScanLineFields } from '../bench/ScanLineFields';
 import { diagramColumns, ISO_BETAS, Q_MAX } from './diagramData';
+import { DraftProblem } from '../components/DraftProblem';
 
 type StabilityInputs = {
   setMz: string; mzList: string; mode: string; width: string; referenceMz: string; resolution: string;
@@ -47,7 +48,7 @@ const WHOLE = { x: [0, Q_MAX] as [number, number], y: [-0.02, 0.32] as [number, 
 
 export function StabilityDiagram() {
   const { instrument } = useApp();
-  const [inputs, update] = usePersistentInputs<StabilityInputs>('stability', stabilityDefaults);
+  const [inputs, update, inputsProblem] = usePersistentInputs<StabilityInputs>('stability', stabilityDefaults);
   const [selected, setSelected] = useState<number | null>(null);
   const [view, setView] = useState<{ key: number; ranges: Record<string, [number, number]> } | null>(null);
   const [tapMiss, setTapMiss] = useState(false);
@@ -144,6 +145,7 @@ export function StabilityDiagram() {
   return (
     <>
       <InstrumentLine profile={profile} />
+      <DraftProblem problem={inputsProblem} />
       <InputsFold id="stab-inputs-fold" summary={summary} invalid={inputsInvalid} testId="stability-fold">
         <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="stab-inputs">
           <h2 class="card-title" id="stab-inputs">Where the filter is set</h2>

@@ -9,6 +9,7 @@ import { peakDefaults } from '../peak/peakInputs';
 import { formatNumber } from '../format';
 import { parseNumber, usePersistentInputs } from '../bench/inputs';
 import { Result } from '../bench/NoteButton';
+import { DraftProblem } from '../components/DraftProblem';
 
 type BeamInputs = { beamRadius: string; transverseEnergy: string };
 // The same beam the Peak area starts from, so the two areas agree until someone changes one.
@@ -24,7 +25,7 @@ type State =
   | { status: 'failed'; message: string; field?: string };
 
 export function TransmissionCost(props: { mz: number; dc: number; rf: number; r0: number; frequency: number; rodLength: number; axialEnergy: number; targetR: number }) {
-  const [inputs, update] = usePersistentInputs<BeamInputs>('beam', beamDefaults);
+  const [inputs, update, inputsProblem] = usePersistentInputs<BeamInputs>('beam', beamDefaults);
   const [state, setState] = useState<State>({ status: 'idle' });
   const radius = parseNumber(inputs.beamRadius, 'Beam radius', '0.5');
   const energy = parseNumber(inputs.transverseEnergy, 'Transverse energy', '0.1');
@@ -61,6 +62,7 @@ export function TransmissionCost(props: { mz: number; dc: number; rf: number; r0
   return (
     <div class="fieldset" data-testid="transmission-cost">
       <h3 class="card-title">Transmission cost</h3>
+      <DraftProblem problem={inputsProblem} />
       <div class="pair">
         <NumberField id="beam-radius" label="Beam radius at entry" unit="mm" value={inputs.beamRadius} error={radius.ok ? beamError('beamRadius') : radius.message} onInput={(t) => update({ beamRadius: t })} />
         <NumberField id="beam-energy" label="Transverse energy" unit="eV" value={inputs.transverseEnergy} error={energy.ok ? beamError('transverseEnergy') : energy.message} onInput={(t) => update({ transverseEnergy: t })} />

@@ -12,7 +12,12 @@ export function BackupReminderNote() {
   const [status, setStatus] = useState<BackupReminder | null>(null);
   useEffect(() => {
     if (!store) return;
-    const refresh = () => void store.backupStatus().then(setStatus).catch(() => setStatus(null));
+    // The reminder is a nudge: if its date cannot be read, the note stays away and the console says why (the
+    // Backup panel itself shows the failure where the user acts on it).
+    const refresh = () => void store.backupStatus().then(setStatus).catch((err: unknown) => {
+      setStatus(null);
+      console.warn('Backup reminder: the last backup date could not be read.', err);
+    });
     refresh();
     window.addEventListener(BACKUP_SAVED_EVENT, refresh);
     return () => window.removeEventListener(BACKUP_SAVED_EVENT, refresh);
@@ -37,7 +42,7 @@ export function BackupPanel() {
   const [problem, setProblem] = useState<string | null>(null);
   const share = canShareFiles();
 
-  const refresh = () => void store?.backupStatus().then(setStatus).catch(() => undefined);
+  const refresh = () => void store?.backupStatus().then(setStatus).catch((err: unknown) => setProblem(`The last backup date could not be read: ${errorText(err)}`));
   useEffect(refresh, [store]);
 
   async function exportBackup(viaShare: boolean) {

@@ -1,12 +1,13 @@
 // Reading entry: pick a type from the catalogue, type the value in the unit shown on the instrument, see the
 // expected value and the verdict before saving. The form is a draft from the first keystroke.
-import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
+import { useEffect, useMemo, useState } from 'preact/hooks';
 import {
   checkEntry, formatNumber, fromBase, parseNumber, toBase, verdictWords, type Expectation, type InstrumentProfile, type Judgement,
   type ReadingType, type Visit,
 } from '../../store';
 import { useApp } from '../context';
-import { markSaved, markUnsaved } from '../offline';
+import { DraftProblem } from '../components/DraftProblem';
+import { useDraft } from '../components/useDraft';
 import { errorText } from './files';
 
 interface ReadingDraft {
@@ -46,25 +47,19 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
   const { visit, types } = props;
   const draftKey = `reading-form:${visit.id}`;
   const choosable = useMemo(() => types.filter((t) => t.id !== 'noted-value'), [types]);
-  const [draft, setDraft] = useState<ReadingDraft | null>(null);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [problem, setProblem] = useState<string | null>(null);
   const [preview, setPreview] = useState<{ expectation?: Expectation; judgement?: Judgement } | null>(null);
   const [busy, setBusy] = useState(false);
-  const latest = useRef<ReadingDraft | null>(null);
-  latest.current = draft;
-
-  useEffect(() => {
-    if (!store || draft || choosable.length === 0) return;
-    void store.getDraft<ReadingDraft>(draftKey).then((kept) => {
-      if (kept && choosable.some((t) => t.id === kept.typeId)) {
-        setDraft(kept);
-        if (kept.text || kept.note) markUnsaved(draftKey, 'a reading being entered');
-      } else setDraft(blank(choosable[0], instrument));
-    }).catch(() => setDraft(blank(choosable[0], instrument)));
-  }, [store, draft, draftKey, choosable, instrument]);
-
-  useEffect(() => () => markSaved(draftKey), [draftKey]);
+  const kept = useDraft<ReadingDraft>({
+    key: draftKey,
+    what: 'a reading being entered',
+    ready: choosable.length > 0,
+    initial: () => blank(choosable[0], instrument),
+    accept: (d) => choosable.some((t) => t.id === d.typeId),
+    unsavedWhenRestored: (d) => Boolean(d.text || d.note),
+  });
+  const draft = kept.value;
 
   const type = draft ? choosable.find((t) => t.id === draft.typeId) ?? choosable[0] : undefined;
   const unit = type && draft ? type.units.find((u) => u.id === draft.unitId) ?? type.units[0] : undefined;
@@ -75,44 +70,44 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
     const r = checkEntry(type, draft.text, draft.unitId, draft.context);
     if (!r.ok) { setPreview(null); return; }
     let stale = false;
-    void store.previewReading(visit.id, type.id, r.value, r.context).then((p) => { if (!stale) setPreview(p); }).catch(() => setPreview(null));
+    void store.previewReading(visit.id, type.id, r.value, r.context).then((p) => { if (!stale) setPreview(p); }).catch((err: unknown) => {
+      if (stale) return;
+      setPreview(null);
+      setProblem(`The expected value could not be worked out here: ${errorText(err)} The reading can still be saved.`);
+    });
     return () => { stale = true; };
   }, [store, draft, type, visit.id]);
 
   if (!draft || !type || !unit) return <p>Loading the readings catalogue…</p>;
 
   function update(patch: Partial<ReadingDraft>) {
-    const next = { ...latest.current!, ...patch };
-    latest.current = next;
-    setDraft(next);
-    markUnsaved(draftKey, 'a reading being entered');
+    const next = kept.update(patch);
     if (Object.keys(errors).length) {
       const t = choosable.find((x) => x.id === next.typeId)!;
       const r = checkEntry(t, next.text, next.unitId, next.context);
       setErrors(r.ok ? {} : Object.fromEntries(Object.entries(r.errors).filter(([k]) => k in errors)));
     }
-    void store?.putDraft(draftKey, next).catch(() => undefined);
   }
 
   function chooseType(id: string) {
     const t = choosable.find((x) => x.id === id)!;
     setErrors({});
-    update({ ...blank(t, instrument, latest.current!.phase), note: latest.current!.note });
+    update({ ...blank(t, instrument, kept.latest()!.phase), note: kept.latest()!.note });
   }
 
   function chooseUnit(id: string) {
     // Keep the quantity, not the digits: 1.2e-5 Torr becomes 1.6e-5 mbar.
     const old = unit!;
     const next = type!.units.find((u) => u.id === id)!;
-    const typed = parseNumber(latest.current!.text);
-    const text = typed === null ? latest.current!.text : formatNumber(fromBase(next, toBase(old, typed)), 6);
+    const typed = parseNumber(kept.latest()!.text);
+    const text = typed === null ? kept.latest()!.text : formatNumber(fromBase(next, toBase(old, typed)), 6);
     update({ unitId: id, text });
   }
 
   async function save(e: Event) {
     e.preventDefault();
     setProblem(null);
-    const d = latest.current!;
+    const d = kept.latest()!;
     const r = checkEntry(type!, d.text, d.unitId, d.context);
     if (!r.ok) {
       setErrors(r.errors);
@@ -129,10 +124,7 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
       const next = { ...blank(type!, instrument, d.phase) };
       // Keep context that usually repeats (gauge gas, reference ion), clear the value and note.
       next.context = { ...d.context };
-      latest.current = next;
-      setDraft(next);
-      await store.putDraft(draftKey, next).catch(() => undefined);
-      markSaved(draftKey);
+      await kept.replace(next);
       setErrors({});
       notify(`Saved: ${type!.label}, ${saved.verdict ? `${verdictWords[saved.verdict].symbol} ${verdictWords[saved.verdict].word}` : 'not judged'}.`);
       props.onSaved();
@@ -152,6 +144,7 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
   return (
     <form class="form card" onSubmit={save} noValidate data-testid="reading-form">
       <h2 class="card-title">Add a reading</h2>
+      <DraftProblem problem={kept.problem} />
       <div class="field">
         <label for="reading-type">Reading</label>
         <select id="reading-type" value={type.id} onChange={(ev) => chooseType((ev.target as HTMLSelectElement).value)}>
@@ -194,13 +187,13 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
             {f.label}{f.key === 'setpoint' ? <span class="unit"> ({unit.label})</span> : f.unit ? <span class="unit"> ({f.unit})</span> : null}
           </label>
           {f.kind === 'choice' ? (
-            <select id={`reading-${f.key}`} value={draft.context[f.key] ?? ''} onChange={(ev) => update({ context: { ...latest.current!.context, [f.key]: (ev.target as HTMLSelectElement).value } })}>
+            <select id={`reading-${f.key}`} value={draft.context[f.key] ?? ''} onChange={(ev) => update({ context: { ...kept.latest()!.context, [f.key]: (ev.target as HTMLSelectElement).value } })}>
               {f.choices!.map((c) => <option key={c.value} value={c.value}>{c.label}</option>)}
             </select>
           ) : (
             <input id={`reading-${f.key}`} type="text" inputMode={f.kind === 'number' ? 'decimal' : 'text'} autoComplete="off"
               value={draft.context[f.key] ?? ''} aria-invalid={errors[f.key] ? 'true' : 'false'}
-              onInput={(ev) => update({ context: { ...latest.current!.context, [f.key]: (ev.target as HTMLInputElement).value } })} />
+              onInput={(ev) => update({ context: { ...kept.latest()!.context, [f.key]: (ev.target as HTMLInputElement).value } })} />
           )}
           {f.help && <p class="hint">{f.help}</p>}
           {errors[f.key] && <p class="field-error" role="alert">{errors[f.key]}</p>}

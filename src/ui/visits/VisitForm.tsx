@@ -1,9 +1,10 @@
 // The visit form: every keystroke is kept as a draft, so a reload or a crash never loses what was typed.
-import { useEffect, useRef, useState } from 'preact/hooks';
+import { useState } from 'preact/hooks';
 import { draftFromVisit, emptyVisitDraft, validateVisitDraft, visitReasons, LIMITS, type Visit, type VisitDraft } from '../../store';
 import { useApp } from '../context';
 import { SelectField } from '../components/Field';
-import { markSaved, markUnsaved } from '../offline';
+import { DraftProblem } from '../components/DraftProblem';
+import { useDraft } from '../components/useDraft';
 import { navigate } from '../router';
 import { errorText, toLocalInput } from './files';
 
@@ -13,48 +14,32 @@ export function VisitForm(props: { visit?: Visit; instrumentId: string }) {
   const { store, notify } = useApp();
   const existing = props.visit;
   const draftKey = `visit-form:${existing?.id ?? `new:${props.instrumentId}`}`;
-  const [draft, setDraft] = useState<VisitDraft | null>(null);
   const [errors, setErrors] = useState<Errors>({});
   const [problem, setProblem] = useState<string | null>(null);
-  const [restored, setRestored] = useState(false);
-  const latest = useRef<VisitDraft | null>(null);
-  latest.current = draft;
-
-  useEffect(() => {
-    if (!store || draft) return;
-    const fresh = (): VisitDraft => {
-      if (existing) return { ...draftFromVisit(existing), startedAt: toLocalInput(existing.startedAt) };
-      return { ...emptyVisitDraft(props.instrumentId), startedAt: toLocalInput(new Date().toISOString()) };
-    };
-    void store.getDraft<VisitDraft>(draftKey).then((kept) => {
-      if (kept) {
-        setDraft(kept);
-        setRestored(true);
-        markUnsaved(draftKey, 'the visit form');
-      } else setDraft(fresh());
-    }).catch(() => setDraft(fresh()));
-  }, [store, draftKey, draft, existing, props.instrumentId]);
-
-  useEffect(() => () => markSaved(draftKey), [draftKey]);
+  const kept = useDraft<VisitDraft>({
+    key: draftKey,
+    what: 'the visit form',
+    initial: () => existing
+      ? { ...draftFromVisit(existing), startedAt: toLocalInput(existing.startedAt) }
+      : { ...emptyVisitDraft(props.instrumentId), startedAt: toLocalInput(new Date().toISOString()) },
+  });
+  const draft = kept.value;
+  const restored = kept.restored;
 
   if (!draft) return <p>Loading…</p>;
 
   function update(patch: Partial<VisitDraft>) {
-    const next = { ...latest.current!, ...patch };
-    latest.current = next;
-    setDraft(next);
-    markUnsaved(draftKey, 'the visit form');
+    const next = kept.update(patch);
     if (Object.keys(errors).length) {
       const r = validateVisitDraft(next);
       setErrors(r.ok ? {} : Object.fromEntries(Object.entries(r.errors).filter(([k]) => k in errors)));
     }
-    void store?.putDraft(draftKey, next).catch(() => undefined);
   }
 
   async function save(e: Event) {
     e.preventDefault();
     setProblem(null);
-    const r = validateVisitDraft(latest.current!);
+    const r = validateVisitDraft(kept.latest()!);
     if (!r.ok) {
       setErrors(r.errors);
       document.getElementById(`visit-${Object.keys(r.errors)[0]}`)?.focus();
@@ -67,9 +52,12 @@ export function VisitForm(props: { visit?: Visit; instrumentId: string }) {
     }
     try {
       const saved = await store.saveVisit(r.fields, existing?.id);
-      await store.clearDraft(draftKey).catch(() => undefined);
-      markSaved(draftKey);
-      if (!existing) await store.setCurrentVisit(saved.instrumentId, saved.id).catch(() => undefined);
+      await kept.clear();
+      if (!existing) {
+        // The visit is saved either way; only "Note this" would not know it is the open one. Say so.
+        await store.setCurrentVisit(saved.instrumentId, saved.id).catch((err: unknown) =>
+          notify(`Visit created, but it could not be made the open visit: ${errorText(err)}`));
+      }
       notify(existing ? 'Visit saved.' : 'Visit created: add readings below.');
       navigate(`/visits/${encodeURIComponent(saved.id)}`, { replace: !existing });
     } catch (err) {
@@ -78,8 +66,7 @@ export function VisitForm(props: { visit?: Visit; instrumentId: string }) {
   }
 
   async function discard() {
-    await store?.clearDraft(draftKey).catch(() => undefined);
-    markSaved(draftKey);
+    await kept.clear();
     navigate(existing ? `/visits/${encodeURIComponent(existing.id)}` : '/visits');
   }
 
@@ -101,6 +88,7 @@ export function VisitForm(props: { visit?: Visit; instrumentId: string }) {
   return (
     <form class="form" onSubmit={save} noValidate data-testid="visit-form">
       {restored && <p class="notice">Restored the input you had not saved yet.</p>}
+      <DraftProblem problem={kept.problem} />
       <div class={errors.startedAt ? 'field has-error' : 'field'}>
         <label for="visit-startedAt">Started</label>
         <input id="visit-startedAt" type="datetime-local" value={draft.startedAt} aria-invalid={errors.startedAt ? 'true' : 'false'}

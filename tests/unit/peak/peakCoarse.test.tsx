@@ -11,7 +11,8 @@ import { buildPeakRun, peakDefaults } from '../../../src/ui/peak/peakInputs';
 import { SimClient, type WorkerLike } from '../../../src/worker/client';
 import { runRequest, type SimRequest, type SimResponse } from '../../../src/worker/simProtocol';
 import { formatNumber } from '../../../src/ui/format';
-import { demo, mount, settle, texts, type Harness } from '../ui/appHarness';
+import { demo, mount, texts, type Harness } from '../ui/appHarness';
+import { waitFor } from '../waitFor';
 
 vi.mock('../../../src/ui/components/Chart', () => ({
   Chart: (props: { data: number[][]; testId?: string; label: string }) => (
@@ -51,16 +52,6 @@ afterEach(() => {
   h = null;
 });
 
-async function waitFor(condition: () => boolean, what: string): Promise<void> {
-  for (let i = 0; i < 200; i++) {
-    if (condition()) return;
-    await act(async () => {
-      await new Promise((r) => setTimeout(r, 10));
-    });
-  }
-  throw new Error(`timed out waiting for ${what}`);
-}
-
 const kept = { mz: '100', resolution: '200', axialVoltage: '20' };
 
 describe('worker: coarse then refined', () => {
@@ -94,7 +85,7 @@ describe('PeakSimulation: coarse → refined', () => {
     await waitFor(() => workers.length === 1 && workers[0].outbox.length > 0, 'the first run');
     const worker = workers[0];
     const partial = worker.deliverThrough('partial') as Extract<SimResponse, { type: 'partial' }>;
-    await settle();
+    await waitFor(() => h!.root.querySelector('[data-testid="peak-coarse"]'), 'the coarse label');
     const coarse = partial.result as PeakProfile;
     const label = h.root.querySelector('[data-testid="peak-coarse"]');
     expect(label?.textContent).toMatch(/coarse — refining…/);
@@ -105,7 +96,7 @@ describe('PeakSimulation: coarse → refined', () => {
     expect(h.root.textContent).toMatch(/≤ 1 % of the peak height/);
 
     const final = worker.deliverThrough('result') as Extract<SimResponse, { type: 'result' }>;
-    await settle();
+    await waitFor(() => !h!.root.querySelector('[data-testid="peak-coarse"]'), 'the refined profile to replace the coarse one');
     const refined = final.result as PeakProfile;
     expect(h.root.querySelector('[data-testid="peak-coarse"]')).toBeNull();
     expect(h.root.querySelector('[data-testid="peak-result"]')?.getAttribute('aria-busy')).toBe('false');
@@ -126,17 +117,17 @@ describe('PeakSimulation: coarse → refined', () => {
     await waitFor(() => workers.length === 1 && workers[0].outbox.length > 0, 'the first run');
     // The run has started reporting progress …
     workers[0].deliverThrough('progress');
-    await settle();
+    await waitFor(() => h!.root.querySelector('progress[aria-label="Simulation progress"]'), 'the run’s progress on screen');
     // … so a slider move does not kill it before its coarse profile.
     const slider = h.root.querySelector<HTMLInputElement>('#peak-beam-slider')!;
     await act(async () => {
       slider.value = '0.3';
       slider.dispatchEvent(new Event('input', { bubbles: true }));
     });
-    await settle();
+    await waitFor(() => /beam 0\.3 mm/.test(h!.root.textContent ?? ''), 'the moved slider in the settings line');
     expect(workers[0].terminated).toBe(false);
     workers[0].deliverThrough('partial');
-    await settle();
+    await waitFor(() => workers[0].terminated, 'the older run to end once its coarse profile landed');
     // Coarse drawn, and the newer inputs start at once (the old run's refinement is dropped).
     expect(workers[0].terminated).toBe(true);
     expect(h.root.querySelector('[data-testid="peak-chart"]')).not.toBeNull();
@@ -145,12 +136,12 @@ describe('PeakSimulation: coarse → refined', () => {
     expect(workers[1].requests[0].params).toEqual(run.params);
     // While refining, a move cancels at once.
     workers[1].deliverThrough('partial');
-    await settle();
+    await waitFor(() => h!.root.querySelector('[data-testid="peak-coarse"]'), 'the newer run’s coarse profile');
     await act(async () => {
       slider.value = '0.32';
       slider.dispatchEvent(new Event('input', { bubbles: true }));
     });
-    await settle();
+    await waitFor(() => workers[1].terminated, 'the refining run to be cancelled');
     expect(workers[1].terminated).toBe(true);
   });
 });

@@ -9,7 +9,7 @@ import { buildPeakRun, peakDefaults } from '../../../src/ui/peak/peakInputs';
 import { SimClient, type WorkerLike } from '../../../src/worker/client';
 import { runRequest, type SimRequest, type SimResponse } from '../../../src/worker/simProtocol';
 import { formatNumber } from '../../../src/ui/format';
-import { demo, mount, settle, texts, typeInto, type Harness } from '../ui/appHarness';
+import { demo, mount, texts, typeInto, waitFor, type Harness } from '../ui/appHarness';
 
 // uPlot needs a real canvas; the chart wrapper has its own tests upstream. Here a stand-in records the data.
 vi.mock('../../../src/ui/components/Chart', () => ({
@@ -40,16 +40,15 @@ class ManualWorker implements WorkerLike {
 }
 
 let h: Harness | null = null;
-afterEach(() => {
-  h?.unmount();
+afterEach(async () => {
+  await h?.unmount();
   h = null;
 });
 
-async function waitForDebounce(): Promise<void> {
-  await act(async () => {
-    await new Promise((r) => setTimeout(r, 200));
-  });
-}
+const fieldValue = (id: string) => h!.root.querySelector<HTMLInputElement>(`#${id}`)?.value;
+/** The one live worker holding a run request (the screen starts a run once its inputs stop changing). */
+const pendingRun = (workers: ManualWorker[], what: string) =>
+  waitFor(() => workers.find((w) => !w.terminated && w.queue.length > 0), what);
 
 describe('peakInputs.buildPeakRun', () => {
   it('sets U/V from the exact edges (engine ratioForExactResolution), V at the apex for the m/z, window around the passBand', () => {
@@ -91,8 +90,9 @@ describe('PeakSimulation', () => {
     const k = demo('kestrel');
     // A short, fast case: low resolution, high ion energy.
     h = await mount(<PeakSimulation client={client} curveClient={unusedCurve} />, k, { [`inputs:peak:${k.id}`]: { mz: '100', resolution: '200', axialVoltage: '20' } });
-    await waitForDebounce();
-    expect(workers.length).toBe(1);
+    await waitFor(() => fieldValue('peak-mz') === '100' && fieldValue('peak-resolution') === '200', 'the kept inputs on screen');
+    const first = await pendingRun(workers, 'the first peak run to reach its worker');
+    expect(workers.filter((w) => !w.terminated)).toEqual([first]);
     expect(h.root.querySelector('progress')).not.toBeNull();
     // Move the beam-radius slider while the first run is still pending: the first worker is terminated.
     const slider = h.root.querySelector<HTMLInputElement>('#peak-beam-slider')!;
@@ -100,15 +100,14 @@ describe('PeakSimulation', () => {
       slider.value = '0.3';
       slider.dispatchEvent(new Event('input', { bubbles: true }));
     });
-    await settle();
-    expect(workers[0].terminated).toBe(true);
-    await waitForDebounce();
-    expect(workers.length).toBe(2);
-    await act(async () => workers[1].flush());
-    await settle();
+    expect(first.terminated).toBe(true);
+    const second = await pendingRun(workers, 'the run for the moved slider');
+    expect(workers.filter((w) => !w.terminated)).toEqual([second]);
+    await act(async () => second.flush());
     const run = buildPeakRun({ ...peakDefaults(k), mz: '100', resolution: '200', axialVoltage: '20', beamRadiusMm: '0.3' }, k, {})!;
     const expected = peakProfile(run.params);
     const value = (id: string) => texts(h!.root, `[data-testid="${id}"] .result-value`)[0];
+    await waitFor(() => value('peak-r50') !== undefined, 'the peak results');
     expect(value('peak-r50')).toBe(formatNumber(expected.resolution50, 4));
     expect(value('peak-r10')).toBe(formatNumber(expected.resolution10, 4));
     expect(value('peak-transmission')).toContain(`${formatNumber(100 * expected.peakTransmission, 3)} %`);
@@ -133,21 +132,20 @@ describe('PeakSimulation', () => {
       return w;
     });
     h = await mount(<PeakSimulation client={client} curveClient={curveClient} />, k, { [`inputs:peak:${k.id}`]: { mz: '100', resolution: '200', axialVoltage: '20' } });
-    await waitForDebounce();
-    await act(async () => workers[0].flush());
-    await settle();
-    const button = [...h.root.querySelectorAll('button')].find((b) => b.textContent === 'Compute the curve')!;
+    await waitFor(() => fieldValue('peak-mz') === '100', 'the kept inputs on screen');
+    const first = await pendingRun(workers, 'the first peak run to reach its worker');
+    await act(async () => first.flush());
+    const button = await waitFor(() => [...h!.root.querySelectorAll('button')].find((b) => b.textContent === 'Compute the curve'), 'the “Compute the curve” button');
     await act(async () => button.click());
     expect(h.root.querySelector('[data-testid="peak-curve"] progress')).not.toBeNull();
     // The curve has its own worker: changing the resolution restarts the peak worker, not the curve's.
     await typeInto(h.root, 'peak-resolution', '300');
-    await waitForDebounce(); // a peak run is now pending in the peak worker …
+    const pending = await pendingRun(workers, 'a peak run for resolution 300'); // a peak run is now pending in the peak worker …
     await typeInto(h.root, 'peak-resolution', '400'); // … and is cancelled by the next edit
-    expect(workers[0].terminated).toBe(true);
+    expect(pending.terminated).toBe(true);
     expect(curveWorkers[0].terminated).toBe(false);
     await act(async () => curveWorkers[0].flush());
-    await settle();
-    const chart = h.root.querySelector('[data-testid="peak-curve-chart"]');
+    const chart = await waitFor(() => h!.root.querySelector('[data-testid="peak-curve-chart"]'), 'the curve chart');
     expect(chart).not.toBeNull();
     expect(Number(chart!.getAttribute('data-points'))).toBeGreaterThanOrEqual(8);
   });
@@ -160,12 +158,24 @@ describe('PeakSimulation', () => {
       return w;
     });
     h = await mount(<PeakSimulation client={client} />, demo('kestrel'));
-    await typeInto(h.root, 'peak-transverse', 'lots');
-    await waitForDebounce();
-    const before = workers.length;
-    expect(texts(h.root, '.field-error').join(' ')).toMatch(/Transverse energy/);
-    await typeInto(h.root, 'peak-axial', '0');
-    await waitForDebounce();
-    expect(workers.length).toBe(before);
+    // "No run starts" is about time passing: the timers are faked (the store's callbacks still run).
+    vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout'] });
+    try {
+      await typeInto(h.root, 'peak-transverse', 'lots');
+      await act(async () => { vi.advanceTimersByTime(60_000); });
+      const before = workers.filter((w) => w.queue.length > 0 && !w.terminated).length;
+      expect(before).toBe(0);
+      expect(texts(h.root, '.field-error').join(' ')).toMatch(/Transverse energy/);
+      await typeInto(h.root, 'peak-axial', '0');
+      await act(async () => { vi.advanceTimersByTime(60_000); });
+      expect(workers.filter((w) => w.queue.length > 0 && !w.terminated)).toHaveLength(0);
+      // A good value again: once the inputs rest, the run starts.
+      await typeInto(h.root, 'peak-transverse', '0.5');
+      await typeInto(h.root, 'peak-axial', '20');
+      await act(async () => { vi.advanceTimersByTime(60_000); });
+      expect(workers.filter((w) => w.queue.length > 0 && !w.terminated)).toHaveLength(1);
+    } finally {
+      vi.useRealTimers();
+    }
   });
 });

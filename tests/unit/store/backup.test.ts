@@ -1,7 +1,7 @@
 import 'fake-indexeddb/auto';
 import fc from 'fast-check';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { BACKUP_FORMAT, canonicalJson, openStore, sha256Hex, type Store } from '../../../src/store';
+import { BACKUP_FORMAT, canonicalJson, eraseStore, openStore, sha256Hex, type Store } from '../../../src/store';
 import { sha256Fallback } from '../../../src/store/sha256';
 import { dump, freshName, registerCleanup, testEngine } from './helpers';
 
@@ -186,11 +186,16 @@ describe('random corruptions (fast-check)', () => {
     }, m.fix);
   }
 
-  it('every corruption is either refused with the database unchanged, or accepted consistently', async () => {
+  // `npm test` runs a small count; `npm run test:soak` sets RODSIDE_FUZZ_RUNS=10000 (the long form).
+  const fuzzRuns = Number(process.env.RODSIDE_FUZZ_RUNS ?? 120);
+  if (!Number.isInteger(fuzzRuns) || fuzzRuns < 1) throw new Error(`RODSIDE_FUZZ_RUNS must be a whole number ≥ 1, not “${process.env.RODSIDE_FUZZ_RUNS}”`);
+  it(`every corruption is either refused with the database byte-identical, or accepted consistently (${fuzzRuns} cases)`, async () => {
     let refused = 0, accepted = 0;
     await fc.assert(
       fc.asyncProperty(mutation, fc.boolean(), async (m, prefilled) => {
-        const s = await openStore(freshName());
+        // One database per case, deleted at once: ten thousand cases must not pile up in memory.
+        const name = `rodside-fuzz-${Date.now()}-${Math.random().toString(36).slice(2, 8)}`;
+        const s = await openStore(name);
         try {
           if (prefilled) await s.importBackup(backup);
           const before = await dump(s);
@@ -202,7 +207,8 @@ describe('random corruptions (fast-check)', () => {
             refused++;
             expect(err).toBeInstanceOf(Error);
             expect((err as Error).message.length).toBeGreaterThan(10);
-            expect(canonicalJson(await dump(s))).toBe(canonicalJson(before));
+            // Byte for byte: the same records, in the same order, with the same key order.
+            expect(JSON.stringify(await dump(s))).toBe(JSON.stringify(before));
             return;
           }
           accepted++;
@@ -220,11 +226,13 @@ describe('random corruptions (fast-check)', () => {
           expect(await s.importBackup(text)).toEqual({ added: 0, updated: 0, unchanged: total });
         } finally {
           s.close();
+          await eraseStore(name);
         }
       }),
-      { numRuns: 120, seed: 20261201 },
+      { numRuns: fuzzRuns, seed: Number(process.env.RODSIDE_FUZZ_SEED ?? 20261201) },
     );
     expect(refused).toBeGreaterThan(0);
     expect(accepted).toBeGreaterThan(0);
-  });
+    console.log(`import fuzz: ${fuzzRuns} cases, ${refused} refused with the database byte-identical, ${accepted} accepted consistently`);
+  }, 60_000 + fuzzRuns * 200);
 });

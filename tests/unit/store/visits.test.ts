@@ -1,5 +1,5 @@
 import 'fake-indexeddb/auto';
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import {
   backupReminder, checkEntry, catalogueType, csvCell, demoInstruments, demoVisits, emptyOwnTypeDraft, emptyVisitDraft, openStore,
   validateDraft, emptyDraft, validateVisitDraft, type Store, type VisitFields,
@@ -7,6 +7,9 @@ import {
 import { freshName, registerCleanup, testEngine } from './helpers';
 
 registerCleanup();
+afterEach(() => {
+  vi.useRealTimers();
+});
 
 async function storeWithInstrument(): Promise<{ store: Store; instrumentId: string }> {
   const store = await openStore(freshName(), {}, { engine: testEngine });
@@ -62,9 +65,11 @@ describe('visits and readings', () => {
 
   it('commits a reading and its visit update in one transaction, and judges it', async () => {
     const { store, instrumentId } = await storeWithInstrument();
+    // The update time is the subject: the clock is set, not slept on.
+    vi.useFakeTimers({ toFake: ['Date'] });
     const v = await store.saveVisit(visitFields(instrumentId));
     const before = (await store.getVisit(v.id))!.updatedAt;
-    await new Promise((r) => setTimeout(r, 5));
+    vi.setSystemTime(Date.now() + 1000);
     const r = await addTyped(store, v.id, 'rf-amplitude', 'as-found', '201.8', 'Vpp-rod', { mz: '69' });
     expect(r.value).toBeCloseTo(100.9, 10);
     expect(r.context).toMatchObject({ mz: 69, convention: 'V peak-to-peak, one rod to ground' });
@@ -118,8 +123,9 @@ describe('visits and readings', () => {
   it('keeps diagnosis walks by visit and finds the latest one in progress', async () => {
     const { store, instrumentId } = await storeWithInstrument();
     const v = await store.saveVisit(visitFields(instrumentId));
+    vi.useFakeTimers({ toFake: ['Date'] });
     const w1 = await store.saveWalk({ visitId: v.id, instrumentId, treeId: 'no-signal', state: { at: 'T0' }, status: 'in-progress' });
-    await new Promise((r) => setTimeout(r, 5));
+    vi.setSystemTime(Date.now() + 1000);
     const w2 = await store.saveWalk({ visitId: v.id, instrumentId, treeId: 'vacuum', state: { at: 'VF-1', answers: [1, 2] }, status: 'in-progress' });
     expect((await store.listWalks(v.id)).map((w) => w.id)).toEqual([w1.id, w2.id]);
     expect((await store.latestInProgressWalk({ visitId: v.id }))?.id).toBe(w2.id);

@@ -1,17 +1,26 @@
-// Renders a screen inside the app context with a demo instrument and an in-memory stand-in for the store's
-// settings (and the visit log's noteReading), so component tests see the same inputs path as the app.
+// Renders a screen inside the app context with a demo instrument and the real store on fake-indexeddb (a fresh
+// database per mount, closed and deleted by unmount), so component tests see the same inputs path as the app.
+import 'fake-indexeddb/auto';
 import { render, type ComponentChildren } from 'preact';
 import { act } from 'preact/test-utils';
+import { vi } from 'vitest';
 import { AppContext, type AppContextValue } from '../../../src/ui/context';
 import { demoInstruments } from '../../../src/store/demo';
-import type { InstrumentProfile, Store } from '../../../src/store';
+import { eraseStore, openStore, type InstrumentProfile, type Store } from '../../../src/store';
+import { freshName } from '../store/helpers';
+import { waitFor } from '../waitFor';
+
+export { waitFor };
 
 export interface Harness {
   root: HTMLElement;
-  settings: Map<string, unknown>;
+  store: Store;
+  /** What screens handed to the store's noteReading (the real method still runs). */
   notes: unknown[];
   messages: string[];
-  unmount(): void;
+  /** Wait until the store holds a setting that satisfies `check`, and return it. */
+  setting<T = unknown>(key: string, check?: (value: T | undefined) => boolean): Promise<T | undefined>;
+  unmount(): Promise<void>;
 }
 
 export function demo(id: 'kestrel' | 'heron' | 'wren'): InstrumentProfile {
@@ -20,19 +29,22 @@ export function demo(id: 'kestrel' | 'heron' | 'wren'): InstrumentProfile {
   return p;
 }
 
-export async function mount(children: ComponentChildren, instrument: InstrumentProfile, kept: Record<string, unknown> = {}, realStore?: Store): Promise<Harness> {
-  const settings = new Map<string, unknown>(Object.entries(kept));
+/**
+ * Mount `children` with `instrument` selected. `kept` settings are written to the store first. With `given`,
+ * that store is used (and left open); otherwise a fresh database holding the three demo profiles.
+ */
+export async function mount(children: ComponentChildren, instrument: InstrumentProfile, kept: Record<string, unknown> = {}, given?: Store): Promise<Harness> {
+  const name = given ? null : freshName();
+  const store = given ?? (await openStore(name!));
+  if (!given) for (const p of demoInstruments) await store.restoreInstrument(p);
+  for (const [key, value] of Object.entries(kept)) await store.setSetting(key, value);
   const notes: unknown[] = [];
   const messages: string[] = [];
-  const store = realStore ?? ({
-    name: 'test',
-    getSetting: async (key: string) => settings.get(key),
-    setSetting: async (key: string, value: unknown) => void settings.set(key, value),
-    noteReading: async (_i: InstrumentProfile, n: unknown) => {
-      notes.push(n);
-      return { visitLabel: 'the test visit' };
-    },
-  } as unknown as Store);
+  const real = store.noteReading.bind(store);
+  const spy = vi.spyOn(store, 'noteReading').mockImplementation(async (i, n) => {
+    notes.push(n);
+    return real(i, n);
+  });
   const ctx: AppContextValue = {
     store,
     storeProblem: null,
@@ -47,19 +59,26 @@ export async function mount(children: ComponentChildren, instrument: InstrumentP
   await act(async () => {
     render(<AppContext.Provider value={ctx}>{children}</AppContext.Provider>, root);
   });
-  await settle();
-  return { root, settings, notes, messages, unmount: () => { render(null, root); root.remove(); } };
+  return {
+    root, store, notes, messages,
+    setting: <T,>(key: string, check: (value: T | undefined) => boolean = (v) => v !== undefined) =>
+      waitFor(async () => {
+        const v = await store.getSetting<T>(key);
+        return check(v) ? { v } : null;
+      }, `the setting ${key}`).then((r) => r!.v),
+    unmount: async () => {
+      render(null, root);
+      root.remove();
+      spy.mockRestore();
+      if (name) {
+        store.close();
+        await eraseStore(name);
+      }
+    },
+  };
 }
 
-export async function settle(): Promise<void> {
-  for (let i = 0; i < 3; i++) {
-    await act(async () => {
-      await new Promise((r) => setTimeout(r, 0));
-    });
-  }
-}
-
-/** Type into the input labelled `label` (exact label text start), firing an input event. */
+/** Type into the field with id `id`, firing an input (or, for a select, change) event. */
 export async function typeInto(root: HTMLElement, id: string, text: string): Promise<void> {
   const el = root.querySelector<HTMLInputElement | HTMLSelectElement>(`#${CSS.escape(id)}`);
   if (!el) throw new Error(`no field #${id}`);
@@ -67,7 +86,6 @@ export async function typeInto(root: HTMLElement, id: string, text: string): Pro
     el.value = text;
     el.dispatchEvent(new Event(el instanceof HTMLSelectElement ? 'change' : 'input', { bubbles: true }));
   });
-  await settle();
 }
 
 export function texts(root: ParentNode, selector: string): string[] {

@@ -1,18 +1,19 @@
 // @vitest-environment happy-dom
 import 'fake-indexeddb/auto';
 import { afterEach, describe, expect, it } from 'vitest';
-import { openStore } from '../../../src/store';
+import { eraseStore, openStore } from '../../../src/store';
+import { freshName } from '../store/helpers';
 import { act } from 'preact/test-utils';
 import {
   constantWidthScanLine, convertRf, dcForMass, hazardousLive, massForRf, massRangeTop, rfForMass, scanPoint,
 } from '../../../src/engine';
 import { Voltages } from '../../../src/ui/bench/Voltages';
 import { formatNumber } from '../../../src/ui/format';
-import { demo, mount, settle, texts, typeInto, type Harness } from './appHarness';
+import { demo, mount, texts, typeInto, waitFor, type Harness } from './appHarness';
 
 let h: Harness | null = null;
-afterEach(() => {
-  h?.unmount();
+afterEach(async () => {
+  await h?.unmount();
   h = null;
 });
 
@@ -88,7 +89,8 @@ describe('Bench · expected voltages (Kestrel: r0 4.5 mm, 1 MHz, read-backs 0-p 
     expect(value(card(h.root, 69), 'rf-readback')).toBe(`${formatNumber(sp.rf, 5)} V 0-p`);
     expect(value(card(h.root, 69), 'dc-readback')).toBe(`${formatNumber(sp.dc, 5)} V DC`);
     // Inputs are kept per profile and screen.
-    expect(h.settings.get(`inputs:bench:${k.id}`)).toMatchObject({ mode: 'constant-width', width: '0.7' });
+    const kept = await h.setting<Record<string, string>>(`inputs:bench:${k.id}`, (v) => v?.width === '0.7');
+    expect(kept).toMatchObject({ mode: 'constant-width', width: '0.7' });
   });
 
   it('bad input shows a message beside the field: not a number, and the engine’s range message', async () => {
@@ -130,32 +132,40 @@ describe('Bench · expected voltages (Kestrel: r0 4.5 mm, 1 MHz, read-backs 0-p 
     h = await mount(<Voltages />, demo('kestrel'));
     const btn = card(h.root, 69).querySelector<HTMLButtonElement>('[data-testid="rf-readback"] button')!;
     await act(async () => btn.click());
-    await settle();
+    await waitFor(() => h!.messages.length > 0, 'the “Noted in …” message');
     expect(h.notes[0]).toMatchObject({ label: expect.stringContaining('m/z 69'), unit: 'V0p-rod', typeId: 'rf-amplitude', origin: 'calculator', context: { mz: 69 } });
     expect((h.notes[0] as { value: number }).value).toBeCloseTo(100.9055, 3);
-    expect(h.messages).toEqual(['Noted in the test visit.']);
+    expect(h.messages).toEqual([expect.stringMatching(/^Noted in the visit of \d{4}-\d{2}-\d{2}\.$/)]);
+    const readings = await h.store.listInstrumentReadings(demo('kestrel').id, 'rf-amplitude');
+    expect(readings).toHaveLength(1);
+    expect(readings[0].value).toBeCloseTo(100.9055, 3);
   });
 
   it('with the real store, a noted expected RF becomes a typed RF reading at m/z 69 in the current visit', async () => {
-    const store = await openStore(`bench-note-${Date.now()}`);
+    const name = freshName();
+    const store = await openStore(name);
     await store.loadDemo();
     const k = demo('kestrel');
     h = await mount(<Voltages />, k, {}, store);
     const btn = card(h.root, 69).querySelector<HTMLButtonElement>('[data-testid="dc-readback"] button')!;
     await act(async () => btn.click());
-    for (let i = 0; i < 20 && h.messages.length === 0; i++) await settle();
+    await waitFor(() => h!.messages.length > 0, 'the “Noted in …” message');
     expect(h.messages[0]).toMatch(/^Noted in the visit of \d{4}-\d{2}-\d{2}\.$/);
     const visits = await store.listVisits(k.id);
     const readings = await store.listReadings(visits[0].id);
     const dc = readings.find((r) => r.typeId === 'dc-amplitude' && r.origin === 'calculator');
     expect(dc?.context?.mz).toBe(69);
     expect(dc!.value).toBeCloseTo(dcForMass({ mz: 69, r0: k.rodFieldRadius, frequency: k.rfFrequency }), 9);
+    await h.unmount();
+    h = null;
     store.close();
+    await eraseStore(name);
   });
 
   it('restores the inputs kept for this profile', async () => {
     const k = demo('kestrel');
     h = await mount(<Voltages />, k, { [`inputs:bench:${k.id}`]: { mzList: '131' } });
-    expect(texts(h.root, '[data-testid="expected-card"] h3')[0]).toMatch(/m\/z 131/);
+    await waitFor(() => /m\/z 131/.test(texts(h!.root, '[data-testid="expected-card"] h3')[0] ?? ''), 'the kept m/z 131 card');
+    expect(texts(h.root, '[data-testid="expected-card"] h3')).toHaveLength(1);
   });
 });

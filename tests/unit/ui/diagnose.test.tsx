@@ -1,58 +1,71 @@
 // @vitest-environment happy-dom
+import 'fake-indexeddb/auto';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { render } from 'preact';
 import { act } from 'preact/test-utils';
 import { AppContext, type AppContextValue } from '../../../src/ui/context';
-import { DiagnoseScreen, type WalkDraft } from '../../../src/ui/screens/DiagnoseScreen';
+import { DiagnoseScreen, LEAK_DRAFT_KEY, type WalkDraft } from '../../../src/ui/screens/DiagnoseScreen';
 import { parseNumber } from '../../../src/ui/screens/diagnose/parse';
 import { answer, start, treeById } from '../../../src/diagnose';
-import { demoInstruments, type Store, type WalkRecord } from '../../../src/store';
+import { StoreError, demoInstruments, eraseStore, openStore, type Store, type WalkRecord } from '../../../src/store';
+import { freshName } from '../store/helpers';
+import { waitFor } from '../waitFor';
 
 interface Saved { id?: string; status: string; state: unknown; treeId: string; instrumentId?: string }
 
-function fakeStore(opts: { latest?: WalkRecord; failSave?: boolean } = {}) {
+let open: { store: Store; name: string } | null = null;
+
+/** The real store on fake-indexeddb, with every saveWalk call recorded (the real method still runs). */
+async function realStore(opts: { latest?: Omit<WalkRecord, 'id' | 'startedAt' | 'updatedAt'>; failSave?: boolean } = {}) {
+  const name = freshName();
+  const store = await openStore(name);
+  for (const p of demoInstruments) await store.restoreInstrument(p);
+  open = { store, name };
+  const latest = opts.latest ? await store.saveWalk(opts.latest) : undefined;
   const saves: Saved[] = [];
-  let n = 0;
-  const store = {
-    getDraft: async () => undefined,
-    putDraft: async () => undefined,
-    clearDraft: async () => undefined,
-    latestInProgressWalk: async () => opts.latest,
-    saveWalk: async (w: Saved) => {
-      if (opts.failSave) throw Object.assign(new Error('quota'), { userMessage: 'The device is full: the walk could not be kept.' });
-      saves.push(JSON.parse(JSON.stringify(w)));
-      return { ...w, id: w.id ?? `walk-${++n}`, startedAt: 'x', updatedAt: 'x' };
-    },
-  } as unknown as Store;
-  return { store, saves };
+  const real = store.saveWalk.bind(store);
+  vi.spyOn(store, 'saveWalk').mockImplementation(async (w) => {
+    if (opts.failSave) throw new StoreError('The device is full: the walk could not be kept.');
+    saves.push(JSON.parse(JSON.stringify(w)));
+    return real(w);
+  });
+  const walks = () => store.db.getAll('walks');
+  return { store, saves, latest, walks };
 }
 
-function mount(store: Store, notify = vi.fn()): HTMLElement {
-  history.pushState(null, '', '/diagnose');
+async function mount(store: Store, notify = vi.fn(), path = '/diagnose'): Promise<HTMLElement> {
+  history.pushState(null, '', path);
   const host = document.createElement('div');
   document.body.appendChild(host);
   const ctx: AppContextValue = {
-    store, storeProblem: null, instruments: [...demoInstruments], instrument: demoInstruments[0],
+    store, storeProblem: null, instruments: [...demoInstruments], instrument: path === '/diagnose' ? demoInstruments[0] : null,
     selectInstrument: () => undefined, reloadInstruments: async () => undefined, notify,
   };
-  render(<AppContext.Provider value={ctx}><DiagnoseScreen /></AppContext.Provider>, host);
+  await act(async () => { render(<AppContext.Provider value={ctx}><DiagnoseScreen /></AppContext.Provider>, host); });
   return host;
 }
 
-async function settle() {
-  for (let i = 0; i < 8; i++) await act(async () => { await new Promise((r) => setTimeout(r, 0)); });
-}
+const saveState = (host: HTMLElement) => host.querySelector('[data-testid="save-state"]')?.textContent ?? '';
+/** The walk is on screen and every save asked for so far has landed. */
+const kept = (host: HTMLElement) => waitFor(() => /✓ kept on this device/.test(saveState(host)), 'the walk to be kept');
 
 function button(host: HTMLElement, text: string | RegExp): HTMLButtonElement {
   const b = [...host.querySelectorAll('button')].find((x) => (typeof text === 'string' ? x.textContent?.includes(text) : text.test(x.textContent ?? '')));
-  if (!b) throw new Error(`no button ${text}; have: ${[...host.querySelectorAll('button')].map((x) => x.textContent).join(' | ')}`);
+  if (!b) throw new Error(`no button ${text}; text: ${host.textContent?.slice(0, 200)}; have: ${[...host.querySelectorAll('button')].map((x) => x.textContent).join(' | ')}`);
   return b as HTMLButtonElement;
 }
 
 const nodeOf = (host: HTMLElement) => host.querySelector('[data-testid="walk-node"]')?.getAttribute('data-node-id');
 
-afterEach(() => {
+afterEach(async () => {
+  for (const host of document.body.children) render(null, host);
   document.body.innerHTML = '';
+  vi.restoreAllMocks();
+  if (open) {
+    open.store.close();
+    await eraseStore(open.name);
+    open = null;
+  }
 });
 
 describe('parseNumber', () => {
@@ -71,30 +84,33 @@ describe('parseNumber', () => {
 
 describe('DiagnoseScreen', () => {
   it('starts a walk and keeps every step in one walk record, in order', async () => {
-    const { store, saves } = fakeStore();
-    const host = mount(store);
-    await settle();
-    await act(async () => button(host, 'Start a walk').click());
-    await settle();
+    const { store, saves, walks } = await realStore();
+    const host = await mount(store);
+    const target = await waitFor(() => button(host, 'Start a walk'), 'the start button');
+    await act(async () => target.click());
+    await kept(host);
     expect(nodeOf(host)).toBe('E1');
-    expect(host.querySelector('[data-testid="save-state"]')?.textContent).toMatch(/✓ kept on this device/);
     expect(saves[0]).toMatchObject({ status: 'in-progress', treeId: 'entry', instrumentId: demoInstruments[0].id });
     expect(saves[0].id).toBeUndefined();
+    const [record] = await walks();
     // Refusing the gate is always possible and leads to the stop leaf.
     await act(async () => button(host, 'I cannot confirm').click());
-    await settle();
-    expect(nodeOf(host)).toBe('E-stop');
-    expect(saves.at(-1)!.id).toBe('walk-1');
+    await waitFor(() => nodeOf(host) === 'E-stop', 'the stop leaf');
+    await kept(host);
+    expect(saves.at(-1)!.id).toBe(record.id);
     expect(saves.filter((s) => s.id === undefined)).toHaveLength(1);
+    const all = await walks();
+    expect(all).toHaveLength(1);
+    expect(all[0]).toMatchObject({ id: record.id, state: { walk: { nodeId: 'E-stop' } } });
     expect(host.textContent).toMatch(/Then re-measure and record/);
   });
 
   it('going straight to one symptom still passes the shared safety gate, then says the as-found record was skipped', async () => {
-    const { store, saves } = fakeStore();
-    const host = mount(store);
-    await settle();
-    await act(async () => button(host, treeById('sensitivity').title).click());
-    await settle();
+    const { store, saves, walks } = await realStore();
+    const host = await mount(store);
+    const target = await waitFor(() => button(host, treeById('sensitivity').title), 'the symptom buttons');
+    await act(async () => target.click());
+    await kept(host);
     expect(nodeOf(host)).toBe('E1');
     expect(host.textContent).toContain(`then: ${treeById('sensitivity').title}`);
     expect(saves[0]).toMatchObject({ treeId: 'entry', state: { walk: { direct: 'sensitivity', nodeId: 'E1' } } });
@@ -104,16 +120,17 @@ describe('DiagnoseScreen', () => {
       const box = host.querySelectorAll('input[type="checkbox"]')[i] as HTMLInputElement;
       await act(async () => box.click());
     }
-    await settle();
-    await act(async () => button(host, 'Confirmed — continue').click());
-    await settle();
-    expect(nodeOf(host)).toBe('hand-over');
+    const confirm = await waitFor(() => button(host, 'Confirmed — continue'), 'the confirm button');
+    await act(async () => confirm.click());
+    await waitFor(() => nodeOf(host) === 'hand-over', 'the hand-over node');
     expect(host.querySelector('[data-testid="as-found-skipped"]')?.textContent).toMatch(/as-found record .* is skipped\. It is optional/);
     await act(async () => button(host, `Start “${treeById('sensitivity').title}”`).click());
-    await settle();
-    expect(nodeOf(host)).toBe(treeById('sensitivity').entry);
+    await waitFor(() => nodeOf(host) === treeById('sensitivity').entry, 'the symptom tree entry');
     expect(host.querySelector('[data-testid="as-found-skipped"]')).toBeNull();
-    expect(saves.at(-1)).toMatchObject({ id: 'walk-1', treeId: 'sensitivity' });
+    await kept(host);
+    const all = await walks();
+    expect(all).toHaveLength(1);
+    expect(saves.at(-1)).toMatchObject({ id: all[0].id, treeId: 'sensitivity' });
   });
 
   it('resumes the latest walk in progress at the same step', async () => {
@@ -121,53 +138,43 @@ describe('DiagnoseScreen', () => {
     let walk = start(ns, demoInstruments[0]);
     walk = answer(walk, ns, { kind: 'option', optionId: 'nothing' });
     const state: WalkDraft = { walk, typed: { 'no-signal/NS2': { value: '1.2e-5' } }, finished: false };
-    const latest: WalkRecord = { id: 'walk-7', treeId: 'no-signal', state, status: 'in-progress', startedAt: walk.startedAt, updatedAt: walk.updatedAt };
-    const { store, saves } = fakeStore({ latest });
-    const host = mount(store);
-    await settle();
-    expect(nodeOf(host)).toBe('NS2');
+    const { store, saves, latest } = await realStore({ latest: { treeId: 'no-signal', state, status: 'in-progress', instrumentId: demoInstruments[0].id } });
+    const host = await mount(store);
+    await waitFor(() => nodeOf(host) === 'NS2', 'the resumed step NS2');
     expect(host.querySelector('[data-testid="resumed"]')).not.toBeNull();
     expect((host.querySelector('#walk-value') as HTMLInputElement).value).toBe('1.2e-5');
     await act(async () => button(host, 'Back').click());
-    await settle();
-    expect(nodeOf(host)).toBe('NS1');
-    expect(saves.at(-1)!.id).toBe('walk-7');
+    await waitFor(() => nodeOf(host) === 'NS1', 'the step back to NS1');
+    await kept(host);
+    expect(saves.at(-1)!.id).toBe(latest!.id);
   });
 
   it('keeps an unreadable walk record and says so', async () => {
-    const latest: WalkRecord = { id: 'walk-9', treeId: 'no-signal', state: { something: 'else' }, status: 'in-progress', startedAt: '2026-01-01T00:00:00.000Z', updatedAt: '2026-01-01T00:00:00.000Z' };
-    const { store, saves } = fakeStore({ latest });
-    const host = mount(store);
-    await settle();
-    expect(host.textContent).toMatch(/could not be read here\. It is kept on this device/);
+    const { store, saves, latest, walks } = await realStore({ latest: { treeId: 'no-signal', state: { something: 'else' }, status: 'in-progress' } });
+    const host = await mount(store);
+    await waitFor(() => /could not be read here\. It is kept on this device/.test(host.textContent ?? ''), 'the unreadable-walk notice');
     await act(async () => button(host, 'Start a walk').click());
-    await settle();
+    await kept(host);
     expect(saves[0].id).toBeUndefined();
+    // The unreadable record is still there, beside the new walk.
+    expect((await walks()).map((w) => w.id)).toContain(latest!.id);
   });
 
   it('tells the user when the walk cannot be kept, and keeps walking on screen', async () => {
-    const { store } = fakeStore({ failSave: true });
+    const { store } = await realStore({ failSave: true });
     const notify = vi.fn();
-    const host = mount(store, notify);
-    await settle();
-    await act(async () => button(host, 'Start a walk').click());
-    await settle();
+    const host = await mount(store, notify);
+    const target = await waitFor(() => button(host, 'Start a walk'), 'the start button');
+    await act(async () => target.click());
+    await waitFor(() => /✗ not saved/.test(saveState(host)), 'the “not saved” mark');
     expect(nodeOf(host)).toBe('E1');
     expect(notify).toHaveBeenCalledWith('The device is full: the walk could not be kept.');
-    expect(host.querySelector('[data-testid="save-state"]')?.textContent).toMatch(/✗ not saved/);
   });
 
   it('the leak check panel names a bad height and calls an air leak from good ones', async () => {
-    const { store } = fakeStore();
-    history.pushState(null, '', '/diagnose/leak-check');
-    const host = document.createElement('div');
-    document.body.appendChild(host);
-    const ctx: AppContextValue = {
-      store, storeProblem: null, instruments: [], instrument: null,
-      selectInstrument: () => undefined, reloadInstruments: async () => undefined, notify: vi.fn(),
-    };
-    render(<AppContext.Provider value={ctx}><DiagnoseScreen /></AppContext.Provider>, host);
-    await settle();
+    const { store } = await realStore();
+    const host = await mount(store, vi.fn(), '/diagnose/leak-check');
+    await waitFor(() => host.querySelector('#leak-m28'), 'the leak check fields');
     const type = async (id: string, text: string) => {
       const el = host.querySelector(id) as HTMLInputElement;
       el.value = text;
@@ -180,19 +187,14 @@ describe('DiagnoseScreen', () => {
     await type('#leak-m40', '17');
     expect(host.querySelector('[data-testid="leak-indication"]')?.textContent).toMatch(/Air leak/);
     expect(host.textContent).not.toMatch(/NaN/);
+    // What was typed is kept on the device as the leak check's draft.
+    await waitFor(async () => JSON.stringify(await store.getDraft(LEAK_DRAFT_KEY)).includes('17'), 'the kept leak check input');
   });
 
   it('the leak check panel shows the tracer-gas card before the spraying steps and the m/z 4 fields', async () => {
-    const { store } = fakeStore();
-    history.pushState(null, '', '/diagnose/leak-check');
-    const host = document.createElement('div');
-    document.body.appendChild(host);
-    const ctx: AppContextValue = {
-      store, storeProblem: null, instruments: [], instrument: null,
-      selectInstrument: () => undefined, reloadInstruments: async () => undefined, notify: vi.fn(),
-    };
-    render(<AppContext.Provider value={ctx}><DiagnoseScreen /></AppContext.Provider>, host);
-    await settle();
+    const { store } = await realStore();
+    const host = await mount(store, vi.fn(), '/diagnose/leak-check');
+    await waitFor(() => host.querySelector('[data-testid="tracer-caution"]'), 'the tracer-gas card');
     const caution = host.querySelector('[data-testid="tracer-caution"]');
     const steps = host.querySelector('[data-testid="tracer-steps"]');
     const heField = host.querySelector('#leak-he0');

@@ -7,11 +7,11 @@ import {
 import { ResolutionPlanner } from '../../../src/ui/stability/ResolutionPlanner';
 import { VacuumCheck } from '../../../src/ui/bench/VacuumCheck';
 import { formatNumber, formatSi } from '../../../src/ui/format';
-import { demo, mount, settle, texts, typeInto, type Harness } from './appHarness';
+import { demo, mount, texts, typeInto, waitFor, type Harness } from './appHarness';
 
 let h: Harness | null = null;
-afterEach(() => {
-  h?.unmount();
+afterEach(async () => {
+  await h?.unmount();
   h = null;
 });
 const shown = (root: HTMLElement, id: string) => texts(root, `[data-testid="${id}"] .result-value`)[0];
@@ -46,9 +46,7 @@ describe('Stability · resolution planner (Kestrel: rods 150 mm, 1 MHz, 5 eV)', 
     expect(shown(h.root, 'rev-exact')).toBe(formatNumber(r.exact, 7));
     expect(shown(h.root, 'rev-rule')).toBe('0.167714');
     // The transmission cost runs in the peak worker; this DOM has no Worker, so the screen says where to look.
-    await new Promise((r) => setTimeout(r, 400));
-    await settle();
-    expect(h.root.querySelector('[data-testid="transmission-cost"]')?.textContent).toMatch(/could not run here.*Transmission cost: see the Peak area/);
+    await waitFor(() => /could not run here.*Transmission cost: see the Peak area/.test(h!.root.querySelector('[data-testid="transmission-cost"]')?.textContent ?? ''), 'the transmission cost to say it could not run here');
     await typeInto(h.root, 'res-target', '0.2');
     expect(h.root.querySelector('#res-target-error')?.textContent).toMatch(/resolution = 0.2 is out of range; accepted: finite number ≥ 0.5/);
   });

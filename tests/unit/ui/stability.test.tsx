@@ -4,11 +4,11 @@ import { act } from 'preact/test-utils';
 import { constantWidthScanLine, operatingPoint, passBandDetail, scanPoint } from '../../../src/engine';
 import { StabilityDiagram } from '../../../src/ui/stability/StabilityDiagram';
 import { formatNumber } from '../../../src/ui/format';
-import { demo, mount, settle, texts, typeInto, type Harness } from './appHarness';
+import { demo, mount, texts, typeInto, waitFor, type Harness } from './appHarness';
 
 let h: Harness | null = null;
-afterEach(() => {
-  h?.unmount();
+afterEach(async () => {
+  await h?.unmount();
   h = null;
 });
 
@@ -47,8 +47,7 @@ describe('Stability · diagram (Kestrel)', () => {
     const op = operatingPoint({ mz: 69, ...g, dc: sp.dc, rf: sp.rf });
     const button = [...h.root.querySelectorAll<HTMLButtonElement>('[data-testid="op-list"] button')][0];
     await act(async () => button.click());
-    await settle();
-    const panel = h.root.querySelector('[data-testid="point-panel"]')!;
+    const panel = await waitFor(() => h!.root.querySelector('[data-testid="point-panel"]'), 'the point panel');
     expect(texts(panel, '[data-testid="panel-a"] .result-value')[0]).toBe(formatNumber(op.a, 6));
     expect(texts(panel, '[data-testid="panel-q"] .result-value')[0]).toBe(formatNumber(op.q, 6));
     expect(texts(panel, '[data-testid="panel-bx"] .result-value')[0]).toBe(formatNumber(op.betaX!, 5));
@@ -100,13 +99,13 @@ describe('extreme input never breaks a screen or shows NaN', () => {
     expect(h.root.querySelector('[data-mz="5000"] [data-testid="beyond-supply"]')?.textContent).toMatch(/Above this supply's largest RF/);
     expect(h.root.textContent).toMatch(/tens of megavolts/);
     expect(h.root.textContent).not.toMatch(/NaN|undefined/);
-    h.unmount();
+    await h.unmount();
     h = await mount(<StabilityDiagram />, demo('kestrel'));
     await typeInto(h.root, 'stab-set', '9e6');
     await typeInto(h.root, 'stab-list', '1e7');
     expect(h.root.textContent).not.toMatch(/NaN|undefined/);
     expect(h.root.querySelector('.field-error')).not.toBeNull();
-    h.unmount();
+    await h.unmount();
     h = await mount(<ResolutionPlanner />, demo('kestrel'));
     await typeInto(h.root, 'res-mz', '9e6');
     expect(h.root.textContent).not.toMatch(/NaN|undefined/);

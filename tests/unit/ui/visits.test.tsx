@@ -5,7 +5,8 @@ import { render } from 'preact';
 import { act } from 'preact/test-utils';
 import { AppContext, type AppContextValue } from '../../../src/ui/context';
 import { VisitsScreen } from '../../../src/ui/screens/VisitsScreen';
-import { demoInstruments, eraseStore, openStore, type Store } from '../../../src/store';
+import { demoInstruments, describeStorageError, eraseStore, openStore, type Store } from '../../../src/store';
+import { waitFor } from '../waitFor';
 
 const names: string[] = [];
 let store: Store | null = null;
@@ -26,11 +27,6 @@ async function mount(path: string): Promise<HTMLElement> {
   return host;
 }
 
-async function settle(page: HTMLElement, until: () => boolean) {
-  for (let i = 0; i < 50 && !until(); i++) await act(async () => { await new Promise((r) => setTimeout(r, 10)); });
-  expect(until()).toBe(true);
-  return page;
-}
 
 function type(el: Element | null, text: string) {
   const input = el as HTMLInputElement;
@@ -39,7 +35,9 @@ function type(el: Element | null, text: string) {
 }
 
 afterEach(async () => {
+  for (const host of document.body.children) render(null, host);
   document.body.innerHTML = '';
+  vi.restoreAllMocks();
   store?.close();
   store = null;
   while (names.length) await eraseStore(names.pop()!);
@@ -48,7 +46,7 @@ afterEach(async () => {
 describe('visit page', () => {
   it('shows notes with a script tag as plain text, and verdicts as a word with a symbol', async () => {
     const host = await mount('/visits/demo-visit-k6');
-    await settle(host, () => host.querySelector('[data-testid="visit-notes"]') !== null && host.querySelectorAll('[data-testid="reading-row"]').length > 0);
+    await waitFor(() => host.querySelector('[data-testid="visit-notes"]') !== null && host.querySelectorAll('[data-testid="reading-row"]').length > 0);
     const notes = host.querySelector('[data-testid="visit-notes"]')!;
     expect(notes.textContent).toContain('<script>alert("notes are plain text")</script>');
     expect(notes.querySelector('script')).toBeNull();
@@ -60,30 +58,42 @@ describe('visit page', () => {
 
   it('refuses a bad value with the field and range named, keeps it, and saves a good one with its verdict', async () => {
     const host = await mount('/visits/demo-visit-k8');
-    await settle(host, () => host.querySelector('#reading-value') !== null);
+    await waitFor(() => host.querySelector('#reading-value') !== null);
     const select = host.querySelector('#reading-type') as HTMLSelectElement;
     await act(async () => { select.value = 'multiplier-voltage'; select.dispatchEvent(new Event('change', { bubbles: true })); });
     await act(async () => { type(host.querySelector('#reading-value'), '9e9'); });
     const before = (await store!.listReadings('demo-visit-k8')).length;
     await act(async () => { (host.querySelector('[data-testid="reading-form"]') as HTMLFormElement).dispatchEvent(new Event('submit', { bubbles: true, cancelable: true })); });
-    await settle(host, () => /out of range/.test(host.textContent ?? ''));
+    await waitFor(() => /out of range/.test(host.textContent ?? ''));
     expect(host.textContent).toContain('Multiplier voltage (as set for the target gain) 9e9 V is out of range: enter a value between 0 and 6000 V.');
     expect((host.querySelector('#reading-value') as HTMLInputElement).value).toBe('9e9');
     expect(await store!.listReadings('demo-visit-k8')).toHaveLength(before);
 
     await act(async () => { type(host.querySelector('#reading-value'), '1760'); });
     // Kestrel's baseline (installation visit) left the multiplier at 1420 V: 1760 V is +24 %, past the 20 % borderline.
-    await settle(host, () => /Expected: 1420 V/.test(host.querySelector('[data-testid="reading-preview"]')?.textContent ?? ''));
+    await waitFor(() => /Expected: 1420 V/.test(host.querySelector('[data-testid="reading-preview"]')?.textContent ?? ''));
     expect(host.querySelector('[data-testid="reading-preview"]')?.textContent).toContain('✗ fail');
     await act(async () => { (host.querySelector('[data-testid="reading-form"]') as HTMLFormElement).dispatchEvent(new Event('submit', { bubbles: true, cancelable: true })); });
-    await settle(host, () => (host.querySelector('#reading-value') as HTMLInputElement).value === '');
+    await waitFor(() => (host.querySelector('#reading-value') as HTMLInputElement).value === '');
     const saved = (await store!.listReadings('demo-visit-k8')).filter((r) => r.entered.text === '1760');
     expect(saved).toHaveLength(1);
     expect(saved[0]).toMatchObject({ verdict: 'fail', value: 1760, expected: { basis: 'baseline', value: 1420 } });
   });
 
+  it('when the reading draft cannot be kept, says so beside the form and keeps the typed value', async () => {
+    const host = await mount('/visits/demo-visit-k8');
+    await waitFor(() => host.querySelector('#reading-value') !== null, 'the reading form');
+    const full = Object.assign(new Error('The quota has been exceeded.'), { name: 'QuotaExceededError' });
+    vi.spyOn(store!, 'putDraft').mockRejectedValue(describeStorageError('keep a draft', full));
+    await act(async () => { type(host.querySelector('#reading-value'), '1500'); });
+    await waitFor(() => host.querySelector('[data-testid="draft-problem"]') !== null, 'the draft problem message');
+    const form = host.querySelector('[data-testid="reading-form"]')!;
+    expect(form.querySelector('[data-testid="draft-problem"]')?.textContent).toMatch(/^Couldn't save your draft on this device: this device has no storage space left for Rodside\. Your input is still here;/);
+    expect((host.querySelector('#reading-value') as HTMLInputElement).value).toBe('1500');
+  });
+
   it('says so plainly when a visit does not exist', async () => {
     const host = await mount('/visits/visit-gone');
-    await settle(host, () => /Visit not found/.test(host.textContent ?? ''));
+    await waitFor(() => /Visit not found/.test(host.textContent ?? ''));
   });
 });
