@@ -20,7 +20,10 @@ async function walkTitle(treeId: string): Promise<string> {
 }
 
 export function HomeScreen() {
-  const { store, instrument, instruments } = useApp();
+  const { store, storeProblem, instrument, instruments } = useApp();
+  // Until the database has answered, the overview keeps the shape it will have with an instrument (the usual case),
+  // so the instrument line, the latest visit and the first moves arrive without pushing anything down.
+  const opening = !store && !storeProblem;
   const [offline, setOffline] = useState<OfflineState | null>(null);
   const [latestVisit, setLatestVisit] = useState<Visit | null | undefined>(undefined);
   const [openWalk, setOpenWalk] = useState<{ record: WalkRecord; title: string } | null>(null);
@@ -42,9 +45,14 @@ export function HomeScreen() {
   return (
     <section class="screen">
       <h1>Overview</h1>
-      <div class="card" data-testid="current-instrument">
+      <div class="card card-current" data-testid="current-instrument" aria-busy={opening ? 'true' : undefined}>
         <h2 class="card-title">Working on</h2>
-        {instrument ? (
+        {opening ? (
+          <>
+            <p class="big muted">Opening this device's records…</p>
+            <p class="muted">Instrument profiles, visits and walks are kept on this device.</p>
+          </>
+        ) : instrument ? (
           <>
             <p class="big">{instrument.name}</p>
             <p class="muted">
@@ -72,11 +80,11 @@ export function HomeScreen() {
         <h2 class="card-title">Start here</h2>
         <ul class="quick-links">
           {/* Without a profile there are no expected values and no visits: the first move is to add one. */}
-          {instrument
+          {instrument || opening
             ? <li><a class="btn btn-primary" href="/bench">Expected voltages</a></li>
             : <li><a class="btn btn-primary" href="/instruments/new">Add an instrument</a></li>}
           <li><a class="btn" href="/diagnose">{openWalk ? 'Diagnose' : 'Start a walk'}</a></li>
-          {instrument && <li><a class="btn" href="/visits/new">New visit</a></li>}
+          {(instrument || opening) && <li><a class="btn" href="/visits/new">New visit</a></li>}
           <li><a class="btn" href="/safety">Safety cards</a></li>
         </ul>
       </nav>

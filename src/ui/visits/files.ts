@@ -50,10 +50,17 @@ export function toLocalInput(iso: string): string {
   return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
 }
 
+let dateFormat: Intl.DateTimeFormat | null = null;
+
+/** The one date-and-time formatter, built once: a new one per call costs a millisecond or more on a phone. */
+export function prepareDateFormat(): Intl.DateTimeFormat {
+  return (dateFormat ??= new Intl.DateTimeFormat(undefined, { year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' }));
+}
+
 export function showDate(iso: string): string {
   const d = new Date(iso);
   if (!Number.isFinite(d.getTime())) return iso;
-  return d.toLocaleString(undefined, { year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' });
+  return prepareDateFormat().format(d);
 }
 
 export function errorText(err: unknown): string {
