@@ -39,7 +39,9 @@ export function usePersistentInputs<T extends Inputs>(screen: string, defaults: 
       return { key: s.key, values };
     });
   }
-  return [state.values, update];
+  // Between a change of instrument (or the first one arriving) and the effect above, show that instrument's
+  // defaults rather than the previous key's values: no flash of another profile's figures, no jump.
+  return [state.key === key ? state.values : defaults(instrument), update];
 }
 
 export type Parsed = { ok: true; value: number } | { ok: false; message: string };
