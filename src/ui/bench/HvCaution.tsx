@@ -1,7 +1,7 @@
 // The caution shown beside any value above the hazardous-live levels: the levels and what is exceeded, the two
 // precautions that matter at the bench, the shared deferral, and the full high-voltage, RF and stored-charge
 // cards of the one card set (domain.md §4 S-HV, S-RF, S-STORED) one tap away.
-import { DEFERRAL } from '../../diagnose';
+import { DEFERRAL } from '../../diagnose/safety';
 import { HAZARDOUS_LIVE_LEVELS, HAZARDOUS_LIVE_SOURCE, hazardousLive } from '../../engine';
 import { IconCaution } from '../components/icons';
 import { SafetyCards } from '../screens/diagnose/SafetyCards';

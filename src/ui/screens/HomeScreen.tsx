@@ -9,10 +9,11 @@ import { subscribeOffline, type OfflineState } from '../offline';
 import { StorageStatus } from '../components/StorageStatus';
 import { showDate } from '../visits/files';
 
-/** Title of a walk's tree. The trees load with the Diagnose area, so the overview stays small at start-up. */
+/** Title of a walk's tree. The trees load only when a walk is open, so the overview stays small at start-up (only the
+ * trees, not the whole diagnose module: the Bench and Stability cautions share its small safety module instead). */
 async function walkTitle(treeId: string): Promise<string> {
   try {
-    const { treeById } = await import('../../diagnose');
+    const { treeById } = await import('../../diagnose/trees/index');
     return treeById(treeId as Parameters<typeof treeById>[0]).title;
   } catch {
     return 'a diagnosis';

@@ -1,6 +1,7 @@
 import { StorageStatus } from '../components/StorageStatus';
 import { IconCaution } from '../components/icons';
-import { SAFETY_CARDS, type SafetyCardId } from '../../diagnose';
+import { SAFETY_CARDS } from '../../diagnose/safety';
+import type { SafetyCardId } from '../../diagnose/types';
 import { SafetyCards } from './diagnose/SafetyCards';
 
 declare const __APP_VERSION__: string;
