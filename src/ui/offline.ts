@@ -9,13 +9,15 @@ export interface OfflineState {
   offlineReady: boolean;
   /** Result of the persistent-storage request: true kept, false may be evicted, null unknown/unsupported. */
   persisted: boolean | null;
+  /** False until the persistent-storage request has answered (the status line keeps its place meanwhile). */
+  persistenceChecked: boolean;
   /** Message to show after a refused update (unsaved input). */
   updateBlockedReason: string | null;
 }
 
 type Listener = (s: OfflineState) => void;
 
-let state: OfflineState = { updateReady: false, offlineReady: false, persisted: null, updateBlockedReason: null };
+let state: OfflineState = { updateReady: false, offlineReady: false, persisted: null, persistenceChecked: false, updateBlockedReason: null };
 const listeners = new Set<Listener>();
 let wb: Workbox | null = null;
 
@@ -53,16 +55,16 @@ export function unsavedDescriptions(): string[] {
 export async function requestPersistence(): Promise<boolean | null> {
   const storage = navigator.storage;
   if (!storage?.persist) {
-    set({ persisted: null });
+    set({ persisted: null, persistenceChecked: true });
     return null;
   }
   try {
     const already = await storage.persisted();
     const granted = already || (await storage.persist());
-    set({ persisted: granted });
+    set({ persisted: granted, persistenceChecked: true });
     return granted;
   } catch {
-    set({ persisted: null });
+    set({ persisted: null, persistenceChecked: true });
     return null;
   }
 }

@@ -1,7 +1,7 @@
 // The caution shown beside any value above the hazardous-live levels: the levels and what is exceeded, the two
 // precautions that matter at the bench, the shared deferral, and the full high-voltage, RF and stored-charge
 // cards of the one card set (src/diagnose/safety.ts) one tap away.
-import { DEFERRAL } from '../../diagnose';
+import { DEFERRAL } from '../../diagnose/safety';
 import { HAZARDOUS_LIVE_LEVELS, HAZARDOUS_LIVE_SOURCE, hazardousLive } from '../../engine';
 import { IconCaution } from '../components/icons';
 import { SafetyCards } from '../screens/diagnose/SafetyCards';

@@ -39,7 +39,8 @@ export function benchDefaults(p: InstrumentProfile | null): BenchInputs {
 export function Voltages() {
   const { instrument } = useApp();
   const [inputs, update, inputsProblem] = usePersistentInputs<BenchInputs>('bench', benchDefaults);
-  if (!instrument) return <p class="notice">Pick or add an instrument first: every expected value comes from its profile. <a href="/instruments/new">Add an instrument</a></p>;
+  // Keyed, so the notice shown while the database opens is never reused (moved) as a notice of the filled screen.
+  if (!instrument) return <p key="no-instrument" class="notice">Pick or add an instrument first: every expected value comes from its profile. <a href="/instruments/new">Add an instrument</a></p>;
   const profile = instrument;
   const errors: FieldErrors = {};
   const list = parseMzList(inputs.mzList);

@@ -4,10 +4,22 @@
 // uPlot draws on a canvas with its own colours (black axes), which vanish on the dark theme: every chart takes its
 // colours from our palette instead, and is drawn again when the device switches between light and dark.
 import { useEffect, useRef, useState } from 'preact/hooks';
-// Before uPlot: it formats numbers with navigator.language as soon as its module loads.
+// Before uPlot loads: it formats numbers with navigator.language as soon as its module is evaluated.
 import '../localeGuard';
-import uPlot from 'uplot';
 import { FIELD_MODE_EVENT, fieldModeActive } from '../fieldMode';
+import type uPlot from 'uplot';
+import { whenIdle } from '../idle';
+
+// uPlot is loaded and evaluated after the screen's first paint, in idle time: its module sets up number and date
+// formatting at load, the first use of the browser's locale data, which is a long task on a phone. The chart keeps
+// its final height meanwhile, so nothing moves when it is drawn.
+let uplotModule: Promise<typeof uPlot> | null = null;
+function loadUplot(): Promise<typeof uPlot> {
+  return (uplotModule ??= import('uplot').then((m) => m.default).catch((err: unknown) => {
+    uplotModule = null; // a later chart may try again
+    throw err;
+  }));
+}
 
 export type ChartOptions = Omit<uPlot.Options, 'width' | 'height'>;
 
@@ -95,6 +107,7 @@ export function Chart(props: ChartProps) {
 
   // Canvas can be missing (blocked by a privacy setting, or a DOM without 2D canvas): say so, keep the page.
   const [noCanvas, setNoCanvas] = useState(false);
+  const [loadFailed, setLoadFailed] = useState(false);
   // Light or dark: a change draws the chart again in the other palette.
   const [dark, setDark] = useState(() => darkQuery()?.matches ?? false);
   useEffect(() => {
@@ -118,12 +131,33 @@ export function Chart(props: ChartProps) {
       setNoCanvas(true);
       return;
     }
+    let live = true;
+    let teardown: (() => void) | null = null;
+    const cancelIdle = whenIdle(() => {
+      loadUplot().then((UPlot) => {
+        if (live) teardown = draw(UPlot, el);
+      }, () => live && setLoadFailed(true));
+    }, 1000);
+    return () => {
+      live = false;
+      cancelIdle();
+      teardown?.();
+    };
+    // Options are read once per theme and mode: a new series layout needs a new key on the component.
+  }, [dark, fieldMode]);
+
+  function draw(UPlot: typeof uPlot, el: HTMLDivElement): () => void {
     const width = Math.max(240, el.clientWidth || 320);
     const given = latest.current.options;
     const options = themedOptions(typeof given === 'function' ? given(chartPalette()) : given, chartPalette());
     resolved.current = options;
-    const u = new uPlot({ ...options, width, height: latest.current.height ?? 300 }, latest.current.data, el);
+    const u = new UPlot({ ...options, width, height: latest.current.height ?? 300 }, latest.current.data, el);
     plot.current = u;
+    // A view asked for before the chart was drawn applies now.
+    const view = latest.current.view;
+    if (view) u.batch(() => {
+      for (const [scale, [min, max]] of Object.entries(view.ranges)) u.setScale(scale, { min, max });
+    });
     const onClick = (ev: MouseEvent) => {
       const cb = latest.current.onTap;
       if (!cb) return;
@@ -146,8 +180,7 @@ export function Chart(props: ChartProps) {
       u.destroy();
       plot.current = null;
     };
-    // Options are read once per theme and mode: a new series layout needs a new key on the component.
-  }, [dark, fieldMode]);
+  }
 
   useEffect(() => {
     plot.current?.setData(props.data);
@@ -202,7 +235,8 @@ export function Chart(props: ChartProps) {
           <button type="button" class="btn btn-small" onClick={reset} aria-label="Reset the chart view">Reset</button>
         </div>
       )}
-      <div class="chart" ref={host} role="img" aria-label={props.label} />
+      <div class="chart" ref={host} role="img" aria-label={props.label} style={noCanvas || loadFailed ? undefined : { minHeight: `${props.height ?? 300}px` }} />
+      {loadFailed && <p class="notice">The chart could not be loaded on this device yet (open Rodside once with a network so it keeps every part); the values below are complete without it.</p>}
       {noCanvas && <p class="notice">This browser does not allow drawing on a canvas, so the chart cannot be shown; the values below are complete without it.</p>}
     </figure>
   );

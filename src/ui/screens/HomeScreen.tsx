@@ -10,10 +10,11 @@ import { More } from '../components/Fold';
 import { StorageStatus } from '../components/StorageStatus';
 import { showDate } from '../visits/files';
 
-/** Title of a walk's tree. The trees load with the Diagnose area, so the overview stays small at start-up. */
+/** Title of a walk's tree. The trees load only when a walk is open, so the overview stays small at start-up (only the
+ * trees, not the whole diagnose module: the Bench and Stability cautions share its small safety module instead). */
 async function walkTitle(treeId: string): Promise<string> {
   try {
-    const { treeById } = await import('../../diagnose');
+    const { treeById } = await import('../../diagnose/trees/index');
     return treeById(treeId as Parameters<typeof treeById>[0]).title;
   } catch {
     return 'a diagnosis';
@@ -21,7 +22,10 @@ async function walkTitle(treeId: string): Promise<string> {
 }
 
 export function HomeScreen() {
-  const { store, instrument, instruments } = useApp();
+  const { store, storeProblem, instrument, instruments } = useApp();
+  // Until the database has answered, the overview keeps the shape it will have with an instrument (the usual case),
+  // so the instrument line, the latest visit and the first moves arrive without pushing anything down.
+  const opening = !store && !storeProblem;
   const [offline, setOffline] = useState<OfflineState | null>(null);
   const [latestVisit, setLatestVisit] = useState<Visit | null | undefined>(undefined);
   const [openWalk, setOpenWalk] = useState<{ record: WalkRecord; title: string } | null>(null);
@@ -53,9 +57,14 @@ export function HomeScreen() {
   return (
     <section class="screen">
       <h1>Overview</h1>
-      <div class="card" data-testid="current-instrument">
+      <div class="card card-current" data-testid="current-instrument" aria-busy={opening ? 'true' : undefined}>
         <h2 class="card-title">Working on</h2>
-        {instrument ? (
+        {opening ? (
+          <>
+            <p class="big muted">Opening this device's records…</p>
+            <p class="muted">Instrument profiles, visits and walks are kept on this device.</p>
+          </>
+        ) : instrument ? (
           <>
             <p class="big">{instrument.name}</p>
             <p class="muted">
@@ -84,11 +93,11 @@ export function HomeScreen() {
         <h2 class="card-title">Start here</h2>
         <ul class="quick-links">
           {/* Without a profile there are no expected values and no visits: the first move is to add one. */}
-          {instrument
+          {instrument || opening
             ? <li><a class="btn btn-primary" href="/bench">Expected voltages</a></li>
             : <li><a class="btn btn-primary" href="/instruments/new">Add an instrument</a></li>}
           <li><a class="btn" href="/diagnose">{openWalk ? 'Diagnose' : 'Start a walk'}</a></li>
-          {instrument && <li><a class="btn" href="/visits/new">New visit</a></li>}
+          {(instrument || opening) && <li><a class="btn" href="/visits/new">New visit</a></li>}
           <li><a class="btn" href="/safety">Safety cards</a></li>
         </ul>
       </nav>

@@ -1,7 +1,8 @@
 import { More } from '../components/Fold';
 import { StorageStatus } from '../components/StorageStatus';
 import { IconCaution } from '../components/icons';
-import { SAFETY_CARDS, type SafetyCardId } from '../../diagnose';
+import { SAFETY_CARDS } from '../../diagnose/safety';
+import type { SafetyCardId } from '../../diagnose/types';
 import { SafetyCards } from './diagnose/SafetyCards';
 
 declare const __APP_VERSION__: string;

@@ -3,7 +3,7 @@
 import { useCallback, useEffect, useState } from 'preact/hooks';
 import {
   DEMO_LAB, formatNumber, fromBase, shownValue, visitReasons, type InstrumentProfile, type Reading, type ReadingType, type Visit,
-  type WalkRecord,
+  type WalkRecord, type BackupReminder,
 } from '../../store';
 import { More } from '../components/Fold';
 import { useApp } from '../context';
@@ -40,9 +40,11 @@ function useReadingTypes(): [ReadingType[], () => void] {
 }
 
 function VisitList() {
-  const { store, instrument } = useApp();
+  const { store, storeProblem, instrument } = useApp();
   const [types, reloadTypes] = useReadingTypes();
   const [visits, setVisits] = useState<Visit[] | null>(null);
+  // The backup reminder is read with the visits, so the list and the note above it appear together (no jump).
+  const [reminder, setReminder] = useState<BackupReminder | null | undefined>(undefined);
   const [counts, setCounts] = useState<Record<string, { n: number; fail: number; borderline: number }>>({});
   const [problem, setProblem] = useState<string | null>(null);
 
@@ -51,6 +53,8 @@ function VisitList() {
     let stale = false;
     (async () => {
       try {
+        const status = await store.backupStatus().catch(() => null);
+        if (!stale) setReminder(status);
         const list = await store.listVisits(instrument.id);
         const readings = await store.listInstrumentReadings(instrument.id);
         const c: Record<string, { n: number; fail: number; borderline: number }> = {};
@@ -68,6 +72,19 @@ function VisitList() {
     return () => { stale = true; };
   }, [store, instrument]);
 
+  // Until the database has answered and the list is read, only the heading shows: the rest arrives in one piece
+  // below it, so nothing on screen is pushed down while it loads.
+  const loading = (!store && !storeProblem) || (!!instrument && visits === null && !problem);
+  if (loading) {
+    return (
+      <section class="screen">
+        <h1>Visits</h1>
+        <p class="lede">Service visits with as-found and as-left readings, each judged against the instrument’s baseline, a calculation or a generic range.</p>
+        <p class="muted" aria-live="polite">Loading visits…</p>
+      </section>
+    );
+  }
+
   return (
     <section class="screen">
       <h1>Visits</h1>
@@ -84,7 +101,7 @@ function VisitList() {
             <span class="muted">for {instrument.name}</span>
           </div>
           {/* The day's first move comes first; the backup reminder right after it. */}
-          <BackupReminderNote />
+          <BackupReminderNote initial={reminder} />
           {problem && <p class="banner banner-problem" role="alert">{problem}</p>}
           {visits && visits.length === 0 && <p class="notice">No visits recorded for this instrument yet.</p>}
           {visits && visits.length > 0 && (

@@ -57,7 +57,7 @@ export function StabilityDiagram() {
   selectedRef.current = selected;
   const options = useMemo(() => (palette: ChartPalette) => chartOptions(palette, pointsRef, selectedRef), []);
 
-  if (!instrument) return <p class="notice">Pick or add an instrument first: the diagram uses its geometry. <a href="/instruments/new">Add an instrument</a></p>;
+  if (!instrument) return <p key="no-instrument" class="notice">Pick or add an instrument first: the diagram uses its geometry. <a href="/instruments/new">Add an instrument</a></p>;
   const profile = instrument;
   const r0 = profile.rodFieldRadius;
   const frequency = profile.rfFrequency;

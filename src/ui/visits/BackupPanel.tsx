@@ -7,9 +7,10 @@ import { canShareFiles, errorText, shareOrDownload, stamp } from './files';
 /** Fired on window after a backup was saved or shared, so every reminder on screen updates. */
 const BACKUP_SAVED_EVENT = 'rodside:backup-saved';
 
-export function BackupReminderNote() {
+/** `initial`: a status the screen already read, so the note is in place at the first render instead of arriving late. */
+export function BackupReminderNote(props: { initial?: BackupReminder | null } = {}) {
   const { store } = useApp();
-  const [status, setStatus] = useState<BackupReminder | null>(null);
+  const [status, setStatus] = useState<BackupReminder | null>(props.initial ?? null);
   useEffect(() => {
     if (!store) return;
     // The reminder is a nudge: if its date cannot be read, the note stays away and the console says why (the

@@ -1,4 +1,5 @@
-import { SAFETY_CARDS, type SafetyCardId } from '../../../diagnose';
+import { SAFETY_CARDS } from '../../../diagnose/safety';
+import type { SafetyCardId } from '../../../diagnose/types';
 
 /** The hazard cards a step carries: hazards and precautions shown, sources and the deferral one tap away. */
 export function SafetyCards(props: { ids: SafetyCardId[] | undefined; open?: boolean }) {

@@ -1,0 +1,156 @@
+// Start-up of the production build, as Lighthouse 12 (mobile preset, performance only) sees it on Debian's Chromium.
+// Budgets (our own): performance ≥ 0.95, CLS ≤ 0.05, TBT ≤ 150 ms on every page listed below.
+// One Lighthouse run varies by about ±0.04, so each page runs twice and the better run is shown.
+// Each run starts from a fresh browser profile, so the first-run work (opening the database, loading the demo
+// scenario) is part of what is measured. Figures only, no asserts: `npm run bench -- lighthouse` runs just this.
+//
+// Environment: CHROME_PATH (default /usr/bin/chromium), RODSIDE_PORT_OFFSET (moves the preview port, base 4400),
+// RODSIDE_LIGHTHOUSE_RUNS (runs per page, default 2), RODSIDE_LIGHTHOUSE_PAGES (comma list, default all below).
+// Full JSON reports are kept in test-artifacts/lighthouse/ (not committed) for the treemap and bootup-time audits.
+import { execFile } from 'node:child_process';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { loadavg, tmpdir } from 'node:os';
+import { dirname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { build, preview, type PreviewServer } from 'vite';
+
+const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
+const pages = ['/', '/bench', '/stability', '/peak', '/diagnose', '/visits'];
+const budget = { performance: 0.95, cls: 0.05, tbtMs: 150 };
+
+interface Figures {
+  performance: number;
+  cls: number;
+  tbtMs: number;
+  lcpMs: number;
+  fcpMs: number;
+}
+
+function chromePath(): string | null {
+  for (const c of [process.env.CHROME_PATH, '/usr/bin/chromium']) if (c && existsSync(c)) return c;
+  return null;
+}
+
+function port(): number {
+  const offset = Number(process.env.RODSIDE_PORT_OFFSET ?? 0);
+  return 4400 + (Number.isInteger(offset) ? offset : 0);
+}
+
+async function portIsFree(p: number): Promise<boolean> {
+  return new Promise((res) => {
+    const srv = createServer();
+    srv.once('error', () => res(false));
+    srv.listen(p, '127.0.0.1', () => srv.close(() => res(true)));
+  });
+}
+
+async function buildInto(outDir: string): Promise<void> {
+  const prevEnv = process.env.NODE_ENV;
+  process.env.NODE_ENV = 'production';
+  try {
+    await build({ root, configFile: join(root, 'vite.config.ts'), mode: 'production', logLevel: 'warn', build: { outDir, emptyOutDir: true } });
+  } finally {
+    process.env.NODE_ENV = prevEnv;
+  }
+}
+
+function lighthouseOnce(url: string, chrome: string, reportPath: string): Promise<Figures> {
+  const bin = join(root, 'node_modules', '.bin', 'lighthouse');
+  const args = [
+    url,
+    '--quiet',
+    '--output=json',
+    `--output-path=${reportPath}`,
+    '--chrome-flags=--headless --no-sandbox --disable-gpu',
+    '--form-factor=mobile',
+    '--only-categories=performance',
+  ];
+  return new Promise((res, rej) => {
+    execFile(bin, args, { env: { ...process.env, CHROME_PATH: chrome }, maxBuffer: 64 * 1024 * 1024 }, (err, _stdout, stderr) => {
+      if (err) return rej(new Error(`Lighthouse failed on ${url}: ${err.message}\n${stderr}`));
+      try {
+        const lhr = JSON.parse(readFileSync(reportPath, 'utf8')) as {
+          categories: { performance: { score: number | null } };
+          audits: Record<string, { numericValue?: number }>;
+          runtimeError?: { message: string };
+        };
+        if (lhr.runtimeError) return rej(new Error(`Lighthouse could not measure ${url}: ${lhr.runtimeError.message}`));
+        const num = (id: string) => lhr.audits[id]?.numericValue ?? Number.NaN;
+        res({
+          performance: lhr.categories.performance.score ?? Number.NaN,
+          cls: num('cumulative-layout-shift'),
+          tbtMs: num('total-blocking-time'),
+          lcpMs: num('largest-contentful-paint'),
+          fcpMs: num('first-contentful-paint'),
+        });
+      } catch (e) {
+        rej(e as Error);
+      }
+    });
+  });
+}
+
+const mark = (ok: boolean) => (ok ? ' ' : '✗');
+
+export async function run(): Promise<void> {
+  console.log('\nLighthouse 12 (mobile preset, performance only) on the production build');
+  const chrome = chromePath();
+  if (!chrome) {
+    console.log('skipped: no Chromium (set CHROME_PATH or install Debian chromium)');
+    return;
+  }
+  const p = port();
+  if (!(await portIsFree(p))) {
+    console.log(`skipped: port ${p} is in use (stop the stray server or change RODSIDE_PORT_OFFSET)`);
+    return;
+  }
+  const runs = Math.max(1, Number(process.env.RODSIDE_LIGHTHOUSE_RUNS ?? 2) || 2);
+  const only = process.env.RODSIDE_LIGHTHOUSE_PAGES?.split(',').map((s) => s.trim()).filter(Boolean);
+  const list = only?.length ? only : pages;
+  const outDir = mkdtempSync(join(tmpdir(), 'rodside-lighthouse-'));
+  const reports = join(root, 'test-artifacts', 'lighthouse');
+  mkdirSync(reports, { recursive: true });
+  let server: PreviewServer | null = null;
+  try {
+    await buildInto(outDir);
+    server = await preview({
+      root,
+      configFile: join(root, 'vite.config.ts'),
+      logLevel: 'warn',
+      build: { outDir },
+      preview: { port: p, strictPort: true, host: '127.0.0.1' },
+    });
+    const load = loadavg().map((l) => l.toFixed(2)).join(', ');
+    console.log(`Chromium ${chrome}, ${runs} run(s) per page, best shown; load average before: ${load}`);
+    console.log(`budgets: performance ≥ ${budget.performance}, CLS ≤ ${budget.cls}, TBT ≤ ${budget.tbtMs} ms (✗ marks a miss)`);
+    console.log(`${'page'.padEnd(12)} ${'perf'.padStart(6)}   ${'CLS'.padStart(6)}   ${'TBT ms'.padStart(7)}   ${'LCP s'.padStart(6)}  ${'FCP s'.padStart(6)}  all runs (perf)`);
+    for (const page of list) {
+      const results: Figures[] = [];
+      for (let i = 0; i < runs; i++) {
+        const name = `${page === '/' ? 'overview' : page.slice(1).replace(/\//g, '_')}-${i + 1}.json`;
+        try {
+          results.push(await lighthouseOnce(`http://127.0.0.1:${p}${page}`, chrome, join(reports, name)));
+        } catch (e) {
+          console.log(`${page}: ${(e as Error).message.split('\n')[0]}`);
+        }
+      }
+      if (results.length === 0) continue;
+      const best = results.reduce((a, b) => (b.performance > a.performance ? b : a));
+      console.log(
+        `${page.padEnd(12)} ${best.performance.toFixed(2).padStart(6)} ${mark(best.performance >= budget.performance)} ` +
+          `${best.cls.toFixed(3).padStart(6)} ${mark(best.cls <= budget.cls)} ` +
+          `${best.tbtMs.toFixed(0).padStart(7)} ${mark(best.tbtMs <= budget.tbtMs)} ` +
+          `${(best.lcpMs / 1000).toFixed(2).padStart(6)}  ${(best.fcpMs / 1000).toFixed(2).padStart(6)}  ` +
+          results.map((r) => r.performance.toFixed(2)).join(' / '),
+      );
+    }
+    console.log(`load average after: ${loadavg().map((l) => l.toFixed(2)).join(', ')} (on a 2-core machine, above ~1.5 the figures are depressed)`);
+  } finally {
+    if (server) {
+      await new Promise<void>((res) => server!.httpServer.close(() => res()));
+      (server.httpServer as unknown as { closeAllConnections?: () => void }).closeAllConnections?.();
+    }
+    rmSync(outDir, { recursive: true, force: true });
+  }
+}
