@@ -1,5 +1,5 @@
-// `npm run test:soak`: the unit suite five times in a row while a CPU burner keeps every core busy, and beside
-// them the backup import fuzzing at its long count (10 000 cases). A suite that only passes on an idle machine
+// `npm run test:soak`: the unit suite five times in a row while a CPU burner keeps every core busy, then, still
+// beside the burner, the backup import fuzzing at its long count (10 000 cases). A suite that only passes on an idle machine
 // is waiting for time, not for conditions. Prints per-run pass/fail counts and durations, then one final line.
 //   RODSIDE_SOAK_RUNS   runs of the unit suite (default 5)
 //   RODSIDE_FUZZ_RUNS   import fuzz cases (default 10000)
@@ -62,9 +62,6 @@ function line(r) {
   return `${r.label}: ${r.ok ? 'PASS' : 'FAIL'}, ${r.passed} passed, ${r.failed} failed, ${r.seconds.toFixed(1)} s`;
 }
 
-const fuzz = vitest(`import fuzz (${fuzzRuns} cases)`, ['tests/unit/store/backup.test.ts', '-t', 'every corruption'], { RODSIDE_FUZZ_RUNS: String(fuzzRuns) }, `${dir}/fuzz.json`)
-  .then((r) => { console.log(line(r)); return r; });
-
 const results = [];
 for (let i = 1; i <= runs; i++) {
   const r = await vitest(`run ${i}/${runs}`, [], {}, `${dir}/run-${i}.json`);
@@ -75,7 +72,10 @@ for (let i = 1; i <= runs; i++) {
   }
   results.push(r);
 }
-const f = await fuzz;
+// After the unit runs rather than beside them: two vitest processes on top of the burner would measure the
+// machine, not the tests.
+const f = await vitest(`import fuzz (${fuzzRuns} cases)`, ['tests/unit/store/backup.test.ts', '-t', 'every corruption'], { RODSIDE_FUZZ_RUNS: String(fuzzRuns) }, `${dir}/fuzz.json`);
+console.log(line(f));
 if (!f.ok) {
   for (const x of f.failures.slice(0, 5)) console.log(`  ✗ ${x}`);
   if (f.failures.length === 0) console.log(f.tail);

@@ -13,17 +13,16 @@ export function SafetyScreen() {
       <h1>Safety &amp; about</h1>
       <div class="card caution" role="note">
         <h2 class="card-title"><IconCaution /> Before you touch the instrument</h2>
-        <p>Rodside gives generic guidance and expected values from ideal physics. It does not replace the instrument maker's procedures for the exact model, the site's safety rules and permits, local codes and regulations, or licensed and authorised practice for electrical, gas and radiation work. Where they differ, they win.</p>
-        <ul>
-          <li><strong>High voltage:</strong> multiplier, conversion-dynode and spray supplies reach kilovolts; RF on the rods reaches hundreds to thousands of volts at about 1 MHz. IEC 61010-1:2010 (3rd ed.) cl. 6.3.1 a) treats parts above 33 V rms, 46.7 V peak or 70 V DC as hazardous live in normal dry conditions (from memory; check the edition you work to).</li>
-          <li><strong>RF burns</strong> at these frequencies can happen with little warning sensation (IEC TS 60479-2:2017, from memory). Measure only at monitor points or with probes rated for the voltage at that frequency.</li>
-          <li><strong>Stored charge</strong> remains in HV supplies, cables and RF tanks after switch-off: wait, then verify with a rated instrument.</li>
-          <li><strong>Vacuum:</strong> vent only through the designated valve with dry gas at low regulated pressure; never pressurise above atmosphere.</li>
-          <li><strong>Hot surfaces</strong> in sources, transfer lines and pumps; <strong>chemicals</strong> in pump oil, solvents and calibrants; <strong>gas cylinders</strong> and asphyxiant gases.</li>
-          <li>Use lockout/tagout, wait the discharge time and prove the absence of voltage before any work behind covers. A measurement on a running instrument is live work instead: it needs live-work authorisation and meters and probes rated for the voltage present. Never defeat an interlock.</li>
-          <li><strong>Tracer gases:</strong> never a flammable tracer; keep helium or argon sprays away from live parts and HV feedthroughs, and out of confined spaces.</li>
+        <p>Generic guidance and ideal-physics values only. The instrument maker's procedures for the model, the site's rules and permits, local codes and licensed practice for electrical, gas and radiation work come first; where they differ, they win.</p>
+        <ul class="hazard-lines">
+          <li><strong>High voltage:</strong> kilovolt multiplier, dynode and spray supplies; hundreds to thousands of volts RF on the rods. Hazardous live above 33 V rms, 46.7 V peak or 70 V DC (IEC 61010-1:2010, 3rd ed., cl. 6.3.1 a), from memory).</li>
+          <li><strong>RF burns</strong> come with little warning (IEC TS 60479-2:2017, from memory): monitor points or rated probes only.</li>
+          <li><strong>Stored charge</strong> stays after switch-off: wait, then verify with a rated meter.</li>
+          <li><strong>Covers off:</strong> lockout/tagout, discharge wait, prove dead. <strong>Live measurement:</strong> live-work authorisation and meters rated for the voltage. Never defeat an interlock.</li>
+          <li><strong>Vacuum:</strong> vent only through the designated valve with dry gas; never above atmosphere.</li>
+          <li><strong>Heat, chemicals, gases:</strong> hot sources and pumps; pump oil, solvents, calibrants; cylinders and asphyxiants. <strong>Tracers:</strong> never flammable, away from live parts and confined spaces.</li>
         </ul>
-        <p class="muted">The guided diagnosis shows the matching hazard card at each step and asks for acknowledgement before invasive work.</p>
+        <p class="muted">Each diagnosis step shows its hazard card and asks for acknowledgement before invasive or live work.</p>
       </div>
 
       <More title={`Hazard cards (${Object.keys(SAFETY_CARDS).length})`} testId="hazard-cards">
