@@ -140,3 +140,14 @@ export function checkReadingTitle(typeId: string, context: Readonly<Record<strin
       return undefined;
   }
 }
+
+/** A reading's name on screen and in the record: its own name for a noted value, the ions for a calibrant or water reading, else the type's label. */
+export function readingTitle(r: Pick<Reading, 'typeId' | 'context'>, type: { label: string } | undefined): string {
+  if (r.typeId === 'noted-value') return String(r.context?.label ?? 'Noted value');
+  return checkReadingTitle(r.typeId, r.context) ?? type?.label ?? `reading type ${r.typeId}`;
+}
+
+/** Context keys a title from `checkReadingTitle` already says, so a context line need not repeat them. */
+export function keysInTitle(typeId: string, context: Readonly<Record<string, string | number>> | undefined): readonly string[] {
+  return checkReadingTitle(typeId, context) === undefined ? [] : ['mz', 'referenceMz', 'formula'];
+}

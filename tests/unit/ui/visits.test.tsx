@@ -10,11 +10,12 @@ import { demoInstruments, eraseStore, openStore, type Store } from '../../../src
 const names: string[] = [];
 let store: Store | null = null;
 
-async function mount(path: string): Promise<HTMLElement> {
+async function mount(path: string, prepare?: (s: Store) => Promise<void>): Promise<HTMLElement> {
   const name = `rodside-ui-visits-${Date.now()}-${Math.random().toString(16).slice(2)}`;
   names.push(name);
   store = await openStore(name);
   await store.loadDemo();
+  await prepare?.(store);
   history.pushState(null, '', path);
   const host = document.createElement('div');
   document.body.appendChild(host);
@@ -47,7 +48,11 @@ afterEach(async () => {
 
 describe('visit page', () => {
   it('shows notes with a script tag as plain text, and verdicts as a word with a symbol', async () => {
-    const host = await mount('/visits/demo-visit-k6');
+    // The test's own hostile note (the demo's notes are ordinary text).
+    const host = await mount('/visits/demo-visit-k6', async (s) => {
+      const k6 = (await s.getVisit('demo-visit-k6'))!;
+      await s.saveVisit({ ...k6, notes: `${k6.notes} <script>alert("notes are plain text")</script>` }, k6.id);
+    });
     await settle(host, () => host.querySelector('[data-testid="visit-notes"]') !== null && host.querySelectorAll('[data-testid="reading-row"]').length > 0);
     const notes = host.querySelector('[data-testid="visit-notes"]')!;
     expect(notes.textContent).toContain('<script>alert("notes are plain text")</script>');
