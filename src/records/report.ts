@@ -72,7 +72,9 @@ function readingRows(list: readonly Reading[], typeOf: ReportInput['typeOf']): s
   const rows = list.map((r) => {
     const t = typeOf(r.typeId);
     const said = keysInTitle(r.typeId, r.context);
-    const ctx = Object.entries(r.context ?? {}).filter(([k]) => k !== 'convention' && !said.includes(k)).map(([k, v]) => `${k} ${v}`).join(', ');
+    // A walk step is named by its tree and step on screen; its internal code stays in the CSV only.
+    const ctx = Object.entries(r.context ?? {}).filter(([k]) => k !== 'convention' && !said.includes(k))
+      .map(([k, v]) => (k === 'walkStep' ? 'from a diagnosis walk' : `${k} ${v}`)).join(', ');
     const v = r.verdict ? `${verdictWords[r.verdict].symbol} ${verdictWords[r.verdict].word}` : '— not judged';
     return `<tr><td>${escapeHtml(r.typeId === 'noted-value' ? t?.label ?? r.typeId : readingTitle(r, t))}${ctx ? `<br><small>${escapeHtml(ctx)}</small>` : ''}</td>` +
       `<td class="num">${escapeHtml(shownValue(r, t))}</td><td>${escapeHtml(expectedText(r, t))}</td>` +

@@ -5,6 +5,7 @@ import {
   DEMO_LAB, formatNumber, fromBase, keysInTitle, readingTitle, shownValue, visitReasons, type InstrumentProfile, type Reading, type ReadingType, type Visit,
   type WalkRecord,
 } from '../../store';
+import { trees } from '../../diagnose';
 import { useApp } from '../context';
 import { navigate, usePath } from '../router';
 import { BackupPanel, BackupReminderNote } from '../visits/BackupPanel';
@@ -279,12 +280,20 @@ function expectedText(r: Reading, type: ReadingType | undefined): string {
   return `${range} ${unit?.label ?? ''} (${e.basis})`;
 }
 
+/** A walk step by its title, never its internal code. */
+function walkStepText(ref: string): string {
+  const [treeId, nodeId] = ref.split('/');
+  const tree = trees.find((t) => t.id === treeId);
+  const node = tree?.nodes.find((n) => n.id === nodeId);
+  return node ? `diagnosis walk: ${tree!.title}, “${node.title}”` : 'from a diagnosis walk';
+}
+
 function contextText(r: Reading): string {
   const said = keysInTitle(r.typeId, r.context);
   return Object.entries(r.context ?? {})
     .filter(([k]) => k !== 'convention' && k !== 'label' && k !== 'unit' && !said.includes(k))
     .map(([k, v]) => (k === 'mz' ? `m/z ${v}` : k === 'referenceMz' ? `relative to m/z ${v}` : k === 'gaugeGas' ? `gauge: ${v}` : k === 'setpoint' ? 'set value given'
-      : k === 'argonPercent' ? `m/z 40 = ${v} % of m/z 28` : k === 'formula' ? `formula ${v}` : `${k} ${v}`))
+      : k === 'argonPercent' ? `m/z 40 = ${v} % of m/z 28` : k === 'formula' ? `formula ${v}` : k === 'walkStep' ? walkStepText(String(v)) : `${k} ${v}`))
     .join(' · ');
 }
 
