@@ -72,7 +72,7 @@ describe('visit page', () => {
     const before = (await store!.listReadings('demo-visit-k8')).length;
     await act(async () => { (host.querySelector('[data-testid="reading-form"]') as HTMLFormElement).dispatchEvent(new Event('submit', { bubbles: true, cancelable: true })); });
     await settle(host, () => /out of range/.test(host.textContent ?? ''));
-    expect(host.textContent).toContain('Multiplier voltage (as set for the target gain) 9e9 V is out of range: enter a value between 0 and 6000 V.');
+    expect(host.textContent).toContain('Multiplier voltage (as set for the wanted gain) 9e9 V is out of range: enter a value between 0 and 6000 V.');
     expect((host.querySelector('#reading-value') as HTMLInputElement).value).toBe('9e9');
     expect(await store!.listReadings('demo-visit-k8')).toHaveLength(before);
 
@@ -85,6 +85,32 @@ describe('visit page', () => {
     const saved = (await store!.listReadings('demo-visit-k8')).filter((r) => r.entered.text === '1760');
     expect(saved).toHaveLength(1);
     expect(saved[0]).toMatchObject({ verdict: 'fail', value: 1760, expected: { basis: 'baseline', value: 1420 } });
+  });
+
+  it('offers the calibrant ions chosen for the instrument, shows the air band, and does not offer earlier-design types', async () => {
+    const host = await mount('/visits/demo-visit-k8');
+    await settle(host, () => host.querySelector('#reading-value') !== null);
+    const select = host.querySelector('#reading-type') as HTMLSelectElement;
+    const offered = [...select.options].map((o) => o.value);
+    expect(offered).toEqual(expect.arrayContaining(['calibrant-ratio', 'calibrant-isotope', 'air-ratio-28-32', 'water-18']));
+    for (const old of ['leak-water-18', 'leak-nitrogen-28', 'leak-ratio-28-32', 'leak-argon-40', 'relative-abundance', 'isotope-ratio']) expect(offered).not.toContain(old);
+    await act(async () => { select.value = 'calibrant-ratio'; select.dispatchEvent(new Event('change', { bubbles: true })); });
+    await settle(host, () => host.querySelector('[data-testid="calibrant-choices"] button') !== null);
+    const choices = [...host.querySelectorAll('[data-testid="calibrant-choices"] button')].map((b) => b.textContent);
+    expect(choices).toEqual(['m/z 219 as % of m/z 69', 'm/z 502 as % of m/z 69']);
+    expect(host.querySelector('[data-testid="calibrant-choices"]')?.textContent).toContain('chosen by the engineer on earlier visits');
+    await act(async () => { (host.querySelectorAll('[data-testid="calibrant-choices"] button')[1] as HTMLButtonElement).click(); });
+    expect((host.querySelector('#reading-mz') as HTMLInputElement).value).toBe('502');
+    expect((host.querySelector('#reading-referenceMz') as HTMLInputElement).value).toBe('69');
+    await act(async () => { type(host.querySelector('#reading-value'), '3.5'); });
+    await settle(host, () => /Expected: 3\.6 %/.test(host.querySelector('[data-testid="reading-preview"]')?.textContent ?? ''));
+
+    await act(async () => { select.value = 'air-ratio-28-32'; select.dispatchEvent(new Event('change', { bubbles: true })); });
+    await act(async () => { type(host.querySelector('#reading-value'), '3.8'); });
+    await settle(host, () => /Air looks like: 3\.7 to 4 ratio/.test(host.querySelector('[data-testid="reading-preview"]')?.textContent ?? ''));
+    const preview = host.querySelector('[data-testid="reading-preview"]')!.textContent!;
+    expect(preview).toContain('✗ fail');
+    expect(preview).toContain('CRC Handbook of Chemistry and Physics');
   });
 
   it('says so plainly when a visit does not exist', async () => {
