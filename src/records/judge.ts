@@ -320,12 +320,42 @@ export interface MakerLimit {
   low?: number;
   high?: number;
   source: string;
+  /**
+   * Only for readings whose context has these values (for example one calibrant ion pair: { mz: '502', referenceMz: '69' });
+   * absent, the limit applies to every reading of the type.
+   */
+  match?: Record<string, string>;
+}
+
+/** The limit for a reading: the most specific one whose `match` agrees with the reading's context. */
+export function limitFor(limits: readonly MakerLimit[], typeId: string, context: ReadingContext): MakerLimit | undefined {
+  let best: MakerLimit | undefined;
+  for (const l of limits) {
+    if (l.typeId !== typeId) continue;
+    const m = Object.entries(l.match ?? {});
+    if (!m.every(([k, v]) => String(context[k] ?? '') === v)) continue;
+    if (!best || m.length > Object.keys(best.match ?? {}).length) best = l;
+  }
+  return best;
+}
+
+/** Whether two limits take the same place (same type, same ions): saving one replaces the other. */
+export function sameLimitSlot(a: Pick<MakerLimit, 'typeId' | 'match'>, b: Pick<MakerLimit, 'typeId' | 'match'>): boolean {
+  const key = (l: Pick<MakerLimit, 'typeId' | 'match'>) => `${l.typeId}|${Object.entries(l.match ?? {}).sort(([x], [y]) => (x < y ? -1 : 1)).map(([k, v]) => `${k}=${v}`).join('&')}`;
+  return key(a) === key(b);
+}
+
+/** The ions a limit is for, in words ("m/z 502 as % of m/z 69"), or '' for every reading of its type. */
+export function limitMatchText(limit: Pick<MakerLimit, 'match'>): string {
+  const m = limit.match ?? {};
+  if (m.mz === undefined) return '';
+  return m.referenceMz !== undefined ? `m/z ${m.mz} as % of m/z ${m.referenceMz}` : `m/z ${m.mz}`;
 }
 
 /** A maker's limit is hard: inside passes, outside fails, no borderline band. */
 export function limitExpectation(limit: MakerLimit): Expectation {
   return {
-    low: limit.low, high: limit.high, basis: 'maker limit', source: `maker’s limit: ${limit.source}`,
+    low: limit.low, high: limit.high, basis: 'maker limit', source: `maker’s limit${limit.match ? ` for ${limitMatchText(limit)}` : ''}: ${limit.source}`,
     tolerance: { kind: 'absolute', pass: 0, borderline: 0 }, badSide: 'both',
   };
 }
@@ -355,7 +385,9 @@ export function makerLimitsFrom(value: unknown): MakerLimit[] {
     if (typeof l !== 'object' || l === null) return false;
     const r = l as Record<string, unknown>;
     const okNum = (x: unknown) => x === undefined || (typeof x === 'number' && Number.isFinite(x));
-    return typeof r.typeId === 'string' && typeof r.source === 'string' && okNum(r.low) && okNum(r.high) &&
+    const okMatch = r.match === undefined || (typeof r.match === 'object' && r.match !== null && !Array.isArray(r.match) &&
+      Object.values(r.match).every((v) => typeof v === 'string'));
+    return okMatch && typeof r.typeId === 'string' && typeof r.source === 'string' && okNum(r.low) && okNum(r.high) &&
       (r.low !== undefined || r.high !== undefined) && !(typeof r.low === 'number' && typeof r.high === 'number' && r.high < r.low);
   });
 }
@@ -370,6 +402,9 @@ export interface MakerLimitDraft {
   low: string;
   high: string;
   source: string;
+  /** Optional: the ions the limit is for (types matched by m/z, such as the calibrant ratios), as typed. */
+  mz?: string;
+  referenceMz?: string;
 }
 
 /** Check the "maker's limit" form; values are typed in the chosen unit and stored in base units. */
@@ -396,8 +431,25 @@ export function checkMakerLimit(type: ReadingType | undefined, d: MakerLimitDraf
   if (low !== undefined && high !== undefined && high < low) errors.high = 'Highest allowed must not be below the lowest allowed.';
   if (d.source.trim() === '') errors.source = 'Source is empty: say where the limit comes from (for example the maker’s site-preparation guide, section and edition).';
   else if (d.source.length > 300) errors.source = `Source is ${d.source.length} characters long: keep it to 300.`;
+  const match: Record<string, string> = {};
+  for (const k of ['mz', 'referenceMz'] as const) {
+    const t = (d[k] ?? '').trim();
+    if (t === '') continue;
+    const label = k === 'mz' ? 'For ion m/z' : 'As % of m/z';
+    const v = parseNumber(t);
+    if (!type.matchContext.includes(k)) errors[k] = `${label} does not apply to ${type.label}: leave it empty.`;
+    else if (v === null || v < 1 || v > 5000) errors[k] = `${label} “${t}” is not accepted: enter a value between 1 and 5000 u.`;
+    else match[k] = String(v);
+  }
+  if (match.referenceMz !== undefined && match.mz === undefined) errors.mz = 'For ion m/z is empty: say which ion the limit is for, or leave both empty.';
   if (Object.keys(errors).length) return { ok: false, errors };
-  return { ok: true, limit: { typeId: type.id, ...(low !== undefined ? { low } : {}), ...(high !== undefined ? { high } : {}), source: d.source.trim() } };
+  return {
+    ok: true,
+    limit: {
+      typeId: type.id, ...(low !== undefined ? { low } : {}), ...(high !== undefined ? { high } : {}), source: d.source.trim(),
+      ...(Object.keys(match).length ? { match } : {}),
+    },
+  };
 }
 
 /** The engine's scan law: V and U at the apex of the first stability region, per rod to ground. */

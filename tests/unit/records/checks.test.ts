@@ -2,8 +2,8 @@
 // instrument's own baseline, calibrant ions chosen by the engineer, and the instrument's own limit winning.
 import { describe, expect, it } from 'vitest';
 import {
-  assess, calibrantChoices, catalogue, catalogueType, checkEntry, expectationFor, judge, judgeAirSignature,
-  judgeWithLimit, readingTitle, startingCalibrantChoice, type EngineFunctions, type Reading, type ReadingType, type Visit,
+  assess, calibrantChoices, catalogue, catalogueType, checkEntry, checkMakerLimit, expectationFor, judge, judgeAirSignature,
+  judgeWithLimit, limitFor, makerLimitsFrom, readingTitle, sameLimitSlot, startingCalibrantChoice, type EngineFunctions, type Reading, type ReadingType, type Visit,
 } from '../../../src/records';
 import { airSignalRatios, DRY_AIR_PERCENT, LEAK_BANDS } from '../../../src/engine/leak';
 import { isotopeRatioM1 } from '../../../src/spectrum';
@@ -171,5 +171,32 @@ describe('wording', () => {
   it('no reading name or help names an artefact after one routine', () => {
     const words = /tune (file|report|ion)|autotune|target gain|performance report|domain C\d/i;
     for (const t of catalogue) expect(`${t.label} ${t.help} ${t.context.map((c) => `${c.label} ${c.help ?? ''}`).join(' ')}`, t.id).not.toMatch(words);
+  });
+});
+
+describe('a limit can be entered for one calibrant ion pair', () => {
+  const ratio = catalogueType('calibrant-ratio')!;
+  const draft = { typeId: 'calibrant-ratio', unitId: 'percent', low: '2.5', high: '5', source: 'maker’s acceptance sheet, table 2 (invented for this test)' };
+
+  it('is checked, kept with its ions, and found only for readings of those ions; the most specific limit is used', () => {
+    const r = checkMakerLimit(ratio, { ...draft, mz: '502', referenceMz: '69' });
+    expect(r.ok && r.limit).toEqual({ typeId: 'calibrant-ratio', low: 2.5, high: 5, source: draft.source, match: { mz: '502', referenceMz: '69' } });
+    if (!r.ok) return;
+    const general = { typeId: 'calibrant-ratio', low: 20, high: 60, source: 'site rule (invented)' };
+    expect(limitFor([general, r.limit], 'calibrant-ratio', { mz: 502, referenceMz: 69 })).toBe(r.limit);
+    expect(limitFor([general, r.limit], 'calibrant-ratio', { mz: 219, referenceMz: 69 })).toBe(general);
+    expect(limitFor([r.limit], 'calibrant-ratio', { mz: 219, referenceMz: 69 })).toBeUndefined();
+    expect(sameLimitSlot(r.limit, { typeId: 'calibrant-ratio', match: { referenceMz: '69', mz: '502' } })).toBe(true);
+    expect(sameLimitSlot(r.limit, general)).toBe(false);
+    expect(makerLimitsFrom([r.limit, { ...general, match: { mz: 5 } }])).toEqual([r.limit]);
+  });
+
+  it('refuses ions the type does not match on, and a reference ion without the ion', () => {
+    const water = checkMakerLimit(catalogueType('water-18')!, { ...draft, typeId: 'water-18', mz: '18' });
+    expect(!water.ok && water.errors.mz).toMatch(/does not apply/);
+    const noIon = checkMakerLimit(ratio, { ...draft, referenceMz: '69' });
+    expect(!noIon.ok && noIon.errors.mz).toMatch(/For ion m\/z is empty/);
+    const bad = checkMakerLimit(ratio, { ...draft, mz: '9000' });
+    expect(!bad.ok && bad.errors.mz).toMatch(/between 1 and 5000 u/);
   });
 });

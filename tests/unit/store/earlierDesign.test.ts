@@ -81,3 +81,25 @@ describe('earlier-design reading types', () => {
     b.close();
   });
 });
+
+describe('the engineer’s limit for one calibrant ion pair wins over the baseline', () => {
+  it('judges a saved reading of that pair by the limit, other pairs by their baseline, and deletes only that limit', async () => {
+    const s = await openStore(freshName(), {}, { engine: testEngine });
+    await s.loadDemo();
+    const saved = await s.saveMakerLimit('demo-gcms-kestrel', {
+      typeId: 'calibrant-ratio', unitId: 'percent', low: '1', high: '3', source: 'site method, table 1 (invented for this test)', mz: '502', referenceMz: '69',
+    });
+    expect(saved.ok).toBe(true);
+    // Kestrel's baseline has m/z 502 at 3.6 % of m/z 69: 2.2 % is 39 % off the baseline, yet inside the engineer's 1–3 %.
+    const r502 = await s.addReading({ visitId: 'demo-visit-k8', typeId: 'calibrant-ratio', phase: 'as-found', value: 2.2, entered: { text: '2.2', unit: '%' }, context: { mz: 502, referenceMz: 69 } });
+    expect(r502).toMatchObject({ verdict: 'pass', expected: { basis: 'maker limit' } });
+    expect(r502.expected?.source).toMatch(/m\/z 502 as % of m\/z 69: site method/);
+    const r219 = await s.addReading({ visitId: 'demo-visit-k8', typeId: 'calibrant-ratio', phase: 'as-found', value: 30, entered: { text: '30', unit: '%' }, context: { mz: 219, referenceMz: 69 } });
+    expect(r219).toMatchObject({ verdict: 'fail', expected: { basis: 'baseline', value: 48 } });
+    await s.deleteMakerLimit('demo-gcms-kestrel', 'calibrant-ratio');
+    expect(await s.listMakerLimits('demo-gcms-kestrel')).toHaveLength(1);
+    await s.deleteMakerLimit('demo-gcms-kestrel', 'calibrant-ratio', { mz: '502', referenceMz: '69' });
+    expect(await s.listMakerLimits('demo-gcms-kestrel')).toEqual([]);
+    s.close();
+  });
+});
