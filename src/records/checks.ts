@@ -20,6 +20,12 @@ export const EARLIER_DESIGN_TYPES: readonly string[] = [
   'leak-water-18', 'leak-nitrogen-28', 'leak-ratio-28-32', 'leak-argon-40', 'relative-abundance', 'isotope-ratio',
 ];
 
+/** The new type a reading of an earlier-design type is entered as now (an unsaved form is carried over to it). */
+export const EARLIER_DESIGN_SUCCESSOR: Readonly<Record<string, string>> = {
+  'leak-water-18': 'water-18', 'leak-nitrogen-28': 'air-ratio-28-32', 'leak-ratio-28-32': 'air-ratio-28-32', 'leak-argon-40': 'air-ratio-28-32',
+  'relative-abundance': 'calibrant-ratio', 'isotope-ratio': 'calibrant-isotope',
+};
+
 /** Where the air bands come from, in words (the engine's bands and their classes, and the dry-air composition). */
 export function airBandSource(): string {
   const computed = airSignalRatios();

@@ -2,7 +2,7 @@
 // expected value and the verdict before saving. The form is a draft from the first keystroke.
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import {
-  calibrantChoices, CALIBRANT_ISOTOPE_TYPE, CALIBRANT_RATIO_TYPE, checkEntry, formatNumber, fromBase, parseNumber, toBase, verdictWords,
+  calibrantChoices, CALIBRANT_ISOTOPE_TYPE, CALIBRANT_RATIO_TYPE, checkEntry, EARLIER_DESIGN_SUCCESSOR, formatNumber, fromBase, parseNumber, toBase, verdictWords,
   type CalibrantChoice, type Expectation, type InstrumentProfile, type Judgement, type Reading, type ReadingType, type Visit,
 } from '../../store';
 import { useApp } from '../context';
@@ -66,7 +66,10 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
 
   useEffect(() => {
     if (!store || draft || choosable.length === 0) return;
-    void store.getDraft<ReadingDraft>(draftKey).then((kept) => {
+    void store.getDraft<ReadingDraft>(draftKey).then((stored) => {
+      // A form left unsaved on an earlier-design type carries over to its successor, with what was typed.
+      const successor = stored ? EARLIER_DESIGN_SUCCESSOR[stored.typeId] : undefined;
+      const kept = stored && successor ? { ...stored, typeId: successor, unitId: choosable.find((t) => t.id === successor)?.defaultUnit ?? stored.unitId } : stored;
       if (kept && choosable.some((t) => t.id === kept.typeId)) {
         setDraft(kept);
         if (kept.text || kept.note) markUnsaved(draftKey, 'a reading being entered');
