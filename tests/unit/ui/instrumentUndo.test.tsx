@@ -12,8 +12,10 @@ import { freshName, registerCleanup } from '../store/helpers';
 
 registerCleanup();
 
-async function settle() {
+async function settle(until: () => boolean | Promise<boolean> = () => true) {
   for (let i = 0; i < 8; i++) await act(async () => { await new Promise((r) => setTimeout(r, 0)); });
+  // Then wait for the condition itself (a restore writes every visit and reading), not for a count of ticks.
+  for (let i = 0; i < 500 && !(await until()); i++) await act(async () => { await new Promise((r) => setTimeout(r, 10)); });
 }
 
 async function mount(store: Store): Promise<{ host: HTMLElement; notify: ReturnType<typeof vi.fn> }> {
@@ -61,7 +63,7 @@ describe('restore a deleted instrument after a reload', () => {
     expect(offer?.textContent).toContain(`“${kestrel.name}” was deleted with ${visits.length} visits and ${readings.length} readings`);
     const button = [...offer!.querySelectorAll('button')].find((b) => b.textContent === `Restore deleted ${kestrel.name}`)!;
     await act(async () => { button.click(); });
-    await settle();
+    await settle(() => second.host.querySelector('[data-testid="restore-deleted"]') === null);
     expect(await reopened.getInstrument(kestrel.id)).toEqual(kestrel);
     expect((await reopened.listVisits(kestrel.id)).map((v) => v.id)).toEqual(visits.map((v) => v.id));
     expect((await reopened.listInstrumentReadings(kestrel.id)).length).toBe(readings.length);
