@@ -49,12 +49,12 @@ export interface ContextField {
 }
 
 /** How a type's expected value is calculated when the instrument has no baseline for it. */
-export type ComputedExpectation = 'rf-amplitude' | 'dc-amplitude' | 'rf-frequency' | 'setpoint' | 'isotope-ratio';
+export type ComputedExpectation = 'rf-amplitude' | 'dc-amplitude' | 'rf-frequency' | 'setpoint' | 'air-signature' | 'isotope-formula';
 
 export interface ReadingType {
   id: string;
   label: string;
-  group: 'vacuum' | 'source' | 'analyser' | 'detector' | 'performance' | 'leak-check' | 'own';
+  group: 'vacuum' | 'source' | 'analyser' | 'detector' | 'performance' | 'leak-check' | 'own' | 'earlier';
   baseUnit: string;
   units: readonly UnitDef[];
   defaultUnit: string;
@@ -78,6 +78,8 @@ export interface ReadingType {
   help: string;
   /** Added by the user on this device. */
   own?: boolean;
+  /** A maker's or engineer's limit entered for the instrument replaces the usual check (not just the generic range). */
+  limitWins?: boolean;
 }
 
 const gaugeGasWords = {
@@ -112,26 +114,16 @@ const setpoint = (unit: string, min: number, max: number): ContextField => ({
   help: 'The value the instrument was set to, in the same unit as the reading; the reading is judged against it.',
 });
 
-/** Calibrant ions with a published M+1/M, for the isotope-ratio check (IUPAC CIAAW isotopic compositions, Meija et al., Pure Appl. Chem. 88 (2016) 293). */
-export const isotopeRatioByMz: Readonly<Record<number, { percent: number; formula: string }>> = {
-  // IUPAC CIAAW isotopic abundances: 13C/12C = 0.01082, 15N/14N = 0.00365; M+1/M ≈ nC·1.082 % + nN·0.365 %.
-  69: { percent: 1 * 1.082, formula: 'CF3+' },
-  219: { percent: 4 * 1.082, formula: 'C4F9+' },
-  502: { percent: 9 * 1.082 + 1 * 0.365, formula: 'C9F20N+' },
-};
-
 const gcKinds: InstrumentKind[] = ['gc-ms-single', 'gc-ms-triple'];
 const lcKinds: InstrumentKind[] = ['lc-ms-single', 'lc-ms-triple'];
 
-/** A leak-check peak as a percentage of the reference ion, with the generic ceiling for GC-MS and LC-MS (from memory). */
-function leakPeak(mz: number, gas: string, ceiling: number, help: string): ReadingType {
+/** An earlier-design background peak as a percentage of a reference ion: read and shown, judged against the baseline only. */
+function earlierLeakPeak(mz: number, gas: string, help: string): ReadingType {
   return {
-    id: `leak-${gas}-${mz}`, label: `Leak check: ${gas}, m/z ${mz}`, group: 'leak-check', baseUnit: '%', units: percentUnits,
+    id: `leak-${gas}-${mz}`, label: `Earlier design: ${gas}, m/z ${mz} as % of a reference ion`, group: 'earlier', baseUnit: '%', units: percentUnits,
     defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'high',
     baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
-    generic: [{ kinds: [...gcKinds, ...lcKinds], high: ceiling, source: `m/z ${mz} below about ${ceiling} % of the reference ion (from memory)` }],
-    genericMargin: { kind: 'factor', pass: 1, borderline: 2 },
-    context: [{ key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true, defaultValue: 69 }],
+    context: [{ key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true }],
     matchContext: ['referenceMz'], trendScale: 'log',
     help,
   };
@@ -200,14 +192,14 @@ export const catalogue: readonly ReadingType[] = [
     help: 'Counter or oscilloscope through a loosely coupled pickup loop: a probe on the tank detunes it.',
   },
   {
-    id: 'multiplier-voltage', label: 'Multiplier voltage (as set for the target gain)', group: 'detector', baseUnit: 'V', units: voltageUnits,
+    id: 'multiplier-voltage', label: 'Multiplier voltage (as set for the wanted gain)', group: 'detector', baseUnit: 'V', units: voltageUnits,
     defaultUnit: 'V', plausible: { min: 0, max: 6000 }, badSide: 'high',
     // The voltage climbs as the multiplier ages (common practice); +10 % over the baseline is worth planning for [cp].
     baselineTolerance: { kind: 'relative', pass: 0.1, borderline: 0.2 },
     generic: [{ low: 1000, high: 3000, source: 'discrete-dynode multipliers 1000 to 3000 V (common practice)' }],
     genericMargin: { kind: 'relative', pass: 0, borderline: 0.1 },
     context: [], matchContext: [], trendScale: 'linear',
-    help: 'The voltage the tune needed to reach its target gain. Enter its magnitude.',
+    help: 'The voltage the instrument set at its latest gain adjustment (from the calibration report or the read-back). Enter its magnitude.',
   },
   {
     id: 'emission-current', label: 'Emission current', group: 'source', baseUnit: 'A', units: currentUnits,
@@ -240,49 +232,103 @@ export const catalogue: readonly ReadingType[] = [
   {
     id: 'peak-width', label: 'Peak width (FWHM) at a calibrant ion', group: 'performance', baseUnit: 'u', units: massUnits,
     defaultUnit: 'u', plausible: { min: 0.01, max: 10 }, badSide: 'both',
+    // Against the instrument's own baseline only: no preset width limit; a maker's or engineer's limit replaces it.
     baselineTolerance: { kind: 'absolute', pass: 0.05, borderline: 0.1 },
-    generic: [{ low: 0.5, high: 0.8, source: 'unit resolution: FWHM 0.5 to 0.8 u (common practice)' }],
-    genericMargin: { kind: 'absolute', pass: 0, borderline: 0.1 },
+    limitWins: true,
     context: [ionMz('Calibrant ion m/z')], matchContext: ['mz'], trendScale: 'linear',
-    help: 'Full width at half maximum from a profile scan of the calibrant ion.',
+    help: 'Full width at half maximum from a profile scan of a calibrant ion you chose for this instrument. Judged against its baseline, or the limit entered for the instrument.',
+  },
+  // ---- Calibrant check: ions and ratios chosen by the engineer for each instrument (see checks.ts) ----
+  {
+    id: 'calibrant-ratio', label: 'Calibrant: one ion as % of another', group: 'performance', baseUnit: '%',
+    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 100000 }, badSide: 'both',
+    // Against the baseline within about ±20–30 % relative (common practice); regulated methods set their own windows,
+    // entered as the instrument's limit, which then replaces this check.
+    baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
+    limitWins: true,
+    context: [
+      { ...ionMz('Ion m/z'), help: 'A calibrant ion you chose for this instrument.' },
+      { key: 'referenceMz', label: 'As % of m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true, help: 'The ion it is compared with; keep it the same from visit to visit.' },
+    ],
+    matchContext: ['mz', 'referenceMz'], trendScale: 'linear',
+    help: 'Height of one calibrant ion as a percentage of another, both chosen by you for this instrument. Judged against its baseline, or the limit entered for the instrument.',
   },
   {
-    id: 'relative-abundance', label: 'Relative abundance of a reference ion', group: 'performance', baseUnit: '%',
+    id: 'calibrant-isotope', label: 'Calibrant: isotope ratio M+1/M', group: 'performance', baseUnit: '%',
     units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 1000 }, badSide: 'both',
-    // Within about ±20–30 % relative of baseline (common practice); regulated methods set their own windows.
+    baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
+    computed: 'isotope-formula',
+    // Measured M+1/M within about ±20 % of the calculated value on a clean, unsaturated peak (common practice).
+    computedTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
+    computedSource: 'calculated from the ion’s formula with IUPAC isotopic abundances (representative compositions, as tabulated by NIST)',
+    limitWins: true,
+    context: [
+      { ...ionMz('Ion m/z (M)'), help: 'A calibrant ion you chose for this instrument.' },
+      { key: 'formula', label: 'Ion formula', kind: 'text', help: 'Optional, for example C4F9: gives the calculated M+1/M to judge against when there is no baseline.' },
+    ],
+    matchContext: ['mz'], trendScale: 'linear',
+    help: 'Height at M+1 as a percentage of M. A ratio well above the calculated one on a strong ion points to detector saturation.',
+  },
+  // ---- Background gas: air by the leak tools' peak-ratio method, water against the baseline (see checks.ts) ----
+  {
+    id: 'air-ratio-28-32', label: 'Background: air check, m/z 28 to 32', group: 'leak-check', baseUnit: 'ratio', units: ratioUnits,
+    defaultUnit: 'ratio', plausible: { min: 0, max: 10000 }, badSide: 'both',
+    baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
+    computed: 'air-signature',
+    limitWins: true,
+    context: [
+      { key: 'argonPercent', label: 'm/z 40 as % of m/z 28', kind: 'number', unit: '%', min: 0, max: 1000,
+        help: 'Optional, from the same scan: argon that agrees with air confirms an air leak; argon that does not says another gas is mixed in.' },
+    ],
+    matchContext: [], trendScale: 'linear',
+    help: 'Height at m/z 28 divided by the height at m/z 32, from one background scan. Judged by the peak-ratio method of the leak tools: an air-like ratio means an air leak is likely (dry air N2/O2 = 3.73 by volume, CRC).',
+  },
+  {
+    id: 'water-18', label: 'Background: water, m/z 18 as % of a chosen ion', group: 'leak-check', baseUnit: '%', units: percentUnits,
+    defaultUnit: 'percent', plausible: { min: 0, max: 100000 }, badSide: 'high',
+    // No preset limit: water depends on the instrument and its history. Judged against its own baseline; twice the
+    // baseline is worth a look and three times points to a leak or wet carrier (common practice).
+    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
+    limitWins: true,
+    context: [{ key: 'referenceMz', label: 'As % of m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true,
+      help: 'The ion you compare with (for example a calibrant ion); keep it the same from visit to visit.' }],
+    matchContext: ['referenceMz'], trendScale: 'log',
+    help: 'Height at m/z 18 as a percentage of an ion you choose. No preset limit: it is judged against this instrument’s baseline and its trend. Water falls for hours to days after a vent.',
+  },
+  // ---- Earlier design: kept so older readings and backups still read, show and trend; not offered for new readings ----
+  {
+    id: 'relative-abundance', label: 'Earlier design: relative abundance of a reference ion', group: 'earlier', baseUnit: '%',
+    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 1000 }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
     context: [
       ionMz('Ion m/z'),
       { key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true },
     ],
     matchContext: ['mz', 'referenceMz'], trendScale: 'linear',
-    help: 'Abundance of this ion as a percentage of the reference ion, from the instrument\'s own performance report.',
+    help: 'An ion as a percentage of a reference ion, recorded before the calibrant check was rebuilt. New readings: “Calibrant: one ion as % of another”.',
   },
   {
-    id: 'isotope-ratio', label: 'Isotope ratio M+1/M of a calibrant ion', group: 'performance', baseUnit: '%',
+    id: 'isotope-ratio', label: 'Earlier design: isotope ratio M+1/M of a calibrant ion', group: 'earlier', baseUnit: '%',
     units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 100 }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
-    computed: 'isotope-ratio',
-    computedTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
-    computedSource: 'from IUPAC isotopic abundances (13C 1.082 %, 15N 0.365 %); measured within ±20 % (common practice)',
     context: [ionMz('Ion m/z (M)')], matchContext: ['mz'], trendScale: 'linear',
-    help: 'A ratio well above theory on a strong ion points to detector saturation.',
+    help: 'Recorded before the calibrant check was rebuilt. New readings: “Calibrant: isotope ratio M+1/M”, which takes the ion’s formula.',
   },
-  leakPeak(18, 'water', 20, 'Intensity of m/z 18 as a percentage of the reference ion. Water falls for hours after a vent.'),
-  leakPeak(28, 'nitrogen', 10, 'Intensity of m/z 28 as a percentage of the reference ion.'),
+  earlierLeakPeak(18, 'water', 'Recorded before the background check was rebuilt. New readings: “Background: water”.'),
+  earlierLeakPeak(28, 'nitrogen', 'Recorded before the background check was rebuilt. New readings: “Background: air check”.'),
   {
-    id: 'leak-ratio-28-32', label: 'Leak check: ratio m/z 28 to 32', group: 'leak-check', baseUnit: 'ratio', units: ratioUnits,
+    id: 'leak-ratio-28-32', label: 'Earlier design: ratio m/z 28 to 32', group: 'earlier', baseUnit: 'ratio', units: ratioUnits,
     defaultUnit: 'ratio', plausible: { min: 0, max: 10000 }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
     context: [], matchContext: [], trendScale: 'linear',
-    help: 'About 3.7 to 4 looks like air (dry air N2/O2 = 3.73 by volume, CRC); judge it together with m/z 28 and 40.',
+    help: 'Recorded before the background check was rebuilt. New readings: “Background: air check, m/z 28 to 32”.',
   },
   {
-    id: 'leak-argon-40', label: 'Leak check: argon, m/z 40 relative to 28', group: 'leak-check', baseUnit: '%', units: percentUnits,
+    id: 'leak-argon-40', label: 'Earlier design: argon, m/z 40 relative to 28', group: 'earlier', baseUnit: '%', units: percentUnits,
     defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
     context: [], matchContext: [], trendScale: 'linear',
-    help: 'About 1.7 % of m/z 28 in an air leak (computed from dry-air composition, N2 78.08 %, Ar 0.934 %: CRC Handbook of Chemistry and Physics, composition of dry air).',
+    help: 'Recorded before the background check was rebuilt. New readings give 40:28 with the air check.',
   },
   {
     id: 'noted-value', label: 'Noted value', group: 'own', baseUnit: 'as noted', units: [{ id: 'as-noted', label: 'as noted', factor: 1 }],

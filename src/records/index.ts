@@ -6,6 +6,7 @@ export * from './conventions';
 export * from './profile';
 export * from './catalogue';
 export * from './judge';
+export * from './checks';
 export * from './visits';
 export * from './validate';
 export * from './trends';

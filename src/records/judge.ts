@@ -1,7 +1,9 @@
 // Reading entry checks, expected values and verdicts. Pure functions: no storage, no DOM.
+import { LEAK_BANDS } from '../engine/leak';
 import { dcForMass, rfForMass } from '../engine/scanLaw';
 import type { BadSide, ReadingType, ToleranceRule } from './catalogue';
-import { isotopeRatioByMz, unitOf } from './catalogue';
+import { unitOf } from './catalogue';
+import { airBandSource, judgeAirSignature } from './checks';
 import { parseNumber } from './numberText';
 import type { InstrumentProfile, Verdict } from './types';
 import { formatNumber } from './numberText';
@@ -18,12 +20,18 @@ export interface EngineFunctions {
   rfForMass(args: { mz: number; r0: number; frequency: number; q?: number }): number;
   /** DC on one rod pair to ground at the apex; when absent the store uses U = 0.16784·V (apex U/V, Dawson 1976). */
   dcForMass?(args: { mz: number; r0: number; frequency: number }): number;
+  /**
+   * Isotope ratio M+1/M (per cent) of an ion formula, and the ion's monoisotopic m/z (charge +1). Throws on a formula
+   * it cannot read. Given by the UI from the spectrum module; without it a calibrant isotope ratio is judged against
+   * its baseline only.
+   */
+  isotopeM1?(formula: string): { mz: number; percent: number };
 }
 
 /** Apex U/V of the first stability region, a/(2q) = 0.23699/(2·0.70600) (Dawson, Quadrupole Mass Spectrometry and Its Applications, 1976). */
 export const APEX_DC_TO_RF = 0.16784;
 
-export type ExpectationBasis = 'baseline' | 'maker limit' | 'calculated' | 'set value' | 'published' | 'generic';
+export type ExpectationBasis = 'baseline' | 'maker limit' | 'calculated' | 'set value' | 'published' | 'generic' | 'air signature';
 
 export interface Expectation {
   /** A single expected value, base units. */
@@ -36,6 +44,10 @@ export interface Expectation {
   source: string;
   tolerance: ToleranceRule;
   badSide: BadSide;
+  /** The air band of the leak tools (low–high is the band): inside it is an air signature, so the verdict runs the other way. */
+  airSignature?: { argonPercent?: number };
+  /** A maker's or engineer's limit entered for the instrument replaces this expectation. */
+  yieldsToLimit?: boolean;
 }
 
 export interface Judgement {
@@ -78,6 +90,7 @@ const basisWords: Record<ExpectationBasis, string> = {
   'set value': 'the set value',
   published: 'the published value',
   generic: 'the generic value',
+  'air signature': 'the air band',
 };
 
 function describe(rule: ToleranceRule, dev: number, unit: string): string {
@@ -98,6 +111,7 @@ function describe(rule: ToleranceRule, dev: number, unit: string): string {
  */
 export function judge(x: number, e: Expectation, unit = ''): Judgement {
   if (!Number.isFinite(x)) return { verdict: 'fail', deviation: Infinity, summary: 'not a finite number' };
+  if (e.airSignature) return judgeAirSignature(x, e.airSignature.argonPercent);
   if (e.value !== undefined) {
     const ref = e.value;
     if ((e.badSide === 'high' && x <= ref) || (e.badSide === 'low' && x >= ref)) {
@@ -168,11 +182,30 @@ function calculated(inp: ExpectationInput): Expectation | undefined {
       const s = num(context.setpoint);
       return s === undefined ? undefined : { value: s, basis: 'set value', source, tolerance, badSide: type.badSide };
     }
-    case 'isotope-ratio': {
-      const known = mz === undefined ? undefined : isotopeRatioByMz[mz];
-      return known ? { value: known.percent, basis: 'published', source: `${source}; ${known.formula}`, tolerance, badSide: type.badSide } : undefined;
+    case 'isotope-formula': {
+      const formula = typeof context.formula === 'string' ? context.formula.trim() : '';
+      if (!engine?.isotopeM1 || !formula || mz === undefined) return undefined;
+      let got: { mz: number; percent: number };
+      try {
+        got = engine.isotopeM1(formula);
+      } catch {
+        return undefined;
+      }
+      // The formula must be the ion the engineer named: its monoisotopic m/z within half a unit of the typed m/z.
+      if (!(Math.abs(got.mz - mz) <= 0.5) || !Number.isFinite(got.percent)) return undefined;
+      return { value: got.percent, basis: 'calculated', source: `${source}; ${formula}+ at m/z ${formatNumber(got.mz, 6)}`, tolerance, badSide: type.badSide, yieldsToLimit: true };
     }
   }
+}
+
+/** The air band of the leak tools for a 28:32 ratio, with the argon of the same scan when it was given. */
+function airSignatureExpectation(type: ReadingType, context: ReadingContext): Expectation {
+  const argonPercent = num(context.argonPercent);
+  return {
+    low: LEAK_BANDS.airCore.low, high: LEAK_BANDS.airCore.high, basis: 'air signature', source: airBandSource(),
+    tolerance: { kind: 'absolute', pass: 0, borderline: 0 }, badSide: type.badSide,
+    airSignature: argonPercent !== undefined ? { argonPercent } : {}, yieldsToLimit: true,
+  };
 }
 
 /**
@@ -182,10 +215,13 @@ function calculated(inp: ExpectationInput): Expectation | undefined {
  */
 export function expectationFor(inp: ExpectationInput): Expectation | undefined {
   const { type, instrument, baseline } = inp;
+  // Air is judged by its signature, never by how far a ratio moved from the baseline's.
+  if (type.computed === 'air-signature') return airSignatureExpectation(type, inp.context);
   if (baseline && Number.isFinite(baseline.value)) {
     return {
       value: baseline.value, basis: 'baseline', tolerance: type.baselineTolerance, badSide: type.badSide,
       source: `the instrument’s baseline (as-left, visit of ${baseline.visitStartedAt.slice(0, 10)})`,
+      ...(type.limitWins ? { yieldsToLimit: true } : {}),
     };
   }
   const c = calculated(inp);
@@ -284,12 +320,42 @@ export interface MakerLimit {
   low?: number;
   high?: number;
   source: string;
+  /**
+   * Only for readings whose context has these values (for example one calibrant ion pair: { mz: '502', referenceMz: '69' });
+   * absent, the limit applies to every reading of the type.
+   */
+  match?: Record<string, string>;
+}
+
+/** The limit for a reading: the most specific one whose `match` agrees with the reading's context. */
+export function limitFor(limits: readonly MakerLimit[], typeId: string, context: ReadingContext): MakerLimit | undefined {
+  let best: MakerLimit | undefined;
+  for (const l of limits) {
+    if (l.typeId !== typeId) continue;
+    const m = Object.entries(l.match ?? {});
+    if (!m.every(([k, v]) => String(context[k] ?? '') === v)) continue;
+    if (!best || m.length > Object.keys(best.match ?? {}).length) best = l;
+  }
+  return best;
+}
+
+/** Whether two limits take the same place (same type, same ions): saving one replaces the other. */
+export function sameLimitSlot(a: Pick<MakerLimit, 'typeId' | 'match'>, b: Pick<MakerLimit, 'typeId' | 'match'>): boolean {
+  const key = (l: Pick<MakerLimit, 'typeId' | 'match'>) => `${l.typeId}|${Object.entries(l.match ?? {}).sort(([x], [y]) => (x < y ? -1 : 1)).map(([k, v]) => `${k}=${v}`).join('&')}`;
+  return key(a) === key(b);
+}
+
+/** The ions a limit is for, in words ("m/z 502 as % of m/z 69"), or '' for every reading of its type. */
+export function limitMatchText(limit: Pick<MakerLimit, 'match'>): string {
+  const m = limit.match ?? {};
+  if (m.mz === undefined) return '';
+  return m.referenceMz !== undefined ? `m/z ${m.mz} as % of m/z ${m.referenceMz}` : `m/z ${m.mz}`;
 }
 
 /** A maker's limit is hard: inside passes, outside fails, no borderline band. */
 export function limitExpectation(limit: MakerLimit): Expectation {
   return {
-    low: limit.low, high: limit.high, basis: 'maker limit', source: `maker’s limit: ${limit.source}`,
+    low: limit.low, high: limit.high, basis: 'maker limit', source: `maker’s limit${limit.match ? ` for ${limitMatchText(limit)}` : ''}: ${limit.source}`,
     tolerance: { kind: 'absolute', pass: 0, borderline: 0 }, badSide: 'both',
   };
 }
@@ -298,14 +364,15 @@ const rank: Record<Verdict, number> = { pass: 0, borderline: 1, fail: 2 };
 
 /**
  * Combine the usual expectation with the instrument's own limit. A maker's limit replaces a generic range
- * (the maker knows the instrument better); against a baseline or a calculation the worse verdict wins, so a
- * reading inside its drift tolerance but outside the maker's limit still fails.
+ * (the maker knows the instrument better), and replaces any expectation marked `yieldsToLimit` (the background-gas and
+ * calibrant checks: the limit entered for the instrument wins); against other baselines or calculations the worse
+ * verdict wins, so a reading inside its drift tolerance but outside the maker's limit still fails.
  */
 export function judgeWithLimit(
   value: number, unit: string, primary: Expectation | undefined, limit: MakerLimit | undefined,
 ): { expectation: Expectation; judgement: Judgement } | undefined {
   const fromLimit = limit ? { expectation: limitExpectation(limit), judgement: judge(value, limitExpectation(limit), unit) } : undefined;
-  if (!primary || primary.basis === 'generic') return fromLimit ?? (primary ? { expectation: primary, judgement: judge(value, primary, unit) } : undefined);
+  if (!primary || primary.basis === 'generic' || primary.yieldsToLimit) return fromLimit ?? (primary ? { expectation: primary, judgement: judge(value, primary, unit) } : undefined);
   const usual = { expectation: primary, judgement: judge(value, primary, unit) };
   if (!fromLimit) return usual;
   return rank[fromLimit.judgement.verdict] > rank[usual.judgement.verdict] ? fromLimit : usual;
@@ -318,7 +385,9 @@ export function makerLimitsFrom(value: unknown): MakerLimit[] {
     if (typeof l !== 'object' || l === null) return false;
     const r = l as Record<string, unknown>;
     const okNum = (x: unknown) => x === undefined || (typeof x === 'number' && Number.isFinite(x));
-    return typeof r.typeId === 'string' && typeof r.source === 'string' && okNum(r.low) && okNum(r.high) &&
+    const okMatch = r.match === undefined || (typeof r.match === 'object' && r.match !== null && !Array.isArray(r.match) &&
+      Object.values(r.match).every((v) => typeof v === 'string'));
+    return okMatch && typeof r.typeId === 'string' && typeof r.source === 'string' && okNum(r.low) && okNum(r.high) &&
       (r.low !== undefined || r.high !== undefined) && !(typeof r.low === 'number' && typeof r.high === 'number' && r.high < r.low);
   });
 }
@@ -333,6 +402,9 @@ export interface MakerLimitDraft {
   low: string;
   high: string;
   source: string;
+  /** Optional: the ions the limit is for (types matched by m/z, such as the calibrant ratios), as typed. */
+  mz?: string;
+  referenceMz?: string;
 }
 
 /** Check the "maker's limit" form; values are typed in the chosen unit and stored in base units. */
@@ -359,8 +431,25 @@ export function checkMakerLimit(type: ReadingType | undefined, d: MakerLimitDraf
   if (low !== undefined && high !== undefined && high < low) errors.high = 'Highest allowed must not be below the lowest allowed.';
   if (d.source.trim() === '') errors.source = 'Source is empty: say where the limit comes from (for example the maker’s site-preparation guide, section and edition).';
   else if (d.source.length > 300) errors.source = `Source is ${d.source.length} characters long: keep it to 300.`;
+  const match: Record<string, string> = {};
+  for (const k of ['mz', 'referenceMz'] as const) {
+    const t = (d[k] ?? '').trim();
+    if (t === '') continue;
+    const label = k === 'mz' ? 'For ion m/z' : 'As % of m/z';
+    const v = parseNumber(t);
+    if (!type.matchContext.includes(k)) errors[k] = `${label} does not apply to ${type.label}: leave it empty.`;
+    else if (v === null || v < 1 || v > 5000) errors[k] = `${label} “${t}” is not accepted: enter a value between 1 and 5000 u.`;
+    else match[k] = String(v);
+  }
+  if (match.referenceMz !== undefined && match.mz === undefined) errors.mz = 'For ion m/z is empty: say which ion the limit is for, or leave both empty.';
   if (Object.keys(errors).length) return { ok: false, errors };
-  return { ok: true, limit: { typeId: type.id, ...(low !== undefined ? { low } : {}), ...(high !== undefined ? { high } : {}), source: d.source.trim() } };
+  return {
+    ok: true,
+    limit: {
+      typeId: type.id, ...(low !== undefined ? { low } : {}), ...(high !== undefined ? { high } : {}), source: d.source.trim(),
+      ...(Object.keys(match).length ? { match } : {}),
+    },
+  };
 }
 
 /** The engine's scan law: V and U at the apex of the first stability region, per rod to ground. */

@@ -2,6 +2,7 @@
 // text only, plus the print stylesheet the in-app view uses. Our own plain layout: a record sheet with
 // a hand-over summary, readings grouped by phase, and sign-off lines.
 import type { ReadingType } from './catalogue';
+import { keysInTitle, readingTitle } from './checks';
 import { verdictWords } from './judge';
 import { visitReasons } from './validate';
 import type { InstrumentProfile, Reading, Visit, WalkRecord } from './types';
@@ -70,9 +71,12 @@ function readingRows(list: readonly Reading[], typeOf: ReportInput['typeOf']): s
   if (list.length === 0) return '<p>None recorded.</p>';
   const rows = list.map((r) => {
     const t = typeOf(r.typeId);
-    const ctx = Object.entries(r.context ?? {}).filter(([k]) => k !== 'convention').map(([k, v]) => `${k} ${v}`).join(', ');
+    const said = keysInTitle(r.typeId, r.context);
+    // A walk step is named by its tree and step on screen; its internal code stays in the CSV only.
+    const ctx = Object.entries(r.context ?? {}).filter(([k]) => k !== 'convention' && !said.includes(k))
+      .map(([k, v]) => (k === 'walkStep' ? 'from a diagnosis walk' : `${k} ${v}`)).join(', ');
     const v = r.verdict ? `${verdictWords[r.verdict].symbol} ${verdictWords[r.verdict].word}` : '— not judged';
-    return `<tr><td>${escapeHtml(t?.label ?? r.typeId)}${ctx ? `<br><small>${escapeHtml(ctx)}</small>` : ''}</td>` +
+    return `<tr><td>${escapeHtml(r.typeId === 'noted-value' ? t?.label ?? r.typeId : readingTitle(r, t))}${ctx ? `<br><small>${escapeHtml(ctx)}</small>` : ''}</td>` +
       `<td class="num">${escapeHtml(shownValue(r, t))}</td><td>${escapeHtml(expectedText(r, t))}</td>` +
       `<td class="verdict-${r.verdict ?? 'none'}">${escapeHtml(v)}</td><td class="notes">${escapeHtml(r.note)}</td></tr>`;
   });

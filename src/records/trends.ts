@@ -111,7 +111,7 @@ export function buildTrend(type: ReadingType, visits: readonly Visit[], readings
 }
 
 /**
- * When does the fitted line reach the limit? Assumes linear ageing: the voltage the tune needs rises at a
+ * When does the fitted line reach the limit? Assumes linear ageing: the voltage the instrument sets for its gain rises at a
  * steady rate (end of life = (V_max − V_now)/(dV/dt); common practice). Real multipliers often speed up near the end,
  * so treat the date as the latest sensible time to order a replacement, not a promise.
  */

@@ -4,7 +4,7 @@
 // is the abundance-weighted mean of the fine structure it merges. Clusters below 1e-12 of the largest are
 // pruned during the convolutions (far under any shown abundance).
 import { ELEMENT_ISOTOPES } from './elementData';
-import { checkCharge, massToMz, parseFormula } from './formula';
+import { checkCharge, massToMz, monoisotopicMass, parseFormula } from './formula';
 
 export interface IsotopePeak {
   /** Abundance-weighted mean m/z of the cluster at one nominal mass. */
@@ -115,4 +115,21 @@ export function isotopePattern(formula: string, options: { charge?: number; minA
     }
   }
   return peaks;
+}
+
+/**
+ * Isotope ratio M+1/M of a formula as an ion, in per cent, with M's m/z (the monoisotopic m/z, most abundant
+ * isotope of each element). M+1 is the cluster one unit (1/|z| in m/z) above M. Throws, naming the formula, when
+ * the pattern has no M (an element whose most abundant isotope is not the lightest can make M a minor cluster, but
+ * never absent) or the formula cannot be read.
+ */
+export function isotopeRatioM1(formula: string, charge = 1): { mz: number; percent: number } {
+  const z = checkCharge(charge);
+  const mono = massToMz(monoisotopicMass(formula), z);
+  const peaks = isotopePattern(formula, { charge: z, minAbundance: 0 });
+  const near = (target: number) => peaks.find((p) => Math.abs(p.mz - target) < 0.3 / Math.abs(z));
+  const m = near(mono);
+  if (!m) throw new Error(`Formula "${formula}": no isotope cluster at its monoisotopic m/z ${mono.toFixed(4)}`);
+  const m1 = near(mono + 1 / Math.abs(z));
+  return { mz: mono, percent: m1 ? (100 * m1.abundance) / m.abundance : 0 };
 }

@@ -118,7 +118,8 @@ export interface Store {
   listMakerLimits(instrumentId: string): Promise<MakerLimit[]>;
   /** Add or replace the limit for a reading type; messages name the field and the accepted range. */
   saveMakerLimit(instrumentId: string, draft: MakerLimitDraft): Promise<{ ok: true; limit: MakerLimit } | { ok: false; errors: Partial<Record<keyof MakerLimitDraft, string>> }>;
-  deleteMakerLimit(instrumentId: string, typeId: string): Promise<void>;
+  /** Removes the limit of that type (and, when given, for those ions only). */
+  deleteMakerLimit(instrumentId: string, typeId: string, match?: Record<string, string>): Promise<void>;
 
   // ---- Baseline -----------------------------------------------------------------------------------
   /** Mark a visit's as-left readings as the instrument's baseline (clears any earlier mark), or unmark it. */

@@ -70,12 +70,12 @@ function visit(id: string, instrumentId: string, startedAt: string, reason: Visi
 }
 
 export const demoVisits: readonly Visit[] = [
-  visit('k1', 'demo-gcms-kestrel', '2024-12-10T09:00:00.000Z', 'installation', 'Installation and first tune. As-left values set as the baseline.', 'None', { baseline: true, testEquipment: 'Demo DMM DM-01, calibration due 2025-11 (invented)' }),
+  visit('k1', 'demo-gcms-kestrel', '2024-12-10T09:00:00.000Z', 'installation', 'Installation and first calibration. As-left values set as the baseline.', 'None', { baseline: true, testEquipment: 'Demo DMM DM-01, calibration due 2025-11 (invented)' }),
   visit('k2', 'demo-gcms-kestrel', '2025-03-18T09:30:00.000Z', 'preventive', 'Six-month check. Source clean, rough-pump oil looks fine.', 'Source insulator kit'),
-  visit('k3', 'demo-gcms-kestrel', '2025-06-24T10:00:00.000Z', 'preventive', 'Routine. Multiplier needs a little more voltage at tune.', 'None'),
+  visit('k3', 'demo-gcms-kestrel', '2025-06-24T10:00:00.000Z', 'preventive', 'Routine. Multiplier needs a little more voltage at each gain adjustment.', 'None'),
   visit('k4', 'demo-gcms-kestrel', '2025-09-30T08:45:00.000Z', 'after-venting-or-cleaning', 'Vented for a column change; pumped down overnight, water falling.', 'Column nut and ferrule'),
   visit('k5', 'demo-gcms-kestrel', '2026-01-13T09:15:00.000Z', 'preventive', 'Rough-pump oil changed; fore-vacuum back to normal.', 'Rough-pump oil, 1 L'),
-  visit('k6', 'demo-gcms-kestrel', '2026-04-21T13:00:00.000Z', 'sensitivity-loss', 'Area counts down by a third. Air check showed m/z 28 high with 28:32 near 3.8: loose transfer-line nut, tightened. <script>alert("notes are plain text")</script>', 'Transfer-line ferrule'),
+  visit('k6', 'demo-gcms-kestrel', '2026-04-21T13:00:00.000Z', 'sensitivity-loss', 'Area counts down by a third. Air check showed m/z 28 high with 28:32 near 3.8: loose transfer-line nut, tightened. Area counts back to normal after a bake-out overnight.', 'Transfer-line ferrule'),
   visit('k7', 'demo-gcms-kestrel', '2026-07-28T09:00:00.000Z', 'preventive', 'Routine. Multiplier voltage keeps rising about 15 V a month; plan a replacement.', 'None'),
   visit('k8', 'demo-gcms-kestrel', '2026-10-27T09:00:00.000Z', 'preventive', 'Routine. Quote sent for a new multiplier.', 'Filament'),
   visit('h1', 'demo-lcms-heron', '2025-05-06T09:00:00.000Z', 'installation', 'Installation. Baseline set. Read-backs are peak-to-peak.', 'None', { baseline: true }),
@@ -136,16 +136,18 @@ for (const [v, w69, w219, w502] of [['k1', '0.60', '0.61', '0.62'], ['k5', '0.61
   add(v, 'peak-width', 'as-left', w69, 'u', { mz: '69' });
   add(v, 'peak-width', 'as-left', w219, 'u', { mz: '219' });
   add(v, 'peak-width', 'as-left', w502, 'u', { mz: '502' });
-  add(v, 'relative-abundance', 'as-left', v === 'k8' ? '41' : '48', 'percent', { mz: '219', referenceMz: '69' });
-  add(v, 'relative-abundance', 'as-left', v === 'k8' ? '3.1' : '3.6', 'percent', { mz: '502', referenceMz: '69' });
-  add(v, 'isotope-ratio', 'as-left', v === 'k8' ? '4.5' : '4.3', 'percent', { mz: '219' });
+  // Calibrant ions chosen by the (invented) engineer for Kestrel: 219 and 502 as % of 69, and M+1/M at 219.
+  add(v, 'calibrant-ratio', 'as-left', v === 'k8' ? '41' : '48', 'percent', { mz: '219', referenceMz: '69' });
+  add(v, 'calibrant-ratio', 'as-left', v === 'k8' ? '3.1' : '3.6', 'percent', { mz: '502', referenceMz: '69' });
+  add(v, 'calibrant-isotope', 'as-left', v === 'k8' ? '4.5' : '4.3', 'percent', { mz: '219', formula: 'C4F9' });
 }
-add('k4', 'leak-water-18', 'as-found', '35', 'percent', { referenceMz: '69' }, 'Water still falling after the vent.');
-add('k6', 'leak-nitrogen-28', 'as-found', '24', 'percent', { referenceMz: '69' });
-add('k6', 'leak-ratio-28-32', 'as-found', '3.8', 'ratio', undefined, 'Air-like ratio.');
-add('k6', 'leak-nitrogen-28', 'as-left', '4.5', 'percent', { referenceMz: '69' });
-add('k1', 'leak-nitrogen-28', 'as-left', '4', 'percent', { referenceMz: '69' });
-add('k1', 'leak-water-18', 'as-left', '8', 'percent', { referenceMz: '69' });
+// Background gas on Kestrel: water against its own baseline, air by the 28:32 ratio (with 40:28 from the same scan).
+add('k1', 'water-18', 'as-left', '8', 'percent', { referenceMz: '69' });
+add('k4', 'water-18', 'as-found', '35', 'percent', { referenceMz: '69' }, 'Water still falling after the vent.');
+add('k4', 'water-18', 'as-left', '14', 'percent', { referenceMz: '69' }, 'Next morning: falling as expected.');
+add('k1', 'air-ratio-28-32', 'as-left', '7.5', 'ratio', undefined, 'Mostly CO and N2 from the carrier line, little oxygen: not air.');
+add('k6', 'air-ratio-28-32', 'as-found', '3.8', 'ratio', { argonPercent: '1.6' }, 'Air-like ratio and argon agrees.');
+add('k6', 'air-ratio-28-32', 'as-left', '7.1', 'ratio');
 // Heron: read-backs are peak-to-peak, one rod to ground.
 for (const [v, mv, rf] of [['h1', '1750', '2018'], ['h2', '1820', '2021'], ['h3', '1905', '2015']] as const) {
   add(v, 'multiplier-voltage', 'as-left', mv, 'V');
@@ -155,10 +157,10 @@ for (const [v, mv, rf] of [['h1', '1750', '2018'], ['h2', '1820', '2021'], ['h3'
 // Wren: RGA on a coater.
 for (const [v, hv, ratio, em] of [['w1', '2.0e-7', '1.2', '1.00'], ['w2', '6.5e-6', '3.9', '0.97'], ['w3', '2.2e-7', '1.3', '0.99']] as const) {
   add(v, 'vacuum-high', v === 'w2' ? 'as-found' : 'as-left', hv, 'mbar', { gaugeGas: 'N2-equivalent' });
-  add(v, 'leak-ratio-28-32', v === 'w2' ? 'as-found' : 'as-left', ratio, 'ratio');
+  add(v, 'air-ratio-28-32', v === 'w2' ? 'as-found' : 'as-left', ratio, 'ratio', v === 'w2' ? { argonPercent: '1.8' } : undefined);
   add(v, 'emission-current', 'as-left', em, 'mA', { setpoint: '1' });
 }
 add('w2', 'vacuum-high', 'as-left', '2.3e-7', 'mbar', { gaugeGas: 'N2-equivalent' });
-add('w2', 'leak-ratio-28-32', 'as-left', '1.3', 'ratio');
+add('w2', 'air-ratio-28-32', 'as-left', '1.3', 'ratio');
 
 export const demoReadings: readonly DemoReadingSeed[] = seeds;

@@ -1,5 +1,5 @@
 // Reading types (the catalogue plus the user's own), the maker's limits of each instrument, and trends.
-import { allTypes, buildTrend, checkMakerLimit, DEFAULT_MULTIPLIER_LIMIT, ownTypeFromDraft, seriesOf, type ReadingType } from '../records';
+import { allTypes, buildTrend, checkMakerLimit, sameLimitSlot, DEFAULT_MULTIPLIER_LIMIT, ownTypeFromDraft, seriesOf, type ReadingType } from '../records';
 import type { Store, StoreContext } from './api';
 import { guard, StoreError } from './errors';
 import { makerLimitsIn, ownTypesIn, putMakerLimitsIn, putOwnTypesIn } from './marks';
@@ -56,16 +56,16 @@ export function readingTypeMethods(ctx: StoreContext): Pick<Store, TypeMethods> 
         if (!r.ok) return r;
         const tx = db.transaction(['makerLimits', 'instruments'], 'readwrite');
         if (!(await tx.objectStore('instruments').get(instrumentId))) throw new StoreError('Could not save the limit: the instrument profile no longer exists.');
-        const others = (await makerLimitsIn(tx, instrumentId)).filter((l) => l.typeId !== r.limit.typeId);
+        const others = (await makerLimitsIn(tx, instrumentId)).filter((l) => !sameLimitSlot(l, r.limit));
         await putMakerLimitsIn(tx, instrumentId, [...others, r.limit]);
         await tx.done;
         return r;
       }),
 
-    deleteMakerLimit: (instrumentId, typeId) =>
+    deleteMakerLimit: (instrumentId, typeId, match) =>
       guard('delete the instrument’s limit', async () => {
         const tx = db.transaction(['makerLimits'], 'readwrite');
-        await putMakerLimitsIn(tx, instrumentId, (await makerLimitsIn(tx, instrumentId)).filter((l) => l.typeId !== typeId));
+        await putMakerLimitsIn(tx, instrumentId, (await makerLimitsIn(tx, instrumentId)).filter((l) => !sameLimitSlot(l, { typeId, match })));
         await tx.done;
       }),
 

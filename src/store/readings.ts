@@ -1,6 +1,6 @@
 // Readings: judged and saved with their visit touched in ONE transaction; listed, changed, deleted, put back.
 import {
-  allTypes, assess, expectationOf, judgeWithLimit, pickBaselineVisit, readingProblems, type EngineFunctions, type Reading, type ReadingType,
+  allTypes, assess, expectationOf, judgeWithLimit, limitFor, pickBaselineVisit, readingProblems, type EngineFunctions, type Reading, type ReadingType,
 } from '../records';
 import type { NewReading, Store, StoreContext } from './api';
 import { guard, StoreError } from './errors';
@@ -11,7 +11,7 @@ import type { ReadTx, WriteTx } from './visits';
 type JudgeStores = 'visits' | 'instruments' | 'readings' | 'ownTypes' | 'makerLimits';
 
 /** Everything needed to judge a reading of `typeId` on `visitId`, read inside the caller's transaction. */
-export async function judgingContext(tx: ReadTx, visitId: string, typeId: string) {
+export async function judgingContext(tx: ReadTx, visitId: string, typeId: string, context: Record<string, string | number> = {}) {
   const visit = await tx.objectStore('visits').get(visitId);
   if (!visit) throw new StoreError('Could not save the reading: its visit no longer exists.');
   const instrument = await tx.objectStore('instruments').get(visit.instrumentId);
@@ -21,7 +21,7 @@ export async function judgingContext(tx: ReadTx, visitId: string, typeId: string
   const baseline = baselineVisit
     ? { visit: baselineVisit, readings: (await tx.objectStore('readings').index('byVisit').getAll(baselineVisit.id)).filter((r) => r.typeId === typeId) }
     : undefined;
-  const limit = (await makerLimitsIn(tx, visit.instrumentId)).find((l) => l.typeId === typeId);
+  const limit = limitFor(await makerLimitsIn(tx, visit.instrumentId), typeId, context);
   return { visit, instrument, type, baseline, limit };
 }
 
@@ -33,7 +33,7 @@ function checkReading(r: Reading, type: ReadingType): void {
 
 /** Judge and save a new reading and touch its visit, inside the caller's transaction; returns both. */
 export async function addReadingIn(tx: WriteTx, input: NewReading, engine: EngineFunctions | undefined) {
-  const ctx = await judgingContext(tx, input.visitId, input.typeId);
+  const ctx = await judgingContext(tx, input.visitId, input.typeId, input.context ?? {});
   const now = nowIso();
   const judged = assess(ctx.type, ctx.instrument, input.visitId, input.value, input.context ?? {}, ctx.baseline, engine, ctx.limit);
   const reading: Reading = {
@@ -78,7 +78,7 @@ export function readingMethods({ db, engine }: StoreContext): Pick<Store, Readin
     previewReading: (visitId, typeId, value, context) =>
       guard('work out the expected value', async () => {
         const tx = db.transaction(judgeStores, 'readonly');
-        const ctx = await judgingContext(tx, visitId, typeId);
+        const ctx = await judgingContext(tx, visitId, typeId, context);
         await tx.done;
         const expectation = expectationOf(ctx.type, ctx.instrument, visitId, context, ctx.baseline, engine);
         return judgeWithLimit(value, ctx.type.baseUnit, expectation, ctx.limit) ?? {};
@@ -97,10 +97,10 @@ export function readingMethods({ db, engine }: StoreContext): Pick<Store, Readin
         const tx = db.transaction(judgeStores, 'readwrite');
         const was = await tx.objectStore('readings').get(id);
         if (!was) throw new StoreError(`Could not save: the reading ${id} no longer exists.`);
-        const ctx = await judgingContext(tx, was.visitId, was.typeId);
         const now = nowIso();
         const next: Reading = { ...was, ...changes, updatedAt: now };
         if (changes.context && Object.keys(changes.context).length === 0) delete next.context;
+        const ctx = await judgingContext(tx, was.visitId, was.typeId, next.context ?? {});
         delete next.expected;
         delete next.verdict;
         Object.assign(next, assess(ctx.type, ctx.instrument, was.visitId, next.value, next.context ?? {}, ctx.baseline, engine, ctx.limit));

@@ -1,11 +1,15 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'preact/hooks';
-import { openStore, type InstrumentProfile, type Store } from '../store';
+import { isotopeRatioM1 } from '../spectrum';
+import { defaultEngine, openStore, type EngineFunctions, type InstrumentProfile, type Store } from '../store';
 import { areaForPath, areas } from './areas';
 import { AppContext, useApp, type AppContextValue } from './context';
 import { UpdateBanner } from './components/UpdateBanner';
 import { FieldModeToggle } from './components/FieldModeToggle';
 import { usePath } from './router';
 import { routeFor } from './routes';
+
+/** The store's physics: the engine's scan law, and isotope ratios from ion formulas for the calibrant check. */
+const storeEngine: EngineFunctions = { ...defaultEngine, isotopeM1: (formula) => isotopeRatioM1(formula) };
 
 interface Toast {
   id: number;
@@ -39,7 +43,7 @@ export function App() {
             setStoreProblem('Rodside is open in another tab with an older version. Close that tab (or reload it) so this one can finish updating your data.'),
           onVersionChange: () =>
             setStoreProblem('A newer version of Rodside opened in another tab. Reload this tab to keep working; anything typed here is kept as a draft.'),
-        });
+        }, { engine: storeEngine });
         if (cancelled) return;
         await s.loadDemo();
         const list = await s.listInstruments();

@@ -70,7 +70,7 @@ describe('visit log offline', () => {
     await page.locator('#reading-value').fill('1900');
     await expect.poll(() => page.locator('[data-testid="reading-preview"]').textContent()).toMatch(/Expected: 1750 V.*baseline.*✓ pass/);
     await page.getByRole('button', { name: 'Save reading' }).click();
-    await expect.poll(() => rows(page, 'as-found')).toEqual([expect.stringMatching(/Multiplier voltage \(as set for the target gain\).*1900 V.*✓ pass.*1750 V \(baseline\)/)]);
+    await expect.poll(() => rows(page, 'as-found')).toEqual([expect.stringMatching(/Multiplier voltage \(as set for the wanted gain\).*1900 V.*✓ pass.*1750 V \(baseline\)/)]);
 
     // A bad value gets a message naming the field and the range, and is not saved.
     await page.locator('#reading-type').selectOption('vacuum-fore');

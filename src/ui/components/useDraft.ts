@@ -18,6 +18,8 @@ export interface DraftOptions<T> {
   ready?: boolean;
   /** Whether a kept copy can still be shown by this form (e.g. its reading type still exists). */
   accept?: (kept: T) => boolean;
+  /** Bring a kept copy of an older shape up to date before it is checked and shown (e.g. a retired reading type). */
+  revive?: (kept: T) => T;
   /** 'blank' (default): value is null until the kept copy is read. 'initial': show initial() at once. */
   whileLoading?: 'blank' | 'initial';
   /** 'draft' (default): the drafts store, marked unsaved until cleared. 'setting': calculator inputs kept as settings. */
@@ -107,8 +109,9 @@ export function useDraft<T>(options: DraftOptions<T>): Draft<T> {
       if (latest.current === null) start();
       return;
     }
-    readKept<T>(store, kind, key).then((kept) => {
+    readKept<T>(store, kind, key).then((found) => {
       if (!live || typedSinceLoad.current) return;
+      const kept = found !== undefined && found !== null && o.revive ? o.revive(found) : found;
       if (kept !== undefined && kept !== null && (o.accept?.(kept) ?? true)) {
         const value = whileLoading === 'initial' && typeof kept === 'object' && !Array.isArray(kept) ? { ...o.initial(), ...kept } : kept;
         latest.current = value;

@@ -2,9 +2,10 @@
 // /visits/<id> (readings), /visits/<id>/edit, /visits/<id>/report (printable record).
 import { useCallback, useEffect, useState } from 'preact/hooks';
 import {
-  DEMO_LAB, formatNumber, fromBase, shownValue, visitReasons, type InstrumentProfile, type Reading, type ReadingType, type Visit,
+  DEMO_LAB, formatNumber, fromBase, keysInTitle, readingTitle, shownValue, visitReasons, type InstrumentProfile, type Reading, type ReadingType, type Visit,
   type WalkRecord, type BackupReminder,
 } from '../../store';
+import { trees } from '../../diagnose';
 import { More } from '../components/Fold';
 import { useApp } from '../context';
 import { navigate, usePath } from '../router';
@@ -314,10 +315,20 @@ function expectedText(r: Reading, type: ReadingType | undefined): string {
   return `${range} ${unit?.label ?? ''} (${e.basis})`;
 }
 
+/** A walk step by its title, never its internal code. */
+function walkStepText(ref: string): string {
+  const [treeId, nodeId] = ref.split('/');
+  const tree = trees.find((t) => t.id === treeId);
+  const node = tree?.nodes.find((n) => n.id === nodeId);
+  return node ? `diagnosis walk: ${tree!.title}, “${node.title}”` : 'from a diagnosis walk';
+}
+
 function contextText(r: Reading): string {
+  const said = keysInTitle(r.typeId, r.context);
   return Object.entries(r.context ?? {})
-    .filter(([k]) => k !== 'convention' && k !== 'label' && k !== 'unit')
-    .map(([k, v]) => (k === 'mz' ? `m/z ${v}` : k === 'referenceMz' ? `relative to m/z ${v}` : k === 'gaugeGas' ? `gauge: ${v}` : k === 'setpoint' ? 'set value given' : `${k} ${v}`))
+    .filter(([k]) => k !== 'convention' && k !== 'label' && k !== 'unit' && !said.includes(k))
+    .map(([k, v]) => (k === 'mz' ? `m/z ${v}` : k === 'referenceMz' ? `relative to m/z ${v}` : k === 'gaugeGas' ? `gauge: ${v}` : k === 'setpoint' ? 'set value given'
+      : k === 'argonPercent' ? `m/z 40 = ${v} % of m/z 28` : k === 'formula' ? `formula ${v}` : k === 'walkStep' ? walkStepText(String(v)) : `${k} ${v}`))
     .join(' · ');
 }
 
@@ -337,7 +348,7 @@ function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: 
                 const ctx = contextText(r);
                 return (
                   <tr key={r.id} data-testid="reading-row">
-                    <td class="what stack-head">{r.typeId === 'noted-value' ? String(r.context?.label ?? 'Noted value') : t?.label ?? r.typeId}{ctx && <span class="ctx">{ctx}</span>}</td>
+                    <td class="what stack-head">{readingTitle(r, t)}{ctx && <span class="ctx">{ctx}</span>}</td>
                     <td class="value">{shownValue(r, t)}</td>
                     <td class="judged stack-side"><VerdictBadge verdict={r.verdict} /></td>
                     <td class="expected" data-label="Expected">{expectedText(r, t)}{r.expected?.summary && <span class="ctx">{r.expected.summary}</span>}</td>

@@ -1,13 +1,14 @@
 // The instrument's own limits (from its maker or the site), each with its source. A maker's limit wins over
 // the generic ranges, and a reading outside it fails even when it is close to the baseline.
 import { useEffect, useState } from 'preact/hooks';
-import { formatNumber, fromBase, type InstrumentProfile, type MakerLimit, type MakerLimitDraft, type ReadingType } from '../../store';
+import { formatNumber, fromBase, limitMatchText, type InstrumentProfile, type MakerLimit, type MakerLimitDraft, type ReadingType } from '../../store';
 import { useApp } from '../context';
 import { errorText } from './files';
 
 export function MakerLimits(props: { instrument: InstrumentProfile; types: ReadingType[] }) {
   const { store, notify } = useApp();
-  const types = props.types.filter((t) => t.id !== 'noted-value');
+  // Earlier-design types are no longer entered, so a new limit for them would judge nothing.
+  const types = props.types.filter((t) => t.id !== 'noted-value' && t.group !== 'earlier');
   const [limits, setLimits] = useState<MakerLimit[]>([]);
   const [draft, setDraft] = useState<MakerLimitDraft>({ typeId: types[0]?.id ?? '', unitId: types[0]?.defaultUnit ?? '', low: '', high: '', source: '' });
   const [errors, setErrors] = useState<Partial<Record<keyof MakerLimitDraft, string>>>({});
@@ -22,7 +23,8 @@ export function MakerLimits(props: { instrument: InstrumentProfile; types: Readi
     const u = t?.units.find((x) => x.id === t.defaultUnit);
     const f = (v: number) => (u ? `${formatNumber(fromBase(u, v))} ${u.label}` : formatNumber(v));
     const range = l.low !== undefined && l.high !== undefined ? `${f(l.low)} to ${f(l.high)}` : l.low !== undefined ? `at least ${f(l.low)}` : `at most ${f(l.high!)}`;
-    return `${t?.label ?? l.typeId}: ${range}`;
+    const ions = limitMatchText(l);
+    return `${t?.label ?? l.typeId}${ions ? ` (${ions})` : ''}: ${range}`;
   };
 
   async function save(e: Event) {
@@ -33,7 +35,7 @@ export function MakerLimits(props: { instrument: InstrumentProfile; types: Readi
       const r = await store.saveMakerLimit(props.instrument.id, draft);
       if (!r.ok) { setErrors(r.errors); return; }
       setErrors({});
-      setDraft((d) => ({ ...d, low: '', high: '', source: '' }));
+      setDraft((d) => ({ ...d, low: '', high: '', source: '', mz: '', referenceMz: '' }));
       notify('Limit saved: new readings of this type are judged against it.');
       load();
     } catch (err) {
@@ -41,20 +43,20 @@ export function MakerLimits(props: { instrument: InstrumentProfile; types: Readi
     }
   }
 
-  async function remove(typeId: string) {
+  async function remove(l: MakerLimit) {
     if (!store) return;
     try {
-      await store.deleteMakerLimit(props.instrument.id, typeId);
+      await store.deleteMakerLimit(props.instrument.id, l.typeId, l.match);
       load();
     } catch (err) {
       setProblem(errorText(err));
     }
   }
 
-  const field = (key: 'low' | 'high' | 'source', label: string, numeric: boolean) => (
+  const field = (key: 'low' | 'high' | 'source' | 'mz' | 'referenceMz', label: string, numeric: boolean) => (
     <div class={errors[key] ? 'field has-error' : 'field'}>
       <label for={`limit-${key}`}>{label}</label>
-      <input id={`limit-${key}`} type="text" inputMode={numeric ? 'decimal' : 'text'} autoComplete="off" value={draft[key]}
+      <input id={`limit-${key}`} type="text" inputMode={numeric ? 'decimal' : 'text'} autoComplete="off" value={draft[key] ?? ''}
         aria-invalid={errors[key] ? 'true' : 'false'} onInput={(e) => setDraft((d) => ({ ...d, [key]: (e.target as HTMLInputElement).value }))} />
       {errors[key] && <p class="field-error" role="alert">{errors[key]}</p>}
     </div>
@@ -63,13 +65,13 @@ export function MakerLimits(props: { instrument: InstrumentProfile; types: Readi
   return (
     <details class="card" data-testid="maker-limits">
       <summary>Maker’s limits for {props.instrument.name}: {limits.length === 0 ? 'none entered' : `${limits.length} entered`}</summary>
-      <p class="muted">Where the instrument’s maker or your site sets a limit, enter it here with its source. It replaces the generic ranges; a reading outside it fails even when it is close to the baseline.</p>
+      <p class="muted">Where the instrument’s maker or your site sets a limit, enter it here with its source. It replaces the generic ranges, and for the background-gas and calibrant checks it replaces the usual check; otherwise a reading outside it fails even when it is close to the baseline. Calibrant limits can be given for one ion pair.</p>
       {limits.length > 0 && (
         <ul>
           {limits.map((l) => (
-            <li key={l.typeId}>
+            <li key={`${l.typeId}/${limitMatchText(l)}`}>
               {show(l)} <span class="muted">— {l.source}</span>{' '}
-              <button type="button" class="btn btn-small" onClick={() => remove(l.typeId)}>Remove</button>
+              <button type="button" class="btn btn-small" onClick={() => remove(l)}>Remove</button>
             </li>
           ))}
         </ul>
@@ -90,6 +92,8 @@ export function MakerLimits(props: { instrument: InstrumentProfile; types: Readi
             {type?.units.map((u) => <option key={u.id} value={u.id}>{u.label}</option>)}
           </select>
         </div>
+        {type?.matchContext.includes('mz') && field('mz', 'For ion m/z (optional: empty means every ion)', true)}
+        {type?.matchContext.includes('referenceMz') && field('referenceMz', 'As % of m/z (optional)', true)}
         {field('low', 'Lowest allowed (optional)', true)}
         {field('high', 'Highest allowed (optional)', true)}
         {field('source', 'Source (document, section, edition)', false)}

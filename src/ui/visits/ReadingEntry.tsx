@@ -2,8 +2,8 @@
 // expected value and the verdict before saving. The form is a draft from the first keystroke.
 import { useEffect, useMemo, useState } from 'preact/hooks';
 import {
-  checkEntry, formatNumber, fromBase, parseNumber, toBase, verdictWords, type Expectation, type InstrumentProfile, type Judgement,
-  type ReadingType, type Visit,
+  calibrantChoices, CALIBRANT_ISOTOPE_TYPE, CALIBRANT_RATIO_TYPE, checkEntry, EARLIER_DESIGN_SUCCESSOR, formatNumber, fromBase, parseNumber, toBase, verdictWords,
+  type CalibrantChoice, type Expectation, type InstrumentProfile, type Judgement, type Reading, type ReadingType, type Visit,
 } from '../../store';
 import { useApp } from '../context';
 import { DraftProblem } from '../components/DraftProblem';
@@ -21,8 +21,16 @@ interface ReadingDraft {
 
 const groups: [ReadingType['group'], string][] = [
   ['vacuum', 'Vacuum'], ['source', 'Ion source'], ['analyser', 'Analyser'], ['detector', 'Detector'],
-  ['performance', 'Performance'], ['leak-check', 'Leak check'], ['own', 'Your own'],
+  ['performance', 'Performance and calibrant'], ['leak-check', 'Background gas'], ['own', 'Your own'],
 ];
+
+/** Types whose ions the engineer chooses for the instrument: the entry offers the ions chosen so far. */
+const calibrantTypes = new Set([CALIBRANT_RATIO_TYPE, CALIBRANT_ISOTOPE_TYPE, 'peak-width']);
+
+function choiceText(c: CalibrantChoice, typeId: string): string {
+  if (typeId === CALIBRANT_RATIO_TYPE) return `m/z ${c.mz} as % of m/z ${c.referenceMz}`;
+  return `m/z ${c.mz}${typeId === CALIBRANT_ISOTOPE_TYPE && c.formula ? ` (${c.formula})` : ''}`;
+}
 
 /** The unit matching how this instrument states RF (its read-back convention), else the type's default. */
 function preferredUnit(type: ReadingType, instrument: InstrumentProfile | null): string {
@@ -46,7 +54,9 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
   const { store, instrument, notify } = useApp();
   const { visit, types } = props;
   const draftKey = `reading-form:${visit.id}`;
-  const choosable = useMemo(() => types.filter((t) => t.id !== 'noted-value'), [types]);
+  // Earlier-design types stay readable but are not offered for new readings.
+  const choosable = useMemo(() => types.filter((t) => t.id !== 'noted-value' && t.group !== 'earlier'), [types]);
+  const [instrumentReadings, setInstrumentReadings] = useState<Reading[] | null>(null);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [problem, setProblem] = useState<string | null>(null);
   const [preview, setPreview] = useState<{ expectation?: Expectation; judgement?: Judgement } | null>(null);
@@ -56,12 +66,41 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
     what: 'a reading being entered',
     ready: choosable.length > 0,
     initial: () => blank(choosable[0], instrument),
+    // A form left unsaved on an earlier-design type carries over to its successor, with what was typed.
+    revive: (d) => {
+      const successor = EARLIER_DESIGN_SUCCESSOR[d.typeId];
+      return successor ? { ...d, typeId: successor, unitId: choosable.find((t) => t.id === successor)?.defaultUnit ?? d.unitId } : d;
+    },
     accept: (d) => choosable.some((t) => t.id === d.typeId),
     unsavedWhenRestored: (d) => Boolean(d.text || d.note),
   });
   const draft = kept.value;
 
   const type = draft ? choosable.find((t) => t.id === draft.typeId) ?? choosable[0] : undefined;
+  const wantsChoices = type ? calibrantTypes.has(type.id) : false;
+
+  // The calibrant ions chosen on this instrument so far (or the starting choice for its kind).
+  useEffect(() => {
+    if (!store || !wantsChoices || instrumentReadings) return;
+    let stale = false;
+    store.listInstrumentReadings(visit.instrumentId)
+      .then((list) => { if (!stale) setInstrumentReadings(list); })
+      .catch((err: unknown) => { if (!stale) { setInstrumentReadings([]); setProblem(`The calibrant ions chosen earlier could not be read: ${errorText(err)}`); } });
+    return () => { stale = true; };
+  }, [store, wantsChoices, instrumentReadings, visit.instrumentId]);
+  const choices = useMemo(() => {
+    if (!type || !wantsChoices || !instrumentReadings) return null;
+    const c = calibrantChoices(instrument?.kind, instrumentReadings);
+    // Ratios need a reference ion; widths and isotope ratios take each ion once (with its formula when one is known).
+    const byText = new Map<string, CalibrantChoice>();
+    for (const i of c.ions) {
+      if (type.id === CALIBRANT_RATIO_TYPE && i.referenceMz === undefined) continue;
+      const one = type.id === CALIBRANT_RATIO_TYPE ? i : { mz: i.mz, ...(i.formula ? { formula: i.formula } : {}) };
+      const k = `${one.mz}/${one.referenceMz ?? ''}`;
+      if (!byText.has(k) || (!byText.get(k)!.formula && one.formula)) byText.set(k, one);
+    }
+    return { why: c.why, ions: [...byText.values()] };
+  }, [type, wantsChoices, instrumentReadings, instrument]);
   const unit = type && draft ? type.units.find((u) => u.id === draft.unitId) ?? type.units[0] : undefined;
 
   // Live expected value and verdict for what is typed so far.
@@ -93,6 +132,13 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
     const t = choosable.find((x) => x.id === id)!;
     setErrors({});
     update({ ...blank(t, instrument, kept.latest()!.phase), note: kept.latest()!.note });
+  }
+
+  function pickIons(c: CalibrantChoice) {
+    const context: Record<string, string> = { ...kept.latest()!.context, mz: String(c.mz) };
+    if (type!.id === CALIBRANT_RATIO_TYPE && c.referenceMz !== undefined) context.referenceMz = String(c.referenceMz);
+    if (type!.id === CALIBRANT_ISOTOPE_TYPE) context.formula = c.formula ?? '';
+    update({ context });
   }
 
   function chooseUnit(id: string) {
@@ -181,6 +227,18 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
         </div>
       </div>
       {errors.value && <p class="field-error" role="alert">{errors.value}</p>}
+      {choices && (
+        <div class="field" data-testid="calibrant-choices">
+          <p class="hint">Calibrant ions for this instrument — {choices.why}:</p>
+          {choices.ions.length ? (
+            <div class="row" role="group" aria-label="Calibrant ions">
+              {choices.ions.map((c) => (
+                <button key={`${c.mz}/${c.referenceMz ?? ''}`} type="button" class="btn btn-small" onClick={() => pickIons(c)}>{choiceText(c, type.id)}</button>
+              ))}
+            </div>
+          ) : <p class="hint">None yet: type the ion below.</p>}
+        </div>
+      )}
       {type.context.map((f) => (
         <div key={f.key} class={errors[f.key] ? 'field has-error' : 'field'}>
           <label for={`reading-${f.key}`}>
@@ -206,7 +264,9 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
       <div class="expect-box" aria-live="polite" data-testid="reading-preview">
         {e && preview?.judgement ? (
           <>
-            <p>Expected: <strong>{shownExpected}</strong> — from {e.basis === 'generic' ? 'a generic range' : e.basis === 'maker limit' ? 'the maker’s limit' : `the ${e.basis} value`}</p>
+            {e.basis === 'air signature'
+              ? <p>Air looks like: <strong>{shownExpected}</strong> — inside this band an air leak is likely</p>
+              : <p>Expected: <strong>{shownExpected}</strong> — from {e.basis === 'generic' ? 'a generic range' : e.basis === 'maker limit' ? 'the maker’s limit' : `the ${e.basis} value`}</p>}
             <p class="hint">{e.source}</p>
             <p>Verdict if saved: <span class={`verdict verdict-${preview.judgement.verdict}`}>{verdictWords[preview.judgement.verdict].symbol} {verdictWords[preview.judgement.verdict].word}</span> ({preview.judgement.summary})</p>
           </>

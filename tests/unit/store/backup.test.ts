@@ -11,6 +11,9 @@ registerCleanup();
 async function filledStore(): Promise<Store> {
   const store = await openStore(freshName(), {}, { engine: testEngine });
   await store.loadDemo();
+  // A hostile note of the test's own (the demo's notes are ordinary text).
+  const k6 = (await store.getVisit('demo-visit-k6'))!;
+  await store.saveVisit({ ...k6, notes: `${k6.notes} <script>alert("notes are plain text")</script>` }, k6.id);
   await store.saveWalk({ visitId: 'demo-visit-k6', instrumentId: 'demo-gcms-kestrel', treeId: 'leak', state: { at: 'LK-2', answers: ['yes'] }, status: 'in-progress' });
   await store.putDraft('visit-form:new', { site: 'half typed', notes: '<script>x</script>' });
   await store.setSetting('theme', 'dark');

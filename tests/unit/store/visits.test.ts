@@ -1,7 +1,7 @@
 import 'fake-indexeddb/auto';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import {
-  backupReminder, checkEntry, catalogueType, csvCell, demoInstruments, demoVisits, emptyOwnTypeDraft, emptyVisitDraft, openStore,
+  backupReminder, checkEntry, catalogueType, csvCell, demoInstruments, demoVisits, EARLIER_DESIGN_TYPES, emptyOwnTypeDraft, emptyVisitDraft, openStore,
   validateDraft, emptyDraft, validateVisitDraft, type Store, type VisitFields,
 } from '../../../src/store';
 import { freshName, registerCleanup, testEngine } from './helpers';
@@ -196,9 +196,18 @@ describe('demo scenario', () => {
     expect(t.projection?.limit).toBe(demoInstruments[0].multiplierVoltageLimit);
     expect(t.projection!.ratePerMonth).toBeGreaterThan(10);
     expect(t.projection!.reachesAt! > '2026-11-01').toBe(true);
-    // The leak visit's as-found nitrogen fails against the baseline.
-    const leak = readings.find((r) => r.visitId === 'demo-visit-k6' && r.typeId === 'leak-nitrogen-28' && r.phase === 'as-found');
+    // The leak visit's as-found background shows the air signature (28:32 in the air band, argon agreeing).
+    const leak = readings.find((r) => r.visitId === 'demo-visit-k6' && r.typeId === 'air-ratio-28-32' && r.phase === 'as-found');
     expect(leak?.verdict).toBe('fail');
+    expect(leak?.expected?.basis).toBe('air signature');
+    // After the vent, water against Kestrel's own baseline (8 % of m/z 69): 35 % fails, 14 % the next morning is borderline.
+    const water = readings.filter((r) => r.visitId === 'demo-visit-k4' && r.typeId === 'water-18');
+    expect(water.map((r) => [r.phase, r.verdict, r.expected?.basis])).toEqual(expect.arrayContaining([
+      ['as-found', 'fail', 'baseline'], ['as-left', 'borderline', 'baseline'],
+    ]));
+    // No demo reading uses an earlier-design type, and no visit note carries markup.
+    expect(readings.filter((r) => EARLIER_DESIGN_TYPES.includes(r.typeId))).toEqual([]);
+    expect(demoVisits.filter((v) => /[<>]/.test(v.notes))).toEqual([]);
     expect(await store.removeDemo()).toBe(demoInstruments.length);
     expect((await store.listVisits()).map((v) => v.id)).toEqual([realVisit.id]);
     expect(await store.db.count('readings')).toBe(0);

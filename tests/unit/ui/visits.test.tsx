@@ -11,11 +11,12 @@ import { waitFor } from '../waitFor';
 const names: string[] = [];
 let store: Store | null = null;
 
-async function mount(path: string): Promise<HTMLElement> {
+async function mount(path: string, prepare?: (s: Store) => Promise<void>): Promise<HTMLElement> {
   const name = `rodside-ui-visits-${Date.now()}-${Math.random().toString(16).slice(2)}`;
   names.push(name);
   store = await openStore(name);
   await store.loadDemo();
+  await prepare?.(store);
   history.pushState(null, '', path);
   const host = document.createElement('div');
   document.body.appendChild(host);
@@ -45,7 +46,11 @@ afterEach(async () => {
 
 describe('visit page', () => {
   it('shows notes with a script tag as plain text, and verdicts as a word with a symbol', async () => {
-    const host = await mount('/visits/demo-visit-k6');
+    // The test's own hostile note (the demo's notes are ordinary text).
+    const host = await mount('/visits/demo-visit-k6', async (s) => {
+      const k6 = (await s.getVisit('demo-visit-k6'))!;
+      await s.saveVisit({ ...k6, notes: `${k6.notes} <script>alert("notes are plain text")</script>` }, k6.id);
+    });
     await waitFor(() => host.querySelector('[data-testid="visit-notes"]') !== null && host.querySelectorAll('[data-testid="reading-row"]').length > 0);
     const notes = host.querySelector('[data-testid="visit-notes"]')!;
     expect(notes.textContent).toContain('<script>alert("notes are plain text")</script>');
@@ -65,7 +70,7 @@ describe('visit page', () => {
     const before = (await store!.listReadings('demo-visit-k8')).length;
     await act(async () => { (host.querySelector('[data-testid="reading-form"]') as HTMLFormElement).dispatchEvent(new Event('submit', { bubbles: true, cancelable: true })); });
     await waitFor(() => /out of range/.test(host.textContent ?? ''));
-    expect(host.textContent).toContain('Multiplier voltage (as set for the target gain) 9e9 V is out of range: enter a value between 0 and 6000 V.');
+    expect(host.textContent).toContain('Multiplier voltage (as set for the wanted gain) 9e9 V is out of range: enter a value between 0 and 6000 V.');
     expect((host.querySelector('#reading-value') as HTMLInputElement).value).toBe('9e9');
     expect(await store!.listReadings('demo-visit-k8')).toHaveLength(before);
 
@@ -90,6 +95,32 @@ describe('visit page', () => {
     const form = host.querySelector('[data-testid="reading-form"]')!;
     expect(form.querySelector('[data-testid="draft-problem"]')?.textContent).toMatch(/^Couldn't save your draft on this device: this device has no storage space left for Rodside\. Your input is still here;/);
     expect((host.querySelector('#reading-value') as HTMLInputElement).value).toBe('1500');
+  });
+
+  it('offers the calibrant ions chosen for the instrument, shows the air band, and does not offer earlier-design types', async () => {
+    const host = await mount('/visits/demo-visit-k8');
+    await waitFor(() => host.querySelector('#reading-value') !== null);
+    const select = host.querySelector('#reading-type') as HTMLSelectElement;
+    const offered = [...select.options].map((o) => o.value);
+    expect(offered).toEqual(expect.arrayContaining(['calibrant-ratio', 'calibrant-isotope', 'air-ratio-28-32', 'water-18']));
+    for (const old of ['leak-water-18', 'leak-nitrogen-28', 'leak-ratio-28-32', 'leak-argon-40', 'relative-abundance', 'isotope-ratio']) expect(offered).not.toContain(old);
+    await act(async () => { select.value = 'calibrant-ratio'; select.dispatchEvent(new Event('change', { bubbles: true })); });
+    await waitFor(() => host.querySelector('[data-testid="calibrant-choices"] button') !== null);
+    const choices = [...host.querySelectorAll('[data-testid="calibrant-choices"] button')].map((b) => b.textContent);
+    expect(choices).toEqual(['m/z 219 as % of m/z 69', 'm/z 502 as % of m/z 69']);
+    expect(host.querySelector('[data-testid="calibrant-choices"]')?.textContent).toContain('chosen by the engineer on earlier visits');
+    await act(async () => { (host.querySelectorAll('[data-testid="calibrant-choices"] button')[1] as HTMLButtonElement).click(); });
+    expect((host.querySelector('#reading-mz') as HTMLInputElement).value).toBe('502');
+    expect((host.querySelector('#reading-referenceMz') as HTMLInputElement).value).toBe('69');
+    await act(async () => { type(host.querySelector('#reading-value'), '3.5'); });
+    await waitFor(() => /Expected: 3\.6 %/.test(host.querySelector('[data-testid="reading-preview"]')?.textContent ?? ''));
+
+    await act(async () => { select.value = 'air-ratio-28-32'; select.dispatchEvent(new Event('change', { bubbles: true })); });
+    await act(async () => { type(host.querySelector('#reading-value'), '3.8'); });
+    await waitFor(() => /Air looks like: 3\.7 to 4 ratio/.test(host.querySelector('[data-testid="reading-preview"]')?.textContent ?? ''));
+    const preview = host.querySelector('[data-testid="reading-preview"]')!.textContent!;
+    expect(preview).toContain('✗ fail');
+    expect(preview).toContain('CRC Handbook of Chemistry and Physics');
   });
 
   it('says so plainly when a visit does not exist', async () => {

@@ -75,7 +75,7 @@ function Intro(props: { node: { title: string; text: string; points?: string[]; 
 export function NodeView(props: NodeViewProps) {
   const { walk, tree } = props;
   const node = tree.nodes.find((n) => n.id === walk.nodeId);
-  if (!node) return <p class="notice">This walk points at a step ({walk.nodeId}) that this version does not have. Use Back to return to a known step.</p>;
+  if (!node) return <p class="notice">This walk points at a step that this version does not have. Use Back to return to a known step.</p>;
   if (walk.status === 'hand-over' && walk.handOver) return <HandOver {...props} to={walk.handOver} />;
   switch (node.kind) {
     case 'question':

@@ -47,10 +47,8 @@ export function visitNote(r: WalkReading, instrument: DiagnoseInstrument | null)
     case 'dc-amplitude':
       if (!instrument || mz === undefined) return plain;
       return typed(instrument.readbackConvention.reference === 'per-rod' ? 'V-rod' : 'V-pairs', convert(r.value, r.unit, 'V'), { mz });
-    case 'leak-ratio-28-32':
+    case 'air-ratio-28-32':
       return typed('ratio', r.value, {});
-    case 'leak-argon-40':
-      return typed('percent', r.value, {});
     default:
       return plain;
   }
