@@ -58,8 +58,11 @@ export interface ReadingType {
   baseUnit: string;
   units: readonly UnitDef[];
   defaultUnit: string;
-  /** Input sanity limits in base units: outside these the value is refused as a typing slip. */
-  plausible: { min: number; max: number };
+  /**
+   * Input sanity limits in base units: outside these the value is refused where it is typed, as a slip.
+   * `source` says where the limits come from, or their class (physical limit, instrument class).
+   */
+  plausible: { min: number; max: number; source?: string };
   badSide: BadSide;
   /** Allowed deviation from the instrument's baseline. */
   baselineTolerance: ToleranceRule;
@@ -127,7 +130,7 @@ const lcKinds: InstrumentKind[] = ['lc-ms-single', 'lc-ms-triple'];
 function leakPeak(mz: number, gas: string, ceiling: number, help: string): ReadingType {
   return {
     id: `leak-${gas}-${mz}`, label: `Leak check: ${gas}, m/z ${mz}`, group: 'leak-check', baseUnit: '%', units: percentUnits,
-    defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'high',
+    defaultUnit: 'percent', plausible: { min: 0, max: 10000, source: 'physical: an intensity share is not negative; 100 times the reference ion is a typing slip' }, badSide: 'high',
     baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
     generic: [{ kinds: [...gcKinds, ...lcKinds], high: ceiling, source: `m/z ${mz} below about ${ceiling} % of the reference ion (from memory)` }],
     genericMargin: { kind: 'factor', pass: 1, borderline: 2 },
@@ -140,7 +143,7 @@ function leakPeak(mz: number, gas: string, ceiling: number, help: string): Readi
 export const catalogue: readonly ReadingType[] = [
   {
     id: 'vacuum-high', label: 'High vacuum (analyser)', group: 'vacuum', baseUnit: 'Pa', units: pressureUnits,
-    defaultUnit: 'mbar', plausible: { min: 1e-10, max: 1.2e5 }, badSide: 'high',
+    defaultUnit: 'mbar', plausible: { min: 1e-10, max: 1.2e5, source: 'class: ion gauges read down to about 1e-10 Pa (extreme high vacuum, ISO 3529-1:2019 ranges); at most a little above one standard atmosphere, 101 325 Pa (ISO 2533:1975)' }, badSide: 'high',
     // A doubling of analyser pressure at the same gas load is worth a look; ×3 points to a leak or pump fault [cp].
     baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
     generic: [
@@ -154,7 +157,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'vacuum-fore', label: 'Fore-vacuum', group: 'vacuum', baseUnit: 'Pa', units: pressureUnits,
-    defaultUnit: 'mbar', plausible: { min: 1e-6, max: 1.2e5 }, badSide: 'high',
+    defaultUnit: 'mbar', plausible: { min: 1e-6, max: 1.2e5, source: 'class: Pirani and capacitance gauges read down to about 1e-6 Pa at best (common practice); at most a little above one standard atmosphere (ISO 2533:1975)' }, badSide: 'high',
     baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
     generic: [
       { kinds: [...gcKinds, 'rga'], low: 1e-2 * 100, high: 1e-1 * 100, source: 'GC-MS fore-vacuum about 1e-2 to 1e-1 mbar (from memory)', when: { gaugeGas: 'N2-equivalent' } },
@@ -166,7 +169,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'rf-amplitude', label: 'RF amplitude at a parked m/z', group: 'analyser', baseUnit: 'V (zero-to-peak, one rod to ground)',
-    units: rfAmplitudeUnits, defaultUnit: 'V0p-rod', plausible: { min: 0, max: 20000 }, badSide: 'both',
+    units: rfAmplitudeUnits, defaultUnit: 'V0p-rod', plausible: { min: 0, max: 20000, source: 'class: quadrupole RF supplies give at most a few kV zero-to-peak per rod; 20 kV covers every convention (common practice)' }, badSide: 'both',
     // Proportionality V ∝ m/z should hold within about ±1 % (V ∝ m/z at fixed f and r0: Dawson, Quadrupole Mass Spectrometry and Its Applications, 1976; the ±1 % is common practice).
     baselineTolerance: { kind: 'relative', pass: 0.01, borderline: 0.02 },
     computed: 'rf-amplitude',
@@ -179,7 +182,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'dc-amplitude', label: 'DC at a parked m/z', group: 'analyser', baseUnit: 'V (one rod pair to ground)',
-    units: dcUnits, defaultUnit: 'V-rod', plausible: { min: -5000, max: 5000 }, badSide: 'both',
+    units: dcUnits, defaultUnit: 'V-rod', plausible: { min: -5000, max: 5000, source: 'class: quadrupole DC at most about 0.17 of the RF, below ±5 kV (Dawson 1976 apex a/q; common practice)' }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.01, borderline: 0.02 },
     computed: 'dc-amplitude',
     // At unit resolution U sits just below the apex value 0.16784·V (resolution offset), about 1–5 % [cp].
@@ -190,7 +193,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'rf-frequency', label: 'RF frequency', group: 'analyser', baseUnit: 'Hz', units: frequencyUnits,
-    defaultUnit: 'MHz', plausible: { min: 1e4, max: 5e7 }, badSide: 'both',
+    defaultUnit: 'MHz', plausible: { min: 1e4, max: 5e7, source: 'class: quadrupole RF from tens of kHz (large RGAs) to a few tens of MHz (common practice)' }, badSide: 'both',
     // δm/m ≈ 2·δf/f (from q = 4eV/(m r0²Ω²), Dawson, Quadrupole Mass Spectrometry and Its Applications, 1976): 0.02 % of f is 0.2 u at m/z 500, the edge of ±0.1–0.2 u mass accuracy.
     baselineTolerance: { kind: 'relative', pass: 0.0001, borderline: 0.0002 },
     computed: 'rf-frequency',
@@ -201,7 +204,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'multiplier-voltage', label: 'Multiplier voltage (as set for the target gain)', group: 'detector', baseUnit: 'V', units: voltageUnits,
-    defaultUnit: 'V', plausible: { min: 0, max: 6000 }, badSide: 'high',
+    defaultUnit: 'V', plausible: { min: 0, max: 6000, source: 'class: multiplier supplies below 6 kV (common practice)' }, badSide: 'high',
     // The voltage climbs as the multiplier ages (common practice); +10 % over the baseline is worth planning for [cp].
     baselineTolerance: { kind: 'relative', pass: 0.1, borderline: 0.2 },
     generic: [{ low: 1000, high: 3000, source: 'discrete-dynode multipliers 1000 to 3000 V (common practice)' }],
@@ -211,7 +214,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'emission-current', label: 'Emission current', group: 'source', baseUnit: 'A', units: currentUnits,
-    defaultUnit: 'uA', plausible: { min: 0, max: 0.02 }, badSide: 'low',
+    defaultUnit: 'uA', plausible: { min: 0, max: 0.02, source: 'class: EI and RGA emission below 20 mA (common practice)' }, badSide: 'low',
     baselineTolerance: { kind: 'relative', pass: 0.05, borderline: 0.2 },
     computed: 'setpoint',
     // Signal scales with emission, I⁺ = K·I_e·p (CRC Handbook of Chemistry and Physics, Bayard–Alpert gauge relation): a 20 % shortfall is 20 % less signal.
@@ -227,7 +230,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'source-temperature', label: 'Ion source temperature', group: 'source', baseUnit: '°C', units: temperatureUnits,
-    defaultUnit: 'degC', plausible: { min: -50, max: 800 }, badSide: 'both',
+    defaultUnit: 'degC', plausible: { min: -50, max: 800, source: 'class: source heaters from room temperature to a few hundred °C; −50 to 800 °C with margin (common practice)' }, badSide: 'both',
     baselineTolerance: { kind: 'absolute', pass: 2, borderline: 5 },
     computed: 'setpoint',
     computedTolerance: { kind: 'absolute', pass: 2, borderline: 5 },
@@ -239,7 +242,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'peak-width', label: 'Peak width (FWHM) at a calibrant ion', group: 'performance', baseUnit: 'u', units: massUnits,
-    defaultUnit: 'u', plausible: { min: 0.01, max: 10 }, badSide: 'both',
+    defaultUnit: 'u', plausible: { min: 0.01, max: 10, source: 'class: quadrupole FWHM from 0.01 u (high resolution) to 10 u (wide open) (common practice)' }, badSide: 'both',
     baselineTolerance: { kind: 'absolute', pass: 0.05, borderline: 0.1 },
     generic: [{ low: 0.5, high: 0.8, source: 'unit resolution: FWHM 0.5 to 0.8 u (common practice)' }],
     genericMargin: { kind: 'absolute', pass: 0, borderline: 0.1 },
@@ -248,7 +251,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'relative-abundance', label: 'Relative abundance of a reference ion', group: 'performance', baseUnit: '%',
-    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 1000 }, badSide: 'both',
+    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 1000, source: 'physical: an abundance is not negative; ten times the reference ion is a typing slip' }, badSide: 'both',
     // Within about ±20–30 % relative of baseline (common practice); regulated methods set their own windows.
     baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
     context: [
@@ -260,7 +263,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'isotope-ratio', label: 'Isotope ratio M+1/M of a calibrant ion', group: 'performance', baseUnit: '%',
-    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 100 }, badSide: 'both',
+    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 100, source: 'physical: M+1/M of a calibrant ion is not negative and below 100 % for ions below about 90 carbons (IUPAC 13C abundance 1.082 %)' }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
     computed: 'isotope-ratio',
     computedTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
@@ -272,21 +275,21 @@ export const catalogue: readonly ReadingType[] = [
   leakPeak(28, 'nitrogen', 10, 'Intensity of m/z 28 as a percentage of the reference ion.'),
   {
     id: 'leak-ratio-28-32', label: 'Leak check: ratio m/z 28 to 32', group: 'leak-check', baseUnit: 'ratio', units: ratioUnits,
-    defaultUnit: 'ratio', plausible: { min: 0, max: 10000 }, badSide: 'both',
+    defaultUnit: 'ratio', plausible: { min: 0, max: 10000, source: 'physical: a ratio of peak heights is not negative' }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
     context: [], matchContext: [], trendScale: 'linear',
     help: 'About 3.7 to 4 looks like air (dry air N2/O2 = 3.73 by volume, CRC); judge it together with m/z 28 and 40.',
   },
   {
     id: 'leak-argon-40', label: 'Leak check: argon, m/z 40 relative to 28', group: 'leak-check', baseUnit: '%', units: percentUnits,
-    defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'both',
+    defaultUnit: 'percent', plausible: { min: 0, max: 10000, source: 'physical: a ratio of peak heights is not negative' }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
     context: [], matchContext: [], trendScale: 'linear',
     help: 'About 1.7 % of m/z 28 in an air leak (computed from dry-air composition, N2 78.08 %, Ar 0.934 %: CRC Handbook of Chemistry and Physics, composition of dry air).',
   },
   {
     id: 'noted-value', label: 'Noted value', group: 'own', baseUnit: 'as noted', units: [{ id: 'as-noted', label: 'as noted', factor: 1 }],
-    defaultUnit: 'as-noted', plausible: { min: -1e30, max: 1e30 }, badSide: 'both',
+    defaultUnit: 'as-noted', plausible: { min: -1e30, max: 1e30, source: 'none: a noted value is kept as given' }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0, borderline: 0 },
     context: [
       { key: 'label', label: 'What it is', kind: 'text', required: true },

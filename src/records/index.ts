@@ -13,3 +13,4 @@ export * from './reminder';
 export * from './noteRules';
 export { csvCell, toCsv, readingsCsv, CSV_BOM } from './csv';
 export { escapeHtml, REPORT_PRINT_CSS, visitReportHtml, visitReportSection, shownValue } from './report';
+export * from './numberEntry';

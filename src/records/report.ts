@@ -85,7 +85,7 @@ export function visitReportSection(inp: ReportInput): string {
   const byTime = [...inp.readings].sort((a, b) => (a.takenAt < b.takenAt ? -1 : 1));
   const found = byTime.filter((r) => r.phase === 'as-found');
   const left = byTime.filter((r) => r.phase === 'as-left');
-  const counts = { pass: 0, borderline: 0, fail: 0 };
+  const counts = { pass: 0, borderline: 0, fail: 0, convention: 0 };
   for (const r of byTime) if (r.verdict) counts[r.verdict]++;
   const reason = visitReasons.find((x) => x.value === v.reason)?.label ?? v.reason;
   const walks = (inp.walks ?? []).map((w) => `<li>${escapeHtml(w.treeId)} — ${escapeHtml(w.status)}, started ${escapeHtml(w.startedAt.slice(0, 16).replace('T', ' '))}</li>`);
@@ -96,7 +96,7 @@ export function visitReportSection(inp: ReportInput): string {
     `<dl>${dd('Started', v.startedAt.slice(0, 16).replace('T', ' ') + ' UTC')}${dd('Site', v.site)}${dd('Engineer', v.engineer)}` +
     `${dd('Reason', reason)}${dd('Test equipment', v.testEquipment ?? '')}${dd('Parts used', v.partsUsed)}` +
     `${dd('Baseline', v.baseline ? 'Yes: this visit’s as-left readings are the instrument’s baseline' : 'No')}</dl>` +
-    `<h2>Summary</h2><p>${byTime.length} readings: ${counts.pass} pass (✓), ${counts.borderline} borderline (△), ${counts.fail} fail (✗).</p>` +
+    `<h2>Summary</h2><p>${byTime.length} readings: ${counts.pass} pass (✓), ${counts.borderline} borderline (△), ${counts.fail} fail (✗)${counts.convention ? `, ${counts.convention} check the convention (⇄)` : ''}.</p>` +
     `<h2>Notes</h2><p class="notes">${escapeHtml(v.notes || '—')}</p>` +
     `<h2>As found</h2>${readingRows(found, inp.typeOf)}` +
     `<h2>As left</h2>${readingRows(left, inp.typeOf)}` +

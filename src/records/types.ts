@@ -56,7 +56,11 @@ export interface Visit {
 }
 
 export type ReadingPhase = 'as-found' | 'as-left';
-export type Verdict = 'pass' | 'borderline' | 'fail';
+/**
+ * 'convention': off by a read-back convention factor (2, √2, 2√2, 4, or 2 between one rod and the pairs) and
+ * matching once read in another convention: check how the reading was taken before calling it a failure.
+ */
+export type Verdict = 'pass' | 'borderline' | 'fail' | 'convention';
 
 export interface Reading {
   id: string;

@@ -27,7 +27,7 @@ export const visitReasons = [
 ] as const;
 
 const phases = ['as-found', 'as-left'];
-const verdicts = ['pass', 'borderline', 'fail'];
+const verdicts = ['pass', 'borderline', 'fail', 'convention'];
 const origins = ['entered', 'calculator', 'walk'];
 const walkStatuses = ['in-progress', 'finished', 'abandoned'];
 const idPattern = /^[A-Za-z0-9][A-Za-z0-9._:-]*$/;

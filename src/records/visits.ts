@@ -1,7 +1,7 @@
 // Visit form rules, user-defined reading types, and the pure part of judging a reading against the
 // instrument's baseline. No storage here.
 import { catalogue, catalogueType, type BadSide, type ReadingType, type ToleranceRule } from './catalogue';
-import { contextMatches, expectationFor, judgeWithLimit, type EngineFunctions, type Expectation, type MakerLimit, type ReadingContext } from './judge';
+import { contextMatches, expectationFor, judgeWithLimit, withConventionCheck, type EngineFunctions, type Expectation, type MakerLimit, type ReadingContext } from './judge';
 import { parseNumber } from './numberText';
 import { LIMITS, shown, visitReasons } from './validate';
 import type { InstrumentProfile, Reading, Verdict, Visit, VisitReason } from './types';
@@ -195,7 +195,8 @@ export function assess(
   type: ReadingType, instrument: InstrumentProfile | undefined, visitId: string, value: number, context: ReadingContext,
   baseline: BaselineSet | undefined, engine: EngineFunctions | undefined, limit?: MakerLimit,
 ): { expected?: Reading['expected']; verdict?: Verdict } {
-  const r = judgeWithLimit(value, type.baseUnit, expectationOf(type, instrument, visitId, context, baseline, engine), limit);
+  const r = withConventionCheck(type, typeof context.convention === 'string' ? context.convention : undefined, value,
+    judgeWithLimit(value, type.baseUnit, expectationOf(type, instrument, visitId, context, baseline, engine), limit));
   if (!r) return {};
   const e = r.expectation;
   const expected: NonNullable<Reading['expected']> = { basis: e.basis, source: e.source, summary: r.judgement.summary };

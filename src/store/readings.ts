@@ -1,6 +1,6 @@
 // Readings: judged and saved with their visit touched in ONE transaction; listed, changed, deleted, put back.
 import {
-  allTypes, assess, expectationOf, judgeWithLimit, pickBaselineVisit, readingProblems, type EngineFunctions, type Reading, type ReadingType,
+  allTypes, assess, expectationOf, judgeWithLimit, withConventionCheck, pickBaselineVisit, readingProblems, type EngineFunctions, type Reading, type ReadingType,
 } from '../records';
 import type { NewReading, Store, StoreContext } from './api';
 import { guard, StoreError } from './errors';
@@ -81,7 +81,8 @@ export function readingMethods({ db, engine }: StoreContext): Pick<Store, Readin
         const ctx = await judgingContext(tx, visitId, typeId);
         await tx.done;
         const expectation = expectationOf(ctx.type, ctx.instrument, visitId, context, ctx.baseline, engine);
-        return judgeWithLimit(value, ctx.type.baseUnit, expectation, ctx.limit) ?? {};
+        const convention = typeof context?.convention === 'string' ? context.convention : undefined;
+        return withConventionCheck(ctx.type, convention, value, judgeWithLimit(value, ctx.type.baseUnit, expectation, ctx.limit)) ?? {};
       }),
 
     addReading: (input) =>

@@ -321,7 +321,7 @@ function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: 
 
 function ReportView(props: { visit: Visit; instrument?: InstrumentProfile; readings: Reading[]; walks: WalkRecord[]; typeOf: (id: string) => ReadingType | undefined }) {
   const { visit: v, instrument: i, readings } = props;
-  const counts = { pass: 0, borderline: 0, fail: 0 };
+  const counts = { pass: 0, borderline: 0, fail: 0, convention: 0 };
   for (const r of readings) if (r.verdict) counts[r.verdict]++;
   return (
     <section class="screen">
@@ -342,7 +342,7 @@ function ReportView(props: { visit: Visit; instrument?: InstrumentProfile; readi
           <dt>Baseline</dt><dd>{v.baseline ? 'Yes: this visit’s as-left readings are the instrument’s baseline' : 'No'}</dd>
         </dl>
         <h2>Summary</h2>
-        <p>{readings.length} readings: {counts.pass} pass (✓), {counts.borderline} borderline (△), {counts.fail} fail (✗).</p>
+        <p>{readings.length} readings: {counts.pass} pass (✓), {counts.borderline} borderline (△), {counts.fail} fail (✗){counts.convention ? `, ${counts.convention} check the convention (⇄)` : ''}.</p>
         <h2>Notes</h2>
         <p class="notes">{v.notes || '—'}</p>
         <ReadingTable title="As found" readings={readings.filter((r) => r.phase === 'as-found')} typeOf={props.typeOf} />

@@ -209,7 +209,7 @@ describe('expected RF and DC from the engine itself', () => {
 describe('verdict properties (fast-check)', () => {
   it('a reading never gets a better verdict by straying further from the expected value', async () => {
     const fc = (await import('fast-check')).default;
-    const rank = { pass: 0, borderline: 1, fail: 2 } as const;
+    const rank = { pass: 0, borderline: 1, fail: 3, convention: 2 } as const;
     fc.assert(fc.property(
       fc.double({ min: 1e-6, max: 1e6, noNaN: true }), fc.double({ min: 0, max: 0.5, noNaN: true }), fc.double({ min: 0, max: 0.5, noNaN: true }),
       fc.double({ min: 0, max: 2, noNaN: true }), fc.double({ min: 0, max: 2, noNaN: true }), fc.constantFrom('relative', 'factor'),
