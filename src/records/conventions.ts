@@ -85,3 +85,13 @@ export function choiceOfForm(form: RfForm): ReadbackConvention {
   const amplitude = form.startsWith('zeroToPeak') ? 'zero-to-peak' : form.startsWith('peakToPeak') ? 'peak-to-peak' : 'rms';
   return { amplitude, reference: form.endsWith('PerRod') ? 'per-rod' : 'between-pairs' };
 }
+
+/** The settings key under which the convention an engineer reads an instrument's RF in is remembered. */
+export function probeConventionKey(instrumentId: string): string {
+  return `probeConvention:${instrumentId}`;
+}
+
+/** A remembered probe convention read back from settings (it may come from an imported backup): the form, or undefined. */
+export function probeConventionFrom(value: unknown): RfForm | undefined {
+  return typeof value === 'string' && (RF_FORMS as readonly string[]).includes(value) ? (value as RfForm) : undefined;
+}

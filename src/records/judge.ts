@@ -3,9 +3,10 @@ import { dcForMass, rfForMass } from '../engine/scanLaw';
 import type { BadSide, ReadingType, ToleranceRule } from './catalogue';
 import { isotopeRatioByMz, unitOf } from './catalogue';
 import { parseNumber } from './numberText';
+import { checkTyped, prefixesAllowed, type EntrySpec } from './numberEntry';
 import type { InstrumentProfile, Verdict } from './types';
 import { formatNumber } from './numberText';
-import { fromBase, rfUnitId, toBase } from './units';
+import { fromBase, rfUnitId, toBase, type UnitDef } from './units';
 import { dcConventionSuspects, dcFormWords, factorWords, rfConventionSuspects, rfFormWords } from './conventions';
 import { RF_FORMS, type DcForm, type RfForm } from '../engine/voltageConventions';
 
@@ -217,6 +218,13 @@ function rangeText(type: ReadingType, unitId: string): string {
   return `between ${formatNumber(Math.min(a, b))} and ${formatNumber(Math.max(a, b))} ${unit.label}`;
 }
 
+/** The entry spec of a reading's value typed in `unit`: its label and plausible range in that unit (the one number-entry rule). */
+export function typeSpec(type: ReadingType, unit: UnitDef): EntrySpec {
+  const a = fromBase(unit, type.plausible.min);
+  const b = fromBase(unit, type.plausible.max);
+  return { label: type.label, unit: unit.label, min: Math.min(a, b), max: Math.max(a, b), prefixes: prefixesAllowed(unit.label) };
+}
+
 export type EntryResult =
   | { ok: true; value: number; context: ReadingContext; unitId: string }
   | { ok: false; errors: Record<string, string> };
@@ -233,16 +241,9 @@ export function checkEntry(type: ReadingType, text: string, unitId: string, cont
   if (!unit) {
     errors.unit = `Unit “${unitId}” is not one of: ${type.units.map((u) => u.label).join('; ')}.`;
   } else {
-    const t = text.trim();
-    const typed = parseNumber(t);
-    if (t === '') errors.value = `${type.label} is empty: enter a value ${rangeText(type, unitId)}.`;
-    else if (typed === null) errors.value = `${type.label} “${t}” is not a number: enter a value ${rangeText(type, unitId)}.`;
-    else {
-      value = toBase(unit, typed);
-      if (!(value >= type.plausible.min * (1 - 1e-12) && value <= type.plausible.max * (1 + 1e-12))) {
-        errors.value = `${type.label} ${t} ${unit.label} is out of range: enter a value ${rangeText(type, unitId)}.`;
-      }
-    }
+    const r = checkTyped(text, typeSpec(type, unit));
+    if (r.ok) value = toBase(unit, r.value);
+    else errors.value = r.message;
   }
   const context: ReadingContext = {};
   for (const f of type.context) {

@@ -77,9 +77,9 @@ export function checkTyped(text: string, spec: EntrySpec): EntryCheck {
   const r = readTyped(text, spec.prefixes ?? false);
   const name = sentence(spec.label);
   if ('problem' in r) {
-    if (r.problem === 'empty') return { ok: false, problem: 'empty', message: `Enter ${spec.label}: ${rangeWords(spec)}.` };
+    if (r.problem === 'empty') return { ok: false, problem: 'empty', message: `${name} is empty: enter a value ${rangeWords(spec)}.` };
     if (r.problem === 'not-a-number') {
-      return { ok: false, problem: 'not-a-number', message: `${name} must be a number${spec.prefixes ? ' (µ, m or k allowed)' : ''}, e.g. 2.5 or 2.5e-5; “${text.trim()}” is not.` };
+      return { ok: false, problem: 'not-a-number', message: `${name} must be a number ${rangeWords(spec)}, written like 2.5 or 2.5e-5${spec.prefixes ? ' (µ, m or k allowed)' : ''}; “${text.trim()}” is not a number.` };
     }
     return { ok: false, problem: 'out-of-range', message: `${name} must be ${rangeWords(spec)}; “${text.trim()}” is too large to be a reading.` };
   }
@@ -145,4 +145,39 @@ export function specForUnit(label: string, unit: string, override?: PlausibleRan
     prefixes: prefixesAllowed(unit),
     source: range.source,
   };
+}
+
+/**
+ * The entry spec of a measured value typed in `unit`: the reading type's own plausible range where the value is
+ * recorded as a catalogue type of the same kind of quantity, else the range of its kind of quantity.
+ */
+export function specForMeasure(
+  label: string, unit: string, type?: { baseUnit: string; plausible: { min: number; max: number; source?: string } },
+): EntrySpec & { source: string } {
+  const u = UNITS[unit];
+  if (type && u) {
+    // RF and DC types keep volts in a named convention; a ratio type is dimensionless.
+    const base = type.baseUnit.startsWith('V (') ? 'V' : type.baseUnit === 'ratio' ? '1' : type.baseUnit;
+    const b = UNITS[base];
+    if (b && b.si === u.si) {
+      const positiveOnly = type.plausible.min > 0;
+      return specForUnit(label, unit, {
+        min: type.plausible.min * b.factor, max: type.plausible.max * b.factor,
+        ...(u.si === 'Pa' && !positiveOnly ? { minExclusive: true } : {}),
+        source: type.plausible.source ?? 'the reading type’s range',
+      });
+    }
+  }
+  return specForUnit(label, unit);
+}
+
+/** A peak height in any one unit (counts/s, A, arbitrary): not negative, and far below 10¹⁵ in any of them. */
+export const PEAK_HEIGHT_RANGE: PlausibleRange = {
+  min: 0, max: 1e15,
+  source: 'physical: a peak height is not negative; 10¹⁵ is beyond any detector output in counts/s, A or arbitrary units (common practice)',
+};
+
+/** The entry spec of a peak height in any one unit. */
+export function peakHeightSpec(label: string): EntrySpec {
+  return { label, unit: '', min: PEAK_HEIGHT_RANGE.min, max: PEAK_HEIGHT_RANGE.max, prefixes: false };
 }
