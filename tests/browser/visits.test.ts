@@ -124,7 +124,6 @@ describe('visit log offline', () => {
 
   it('export → erase → restore gives the same data back; a damaged file changes nothing', async () => {
     const { page } = session!;
-    page.on('dialog', (d) => void d.accept());
     await page.goto(origin + '/visits');
     const first = await download(page, () => page.getByRole('button', { name: 'Download backup' }).click(), 'first.json');
     const firstDoc = JSON.parse(first);
@@ -133,6 +132,7 @@ describe('visit log offline', () => {
 
     await page.locator('details', { hasText: 'Erase this device' }).locator('summary').click();
     await page.getByRole('button', { name: 'Erase everything on this device' }).click();
+    await page.getByRole('button', { name: 'Yes, erase everything' }).click();
     await expect.poll(() => page.locator('[data-testid="visit-item"]').count()).toBe(0);
 
     // A truncated copy is refused and nothing changes.

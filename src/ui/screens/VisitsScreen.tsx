@@ -16,6 +16,7 @@ import { MakerLimits } from '../visits/MakerLimits';
 import { OwnTypeForm } from '../visits/OwnTypeForm';
 import { VisitForm } from '../visits/VisitForm';
 import '../visits/visits.css';
+import { ConfirmAction } from '../components/ConfirmAction';
 
 export function VisitsScreen() {
   const path = usePath();
@@ -203,7 +204,6 @@ function VisitPage(props: { id: string; sub?: string }) {
 
   async function removeVisit() {
     if (!store || !visit) return;
-    if (!confirm('Delete this visit with all its readings? You can undo right after.')) return;
     try {
       const bundle = await store.deleteVisit(visit.id);
       navigate('/visits');
@@ -254,7 +254,7 @@ function VisitPage(props: { id: string; sub?: string }) {
           <button type="button" class="btn" onClick={() => saveReport(false)}>Download record</button>
           {canShareFiles() && <button type="button" class="btn" onClick={() => saveReport(true)}>Share record…</button>}
           <button type="button" class="btn" onClick={saveCsv}>CSV</button>
-          <button type="button" class="btn btn-danger" onClick={removeVisit}>Delete visit</button>
+          <ConfirmAction danger label="Delete visit" question="Delete this visit with all its readings? You can undo right after." confirmLabel="Yes, delete the visit" onConfirm={removeVisit} />
         </div>
       </div>
       <ReadingTable title="As found" readings={readings.filter((r) => r.phase === 'as-found')} typeOf={typeOf} onDelete={removeReading} />

@@ -3,6 +3,7 @@ import { useEffect, useState } from 'preact/hooks';
 import type { BackupReminder, ImportResult } from '../../store';
 import { useApp } from '../context';
 import { canShareFiles, errorText, shareOrDownload, stamp } from './files';
+import { ConfirmAction } from '../components/ConfirmAction';
 
 /** Fired on window after a backup was saved or shared, so every reminder on screen updates. */
 const BACKUP_SAVED_EVENT = 'rodside:backup-saved';
@@ -87,7 +88,6 @@ export function BackupPanel() {
 
   async function eraseEverything() {
     if (!store) return;
-    if (!confirm('Erase every instrument, visit, reading and setting on this device? Export a backup first: this cannot be undone.')) return;
     try {
       await store.eraseAll();
       await reloadInstruments();
@@ -125,7 +125,8 @@ export function BackupPanel() {
       <details>
         <summary>Erase this device</summary>
         <p class="muted">Removes every record kept by Rodside on this device.</p>
-        <button type="button" class="btn btn-danger" onClick={eraseEverything}>Erase everything on this device</button>
+        <ConfirmAction danger label="Erase everything on this device" question="Erase every instrument, visit, reading and setting on this device? Export a backup first: this cannot be undone."
+          confirmLabel="Yes, erase everything" onConfirm={eraseEverything} />
       </details>
     </section>
   );
