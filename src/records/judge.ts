@@ -404,7 +404,7 @@ export function withConventionCheck(
     expectation: r.expectation,
     judgement: {
       verdict: 'convention', deviation: r.judgement.deviation,
-      summary: `${r.judgement.summary}; off by a convention factor of ${factorWords(1 / alt.factor)}: read as ${alt.words} it would pass (${formatNumber(alt.valueInChosen)} ${unit.label}). Check the convention`,
+      summary: `${r.judgement.summary}; off by a convention factor of ${factorWords(Math.max(alt.factor, 1 / alt.factor))}: read as ${alt.words} it would pass (${formatNumber(alt.valueInChosen)} ${unit.label}). Check the convention`,
     },
   };
 }

@@ -54,6 +54,20 @@ export function shownValue(r: Reading, type: ReadingType | undefined): string {
   return `${formatNumber(r.value)} ${type?.baseUnit ?? ''}`.trim();
 }
 
+/** A reading's earlier versions in words, oldest first, e.g. "2e-5 mbar (✗ fail), recorded 2026-05-19 09:12, replaced 2026-05-19 09:20". */
+export function historyLines(r: Reading): string[] {
+  const at = (iso: string) => iso.slice(0, 16).replace('T', ' ');
+  return (r.history ?? []).map((h) =>
+    `${`${h.entered.text} ${h.entered.unit}`.trim()}${h.verdict ? ` (${verdictWords[h.verdict].symbol} ${verdictWords[h.verdict].word})` : ''}` +
+    `${h.note ? `, note “${h.note}”` : ''}, recorded ${at(h.recordedAt)}, replaced ${at(h.replacedAt)}`);
+}
+
+function historyHtml(r: Reading): string {
+  const lines = historyLines(r);
+  if (!lines.length) return '';
+  return `<br><small>Earlier: ${lines.map(escapeHtml).join('; ')}</small>`;
+}
+
 function expectedText(r: Reading, type: ReadingType | undefined): string {
   const e = r.expected;
   if (!e) return 'no expectation';
@@ -73,7 +87,7 @@ function readingRows(list: readonly Reading[], typeOf: ReportInput['typeOf']): s
     const ctx = Object.entries(r.context ?? {}).filter(([k]) => k !== 'convention').map(([k, v]) => `${k} ${v}`).join(', ');
     const v = r.verdict ? `${verdictWords[r.verdict].symbol} ${verdictWords[r.verdict].word}` : '— not judged';
     return `<tr><td>${escapeHtml(t?.label ?? r.typeId)}${ctx ? `<br><small>${escapeHtml(ctx)}</small>` : ''}</td>` +
-      `<td class="num">${escapeHtml(shownValue(r, t))}</td><td>${escapeHtml(expectedText(r, t))}</td>` +
+      `<td class="num">${escapeHtml(shownValue(r, t))}${historyHtml(r)}</td><td>${escapeHtml(expectedText(r, t))}</td>` +
       `<td class="verdict-${r.verdict ?? 'none'}">${escapeHtml(v)}</td><td class="notes">${escapeHtml(r.note)}</td></tr>`;
   });
   return `<table><thead><tr><th>Reading</th><th>Value</th><th>Expected</th><th>Verdict</th><th>Note</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;

@@ -81,9 +81,26 @@ export interface Reading {
   note: string;
   takenAt: string;
   updatedAt?: string;
+  /**
+   * Earlier versions of the reading, oldest first (the audit trail): each value as it was typed, with its unit,
+   * verdict and note, when it had been recorded and when it was replaced. Absent on readings never changed.
+   */
+  history?: ReadingVersion[];
   /** Where the reading came from: typed in, noted from a calculator, or taken during a diagnosis walk. */
   origin: 'entered' | 'calculator' | 'walk';
   demo?: boolean;
+}
+
+/** One earlier version of an edited reading. */
+export interface ReadingVersion {
+  value: number;
+  entered: { text: string; unit: string };
+  verdict?: Verdict;
+  note: string;
+  /** When this version had been recorded (the reading's takenAt, or the time of the edit that made it). */
+  recordedAt: string;
+  /** When it was replaced. */
+  replacedAt: string;
 }
 
 export interface WalkRecord {

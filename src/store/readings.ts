@@ -1,6 +1,6 @@
 // Readings: judged and saved with their visit touched in ONE transaction; listed, changed, deleted, put back.
 import {
-  allTypes, assess, expectationOf, judgeWithLimit, withConventionCheck, pickBaselineVisit, readingProblems, type EngineFunctions, type Reading, type ReadingType,
+  allTypes, assess, expectationOf, judgeWithLimit, withConventionCheck, withHistory, pickBaselineVisit, readingProblems, type EngineFunctions, type Reading, type ReadingType,
 } from '../records';
 import type { NewReading, Store, StoreContext } from './api';
 import { guard, StoreError } from './errors';
@@ -101,6 +101,9 @@ export function readingMethods({ db, engine }: StoreContext): Pick<Store, Readin
         const ctx = await judgingContext(tx, was.visitId, was.typeId);
         const now = nowIso();
         const next: Reading = { ...was, ...changes, updatedAt: now };
+        // The version replaced stays visible in the reading's history (audit trail).
+        const history = withHistory(was, next, now);
+        if (history) next.history = history;
         if (changes.context && Object.keys(changes.context).length === 0) delete next.context;
         delete next.expected;
         delete next.verdict;

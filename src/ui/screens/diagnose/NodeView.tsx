@@ -409,7 +409,7 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
       )}
       {suspect && (
         <p class="notice" data-testid="convention-hint">
-          Off by a factor of {factorWords(1 / suspect.factor)}, the size of a convention slip: read as {rfFormWords[suspect.form]} it
+          Off by a factor of {factorWords(Math.max(suspect.factor, 1 / suspect.factor))}, the size of a convention slip: read as {rfFormWords[suspect.form]} it
           would match. Check how the reading was taken and choose that convention above, before acting on a failure.
         </p>
       )}
