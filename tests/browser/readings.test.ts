@@ -142,4 +142,46 @@ describe('readings', () => {
     await expect.poll(() => page.locator('main').textContent()).toMatch(/Air leak|Not air|nitrogen/i);
     expect(session!.pageErrors).toEqual([]);
   });
+
+  it('a reading is edited with its history kept, and a deleted reading comes back with Undo', async () => {
+    const page = session!.page;
+    await page.goto(origin + '/visits/new');
+    await page.locator('#visit-engineer').fill('Readings test');
+    await page.locator('#visit-site').fill('Bench 2');
+    await page.getByRole('button', { name: 'Create visit' }).click();
+    await expect.poll(() => new URL(page.url()).pathname).toMatch(/^\/visits\/visit-/);
+
+    await page.locator('#reading-type').selectOption('vacuum-high');
+    await page.locator('#reading-unit').selectOption('mbar');
+    // The visit value refuses an impossible pressure on leaving the field, with the same rule as the walk.
+    expect(await typeAndLeave(page, 'reading-value', '1e308')).toBe('High vacuum (analyser) must be between 1e-12 and 1200 mbar; 1e308 mbar is above that.');
+    const value = page.locator('#reading-value');
+    expect(await value.getAttribute('inputmode')).toBe('text');
+    await value.fill('');
+    await value.pressSequentially('2e-5');
+    await page.getByRole('button', { name: 'Save reading' }).click();
+    const rows = () => page.locator('[data-testid="readings-as-found"] [data-testid="reading-row"]').allTextContents();
+    await expect.poll(rows).toEqual([expect.stringMatching(/High vacuum \(analyser\).*2e-5 mbar/)]);
+
+    // Edit: the corrected value shows, the earlier one stays visible with its times.
+    await page.getByRole('button', { name: 'Edit High vacuum (analyser)' }).click();
+    const edit = page.locator('[data-testid="reading-edit"]');
+    const corrected = edit.getByLabel('Corrected value');
+    await corrected.fill('');
+    await corrected.pressSequentially('3e-5');
+    await edit.getByLabel(/Note/).fill('misread the exponent digit');
+    await edit.getByRole('button', { name: 'Save the change' }).click();
+    await expect.poll(rows).toEqual([expect.stringMatching(/3e-5 mbar\s*Earlier: 2e-5 mbar.*recorded \d{4}-\d\d-\d\d \d\d:\d\d, replaced \d{4}-\d\d-\d\d \d\d:\d\d/)]);
+    await screenshot(page, 'readings-history');
+    // The history survives a reload (it is in the store, not just on screen).
+    await page.reload();
+    await expect.poll(() => page.locator('[data-testid="reading-history"]').textContent()).toMatch(/Earlier: 2e-5 mbar/);
+
+    // Delete, then Undo: the same reading, history and all, comes back.
+    await page.getByRole('button', { name: 'Delete High vacuum (analyser)' }).click();
+    await expect.poll(rows).toEqual([]);
+    await page.getByRole('button', { name: 'Undo' }).click();
+    await expect.poll(rows).toEqual([expect.stringMatching(/3e-5 mbar\s*Earlier: 2e-5 mbar/)]);
+    expect(session!.pageErrors).toEqual([]);
+  });
 });

@@ -77,7 +77,7 @@ describe('visit log offline', () => {
     await page.locator('#reading-unit').selectOption('Torr');
     await page.locator('#reading-value').fill('abc');
     await page.getByRole('button', { name: 'Save reading' }).click();
-    await expect.poll(() => page.locator('.field-error').first().textContent()).toMatch(/Fore-vacuum “abc” is not a number: enter a value between 7\.501e-9 and 900\.1 Torr/);
+    await expect.poll(() => page.locator('.field-error').first().textContent()).toMatch(/Fore-vacuum must be a number between 7\.501e-9 and 900\.1 Torr, written like 2\.5 or 2\.5e-5; “abc” is not a number/);
     await page.locator('#reading-value').fill('0.0018');
     await page.locator('input[name="reading-phase"][value="as-left"]').check();
     await page.getByRole('button', { name: 'Save reading' }).click();
