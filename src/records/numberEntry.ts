@@ -181,3 +181,66 @@ export const PEAK_HEIGHT_RANGE: PlausibleRange = {
 export function peakHeightSpec(label: string): EntrySpec {
   return { label, unit: '', min: PEAK_HEIGHT_RANGE.min, max: PEAK_HEIGHT_RANGE.max, prefixes: false };
 }
+
+// ---- Engine refusals in the engineer's words ---------------------------------------------------------
+
+/** How an engine input is named and shown on screen: its label and the unit it is typed in (per SI unit). */
+export interface EngineFieldWords {
+  label: string;
+  unit: string;
+  /** Screen value = SI value × perSi (1e3 for mm from m). */
+  perSi?: number;
+}
+
+/**
+ * The one table from the engine's input names to the words on screen. An engine field name never reaches the
+ * screen: a name missing here is shown as "This value".
+ */
+export const ENGINE_FIELD_WORDS: Readonly<Record<string, EngineFieldWords>> = {
+  mz: { label: 'm/z', unit: 'u' },
+  setMz: { label: 'Set m/z', unit: 'u' },
+  passedMz: { label: 'm/z passed', unit: 'u' },
+  mzStart: { label: 'Start m/z', unit: 'u' },
+  mzEnd: { label: 'End m/z', unit: 'u' },
+  referenceMz: { label: 'Reference m/z', unit: 'u' },
+  rf: { label: 'RF amplitude', unit: 'V' },
+  maxRf: { label: 'Largest RF of the supply', unit: 'V' },
+  dc: { label: 'DC', unit: 'V' },
+  value: { label: 'The value', unit: 'V' },
+  r0: { label: 'Field radius r0', unit: 'mm', perSi: 1e3 },
+  rodLength: { label: 'Rod length', unit: 'mm', perSi: 1e3 },
+  frequency: { label: 'RF frequency', unit: 'MHz', perSi: 1e-6 },
+  width: { label: 'Peak width', unit: 'u' },
+  resolution: { label: 'Resolution', unit: '' },
+  ratio: { label: 'U/V ratio', unit: '' },
+  pressure: { label: 'Pressure', unit: 'mbar', perSi: 1e-2 },
+  indicated: { label: 'Gauge reading', unit: '' },
+  axialEnergy: { label: 'Ion axial energy', unit: 'eV' },
+  temperature: { label: 'Temperature', unit: 'K' },
+  q: { label: 'Mathieu q', unit: '' },
+  a: { label: 'Mathieu a', unit: '' },
+};
+
+/**
+ * An engine refusal (field name, value and numeric range) in plain words: the field's label and its limit in
+ * the unit on screen, e.g. "Rod length must be more than 0 mm; -5 mm is below that."
+ */
+export function engineErrorWords(err: { field: string; value: unknown; spec?: { min?: number; max?: number; minExclusive?: boolean; maxExclusive?: boolean; integer?: boolean } }): string {
+  const base = err.field.replace(/\[\d+\].*$/, '');
+  const w = ENGINE_FIELD_WORDS[base] ?? ENGINE_FIELD_WORDS[err.field];
+  const label = w?.label ?? 'This value';
+  const k = w?.perSi ?? 1;
+  const spec: EntrySpec = {
+    label, unit: w?.unit ?? '',
+    min: err.spec?.min !== undefined ? err.spec.min * k : -Infinity,
+    max: err.spec?.max !== undefined ? err.spec.max * k : Infinity,
+    ...(err.spec?.minExclusive ? { minExclusive: true } : {}),
+  };
+  const v = typeof err.value === 'number' && Number.isFinite(err.value) ? err.value * k : undefined;
+  if (v === undefined) return `${label} must be a number ${rangeWords(spec)}.`;
+  const low = spec.minExclusive ? v <= spec.min : v < spec.min;
+  const high = err.spec?.maxExclusive ? v >= spec.max : v > spec.max;
+  const what = withUnit(spec, formatNumber(v));
+  if (err.spec?.integer && Number.isInteger(v) === false && !low && !high) return `${label} must be a whole number; ${what} is not.`;
+  return `${label} must be ${rangeWords(spec)}; ${what} is ${low ? 'below' : high ? 'above' : 'outside'} that.`;
+}
