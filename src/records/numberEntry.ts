@@ -3,6 +3,7 @@
 // the field's label and the limit in the unit on screen. Pure; the visit log, the walk and the leak check use it.
 import { formatNumber, readNumber } from './numberText';
 import { UNITS } from './units';
+import { InputRangeError } from '../engine/validate';
 
 /** What a field accepts: its label, the unit shown beside it, and its plausible range in that unit. */
 export interface EntrySpec {
@@ -243,4 +244,10 @@ export function engineErrorWords(err: { field: string; value: unknown; spec?: { 
   const what = withUnit(spec, formatNumber(v));
   if (err.spec?.integer && Number.isInteger(v) === false && !low && !high) return `${label} must be a whole number; ${what} is not.`;
   return `${label} must be ${rangeWords(spec)}; ${what} is ${low ? 'below' : high ? 'above' : 'outside'} that.`;
+}
+
+/** Any thrown problem in words for the screen: an engine refusal restated by engineErrorWords, else its message. */
+export function errorWords(err: unknown): string {
+  if (err instanceof InputRangeError) return engineErrorWords(err);
+  return err instanceof Error ? err.message : String(err);
 }

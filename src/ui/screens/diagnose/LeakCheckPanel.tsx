@@ -9,7 +9,7 @@ import {
   type PressureSample,
   type RateOfRiseResult,
 } from '../../../engine';
-import { checkTyped, peakHeightSpec, specForUnit } from '../../../records';
+import { checkTyped, errorWords, peakHeightSpec, specForUnit } from '../../../records';
 import { NumberEntry } from '../../components/NumberEntry';
 import { formatNumber } from '../../format';
 import { SafetyCards } from './SafetyCards';
@@ -55,7 +55,7 @@ function attempt<T>(fn: () => T): { ok: true; value: T } | { ok: false; message:
   try {
     return { ok: true, value: fn() };
   } catch (err) {
-    return { ok: false, message: (err as Error).message };
+    return { ok: false, message: errorWords(err) };
   }
 }
 

@@ -22,7 +22,7 @@ import {
   type WalkState,
 } from '../../../diagnose';
 import {
-  catalogueType, checkTyped, factorWords, rfConventionSuspects, rfFactor, rfFormWords, specForMeasure, UNITS,
+  catalogueType, checkTyped, errorWords, factorWords, rfConventionSuspects, rfFactor, rfFormWords, specForMeasure, UNITS,
 } from '../../../records';
 import { rfFormOf } from '../../../engine';
 import { ConventionChoice, useProbeConvention } from '../../components/ConventionChoice';
@@ -126,7 +126,7 @@ function ChoiceView(props: NodeViewProps & { node: QuestionNode | ChoiceNode }) 
     try {
       props.onWalk(answer(walk, tree, { kind: 'option', optionId, ...(props.typed.note ? { note: props.typed.note } : {}) }));
     } catch (err) {
-      setProblem((err as Error).message);
+      setProblem(errorWords(err));
     }
   }
   return (
@@ -158,7 +158,7 @@ function ChoiceView(props: NodeViewProps & { node: QuestionNode | ChoiceNode }) 
               try {
                 props.onWalk(answer(walk, tree, { kind: 'options', optionIds: picked }));
               } catch (err) {
-                setProblem((err as Error).message);
+                setProblem(errorWords(err));
               }
             }}
           >
@@ -346,7 +346,7 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
     try {
       props.onWalk(answer(walk, tree, { kind: 'measure', value: measured.value, unit, inputs, ...(verdict ? { verdict } : {}), ...(typed.note ? { note: typed.note } : {}) }));
     } catch (err) {
-      setProblem((err as Error).message);
+      setProblem(errorWords(err));
     }
   }
 
@@ -471,7 +471,7 @@ function ActionView(props: NodeViewProps & { node: ActionNode }) {
       props.onWalk(record(walk, tree, { kind: 'measure', value: v.value, unit: leftUnit, quantity, ...(typed.note ? { note: typed.note } : {}) }));
       props.onTyped({ leftValue: '' });
     } catch (err) {
-      setProblem((err as Error).message);
+      setProblem(errorWords(err));
     }
   }
 
