@@ -251,3 +251,20 @@ export function errorWords(err: unknown): string {
   if (err instanceof InputRangeError) return engineErrorWords(err);
   return err instanceof Error ? err.message : String(err);
 }
+
+// ---- Lists of numbers ------------------------------------------------------------------------------
+
+/** The one rule for lists of numbers, in words for the field hint. */
+export const LIST_RULE_WORDS =
+  'Separate values with a semicolon or a space. A comma also separates values, except between digits with one or two digits after it: 219,5 is 219.5; 69,219 is two values.';
+
+/**
+ * Split a typed list of numbers by the one list rule: semicolons and whitespace always separate; a comma directly
+ * between digits with exactly one or two digits after it (up to the next separator) is a decimal comma ("219,5",
+ * "219,25"); any other comma separates ("69,219,502", "69, 219"). Returns the items as typed, decimal commas
+ * turned into points.
+ */
+export function splitNumberList(text: string): string[] {
+  const marked = text.replace(/(\d),(\d{1,2})(?=$|[\s;,])/g, '$1.$2');
+  return marked.split(/[;,\s]+/).map((s) => s.trim()).filter(Boolean);
+}

@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   catalogue, catalogueType, checkEntry, checkTyped, factorWords, peakHeightSpec, rfConventionSuspects, specForMeasure,
-  specForUnit, withConventionCheck, expectationFor, judgeWithLimit, defaultEngine, readTyped, type InstrumentProfile,
+  specForUnit, withConventionCheck, expectationFor, judgeWithLimit, defaultEngine, readTyped, splitNumberList, LIST_RULE_WORDS, type InstrumentProfile,
 } from '../../../src/records';
 import { convertRf } from '../../../src/engine';
 
@@ -103,5 +103,17 @@ describe('convention slips', () => {
     const dcr = withConventionCheck(dc, 'V-rod', ed.value! * 2, judgeWithLimit(ed.value! * 2, dc.baseUnit, ed, undefined));
     expect(dcr?.judgement.verdict).toBe('convention');
     expect(dcr?.judgement.summary).toMatch(/between the rod pairs/);
+  });
+});
+
+describe('lists of numbers: one rule for comma, semicolon and space', () => {
+  it('a comma between digits with one or two digits after it is a decimal comma; otherwise it separates', () => {
+    expect(splitNumberList('219,5')).toEqual(['219.5']);
+    expect(splitNumberList('219,25; 69')).toEqual(['219.25', '69']);
+    expect(splitNumberList('69,219,502')).toEqual(['69', '219', '502']);
+    expect(splitNumberList('69, 219, 502')).toEqual(['69', '219', '502']);
+    expect(splitNumberList('69 219;502')).toEqual(['69', '219', '502']);
+    expect(splitNumberList('219,5 502,1')).toEqual(['219.5', '502.1']);
+    expect(LIST_RULE_WORDS).toMatch(/219,5 is 219\.5; 69,219 is two values/);
   });
 });
