@@ -80,7 +80,9 @@ export function BackupPanel() {
       await reloadInstruments();
       notify(`Backup restored: ${r.added} added, ${r.updated} updated, ${r.unchanged} unchanged.`);
     } catch (err) {
-      setProblem(`The backup was not restored and nothing on this device changed. ${errorText(err)}`);
+      // A refused backup already says it was not restored and nothing changed; say it once.
+      const words = errorText(err);
+      setProblem(/was not restored/.test(words) ? words : `The backup was not restored and nothing on this device changed. ${words}`);
     } finally {
       setBusy(false);
     }
