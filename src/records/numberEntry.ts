@@ -217,6 +217,8 @@ export const ENGINE_FIELD_WORDS: Readonly<Record<string, EngineFieldWords>> = {
   pressure: { label: 'Pressure', unit: 'mbar', perSi: 1e-2 },
   indicated: { label: 'Gauge reading', unit: '' },
   axialEnergy: { label: 'Ion axial energy', unit: 'eV' },
+  transverseEnergy: { label: 'Transverse energy', unit: 'eV' },
+  beamRadius: { label: 'Beam radius at entry', unit: 'mm', perSi: 1e3 },
   temperature: { label: 'Temperature', unit: 'K' },
   q: { label: 'Mathieu q', unit: '' },
   a: { label: 'Mathieu a', unit: '' },
@@ -238,6 +240,7 @@ export function engineErrorWords(err: { field: string; value: unknown; spec?: { 
     ...(err.spec?.minExclusive ? { minExclusive: true } : {}),
   };
   const v = typeof err.value === 'number' && Number.isFinite(err.value) ? err.value * k : undefined;
+  if (!err.spec) return v === undefined ? `${label} is not accepted here.` : `${label} ${withUnit(spec, formatNumber(v))} is not accepted here.`;
   if (v === undefined) return `${label} must be a number ${rangeWords(spec)}.`;
   const low = spec.minExclusive ? v <= spec.min : v < spec.min;
   const high = err.spec?.maxExclusive ? v >= spec.max : v > spec.max;
