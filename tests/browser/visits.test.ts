@@ -139,7 +139,9 @@ describe('visit log offline', () => {
     const broken = join(scratch, 'broken.json');
     writeFileSync(broken, first.slice(0, Math.floor(first.length / 2)));
     await page.locator('#backup-file').setInputFiles(broken);
-    await expect.poll(() => page.locator('[data-testid="backup-problem"]').textContent()).toMatch(/nothing on this device changed.*not valid JSON/);
+    await expect.poll(() => page.locator('[data-testid="backup-problem"]').textContent()).toMatch(/nothing on this device was changed.*not valid JSON/);
+    // The refusal says its sentence once.
+    expect(((await page.locator('[data-testid="backup-problem"]').textContent()) ?? '').match(/was not restored/g)).toHaveLength(1);
 
     await page.locator('#backup-file').setInputFiles(join(scratch, 'first.json'));
     // Erasing keeps one record (the demo is marked as seen so it does not come back): it is the one unchanged.
