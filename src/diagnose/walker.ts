@@ -264,7 +264,7 @@ function siInputs(
       v = convert(measured.value, measured.unit, spec.unit);
     } else {
       v = given?.[spec.key] ?? spec.default;
-      if (v === undefined || !Number.isFinite(v)) throw new RangeError(`${spec.label} (${spec.key}) is needed, between ${spec.min} and ${spec.max} ${spec.unit}`);
+      if (v === undefined || !Number.isFinite(v)) throw new RangeError(`${spec.label} is needed: enter a value between ${spec.min} and ${spec.max} ${spec.unit}.`);
       if (v < spec.min || v > spec.max) throw new RangeError(`${spec.label} (${spec.key}) must be between ${spec.min} and ${spec.max} ${spec.unit}; got ${v}`);
     }
     unit = spec.unit;

@@ -6,12 +6,15 @@ export class InputRangeError extends RangeError {
   readonly field: string;
   readonly value: unknown;
   readonly range: string;
-  constructor(field: string, value: unknown, range: string) {
+  /** The numeric range refused against, where there is one (screens restate it in their own units). */
+  readonly spec?: RangeSpec;
+  constructor(field: string, value: unknown, range: string, spec?: RangeSpec) {
     super(`${field} = ${describe(value)} is out of range; accepted: ${range}`);
     this.name = 'InputRangeError';
     this.field = field;
     this.value = value;
     this.range = range;
+    if (spec) this.spec = spec;
   }
 }
 
@@ -57,7 +60,7 @@ export function checkNumber(field: string, value: unknown, spec: RangeSpec = {})
     (!spec.integer || Number.isInteger(value)) &&
     (spec.min === undefined || (spec.minExclusive ? value > spec.min : value >= spec.min)) &&
     (spec.max === undefined || (spec.maxExclusive ? value < spec.max : value <= spec.max));
-  if (!ok) throw new InputRangeError(field, value, rangeText(spec));
+  if (!ok) throw new InputRangeError(field, value, rangeText(spec), spec);
   return value as number;
 }
 

@@ -58,8 +58,11 @@ export interface ReadingType {
   baseUnit: string;
   units: readonly UnitDef[];
   defaultUnit: string;
-  /** Input sanity limits in base units: outside these the value is refused as a typing slip. */
-  plausible: { min: number; max: number };
+  /**
+   * Input sanity limits in base units: outside these the value is refused where it is typed, as a slip.
+   * `source` says where the limits come from, or their class (physical limit, instrument class).
+   */
+  plausible: { min: number; max: number; source?: string };
   badSide: BadSide;
   /** Allowed deviation from the instrument's baseline. */
   baselineTolerance: ToleranceRule;
@@ -121,7 +124,7 @@ const lcKinds: InstrumentKind[] = ['lc-ms-single', 'lc-ms-triple'];
 function earlierLeakPeak(mz: number, gas: string, help: string): ReadingType {
   return {
     id: `leak-${gas}-${mz}`, label: `Earlier design: ${gas}, m/z ${mz} as % of a reference ion`, group: 'earlier', baseUnit: '%', units: percentUnits,
-    defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'high',
+    defaultUnit: 'percent', plausible: { min: 0, max: 10000, source: 'physical: an intensity share is not negative; 100 times the reference ion is a typing slip' }, badSide: 'high',
     baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
     context: [{ key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true }],
     matchContext: ['referenceMz'], trendScale: 'log',
@@ -132,7 +135,7 @@ function earlierLeakPeak(mz: number, gas: string, help: string): ReadingType {
 export const catalogue: readonly ReadingType[] = [
   {
     id: 'vacuum-high', label: 'High vacuum (analyser)', group: 'vacuum', baseUnit: 'Pa', units: pressureUnits,
-    defaultUnit: 'mbar', plausible: { min: 1e-10, max: 1.2e5 }, badSide: 'high',
+    defaultUnit: 'mbar', plausible: { min: 1e-10, max: 1.2e5, source: 'class: ion gauges read down to about 1e-10 Pa (extreme high vacuum, ISO 3529-1:2019 ranges); at most a little above one standard atmosphere, 101 325 Pa (ISO 2533:1975)' }, badSide: 'high',
     // A doubling of analyser pressure at the same gas load is worth a look; ×3 points to a leak or pump fault [cp].
     baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
     generic: [
@@ -146,7 +149,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'vacuum-fore', label: 'Fore-vacuum', group: 'vacuum', baseUnit: 'Pa', units: pressureUnits,
-    defaultUnit: 'mbar', plausible: { min: 1e-6, max: 1.2e5 }, badSide: 'high',
+    defaultUnit: 'mbar', plausible: { min: 1e-6, max: 1.2e5, source: 'class: Pirani and capacitance gauges read down to about 1e-6 Pa at best (common practice); at most a little above one standard atmosphere (ISO 2533:1975)' }, badSide: 'high',
     baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
     generic: [
       { kinds: [...gcKinds, 'rga'], low: 1e-2 * 100, high: 1e-1 * 100, source: 'GC-MS fore-vacuum about 1e-2 to 1e-1 mbar (from memory)', when: { gaugeGas: 'N2-equivalent' } },
@@ -158,7 +161,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'rf-amplitude', label: 'RF amplitude at a parked m/z', group: 'analyser', baseUnit: 'V (zero-to-peak, one rod to ground)',
-    units: rfAmplitudeUnits, defaultUnit: 'V0p-rod', plausible: { min: 0, max: 20000 }, badSide: 'both',
+    units: rfAmplitudeUnits, defaultUnit: 'V0p-rod', plausible: { min: 0, max: 20000, source: 'class: quadrupole RF supplies give at most a few kV zero-to-peak per rod; 20 kV covers every convention (common practice)' }, badSide: 'both',
     // Proportionality V ∝ m/z should hold within about ±1 % (V ∝ m/z at fixed f and r0: Dawson, Quadrupole Mass Spectrometry and Its Applications, 1976; the ±1 % is common practice).
     baselineTolerance: { kind: 'relative', pass: 0.01, borderline: 0.02 },
     computed: 'rf-amplitude',
@@ -171,7 +174,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'dc-amplitude', label: 'DC at a parked m/z', group: 'analyser', baseUnit: 'V (one rod pair to ground)',
-    units: dcUnits, defaultUnit: 'V-rod', plausible: { min: -5000, max: 5000 }, badSide: 'both',
+    units: dcUnits, defaultUnit: 'V-rod', plausible: { min: -5000, max: 5000, source: 'class: quadrupole DC at most about 0.17 of the RF, below ±5 kV (Dawson 1976 apex a/q; common practice)' }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.01, borderline: 0.02 },
     computed: 'dc-amplitude',
     // At unit resolution U sits just below the apex value 0.16784·V (resolution offset), about 1–5 % [cp].
@@ -182,7 +185,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'rf-frequency', label: 'RF frequency', group: 'analyser', baseUnit: 'Hz', units: frequencyUnits,
-    defaultUnit: 'MHz', plausible: { min: 1e4, max: 5e7 }, badSide: 'both',
+    defaultUnit: 'MHz', plausible: { min: 1e4, max: 5e7, source: 'class: quadrupole RF from tens of kHz (large RGAs) to a few tens of MHz (common practice)' }, badSide: 'both',
     // δm/m ≈ 2·δf/f (from q = 4eV/(m r0²Ω²), Dawson, Quadrupole Mass Spectrometry and Its Applications, 1976): 0.02 % of f is 0.2 u at m/z 500, the edge of ±0.1–0.2 u mass accuracy.
     baselineTolerance: { kind: 'relative', pass: 0.0001, borderline: 0.0002 },
     computed: 'rf-frequency',
@@ -193,7 +196,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'multiplier-voltage', label: 'Multiplier voltage (as set for the wanted gain)', group: 'detector', baseUnit: 'V', units: voltageUnits,
-    defaultUnit: 'V', plausible: { min: 0, max: 6000 }, badSide: 'high',
+    defaultUnit: 'V', plausible: { min: 0, max: 6000, source: 'class: multiplier supplies below 6 kV (common practice)' }, badSide: 'high',
     // The voltage climbs as the multiplier ages (common practice); +10 % over the baseline is worth planning for [cp].
     baselineTolerance: { kind: 'relative', pass: 0.1, borderline: 0.2 },
     generic: [{ low: 1000, high: 3000, source: 'discrete-dynode multipliers 1000 to 3000 V (common practice)' }],
@@ -203,7 +206,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'emission-current', label: 'Emission current', group: 'source', baseUnit: 'A', units: currentUnits,
-    defaultUnit: 'uA', plausible: { min: 0, max: 0.02 }, badSide: 'low',
+    defaultUnit: 'uA', plausible: { min: 0, max: 0.02, source: 'class: EI and RGA emission below 20 mA (common practice)' }, badSide: 'low',
     baselineTolerance: { kind: 'relative', pass: 0.05, borderline: 0.2 },
     computed: 'setpoint',
     // Signal scales with emission, I⁺ = K·I_e·p (CRC Handbook of Chemistry and Physics, Bayard–Alpert gauge relation): a 20 % shortfall is 20 % less signal.
@@ -219,7 +222,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'source-temperature', label: 'Ion source temperature', group: 'source', baseUnit: '°C', units: temperatureUnits,
-    defaultUnit: 'degC', plausible: { min: -50, max: 800 }, badSide: 'both',
+    defaultUnit: 'degC', plausible: { min: -50, max: 800, source: 'class: source heaters from room temperature to a few hundred °C; −50 to 800 °C with margin (common practice)' }, badSide: 'both',
     baselineTolerance: { kind: 'absolute', pass: 2, borderline: 5 },
     computed: 'setpoint',
     computedTolerance: { kind: 'absolute', pass: 2, borderline: 5 },
@@ -231,7 +234,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'peak-width', label: 'Peak width (FWHM) at a calibrant ion', group: 'performance', baseUnit: 'u', units: massUnits,
-    defaultUnit: 'u', plausible: { min: 0.01, max: 10 }, badSide: 'both',
+    defaultUnit: 'u', plausible: { min: 0.01, max: 10, source: 'class: quadrupole FWHM from 0.01 u (high resolution) to 10 u (wide open) (common practice)' }, badSide: 'both',
     // Against the instrument's own baseline only: no preset width limit; a maker's or engineer's limit replaces it.
     baselineTolerance: { kind: 'absolute', pass: 0.05, borderline: 0.1 },
     limitWins: true,
@@ -241,7 +244,7 @@ export const catalogue: readonly ReadingType[] = [
   // ---- Calibrant check: ions and ratios chosen by the engineer for each instrument (see checks.ts) ----
   {
     id: 'calibrant-ratio', label: 'Calibrant: one ion as % of another', group: 'performance', baseUnit: '%',
-    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 100000 }, badSide: 'both',
+    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 100000, source: 'physical: an intensity share is not negative; a thousand times the reference ion is a typing slip' }, badSide: 'both',
     // Against the baseline within about ±20–30 % relative (common practice); regulated methods set their own windows,
     // entered as the instrument's limit, which then replaces this check.
     baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
@@ -255,7 +258,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'calibrant-isotope', label: 'Calibrant: isotope ratio M+1/M', group: 'performance', baseUnit: '%',
-    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 1000 }, badSide: 'both',
+    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 1000, source: 'physical: M+1/M is not negative; ten times M is a typing slip' }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
     computed: 'isotope-formula',
     // Measured M+1/M within about ±20 % of the calculated value on a clean, unsaturated peak (common practice).
@@ -272,7 +275,7 @@ export const catalogue: readonly ReadingType[] = [
   // ---- Background gas: air by the leak tools' peak-ratio method, water against the baseline (see checks.ts) ----
   {
     id: 'air-ratio-28-32', label: 'Background: air check, m/z 28 to 32', group: 'leak-check', baseUnit: 'ratio', units: ratioUnits,
-    defaultUnit: 'ratio', plausible: { min: 0, max: 10000 }, badSide: 'both',
+    defaultUnit: 'ratio', plausible: { min: 0, max: 10000, source: 'physical: a ratio of peak heights is not negative' }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
     computed: 'air-signature',
     limitWins: true,
@@ -285,7 +288,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'water-18', label: 'Background: water, m/z 18 as % of a chosen ion', group: 'leak-check', baseUnit: '%', units: percentUnits,
-    defaultUnit: 'percent', plausible: { min: 0, max: 100000 }, badSide: 'high',
+    defaultUnit: 'percent', plausible: { min: 0, max: 100000, source: 'physical: an intensity share is not negative; a thousand times the reference ion is a typing slip' }, badSide: 'high',
     // No preset limit: water depends on the instrument and its history. Judged against its own baseline; twice the
     // baseline is worth a look and three times points to a leak or wet carrier (common practice).
     baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
@@ -298,7 +301,7 @@ export const catalogue: readonly ReadingType[] = [
   // ---- Earlier design: kept so older readings and backups still read, show and trend; not offered for new readings ----
   {
     id: 'relative-abundance', label: 'Earlier design: relative abundance of a reference ion', group: 'earlier', baseUnit: '%',
-    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 1000 }, badSide: 'both',
+    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 1000, source: 'physical: an abundance is not negative; ten times the reference ion is a typing slip' }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
     context: [
       ionMz('Ion m/z'),
@@ -309,7 +312,7 @@ export const catalogue: readonly ReadingType[] = [
   },
   {
     id: 'isotope-ratio', label: 'Earlier design: isotope ratio M+1/M of a calibrant ion', group: 'earlier', baseUnit: '%',
-    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 100 }, badSide: 'both',
+    units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 100, source: 'physical: M+1/M of a calibrant ion is not negative and below 100 % for ions below about 90 carbons (IUPAC 13C abundance 1.082 %)' }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
     context: [ionMz('Ion m/z (M)')], matchContext: ['mz'], trendScale: 'linear',
     help: 'Recorded before the calibrant check was rebuilt. New readings: “Calibrant: isotope ratio M+1/M”, which takes the ion’s formula.',
@@ -318,21 +321,21 @@ export const catalogue: readonly ReadingType[] = [
   earlierLeakPeak(28, 'nitrogen', 'Recorded before the background check was rebuilt. New readings: “Background: air check”.'),
   {
     id: 'leak-ratio-28-32', label: 'Earlier design: ratio m/z 28 to 32', group: 'earlier', baseUnit: 'ratio', units: ratioUnits,
-    defaultUnit: 'ratio', plausible: { min: 0, max: 10000 }, badSide: 'both',
+    defaultUnit: 'ratio', plausible: { min: 0, max: 10000, source: 'physical: a ratio of peak heights is not negative' }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
     context: [], matchContext: [], trendScale: 'linear',
     help: 'Recorded before the background check was rebuilt. New readings: “Background: air check, m/z 28 to 32”.',
   },
   {
     id: 'leak-argon-40', label: 'Earlier design: argon, m/z 40 relative to 28', group: 'earlier', baseUnit: '%', units: percentUnits,
-    defaultUnit: 'percent', plausible: { min: 0, max: 10000 }, badSide: 'both',
+    defaultUnit: 'percent', plausible: { min: 0, max: 10000, source: 'physical: a ratio of peak heights is not negative' }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
     context: [], matchContext: [], trendScale: 'linear',
     help: 'Recorded before the background check was rebuilt. New readings give 40:28 with the air check.',
   },
   {
     id: 'noted-value', label: 'Noted value', group: 'own', baseUnit: 'as noted', units: [{ id: 'as-noted', label: 'as noted', factor: 1 }],
-    defaultUnit: 'as-noted', plausible: { min: -1e30, max: 1e30 }, badSide: 'both',
+    defaultUnit: 'as-noted', plausible: { min: -1e30, max: 1e30, source: 'none: a noted value is kept as given' }, badSide: 'both',
     baselineTolerance: { kind: 'relative', pass: 0, borderline: 0 },
     context: [
       { key: 'label', label: 'What it is', kind: 'text', required: true },

@@ -13,4 +13,5 @@ export * from './trends';
 export * from './reminder';
 export * from './noteRules';
 export { csvCell, toCsv, readingsCsv, CSV_BOM } from './csv';
-export { escapeHtml, REPORT_PRINT_CSS, visitReportHtml, visitReportSection, shownValue } from './report';
+export { escapeHtml, REPORT_PRINT_CSS, visitReportHtml, visitReportSection, shownValue, historyLines } from './report';
+export * from './numberEntry';

@@ -5,9 +5,12 @@ import type { BadSide, ReadingType, ToleranceRule } from './catalogue';
 import { unitOf } from './catalogue';
 import { airBandSource, judgeAirSignature } from './checks';
 import { parseNumber } from './numberText';
+import { checkTyped, prefixesAllowed, type EntrySpec } from './numberEntry';
 import type { InstrumentProfile, Verdict } from './types';
 import { formatNumber } from './numberText';
-import { fromBase, toBase } from './units';
+import { fromBase, rfUnitId, toBase, type UnitDef } from './units';
+import { dcConventionSuspects, dcFormWords, factorWords, rfConventionSuspects, rfFormWords } from './conventions';
+import { RF_FORMS, type DcForm, type RfForm } from '../engine/voltageConventions';
 
 export type ReadingContext = Record<string, string | number>;
 
@@ -61,6 +64,7 @@ export const verdictWords: Record<Verdict, { word: string; symbol: string }> = {
   pass: { word: 'pass', symbol: '✓' },
   borderline: { word: 'borderline', symbol: '△' },
   fail: { word: 'fail', symbol: '✗' },
+  convention: { word: 'check the convention', symbol: '⇄' },
 };
 
 function measure(rule: ToleranceRule, x: number, ref: number): number {
@@ -250,6 +254,13 @@ function rangeText(type: ReadingType, unitId: string): string {
   return `between ${formatNumber(Math.min(a, b))} and ${formatNumber(Math.max(a, b))} ${unit.label}`;
 }
 
+/** The entry spec of a reading's value typed in `unit`: its label and plausible range in that unit (the one number-entry rule). */
+export function typeSpec(type: ReadingType, unit: UnitDef): EntrySpec {
+  const a = fromBase(unit, type.plausible.min);
+  const b = fromBase(unit, type.plausible.max);
+  return { label: type.label, unit: unit.label, min: Math.min(a, b), max: Math.max(a, b), prefixes: prefixesAllowed(unit.label) };
+}
+
 export type EntryResult =
   | { ok: true; value: number; context: ReadingContext; unitId: string }
   | { ok: false; errors: Record<string, string> };
@@ -266,16 +277,9 @@ export function checkEntry(type: ReadingType, text: string, unitId: string, cont
   if (!unit) {
     errors.unit = `Unit “${unitId}” is not one of: ${type.units.map((u) => u.label).join('; ')}.`;
   } else {
-    const t = text.trim();
-    const typed = parseNumber(t);
-    if (t === '') errors.value = `${type.label} is empty: enter a value ${rangeText(type, unitId)}.`;
-    else if (typed === null) errors.value = `${type.label} “${t}” is not a number: enter a value ${rangeText(type, unitId)}.`;
-    else {
-      value = toBase(unit, typed);
-      if (!(value >= type.plausible.min * (1 - 1e-12) && value <= type.plausible.max * (1 + 1e-12))) {
-        errors.value = `${type.label} ${t} ${unit.label} is out of range: enter a value ${rangeText(type, unitId)}.`;
-      }
-    }
+    const r = checkTyped(text, typeSpec(type, unit));
+    if (r.ok) value = toBase(unit, r.value);
+    else errors.value = r.message;
   }
   const context: ReadingContext = {};
   for (const f of type.context) {
@@ -360,7 +364,7 @@ export function limitExpectation(limit: MakerLimit): Expectation {
   };
 }
 
-const rank: Record<Verdict, number> = { pass: 0, borderline: 1, fail: 2 };
+const rank: Record<Verdict, number> = { pass: 0, borderline: 1, convention: 2, fail: 3 };
 
 /**
  * Combine the usual expectation with the instrument's own limit. A maker's limit replaces a generic range
@@ -454,3 +458,42 @@ export function checkMakerLimit(type: ReadingType | undefined, d: MakerLimitDraf
 
 /** The engine's scan law: V and U at the apex of the first stability region, per rod to ground. */
 export const defaultEngine: EngineFunctions = { rfForMass, dcForMass };
+
+// ---- Convention slips --------------------------------------------------------------------------------
+
+const rfFormByUnit = new Map<string, RfForm>(RF_FORMS.map((f) => [rfUnitId(f), f]));
+const dcFormByUnit: Record<string, DcForm> = { 'V-rod': 'perRod', 'V-pairs': 'betweenPairs' };
+
+/**
+ * A reading of RF or DC amplitude that does not match its single expected value, but would pass if it had been
+ * taken in another read-back convention, is judged 'convention' (check the convention) instead of fail or
+ * borderline, and the summary says which convention would pass. `unitText` is the unit id or label it was typed
+ * in (the reading's context.convention keeps the label). Other readings come back unchanged.
+ */
+export function withConventionCheck(
+  type: ReadingType, unitText: string | undefined, value: number,
+  r: { expectation: Expectation; judgement: Judgement } | undefined,
+): { expectation: Expectation; judgement: Judgement } | undefined {
+  if (!r || !unitText || (r.judgement.verdict !== 'fail' && r.judgement.verdict !== 'borderline')) return r;
+  if (r.expectation.value === undefined || r.expectation.basis === 'maker limit') return r;
+  const unit = type.units.find((u) => u.id === unitText || u.label === unitText);
+  if (!unit) return r;
+  const typed = fromBase(unit, value);
+  const passes = (v: number) => judge(toBase(unit, v), r.expectation, type.baseUnit).verdict === 'pass';
+  let alt: { words: string; valueInChosen: number; factor: number } | undefined;
+  if (type.id === 'rf-amplitude' && rfFormByUnit.has(unit.id)) {
+    const s = rfConventionSuspects(typed, rfFormByUnit.get(unit.id)!, passes)[0];
+    if (s) alt = { words: rfFormWords[s.form], valueInChosen: s.valueInChosen, factor: s.factor };
+  } else if (type.id === 'dc-amplitude' && dcFormByUnit[unit.id]) {
+    const s = dcConventionSuspects(typed, dcFormByUnit[unit.id], passes)[0];
+    if (s) alt = { words: dcFormWords[s.form], valueInChosen: s.valueInChosen, factor: s.factor };
+  }
+  if (!alt) return r;
+  return {
+    expectation: r.expectation,
+    judgement: {
+      verdict: 'convention', deviation: r.judgement.deviation,
+      summary: `${r.judgement.summary}; off by a convention factor of ${factorWords(Math.max(alt.factor, 1 / alt.factor))}: read as ${alt.words} it would pass (${formatNumber(alt.valueInChosen)} ${unit.label}). Check the convention`,
+    },
+  };
+}

@@ -55,6 +55,20 @@ export function shownValue(r: Reading, type: ReadingType | undefined): string {
   return `${formatNumber(r.value)} ${type?.baseUnit ?? ''}`.trim();
 }
 
+/** A reading's earlier versions in words, oldest first, e.g. "2e-5 mbar (✗ fail), recorded 2026-05-19 09:12, replaced 2026-05-19 09:20". */
+export function historyLines(r: Reading): string[] {
+  const at = (iso: string) => iso.slice(0, 16).replace('T', ' ');
+  return (r.history ?? []).map((h) =>
+    `${`${h.entered.text} ${h.entered.unit}`.trim()}${h.verdict ? ` (${verdictWords[h.verdict].symbol} ${verdictWords[h.verdict].word})` : ''}` +
+    `${h.note ? `, note “${h.note}”` : ''}, recorded ${at(h.recordedAt)}, replaced ${at(h.replacedAt)}`);
+}
+
+function historyHtml(r: Reading): string {
+  const lines = historyLines(r);
+  if (!lines.length) return '';
+  return `<br><small>Earlier: ${lines.map(escapeHtml).join('; ')}</small>`;
+}
+
 function expectedText(r: Reading, type: ReadingType | undefined): string {
   const e = r.expected;
   if (!e) return 'no expectation';
@@ -77,7 +91,7 @@ function readingRows(list: readonly Reading[], typeOf: ReportInput['typeOf']): s
       .map(([k, v]) => (k === 'walkStep' ? 'from a diagnosis walk' : `${k} ${v}`)).join(', ');
     const v = r.verdict ? `${verdictWords[r.verdict].symbol} ${verdictWords[r.verdict].word}` : '— not judged';
     return `<tr><td>${escapeHtml(r.typeId === 'noted-value' ? t?.label ?? r.typeId : readingTitle(r, t))}${ctx ? `<br><small>${escapeHtml(ctx)}</small>` : ''}</td>` +
-      `<td class="num">${escapeHtml(shownValue(r, t))}</td><td>${escapeHtml(expectedText(r, t))}</td>` +
+      `<td class="num">${escapeHtml(shownValue(r, t))}${historyHtml(r)}</td><td>${escapeHtml(expectedText(r, t))}</td>` +
       `<td class="verdict-${r.verdict ?? 'none'}">${escapeHtml(v)}</td><td class="notes">${escapeHtml(r.note)}</td></tr>`;
   });
   return `<table><thead><tr><th>Reading</th><th>Value</th><th>Expected</th><th>Verdict</th><th>Note</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
@@ -89,7 +103,7 @@ export function visitReportSection(inp: ReportInput): string {
   const byTime = [...inp.readings].sort((a, b) => (a.takenAt < b.takenAt ? -1 : 1));
   const found = byTime.filter((r) => r.phase === 'as-found');
   const left = byTime.filter((r) => r.phase === 'as-left');
-  const counts = { pass: 0, borderline: 0, fail: 0 };
+  const counts = { pass: 0, borderline: 0, fail: 0, convention: 0 };
   for (const r of byTime) if (r.verdict) counts[r.verdict]++;
   const reason = visitReasons.find((x) => x.value === v.reason)?.label ?? v.reason;
   const walks = (inp.walks ?? []).map((w) => `<li>${escapeHtml(w.treeId)} — ${escapeHtml(w.status)}, started ${escapeHtml(w.startedAt.slice(0, 16).replace('T', ' '))}</li>`);
@@ -100,7 +114,7 @@ export function visitReportSection(inp: ReportInput): string {
     `<dl>${dd('Started', v.startedAt.slice(0, 16).replace('T', ' ') + ' UTC')}${dd('Site', v.site)}${dd('Engineer', v.engineer)}` +
     `${dd('Reason', reason)}${dd('Test equipment', v.testEquipment ?? '')}${dd('Parts used', v.partsUsed)}` +
     `${dd('Baseline', v.baseline ? 'Yes: this visit’s as-left readings are the instrument’s baseline' : 'No')}</dl>` +
-    `<h2>Summary</h2><p>${byTime.length} readings: ${counts.pass} pass (✓), ${counts.borderline} borderline (△), ${counts.fail} fail (✗).</p>` +
+    `<h2>Summary</h2><p>${byTime.length} readings: ${counts.pass} pass (✓), ${counts.borderline} borderline (△), ${counts.fail} fail (✗)${counts.convention ? `, ${counts.convention} check the convention (⇄)` : ''}.</p>` +
     `<h2>Notes</h2><p class="notes">${escapeHtml(v.notes || '—')}</p>` +
     `<h2>As found</h2>${readingRows(found, inp.typeOf)}` +
     `<h2>As left</h2>${readingRows(left, inp.typeOf)}` +

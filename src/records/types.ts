@@ -56,7 +56,11 @@ export interface Visit {
 }
 
 export type ReadingPhase = 'as-found' | 'as-left';
-export type Verdict = 'pass' | 'borderline' | 'fail';
+/**
+ * 'convention': off by a read-back convention factor (2, √2, 2√2, 4, or 2 between one rod and the pairs) and
+ * matching once read in another convention: check how the reading was taken before calling it a failure.
+ */
+export type Verdict = 'pass' | 'borderline' | 'fail' | 'convention';
 
 export interface Reading {
   id: string;
@@ -77,9 +81,26 @@ export interface Reading {
   note: string;
   takenAt: string;
   updatedAt?: string;
+  /**
+   * Earlier versions of the reading, oldest first (the audit trail): each value as it was typed, with its unit,
+   * verdict and note, when it had been recorded and when it was replaced. Absent on readings never changed.
+   */
+  history?: ReadingVersion[];
   /** Where the reading came from: typed in, noted from a calculator, or taken during a diagnosis walk. */
   origin: 'entered' | 'calculator' | 'walk';
   demo?: boolean;
+}
+
+/** One earlier version of an edited reading. */
+export interface ReadingVersion {
+  value: number;
+  entered: { text: string; unit: string };
+  verdict?: Verdict;
+  note: string;
+  /** When this version had been recorded (the reading's takenAt, or the time of the edit that made it). */
+  recordedAt: string;
+  /** When it was replaced. */
+  replacedAt: string;
 }
 
 export interface WalkRecord {

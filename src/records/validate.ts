@@ -27,7 +27,7 @@ export const visitReasons = [
 ] as const;
 
 const phases = ['as-found', 'as-left'];
-const verdicts = ['pass', 'borderline', 'fail'];
+const verdicts = ['pass', 'borderline', 'fail', 'convention'];
 const origins = ['entered', 'calculator', 'walk'];
 const walkStatuses = ['in-progress', 'finished', 'abandoned'];
 const idPattern = /^[A-Za-z0-9][A-Za-z0-9._:-]*$/;
@@ -159,7 +159,10 @@ export function visitProblems(path: string, v: unknown): string[] {
 }
 
 const readingKeys = ['id', 'visitId', 'instrumentId', 'typeId', 'phase', 'value', 'entered', 'context', 'expected', 'verdict',
-  'note', 'takenAt', 'updatedAt', 'origin', 'demo'];
+  'note', 'takenAt', 'updatedAt', 'origin', 'demo', 'history'];
+
+/** At most this many earlier versions are kept with one reading. */
+export const HISTORY_LIMIT = 200;
 
 export function readingProblems(path: string, v: unknown): string[] {
   if (!isObj(v)) return [`${path}: expected a reading object, got ${shown(v)}`];
@@ -212,6 +215,28 @@ export function readingProblems(path: string, v: unknown): string[] {
   date(p, `${path}.updatedAt`, v.updatedAt, true);
   oneOf(p, `${path}.origin`, v.origin, origins);
   bool(p, `${path}.demo`, v.demo);
+  if (v.history !== undefined) {
+    if (!Array.isArray(v.history)) p.push(`${path}.history: expected a list of earlier versions, got ${shown(v.history)}`);
+    else {
+      if (v.history.length > HISTORY_LIMIT) p.push(`${path}.history: ${v.history.length} versions, more than the ${HISTORY_LIMIT} allowed`);
+      v.history.slice(0, HISTORY_LIMIT + 1).forEach((h: unknown, i: number) => {
+        const hp = `${path}.history[${i}]`;
+        if (!isObj(h)) { p.push(`${hp}: expected an earlier version, got ${shown(h)}`); return; }
+        allowedKeys(p, hp, h, ['value', 'entered', 'verdict', 'note', 'recordedAt', 'replacedAt']);
+        finite(p, `${hp}.value`, h.value);
+        if (!isObj(h.entered)) p.push(`${hp}.entered: expected {text, unit}, got ${shown(h.entered)}`);
+        else {
+          allowedKeys(p, `${hp}.entered`, h.entered, ['text', 'unit']);
+          str(p, `${hp}.entered.text`, h.entered.text, LIMITS.enteredText);
+          str(p, `${hp}.entered.unit`, h.entered.unit, LIMITS.enteredText);
+        }
+        oneOf(p, `${hp}.verdict`, h.verdict, verdicts, true);
+        str(p, `${hp}.note`, h.note, LIMITS.readingNote);
+        date(p, `${hp}.recordedAt`, h.recordedAt);
+        date(p, `${hp}.replacedAt`, h.replacedAt);
+      });
+    }
+  }
   return p;
 }
 

@@ -1,10 +1,10 @@
 // Visit form rules, user-defined reading types, and the pure part of judging a reading against the
 // instrument's baseline. No storage here.
 import { catalogue, catalogueType, type BadSide, type ReadingType, type ToleranceRule } from './catalogue';
-import { contextMatches, expectationFor, judgeWithLimit, type EngineFunctions, type Expectation, type MakerLimit, type ReadingContext } from './judge';
+import { contextMatches, expectationFor, judgeWithLimit, withConventionCheck, type EngineFunctions, type Expectation, type MakerLimit, type ReadingContext } from './judge';
 import { parseNumber } from './numberText';
 import { LIMITS, shown, visitReasons } from './validate';
-import type { InstrumentProfile, Reading, Verdict, Visit, VisitReason } from './types';
+import type { ReadingVersion, InstrumentProfile, Reading, Verdict, Visit, VisitReason } from './types';
 
 /** What the visit form holds: text as typed. */
 export interface VisitDraft {
@@ -195,7 +195,8 @@ export function assess(
   type: ReadingType, instrument: InstrumentProfile | undefined, visitId: string, value: number, context: ReadingContext,
   baseline: BaselineSet | undefined, engine: EngineFunctions | undefined, limit?: MakerLimit,
 ): { expected?: Reading['expected']; verdict?: Verdict } {
-  const r = judgeWithLimit(value, type.baseUnit, expectationOf(type, instrument, visitId, context, baseline, engine), limit);
+  const r = withConventionCheck(type, typeof context.convention === 'string' ? context.convention : undefined, value,
+    judgeWithLimit(value, type.baseUnit, expectationOf(type, instrument, visitId, context, baseline, engine), limit));
   if (!r) return {};
   const e = r.expectation;
   const expected: NonNullable<Reading['expected']> = { basis: e.basis, source: e.source, summary: r.judgement.summary };
@@ -207,4 +208,20 @@ export function assess(
 
 export function describeType(typeId: string, types: readonly ReadingType[]): string {
   return types.find((t) => t.id === typeId)?.label ?? `reading type ${shown(typeId)}`;
+}
+
+/**
+ * The reading as it will be after an edit: when the value, its unit or its note changes, the version being
+ * replaced goes onto the end of its history (value, unit, verdict, note, when it was recorded and when replaced).
+ * A change of context only (gauge gas, parked m/z) is re-judged without a history entry of its own.
+ */
+export function withHistory(was: Reading, next: Pick<Reading, 'value' | 'entered' | 'note'>, now: string): Reading['history'] {
+  const changed = next.value !== was.value || next.entered.text !== was.entered.text || next.entered.unit !== was.entered.unit || next.note !== was.note;
+  if (!changed) return was.history;
+  const version: ReadingVersion = {
+    value: was.value, entered: { ...was.entered }, note: was.note,
+    ...(was.verdict ? { verdict: was.verdict } : {}),
+    recordedAt: was.history?.at(-1)?.replacedAt ?? was.takenAt, replacedAt: now,
+  };
+  return [...(was.history ?? []), version];
 }

@@ -1,6 +1,6 @@
 // Readings: judged and saved with their visit touched in ONE transaction; listed, changed, deleted, put back.
 import {
-  allTypes, assess, expectationOf, judgeWithLimit, limitFor, pickBaselineVisit, readingProblems, type EngineFunctions, type Reading, type ReadingType,
+  allTypes, assess, expectationOf, judgeWithLimit, limitFor, withConventionCheck, withHistory, pickBaselineVisit, readingProblems, type EngineFunctions, type Reading, type ReadingType,
 } from '../records';
 import type { NewReading, Store, StoreContext } from './api';
 import { guard, StoreError } from './errors';
@@ -81,7 +81,8 @@ export function readingMethods({ db, engine }: StoreContext): Pick<Store, Readin
         const ctx = await judgingContext(tx, visitId, typeId, context);
         await tx.done;
         const expectation = expectationOf(ctx.type, ctx.instrument, visitId, context, ctx.baseline, engine);
-        return judgeWithLimit(value, ctx.type.baseUnit, expectation, ctx.limit) ?? {};
+        const convention = typeof context?.convention === 'string' ? context.convention : undefined;
+        return withConventionCheck(ctx.type, convention, value, judgeWithLimit(value, ctx.type.baseUnit, expectation, ctx.limit)) ?? {};
       }),
 
     addReading: (input) =>
@@ -99,6 +100,9 @@ export function readingMethods({ db, engine }: StoreContext): Pick<Store, Readin
         if (!was) throw new StoreError(`Could not save: the reading ${id} no longer exists.`);
         const now = nowIso();
         const next: Reading = { ...was, ...changes, updatedAt: now };
+        // The version replaced stays visible in the reading's history (audit trail).
+        const history = withHistory(was, next, now);
+        if (history) next.history = history;
         if (changes.context && Object.keys(changes.context).length === 0) delete next.context;
         const ctx = await judgingContext(tx, was.visitId, was.typeId, next.context ?? {});
         delete next.expected;

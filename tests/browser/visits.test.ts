@@ -77,7 +77,7 @@ describe('visit log offline', () => {
     await page.locator('#reading-unit').selectOption('Torr');
     await page.locator('#reading-value').fill('abc');
     await page.getByRole('button', { name: 'Save reading' }).click();
-    await expect.poll(() => page.locator('.field-error').first().textContent()).toMatch(/Fore-vacuum “abc” is not a number: enter a value between 7\.501e-9 and 900\.1 Torr/);
+    await expect.poll(() => page.locator('.field-error').first().textContent()).toMatch(/Fore-vacuum must be a number between 7\.501e-9 and 900\.1 Torr, written like 2\.5 or 2\.5e-5; “abc” is not a number/);
     await page.locator('#reading-value').fill('0.0018');
     await page.locator('input[name="reading-phase"][value="as-left"]').check();
     await page.getByRole('button', { name: 'Save reading' }).click();
@@ -124,7 +124,6 @@ describe('visit log offline', () => {
 
   it('export → erase → restore gives the same data back; a damaged file changes nothing', async () => {
     const { page } = session!;
-    page.on('dialog', (d) => void d.accept());
     await page.goto(origin + '/visits');
     await openBackup(page);
     const first = await download(page, () => page.getByRole('button', { name: 'Download backup' }).click(), 'first.json');
@@ -134,13 +133,16 @@ describe('visit log offline', () => {
 
     await page.locator('summary', { hasText: 'Erase this device' }).click();
     await page.getByRole('button', { name: 'Erase everything on this device' }).click();
+    await page.getByRole('button', { name: 'Yes, erase everything' }).click();
     await expect.poll(() => page.locator('[data-testid="visit-item"]').count()).toBe(0);
 
     // A truncated copy is refused and nothing changes.
     const broken = join(scratch, 'broken.json');
     writeFileSync(broken, first.slice(0, Math.floor(first.length / 2)));
     await page.locator('#backup-file').setInputFiles(broken);
-    await expect.poll(() => page.locator('[data-testid="backup-problem"]').textContent()).toMatch(/nothing on this device changed.*not valid JSON/);
+    await expect.poll(() => page.locator('[data-testid="backup-problem"]').textContent()).toMatch(/nothing on this device was changed.*not valid JSON/);
+    // The refusal says its sentence once.
+    expect(((await page.locator('[data-testid="backup-problem"]').textContent()) ?? '').match(/was not restored/g)).toHaveLength(1);
 
     await page.locator('#backup-file').setInputFiles(join(scratch, 'first.json'));
     // Erasing keeps one record (the demo is marked as seen so it does not come back): it is the one unchanged.

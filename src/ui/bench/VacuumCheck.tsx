@@ -13,10 +13,11 @@ import { parseNumber, usePersistentInputs } from './inputs';
 import { Result } from './NoteButton';
 import { DraftProblem } from '../components/DraftProblem';
 
+// Default gas: helium carrier on GC-MS; nitrogen (air) on LC-MS and RGAs, the usual background there (common practice).
 type VacuumInputs = { reading: string; unit: string; gas: string; temperature: string; rodLength: string };
 
 function vacuumDefaults(p: InstrumentProfile | null): VacuumInputs {
-  return { reading: p?.kind === 'rga' ? '2e-7' : '1.5e-5', unit: 'mbar', gas: p?.kind === 'rga' ? 'N2' : 'He', temperature: '20', rodLength: p ? String(+(p.rodLength * 1e3).toPrecision(6)) : '150' };
+  return { reading: p?.kind === 'rga' ? '2e-7' : '1.5e-5', unit: 'mbar', gas: p && (p.kind === 'rga' || p.kind.startsWith('lc-ms')) ? 'N2' : 'He', temperature: '20', rodLength: p ? String(+(p.rodLength * 1e3).toPrecision(6)) : '150' };
 }
 
 type Verdict = { cls: 'pass' | 'borderline' | 'fail'; symbol: string; words: string };

@@ -13,7 +13,7 @@ import { ionListsFor, defaultIons } from './calibrants';
 import { dcAs, dcFormOf, dcFormUnitId, dcFormWords, rfAs, rfFormOf, rfFormUnit, rfFormUnitId, rfFormWords } from './conventions';
 import { tryEngine, type FieldErrors } from './engineErrors';
 import { HvCaution } from './HvCaution';
-import { parseMzList, usePersistentInputs } from './inputs';
+import { listHint, parseMzList, usePersistentInputs } from './inputs';
 import { InverseCheck } from './InverseCheck';
 import { Proportionality } from './Proportionality';
 import { Result } from './NoteButton';
@@ -68,7 +68,7 @@ export function Voltages() {
         <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="expected-title">
           <h2 class="card-title" id="expected-title">Expected voltages</h2>
           <NumberField id="bench-mz" inputMode="text" label="m/z (one or a list)" value={inputs.mzList} error={errors.mz} onInput={(t) => update({ mzList: t })}
-            hint="Separate values with commas or spaces." />
+            hint={<span data-testid="bench-mz-read-as">{listHint(list)}</span>} />
           <div class="row" role="group" aria-label="Ion lists">
             {ionListsFor(profile).map((l) => (
               <button key={l.label} type="button" class="btn btn-small" onClick={() => update({ mzList: l.values.join(', ') })}>{l.label}</button>

@@ -1,7 +1,7 @@
 // Screen inputs kept as typed, per instrument profile and screen, in the store's settings, so a reload, a
 // profile switch or an update never loses them (through the one draft hook, which says so when the device
 // refuses to keep them). Parsing accepts a decimal comma (gloved thumbs, EU keypads).
-import { readNumber, type InstrumentProfile } from '../../records';
+import { LIST_RULE_WORDS, formatNumber as formatListNumber, readNumber, splitNumberList, type InstrumentProfile } from '../../records';
 import { useApp } from '../context';
 import { useDraft } from '../components/useDraft';
 
@@ -39,16 +39,21 @@ export function parseNumber(text: string, label: string, example = '1.5'): Parse
   return { ok: false, message: `${label}: the number is too large.` };
 }
 
-/** A list of m/z values separated by commas, semicolons or spaces (decimals in a list take a point). */
+/** A list of m/z values, split by the one list rule of src/records (splitNumberList, LIST_RULE_WORDS). */
 export function parseMzList(text: string, label = 'm/z list'): { ok: true; values: number[] } | { ok: false; message: string } {
-  const parts = text.split(/[;,\s]+/).map((s) => s.trim()).filter(Boolean);
+  const parts = splitNumberList(text);
   if (parts.length === 0) return { ok: false, message: `${label}: enter one m/z or several separated by commas, e.g. 69, 219, 502.` };
   if (parts.length > 24) return { ok: false, message: `${label}: at most 24 values at a time (you entered ${parts.length}).` };
   const values: number[] = [];
   for (const p of parts) {
     const r = parseNumber(p, label, '69');
-    if (!r.ok) return { ok: false, message: `${label}: “${p}” is not a number; separate values with commas or spaces, e.g. 69, 219, 502.` };
+    if (!r.ok) return { ok: false, message: `${label}: “${p}” is not a number; separate values with semicolons or spaces, e.g. 69; 219; 502.` };
     values.push(r.value);
   }
   return { ok: true, values };
+}
+
+/** The list field's hint: the one list rule, and how the list was read ("Read as: 219.5; 69"). */
+export function listHint(list: ReturnType<typeof parseMzList>): string {
+  return list.ok ? `${LIST_RULE_WORDS} Read as: ${list.values.map((v) => formatListNumber(v, 6)).join('; ')}.` : LIST_RULE_WORDS;
 }

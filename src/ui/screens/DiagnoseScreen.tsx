@@ -14,6 +14,7 @@ import { navigate, usePath } from '../router';
 import { LeakCheckPanel, type LeakTyped } from './diagnose/LeakCheckPanel';
 import { NodeView, TREE_TITLE, type Typed } from './diagnose/NodeView';
 import { VerdictWord } from './diagnose/VerdictWord';
+import { ConfirmAction } from '../components/ConfirmAction';
 
 /** Walks live in the store's walks records; this older draft key is only read once to carry a walk over. */
 export const WALK_DRAFT_KEY = 'diagnose:walk';
@@ -319,17 +320,8 @@ function Walk() {
         <button type="button" class="btn btn-back" disabled={walk.steps.length === 0} onClick={() => save({ ...draft, walk: back(walk) })}>
           ← Back
         </button>
-        <button
-          type="button"
-          class="btn btn-danger"
-          onClick={() => {
-            if (!confirm('Stop this walk? It is kept on this device, marked as stopped, with all its readings.')) return;
-            close('abandoned');
-            navigate('/diagnose');
-          }}
-        >
-          Stop walk
-        </button>
+        <ConfirmAction danger label="Stop walk" question="Stop this walk? It is kept on this device, marked as stopped, with all its readings."
+          confirmLabel="Yes, stop the walk" onConfirm={() => { close('abandoned'); navigate('/diagnose'); }} />
       </div>
       <details class="card">
         <summary>Readings in this walk ({walk.readings.length})</summary>

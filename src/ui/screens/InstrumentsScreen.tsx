@@ -9,6 +9,7 @@ import { DraftProblem } from '../components/DraftProblem';
 import { useDraft } from '../components/useDraft';
 import { navigate, usePath } from '../router';
 import { formatConvention, formatSi } from '../format';
+import { ConfirmAction } from '../components/ConfirmAction';
 
 export function InstrumentsScreen() {
   const path = usePath();
@@ -71,7 +72,6 @@ function InstrumentList() {
     setBusy(true);
     try {
       if (hasDemo) {
-        if (!confirm('Remove the invented demo instruments (and their demo visits)? Your own profiles stay.')) return;
         const n = await store.removeDemo();
         notify(`Removed ${n} demo instrument${n === 1 ? '' : 's'}.`);
       } else {
@@ -92,9 +92,12 @@ function InstrumentList() {
       <p class="lede">Each profile holds the analyser geometry and RF supply that every expected value is computed from.</p>
       <div class="row">
         <a class="btn btn-primary" href="/instruments/new">New profile</a>
-        <button type="button" class="btn" onClick={toggleDemo} disabled={busy || !store}>
-          {hasDemo ? 'Remove demo data' : 'Load demo data'}
-        </button>
+        {hasDemo ? (
+          <ConfirmAction label="Remove demo data" question="Remove the invented demo instruments (and their demo visits)? Your own profiles stay."
+            confirmLabel="Yes, remove the demo data" onConfirm={toggleDemo} disabled={busy || !store} />
+        ) : (
+          <button type="button" class="btn" onClick={toggleDemo} disabled={busy || !store}>Load demo data</button>
+        )}
       </div>
       {deleted && (
         <div class="notice" data-testid="restore-deleted">

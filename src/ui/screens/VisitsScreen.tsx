@@ -18,6 +18,10 @@ import { MakerLimits } from '../visits/MakerLimits';
 import { OwnTypeForm } from '../visits/OwnTypeForm';
 import { VisitForm } from '../visits/VisitForm';
 import '../visits/visits.css';
+import { ConfirmAction } from '../components/ConfirmAction';
+import { ReadingEdit } from '../visits/ReadingEdit';
+import { Fragment } from 'preact';
+import { historyLines } from '../../records';
 
 export function VisitsScreen() {
   const path = usePath();
@@ -239,7 +243,6 @@ function VisitPage(props: { id: string; sub?: string }) {
 
   async function removeVisit() {
     if (!store || !visit) return;
-    if (!confirm('Delete this visit with all its readings? You can undo right after.')) return;
     try {
       const bundle = await store.deleteVisit(visit.id);
       navigate('/visits');
@@ -290,11 +293,11 @@ function VisitPage(props: { id: string; sub?: string }) {
           <button type="button" class="btn" onClick={() => saveReport(false)}>Download record</button>
           {canShareFiles() && <button type="button" class="btn" onClick={() => saveReport(true)}>Share record…</button>}
           <button type="button" class="btn" onClick={saveCsv}>CSV</button>
-          <button type="button" class="btn btn-danger" onClick={removeVisit}>Delete visit</button>
+          <ConfirmAction danger label="Delete visit" question="Delete this visit with all its readings? You can undo right after." confirmLabel="Yes, delete the visit" onConfirm={removeVisit} />
         </div>
       </div>
-      <ReadingTable title="As found" readings={readings.filter((r) => r.phase === 'as-found')} typeOf={typeOf} onDelete={removeReading} />
-      <ReadingTable title="As left" readings={readings.filter((r) => r.phase === 'as-left')} typeOf={typeOf} onDelete={removeReading} />
+      <ReadingTable title="As found" readings={readings.filter((r) => r.phase === 'as-found')} typeOf={typeOf} onDelete={removeReading} onEdited={() => void load()} />
+      <ReadingTable title="As left" readings={readings.filter((r) => r.phase === 'as-left')} typeOf={typeOf} onDelete={removeReading} onEdited={() => void load()} />
       {types.length > 0 && <ReadingEntry visit={visit} types={types} onSaved={() => void load()} />}
       {walks.length > 0 && (
         <div class="card">
@@ -332,7 +335,9 @@ function contextText(r: Reading): string {
     .join(' · ');
 }
 
-function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: string) => ReadingType | undefined; onDelete?: (r: Reading) => void }) {
+function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: string) => ReadingType | undefined; onDelete?: (r: Reading) => void; onEdited?: () => void }) {
+  const [editing, setEditing] = useState<string | null>(null);
+  const actions = !!props.onDelete;
   return (
     <div class="card">
       <h2 class="card-title">{props.title}</h2>
@@ -341,20 +346,38 @@ function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: 
       ) : (
         <div class="scroll-x">
           <table class="values reading-table stack-table" data-testid={`readings-${props.title === 'As found' ? 'as-found' : 'as-left'}`}>
-            <thead><tr><th>Reading</th><th>Value</th><th>Verdict</th><th>Expected</th><th>Note</th>{props.onDelete && <th><span class="visually-hidden">Actions</span></th>}</tr></thead>
+            <thead><tr><th>Reading</th><th>Value</th><th>Verdict</th><th>Expected</th><th>Note</th>{actions && <th><span class="visually-hidden">Actions</span></th>}</tr></thead>
             <tbody>
               {props.readings.map((r) => {
                 const t = props.typeOf(r.typeId);
                 const ctx = contextText(r);
+                const earlier = historyLines(r);
+                const label = t?.label ?? 'reading';
                 return (
-                  <tr key={r.id} data-testid="reading-row">
-                    <td class="what stack-head">{readingTitle(r, t)}{ctx && <span class="ctx">{ctx}</span>}</td>
-                    <td class="value">{shownValue(r, t)}</td>
-                    <td class="judged stack-side"><VerdictBadge verdict={r.verdict} /></td>
-                    <td class="expected" data-label="Expected">{expectedText(r, t)}{r.expected?.summary && <span class="ctx">{r.expected.summary}</span>}</td>
-                    <td class={r.note ? 'note' : 'note empty'} data-label="Note">{r.note}</td>
-                    {props.onDelete && <td class="actions"><button type="button" class="btn btn-small no-print" onClick={() => props.onDelete!(r)} aria-label={`Delete ${t?.label ?? 'reading'}`}>Delete</button></td>}
-                  </tr>
+                  <Fragment key={r.id}>
+                    <tr data-testid="reading-row">
+                      <td class="what stack-head">{r.typeId === 'noted-value' ? String(r.context?.label ?? 'Noted value') : readingTitle(r, t)}{ctx && <span class="ctx">{ctx}</span>}</td>
+                      <td class="value">{shownValue(r, t)}
+                        {earlier.length > 0 && <span class="ctx" data-testid="reading-history">Earlier: {earlier.join('; ')}</span>}
+                      </td>
+                      <td class="judged stack-side"><VerdictBadge verdict={r.verdict} /></td>
+                      <td class="expected" data-label="Expected">{expectedText(r, t)}{r.expected?.summary && <span class="ctx">{r.expected.summary}</span>}</td>
+                      <td class={r.note ? 'note' : 'note empty'} data-label="Note">{r.note}</td>
+                      {actions && (
+                        <td class="actions">
+                          {t && t.id !== 'noted-value' && (
+                            <button type="button" class="btn btn-small no-print" onClick={() => setEditing(editing === r.id ? null : r.id)} aria-label={`Edit ${label}`} aria-expanded={editing === r.id}>Edit</button>
+                          )}
+                          <button type="button" class="btn btn-small no-print" onClick={() => props.onDelete!(r)} aria-label={`Delete ${label}`}>Delete</button>
+                        </td>
+                      )}
+                    </tr>
+                    {editing === r.id && t && (
+                      <tr class="no-print"><td colSpan={6}>
+                        <ReadingEdit reading={r} type={t} onDone={(saved) => { setEditing(null); if (saved) props.onEdited?.(); }} />
+                      </td></tr>
+                    )}
+                  </Fragment>
                 );
               })}
             </tbody>
@@ -367,7 +390,7 @@ function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: 
 
 function ReportView(props: { visit: Visit; instrument?: InstrumentProfile; readings: Reading[]; walks: WalkRecord[]; typeOf: (id: string) => ReadingType | undefined }) {
   const { visit: v, instrument: i, readings } = props;
-  const counts = { pass: 0, borderline: 0, fail: 0 };
+  const counts = { pass: 0, borderline: 0, fail: 0, convention: 0 };
   for (const r of readings) if (r.verdict) counts[r.verdict]++;
   return (
     <section class="screen">
@@ -388,7 +411,7 @@ function ReportView(props: { visit: Visit; instrument?: InstrumentProfile; readi
           <dt>Baseline</dt><dd>{v.baseline ? 'Yes: this visit’s as-left readings are the instrument’s baseline' : 'No'}</dd>
         </dl>
         <h2>Summary</h2>
-        <p>{readings.length} readings: {counts.pass} pass (✓), {counts.borderline} borderline (△), {counts.fail} fail (✗).</p>
+        <p>{readings.length} readings: {counts.pass} pass (✓), {counts.borderline} borderline (△), {counts.fail} fail (✗){counts.convention ? `, ${counts.convention} check the convention (⇄)` : ''}.</p>
         <h2>Notes</h2>
         <p class="notes">{v.notes || '—'}</p>
         <ReadingTable title="As found" readings={readings.filter((r) => r.phase === 'as-found')} typeOf={props.typeOf} />

@@ -15,7 +15,7 @@ import { useApp } from '../context';
 import { formatNumber, formatSi } from '../format';
 import { dcAs, dcFormOf, dcFormUnitId, dcFormWords, rfAs, rfFormOf, rfFormUnit, rfFormUnitId, rfFormWords } from '../bench/conventions';
 import { tryEngine, type FieldErrors } from '../bench/engineErrors';
-import { parseMzList, parseNumber, usePersistentInputs } from '../bench/inputs';
+import { listHint, parseMzList, parseNumber, usePersistentInputs } from '../bench/inputs';
 import { Result } from '../bench/NoteButton';
 import { buildScanLine, expectedFor } from '../bench/scanLine';
 import { ScanLineFields } from '../bench/ScanLineFields';
@@ -162,7 +162,7 @@ export function StabilityDiagram() {
             <ScanLineFields idPrefix="stab" values={inputs} errors={errors} onChange={update} />
           )}
           <NumberField id="stab-list" inputMode="text" label="Other m/z to place on the diagram" value={inputs.mzList} error={errors.mzList} onInput={(t) => update({ mzList: t })}
-            hint="Neighbours of the set m/z show which side of the band they fall on." />
+            hint={<>Neighbours of the set m/z show which side of the band they fall on. {listHint(list)}</>} />
           {measured && dc !== null && rf !== null && isHazardousLive(dc, rf) && <HvCaution compact />}
           {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
         </form>

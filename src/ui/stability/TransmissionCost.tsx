@@ -2,6 +2,7 @@
 // at the same V, computed by the peak simulation in its worker (cancelled when a setting changes).
 import { useEffect, useState } from 'preact/hooks';
 import { InputRangeError } from '../../engine';
+import { engineErrorWords } from '../../records';
 import type { InstrumentProfile } from '../../store';
 import { isAbortError, simClient } from '../../worker/client';
 import { NumberField } from '../components/Field';
@@ -46,7 +47,7 @@ export function TransmissionCost(props: { mz: number; dc: number; rf: number; r0
         setState({ status: 'done', target: target.transmission, open: open.transmission });
       } catch (err) {
         if (isAbortError(err)) return;
-        if (err instanceof InputRangeError) setState({ status: 'failed', message: err.message, field: err.field });
+        if (err instanceof InputRangeError) setState({ status: 'failed', message: engineErrorWords(err), field: err.field });
         else setState({ status: 'failed', message: `The peak simulation could not run here (${(err as Error)?.message ?? String(err)}).` });
       }
     }, 300);

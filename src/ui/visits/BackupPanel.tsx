@@ -3,6 +3,7 @@ import { useEffect, useState } from 'preact/hooks';
 import type { BackupReminder, ImportResult } from '../../store';
 import { useApp } from '../context';
 import { canShareFiles, errorText, shareOrDownload, stamp } from './files';
+import { ConfirmAction } from '../components/ConfirmAction';
 
 /** Fired on window after a backup was saved or shared, so every reminder on screen updates. */
 const BACKUP_SAVED_EVENT = 'rodside:backup-saved';
@@ -88,7 +89,9 @@ export function BackupPanel() {
       await reloadInstruments();
       notify(`Backup restored: ${r.added} added, ${r.updated} updated, ${r.unchanged} unchanged.`);
     } catch (err) {
-      setProblem(`The backup was not restored and nothing on this device changed. ${errorText(err)}`);
+      // A refused backup already says it was not restored and nothing changed; say it once.
+      const words = errorText(err);
+      setProblem(/was not restored/.test(words) ? words : `The backup was not restored and nothing on this device changed. ${words}`);
     } finally {
       setBusy(false);
     }
@@ -96,7 +99,6 @@ export function BackupPanel() {
 
   async function eraseEverything() {
     if (!store) return;
-    if (!confirm('Erase every instrument, visit, reading and setting on this device? Export a backup first: this cannot be undone.')) return;
     try {
       await store.eraseAll();
       await reloadInstruments();
@@ -134,7 +136,8 @@ export function BackupPanel() {
       <details>
         <summary>Erase this device</summary>
         <p class="muted">Removes every record kept by Rodside on this device.</p>
-        <button type="button" class="btn btn-danger" onClick={eraseEverything}>Erase everything on this device</button>
+        <ConfirmAction danger label="Erase everything on this device" question="Erase every instrument, visit, reading and setting on this device? Export a backup first: this cannot be undone."
+          confirmLabel="Yes, erase everything" onConfirm={eraseEverything} />
       </details>
     </section>
   );

@@ -5,10 +5,15 @@ import {
   calibrantChoices, CALIBRANT_ISOTOPE_TYPE, CALIBRANT_RATIO_TYPE, checkEntry, EARLIER_DESIGN_SUCCESSOR, formatNumber, fromBase, parseNumber, toBase, verdictWords,
   type CalibrantChoice, type Expectation, type InstrumentProfile, type Judgement, type Reading, type ReadingType, type Visit,
 } from '../../store';
+import { probeConventionFrom, probeConventionKey, rfUnitId, typeSpec } from '../../records';
+import { NumberEntry } from '../components/NumberEntry';
+import { RF_FORMS } from '../../engine';
 import { useApp } from '../context';
 import { DraftProblem } from '../components/DraftProblem';
 import { useDraft } from '../components/useDraft';
 import { errorText } from './files';
+
+const RF_FORM_BY_UNIT = new Map(RF_FORMS.map((f) => [rfUnitId(f), f]));
 
 interface ReadingDraft {
   typeId: string;
@@ -33,7 +38,8 @@ function choiceText(c: CalibrantChoice, typeId: string): string {
 }
 
 /** The unit matching how this instrument states RF (its read-back convention), else the type's default. */
-function preferredUnit(type: ReadingType, instrument: InstrumentProfile | null): string {
+function preferredUnit(type: ReadingType, instrument: InstrumentProfile | null, remembered?: string): string {
+  if (type.id === 'rf-amplitude' && remembered && type.units.some((u) => u.id === remembered)) return remembered;
   if (type.id === 'rf-amplitude' && instrument) {
     const c = instrument.readbackConvention;
     const form = c.amplitude === 'zero-to-peak' ? 'V0p' : c.amplitude === 'peak-to-peak' ? 'Vpp' : 'Vrms';
@@ -44,10 +50,10 @@ function preferredUnit(type: ReadingType, instrument: InstrumentProfile | null):
   return type.defaultUnit;
 }
 
-function blank(type: ReadingType, instrument: InstrumentProfile | null, phase: ReadingDraft['phase'] = 'as-found'): ReadingDraft {
+function blank(type: ReadingType, instrument: InstrumentProfile | null, phase: ReadingDraft['phase'] = 'as-found', remembered?: string): ReadingDraft {
   const context: Record<string, string> = {};
   for (const f of type.context) if (f.defaultValue !== undefined) context[f.key] = String(f.defaultValue);
-  return { typeId: type.id, phase, text: '', unitId: preferredUnit(type, instrument), context, note: '' };
+  return { typeId: type.id, phase, text: '', unitId: preferredUnit(type, instrument, remembered), context, note: '' };
 }
 
 export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSaved: () => void }) {
@@ -75,6 +81,16 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
     unsavedWhenRestored: (d) => Boolean(d.text || d.note),
   });
   const draft = kept.value;
+  // The RF convention this engineer reads this instrument in (remembered per instrument, shared with the walk).
+  const [remembered, setRemembered] = useState<string | undefined>(undefined);
+  useEffect(() => {
+    if (!store || !instrument) return;
+    void store.getSetting<unknown>(probeConventionKey(instrument.id)).then((v) => {
+      const f = probeConventionFrom(v);
+      if (f) setRemembered(rfUnitId(f));
+    }).catch((err: unknown) => notify(`The remembered probe convention could not be read (${errorText(err)}).`));
+  }, [store, instrument, notify]);
+
 
   const type = draft ? choosable.find((t) => t.id === draft.typeId) ?? choosable[0] : undefined;
   const wantsChoices = type ? calibrantTypes.has(type.id) : false;
@@ -131,7 +147,7 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
   function chooseType(id: string) {
     const t = choosable.find((x) => x.id === id)!;
     setErrors({});
-    update({ ...blank(t, instrument, kept.latest()!.phase), note: kept.latest()!.note });
+    update({ ...blank(t, instrument, kept.latest()!.phase, remembered), note: kept.latest()!.note });
   }
 
   function pickIons(c: CalibrantChoice) {
@@ -148,6 +164,14 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
     const typed = parseNumber(kept.latest()!.text);
     const text = typed === null ? kept.latest()!.text : formatNumber(fromBase(next, toBase(old, typed)), 6);
     update({ unitId: id, text });
+    if (type!.id === 'rf-amplitude' && store && instrument) {
+      const form = RF_FORM_BY_UNIT.get(id);
+      if (form) {
+        setRemembered(id);
+        void store.setSetting(probeConventionKey(instrument.id), form)
+          .catch((err: unknown) => notify(`The probe convention could not be remembered (${errorText(err)}).`));
+      }
+    }
   }
 
   async function save(e: Event) {
@@ -167,7 +191,7 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
         visitId: visit.id, typeId: type!.id, phase: d.phase, value: r.value, entered: { text: d.text.trim(), unit: unit!.label },
         context: r.context, note: d.note,
       });
-      const next = { ...blank(type!, instrument, d.phase) };
+      const next = { ...blank(type!, instrument, d.phase, remembered) };
       // Keep context that usually repeats (gauge gas, reference ion), clear the value and note.
       next.context = { ...d.context };
       await kept.replace(next);
@@ -214,10 +238,9 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
         ))}
       </fieldset>
       <div class="row" style={undefined}>
-        <div class={errors.value ? 'field has-error' : 'field'} style={{ flex: '1 1 10rem' }}>
-          <label for="reading-value">Value</label>
-          <input id="reading-value" type="text" inputMode="decimal" autoComplete="off" spellcheck={false} value={draft.text}
-            aria-invalid={errors.value ? 'true' : 'false'} onInput={(ev) => update({ text: (ev.target as HTMLInputElement).value })} />
+        <div style={{ flex: '1 1 10rem' }}>
+          <NumberEntry id="reading-value" label="Value" spec={typeSpec(type, unit)} value={draft.text} showError={!!errors.value}
+            onInput={(t) => update({ text: t })} />
         </div>
         <div class="field" style={{ flex: '1 1 12rem' }}>
           <label for="reading-unit">Unit</label>
@@ -226,7 +249,6 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
           </select>
         </div>
       </div>
-      {errors.value && <p class="field-error" role="alert">{errors.value}</p>}
       {choices && (
         <div class="field" data-testid="calibrant-choices">
           <p class="hint">Calibrant ions for this instrument — {choices.why}:</p>
@@ -265,8 +287,9 @@ export function ReadingEntry(props: { visit: Visit; types: ReadingType[]; onSave
         {e && preview?.judgement ? (
           <>
             {e.basis === 'air signature'
-              ? <p>Air looks like: <strong>{shownExpected}</strong> — inside this band an air leak is likely</p>
-              : <p>Expected: <strong>{shownExpected}</strong> — from {e.basis === 'generic' ? 'a generic range' : e.basis === 'maker limit' ? 'the maker’s limit' : `the ${e.basis} value`}</p>}
+              ? <><p class="expect-big" data-testid="reading-expected">Air looks like: {shownExpected}</p><p>Inside this band an air leak is likely</p></>
+              : <><p class="expect-big" data-testid="reading-expected">Expected: {shownExpected}</p>
+                <p>From {e.basis === 'generic' ? 'a generic range' : e.basis === 'maker limit' ? 'the maker’s limit' : e.basis === 'set value' ? 'the set value' : `the ${e.basis} value`}</p></>}
             <p class="hint">{e.source}</p>
             <p>Verdict if saved: <span class={`verdict verdict-${preview.judgement.verdict}`}>{verdictWords[preview.judgement.verdict].symbol} {verdictWords[preview.judgement.verdict].word}</span> ({preview.judgement.summary})</p>
           </>

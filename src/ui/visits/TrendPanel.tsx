@@ -59,7 +59,8 @@ export function TrendPanel(props: { instrumentId: string; types: ReadingType[] }
   const options = ({ amber, teal, muted }: ChartPalette): ChartOptions => ({
     scales: { x: { time: true }, y: log ? { distr: 3 } : {} },
     // Two-line date labels (month over year) need the room.
-    axes: [{ size: 52 }, { label: unit?.label ?? '', size: 70 }],
+    // The unit is written above the chart in words, not as a rotated axis label (a rotated "V" reads like ">").
+    axes: [{ size: 52 }, { size: 70 }],
     series: [
       {},
       // As found: hollow rings, no line; as left: filled dots joined; fit: dashed. Told apart by shape, not colour alone.
@@ -92,6 +93,7 @@ export function TrendPanel(props: { instrumentId: string; types: ReadingType[] }
       </div>
       {data && trend && trend.x.length > 0 ? (
         <>
+          <p class="hint" data-testid="trend-unit">Up the side: {trend.label} in {unit?.label ?? 'its base unit'}; along the bottom: visit date.</p>
           <Chart key={`${typeId}-${log}`} data={data} options={options} height={260} zoomButtons testId="trend-chart"
             label={`${trend.label} across ${trend.x.length} visits, as found and as left, with a fitted straight line${log ? ' on a logarithmic scale' : ''}.`} />
           <ul class="legend" aria-label="Legend">

@@ -151,10 +151,10 @@ describe('WebKit: data kept on the device', () => {
     // The notice sits over the bottom of the screen, where the erase control is: wait until it goes, as a user would.
     await waitFor('the notice to go', async () => (await s.texts('.toast')).length === 0, 15_000);
 
-    // Erase through the screen, answering the browser's confirm dialog.
+    // Erase through the screen, answering the in-page confirmation (no native dialogs).
     await s.click(await s.find('[data-testid="backup-panel"] details summary'));
     await s.clickButton(/^Erase everything on this device$/);
-    await s.acceptPrompt();
+    await s.clickButton(/^Yes, erase everything$/);
     const erased = await waitFor('the device to be empty', async () => {
       const d = await dumpDatabase(s);
       return (d.instruments?.length ?? -1) === 0 && (d.visits?.length ?? -1) === 0 ? d : undefined;

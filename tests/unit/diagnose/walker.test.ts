@@ -129,7 +129,7 @@ describe('walker', () => {
     expect(ok.readings.at(-1)!.expected).toBeCloseTo(0.05, 12);
     expect(ok.nodeId).toBe('NS3E3');
     // A missing set point is named.
-    expect(() => answer(s, noSignal, { kind: 'measure', value: 30 })).toThrow(/Emission set point \(setPoint\) is needed, between 0.1 and 10000 µA/);
+    expect(() => answer(s, noSignal, { kind: 'measure', value: 30 })).toThrow(/Emission set point is needed: enter a value between 0.1 and 10000 µA/);
     // A unit of another quantity is refused.
     expect(() => answer(s, noSignal, { kind: 'measure', value: 30, unit: 'V', inputs: { setPoint: 50 } })).toThrow(/unit must be µA or mA/);
   });

@@ -74,7 +74,9 @@ describe('peakInputs.buildPeakRun', () => {
     expect(errors.resolution).toMatch(/2 to 100 000/);
     const engineErrors: Record<string, string> = {};
     expect(buildPeakRun({ ...peakDefaults(k), transverseEnergy: '-1' }, k, engineErrors)).toBeNull();
-    expect(engineErrors.transverseEnergy).toMatch(/transverseEnergy/);
+    // The engine's field name stays off the screen: the label and the limit in eV.
+    expect(engineErrors.transverseEnergy).toMatch(/^Transverse energy /);
+    expect(engineErrors.transverseEnergy).not.toMatch(/transverseEnergy/);
   });
 });
 

@@ -4,6 +4,7 @@ import {
   backupReminder, checkEntry, catalogueType, csvCell, demoInstruments, demoVisits, EARLIER_DESIGN_TYPES, emptyOwnTypeDraft, emptyVisitDraft, openStore,
   validateDraft, emptyDraft, validateVisitDraft, type Store, type VisitFields,
 } from '../../../src/store';
+import { readingProblems } from '../../../src/records';
 import { freshName, registerCleanup, testEngine } from './helpers';
 
 registerCleanup();
@@ -253,6 +254,44 @@ describe('CSV export', () => {
     expect(rows[1]).toContain(`"'=cmd|""/c calc""!A1, µ °"`);
     expect(rows[1]).toContain('High vacuum (analyser),as-found,');
     store.close();
+  });
+});
+
+describe('a corrected reading keeps its history', () => {
+  it('an edit keeps the earlier value, unit, verdict and time; the history goes into the backup and the report', async () => {
+    const { store, instrumentId } = await storeWithInstrument();
+    const v = await store.saveVisit(visitFields(instrumentId));
+    const r = await addTyped(store, v.id, 'vacuum-high', 'as-found', '2e-5', 'mbar');
+    expect(r.history).toBeUndefined();
+    // A context-only change is re-judged but adds no version.
+    const same = await store.updateReading(r.id, { note: r.note });
+    expect(same.history).toBeUndefined();
+    const fixed = await store.updateReading(r.id, { value: 3e-3, entered: { text: '3e-5', unit: 'mbar' }, note: 'typed 2 for 3' });
+    expect(fixed.history).toHaveLength(1);
+    expect(fixed.history![0]).toMatchObject({ value: 2e-3, entered: { text: '2e-5', unit: 'mbar' }, recordedAt: r.takenAt, replacedAt: fixed.updatedAt });
+    const again = await store.updateReading(r.id, { value: 3.1e-3, entered: { text: '3.1e-5', unit: 'mbar' } });
+    expect(again.history!.map((h) => h.entered.text)).toEqual(['2e-5', '3e-5']);
+    expect(again.history![1].recordedAt).toBe(fixed.updatedAt);
+    // Backup: the history travels with the reading and comes back after an erase.
+    const backup = await store.exportBackup();
+    expect(JSON.parse(backup).data.readings.find((x: { id: string }) => x.id === r.id).history).toHaveLength(2);
+    await store.eraseAll();
+    const result = await store.importBackup(backup);
+    expect(result).toMatchObject({ added: 3 });
+    const back = (await store.listReadings(v.id)).find((x) => x.id === r.id)!;
+    expect(back.history!.map((h) => h.entered.text)).toEqual(['2e-5', '3e-5']);
+    // The printable record lists the earlier versions.
+    const html = await store.visitReport(v.id);
+    expect(html).toMatch(/Earlier: 2e-5 mbar[^<]*recorded [0-9-]+ [0-9:]+, replaced [0-9-]+ [0-9:]+; 3e-5 mbar[^<]*note “typed 2 for 3”/);
+    store.close();
+  });
+  it('an old backup reading without history is still valid; a malformed history is refused by name', () => {
+    const base = {
+      id: 'r1', visitId: 'v1', instrumentId: 'i1', typeId: 'vacuum-high', phase: 'as-found', value: 2e-3,
+      entered: { text: '2e-5', unit: 'mbar' }, note: '', takenAt: '2026-01-01T00:00:00.000Z', origin: 'entered',
+    };
+    expect(readingProblems('readings[0]', base)).toEqual([]);
+    expect(readingProblems('readings[0]', { ...base, history: [{ value: 'x' }] }).join('\n')).toMatch(/readings\[0\]\.history\[0\]\.value/);
   });
 });
 

@@ -99,20 +99,29 @@ describe('Bench · expected voltages (Kestrel: r0 4.5 mm, 1 MHz, read-backs 0-p 
     await typeInto(h.root, 'bench-mz', '69, abc');
     expect(h.root.querySelector('#bench-mz-error')?.textContent).toMatch(/“abc” is not a number/);
     await typeInto(h.root, 'bench-mz', '69, -5');
-    expect(h.root.querySelector('#bench-mz-error')?.textContent).toMatch(/mz = -5 is out of range; accepted: finite number > 0/);
+    expect(h.root.querySelector('#bench-mz-error')?.textContent).toMatch(/^m\/z must be more than 0 and at most 1e7 u; -5 u is below that\.$/);
     expect(h.root.textContent).not.toMatch(/NaN/);
   });
 
   it('inverse: a measured 201.82 V p-p at m/z 69 set passes m/z from the engine, with error in u and ppm', async () => {
     const k = demo('kestrel');
     h = await mount(<Voltages />, k);
-    await typeInto(h.root, 'inv-form', 'peakToPeakPerRod');
+    // One tap on the probe convention: peak-to-peak (Kestrel reads back zero-to-peak per rod).
+    const pp = [...h.root.querySelectorAll<HTMLButtonElement>('[data-testid="inv-convention"] button')].find((b) => b.textContent === 'peak-to-peak')!;
+    await act(async () => { pp.click(); });
+    await waitFor(() => pp.classList.contains('seg-on') || pp.getAttribute('aria-pressed') === 'true', 'peak-to-peak chosen');
     await typeInto(h.root, 'inv-rf', '201.82');
     await typeInto(h.root, 'inv-set', '69');
     const passed = massForRf({ rf: 100.91, r0: k.rodFieldRadius, frequency: k.rfFrequency });
     expect(texts(h.root, '[data-testid="inverse-mz"] .result-value')[0]).toBe(`m/z ${formatNumber(passed, 6)}`);
     const ppm = ((passed - 69) / 69) * 1e6;
     expect(texts(h.root, '[data-testid="inverse-error-ppm"] .result-value')[0]).toBe(`${ppm >= 0 ? '+' : ''}${formatNumber(ppm, 4)} ppm`);
+    expect(h.root.querySelector('[data-testid="inverse-convention"]')).toBeNull();
+    // The same figure read as zero-to-peak is twice the RF: m/z 138-ish instead of 69, and the slip is named.
+    const zp = [...h.root.querySelectorAll<HTMLButtonElement>('[data-testid="inv-convention"] button')].find((b) => b.textContent === 'zero-to-peak')!;
+    await act(async () => { zp.click(); });
+    await waitFor(() => h!.root.querySelector('[data-testid="inverse-convention"]'), 'the convention flag');
+    expect(h.root.querySelector('[data-testid="inverse-convention"]')?.textContent).toMatch(/⇄ check the convention.*factor of 2.*read as peak-to-peak, one rod to ground/s);
   });
 
   it('proportionality: read-backs 100.9, 320.3, 734.1 V at 69/219/502 give k and a ✓ within 1 %; 760 V at 502 gives ✗', async () => {

@@ -182,7 +182,11 @@ describe('DiagnoseScreen', () => {
     };
     await type('#leak-m28', '1000');
     await type('#leak-m32', 'x');
-    expect(host.textContent).toMatch(/Height at m\/z 32 must be a number/);
+    // Refused on leaving the field, with the message tied to it.
+    await act(async () => { host.querySelector('#leak-m32')!.dispatchEvent(new Event('blur')); });
+    expect(host.textContent).toMatch(/Height at m\/z 32 must be a number between 0 and 1e15/);
+    expect(host.querySelector('#leak-m32')!.getAttribute('aria-invalid')).toBe('true');
+    expect(host.querySelector('#leak-m32')!.getAttribute('aria-describedby')).toBe('leak-m32-error');
     await type('#leak-m32', '260');
     await type('#leak-m40', '17');
     expect(host.querySelector('[data-testid="leak-indication"]')?.textContent).toMatch(/Air leak/);

@@ -48,7 +48,7 @@ describe('Stability · resolution planner (Kestrel: rods 150 mm, 1 MHz, 5 eV)', 
     // The transmission cost runs in the peak worker; this DOM has no Worker, so the screen says where to look.
     await waitFor(() => /could not run here.*Transmission cost: see the Peak area/.test(h!.root.querySelector('[data-testid="transmission-cost"]')?.textContent ?? ''), 'the transmission cost to say it could not run here');
     await typeInto(h.root, 'res-target', '0.2');
-    expect(h.root.querySelector('#res-target-error')?.textContent).toMatch(/resolution = 0.2 is out of range; accepted: finite number ≥ 0.5/);
+    expect(h.root.querySelector('#res-target-error')?.textContent).toMatch(/^Resolution must be between 0.5 and 1e9; 0.2 is below that.$/);
   });
 
   it('scan planning: 50–550 u in 0.1 u at 2 ms, 4 scans', async () => {
@@ -87,7 +87,7 @@ describe('Bench · vacuum check', () => {
     await typeInto(h.root, 'vac-reading', '5e-3');
     expect(h.root.querySelector('[data-testid="vacuum-verdict"]')?.textContent).toMatch(/^✗ fail/);
     await typeInto(h.root, 'vac-reading', '-1');
-    expect(h.root.querySelector('#vac-reading-error')?.textContent).toMatch(/indicated = -1 is out of range/);
+    expect(h.root.querySelector('#vac-reading-error')?.textContent).toMatch(/^Gauge reading must be between 0 and 1e7; -1 is below that.$/);
   });
 
   it('Torr input: 1×10⁻⁵ Torr of N2 is 1.33×10⁻⁵ mbar', async () => {

@@ -69,8 +69,8 @@ describe('visit page', () => {
     await act(async () => { type(host.querySelector('#reading-value'), '9e9'); });
     const before = (await store!.listReadings('demo-visit-k8')).length;
     await act(async () => { (host.querySelector('[data-testid="reading-form"]') as HTMLFormElement).dispatchEvent(new Event('submit', { bubbles: true, cancelable: true })); });
-    await waitFor(() => /out of range/.test(host.textContent ?? ''));
-    expect(host.textContent).toContain('Multiplier voltage (as set for the wanted gain) 9e9 V is out of range: enter a value between 0 and 6000 V.');
+    await waitFor(() => /is above that/.test(host.textContent ?? ''));
+    expect(host.textContent).toContain('Multiplier voltage (as set for the wanted gain) must be between 0 and 6000 V; 9e9 V is above that.');
     expect((host.querySelector('#reading-value') as HTMLInputElement).value).toBe('9e9');
     expect(await store!.listReadings('demo-visit-k8')).toHaveLength(before);
 

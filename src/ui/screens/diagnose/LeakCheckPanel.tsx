@@ -9,8 +9,9 @@ import {
   type PressureSample,
   type RateOfRiseResult,
 } from '../../../engine';
+import { checkTyped, errorWords, peakHeightSpec, specForUnit } from '../../../records';
+import { NumberEntry } from '../../components/NumberEntry';
 import { formatNumber } from '../../format';
-import { parseNumber } from './parse';
 import { SafetyCards } from './SafetyCards';
 
 export type LeakTyped = Record<string, string>;
@@ -41,9 +42,9 @@ function parseSeries(text: string, timeUnit: number, what: string): { ok: true; 
   for (const [i, line] of lines.entries()) {
     const parts = line.split(/[;\t ]+|,\s+/).filter(Boolean);
     if (parts.length !== 2) return { ok: false, message: `${what}, line ${i + 1}: write the time and the pressure separated by a space or semicolon.` };
-    const t = parseNumber(parts[0], `time on line ${i + 1}`);
+    const t = checkTyped(parts[0], specForUnit(`${what}: time on line ${i + 1}`, timeUnit === 1 ? 's' : 'h'));
     if (!t.ok) return { ok: false, message: t.message };
-    const p = parseNumber(parts[1], `pressure on line ${i + 1}`);
+    const p = checkTyped(parts[1], specForUnit(`${what}: pressure on line ${i + 1}`, 'mbar'));
     if (!p.ok) return { ok: false, message: p.message };
     samples.push({ t: t.value * timeUnit, p: p.value * 100 });
   }
@@ -54,7 +55,7 @@ function attempt<T>(fn: () => T): { ok: true; value: T } | { ok: false; message:
   try {
     return { ok: true, value: fn() };
   } catch (err) {
-    return { ok: false, message: (err as Error).message };
+    return { ok: false, message: errorWords(err) };
   }
 }
 
@@ -70,7 +71,7 @@ export function LeakCheckPanel(props: { typed: LeakTyped; onTyped: (patch: LeakT
   for (const p of PEAKS) {
     const text = typed[p.key] ?? '';
     if (text.trim() === '') continue;
-    const r = parseNumber(text, `Height at ${p.label}`);
+    const r = checkTyped(text, peakHeightSpec(`height at ${p.label}`));
     if (r.ok) heights[p.key] = r.value;
     else peakErrors[p.key] = r.message;
   }
@@ -85,18 +86,16 @@ export function LeakCheckPanel(props: { typed: LeakTyped; onTyped: (patch: LeakT
     : null;
 
   const peakField = (p: (typeof PEAKS)[number]) => (
-    <div key={p.key} class={peakErrors[p.key] ? 'field has-error' : 'field'}>
-      <label for={`leak-${p.key}`}>{p.label}{p.required ? '' : <span class="unit"> (optional)</span>}</label>
-      <input id={`leak-${p.key}`} type="text" inputMode="decimal" autoComplete="off" value={typed[p.key] ?? ''} onInput={set(p.key)} />
-      {peakErrors[p.key] && <p class="field-error" role="alert">{peakErrors[p.key]}</p>}
-    </div>
+    <NumberEntry key={p.key} id={`leak-${p.key}`} label={<>{p.label}{p.required ? '' : <span class="unit"> (optional)</span>}</>}
+      spec={peakHeightSpec(`height at ${p.label}`)} value={typed[p.key] ?? ''} onInput={(t) => onTyped({ [p.key]: t })} />
   );
 
   // Rate of rise.
-  const volume = (typed.volume ?? '').trim() ? parseNumber(typed.volume, 'Volume') : null;
+  const volumeSpec = specForUnit('isolated volume', 'L');
+  const volume = (typed.volume ?? '').trim() ? checkTyped(typed.volume, volumeSpec) : null;
   const riseSeries = (typed.rise ?? '').trim() ? parseSeries(typed.rise, 1, 'Rate of rise') : null;
   let rise: { ok: true; value: RateOfRiseResult } | { ok: false; message: string } | null = null;
-  if (volume && !volume.ok) rise = volume;
+  if (volume && !volume.ok) rise = null; // the field says what is wrong
   else if (riseSeries && !riseSeries.ok) rise = riseSeries;
   else if (volume?.ok && riseSeries?.ok) rise = attempt(() => rateOfRise(volume.value * 1e-3, riseSeries.samples));
 
@@ -127,6 +126,7 @@ export function LeakCheckPanel(props: { typed: LeakTyped; onTyped: (patch: LeakT
         </ol>
         <div class="peak-grid">{PEAKS.filter((p) => p.tracer).map(peakField)}</div>
         {!canRatio && Object.keys(peakErrors).length === 0 && <p class="hint">Enter at least m/z 28 and 32.</p>}
+        {Object.keys(peakErrors).length > 0 && <p class="hint" data-testid="leak-heights-refused">No ratios until the heights marked above are fixed.</p>}
         {ratio && !ratio.ok && <p class="field-error" role="alert">{ratio.message}</p>}
         {ratio?.ok && (
           <div data-testid="leak-indication">
@@ -155,10 +155,8 @@ export function LeakCheckPanel(props: { typed: LeakTyped; onTyped: (patch: LeakT
       <div class="card">
         <h3 class="card-title">Rate of rise</h3>
         <p class="hint">Isolate the volume, then log time (s) and pressure (mbar), one pair per line. Q = V·Δp/Δt (O'Hanlon, A User's Guide to Vacuum Technology, 3rd ed., 2003).</p>
-        <div class={volume && !volume.ok ? 'field has-error' : 'field'}>
-          <label for="leak-volume">Isolated volume<span class="unit"> (L)</span></label>
-          <input id="leak-volume" type="text" inputMode="decimal" value={typed.volume ?? ''} onInput={set('volume')} />
-        </div>
+        <NumberEntry id="leak-volume" label={<>Isolated volume<span class="unit"> (L)</span></>} spec={volumeSpec}
+          value={typed.volume ?? ''} onInput={(t) => onTyped({ volume: t })} />
         <div class="field">
           <label for="leak-rise">Time (s) and pressure (mbar)</label>
           <textarea id="leak-rise" rows={5} value={typed.rise ?? ''} onInput={set('rise')} placeholder={'0 1e-3\n60 1.6e-3\n120 2.2e-3'} />

@@ -21,7 +21,12 @@ import {
   type TreeId,
   type WalkState,
 } from '../../../diagnose';
-import { UNITS } from '../../../records';
+import {
+  catalogueType, checkTyped, errorWords, factorWords, rfConventionSuspects, rfFactor, rfFormWords, specForMeasure, UNITS,
+} from '../../../records';
+import { rfFormOf } from '../../../engine';
+import { ConventionChoice, useProbeConvention } from '../../components/ConventionChoice';
+import { NumberEntry } from '../../components/NumberEntry';
 import { formatNumber } from '../../format';
 import { parseNumber } from './parse';
 import { SafetyCards } from './SafetyCards';
@@ -121,7 +126,7 @@ function ChoiceView(props: NodeViewProps & { node: QuestionNode | ChoiceNode }) 
     try {
       props.onWalk(answer(walk, tree, { kind: 'option', optionId, ...(props.typed.note ? { note: props.typed.note } : {}) }));
     } catch (err) {
-      setProblem((err as Error).message);
+      setProblem(errorWords(err));
     }
   }
   return (
@@ -153,7 +158,7 @@ function ChoiceView(props: NodeViewProps & { node: QuestionNode | ChoiceNode }) 
               try {
                 props.onWalk(answer(walk, tree, { kind: 'options', optionIds: picked }));
               } catch (err) {
-                setProblem((err as Error).message);
+                setProblem(errorWords(err));
               }
             }}
           >
@@ -269,6 +274,7 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
   const units = [node.measure.unit, ...(node.measure.altUnits ?? [])];
   const unit = typed.unit && units.includes(typed.unit) ? typed.unit : node.measure.unit;
   const [problem, setProblem] = useState<string | null>(null);
+  const [tried, setTried] = useState(false);
   const calcInputs = node.expect && 'calc' in node.expect ? (node.expect.inputs ?? []).filter((i) => !i.fromReading) : [];
   const inputText = (key: string, dflt?: number) => typed[`in:${key}`] ?? (dflt === undefined ? '' : String(dflt));
 
@@ -283,7 +289,15 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
     else inputErrors[i.key] = p.message;
   }
   const measuredText = typed.value ?? '';
-  const measured = measuredText.trim() === '' ? null : parseNumber(measuredText, node.measure.quantity);
+  const visitType = node.measure.visitType ? catalogueType(node.measure.visitType) : undefined;
+  const spec = specForMeasure(node.measure.quantity, unit, visitType);
+  const checked = measuredText.trim() === '' ? null : checkTyped(measuredText, spec);
+  // RF at the probe: the engineer says how it was read; expected and measured meet in the instrument's read-back.
+  const rfStep = node.measure.visitType === 'rf-amplitude' && !!walk.instrument;
+  const readback = rfFormOf(walk.instrument?.readbackConvention ?? { amplitude: 'zero-to-peak', reference: 'per-rod' });
+  const [chosen, choose] = useProbeConvention(walk.instrument?.id, readback);
+  const toReadback = rfStep ? rfFactor(readback) / rfFactor(chosen) : 1;
+  const measured = checked && checked.ok ? { ok: true as const, value: checked.value * toReadback } : checked;
   const pv = node.expect ? preview(node, walk.instrument, inputs, unit, undefined, measured?.ok ? measured.value : undefined) : null;
   const tol = toleranceIn(node, unit);
   let live: ReturnType<typeof judge> | null = null;
@@ -294,6 +308,17 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
       live = null;
     }
   }
+  // A reading that misses but would pass in another convention: say so before anyone acts on "fail".
+  const suspect = rfStep && live && live.verdict !== 'pass' && checked?.ok && pv?.ok && tol
+    ? rfConventionSuspects(checked.value, chosen, (v) => {
+        try {
+          return judge(v * toReadback, { value: pv.expected ?? undefined, low: pv.low ?? undefined, high: pv.high ?? undefined }, tol).verdict === 'pass';
+        } catch {
+          return false;
+        }
+      })[0]
+    : undefined;
+  const shownExpected = (x: number) => formatNumber(x / toReadback);
   const derived = node.derived && measured?.ok ? previewDerived(node, walk.instrument, inputs, { value: measured.value, unit }) : [];
   const needManual = !!node.expect && !pv?.ok;
   const manual = typed.verdict ?? '';
@@ -301,7 +326,8 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
   function submit() {
     setProblem(null);
     if (!measured || !measured.ok) {
-      setProblem(measured && !measured.ok ? measured.message : `Enter the measured value: ${node.measure.quantity}.`);
+      // The field itself says what is wrong (one message); nothing is recorded.
+      setTried(true);
       return;
     }
     if (Object.keys(inputErrors).length) {
@@ -320,7 +346,7 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
     try {
       props.onWalk(answer(walk, tree, { kind: 'measure', value: measured.value, unit, inputs, ...(verdict ? { verdict } : {}), ...(typed.note ? { note: typed.note } : {}) }));
     } catch (err) {
-      setProblem((err as Error).message);
+      setProblem(errorWords(err));
     }
   }
 
@@ -345,12 +371,13 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
         <div class="card expect-box" data-testid="expected">
           {pv.ok ? (
             <>
-              <p class="big">
-                Expected: {pv.expected !== null ? `${formatNumber(pv.expected)} ${unit}` : ''}
+              <p class={rfStep ? 'expect-big' : 'big'} data-testid="expected-value">
+                Expected: {pv.expected !== null ? `${shownExpected(pv.expected)} ${unit}` : ''}
                 {pv.low !== null || pv.high !== null
-                  ? ` ${pv.expected !== null ? '(' : ''}${pv.low !== null && pv.high !== null ? `${formatNumber(pv.low)} to ${formatNumber(pv.high)}` : pv.high !== null ? `at most ${formatNumber(pv.high)}` : `at least ${formatNumber(pv.low!)}`} ${unit}${pv.expected !== null ? ')' : ''}`
+                  ? ` ${pv.expected !== null ? '(' : ''}${pv.low !== null && pv.high !== null ? `${shownExpected(pv.low)} to ${shownExpected(pv.high)}` : pv.high !== null ? `at most ${shownExpected(pv.high)}` : `at least ${shownExpected(pv.low!)}`} ${unit}${pv.expected !== null ? ')' : ''}`
                   : ''}
               </p>
+              {rfStep && <p class="big" data-testid="expected-convention">{rfFormWords[chosen]}</p>}
               {tol && <p class="hint">Tolerance: {describeTolerance(tol, unit)}.</p>}
               <p class="hint">{pv.basis}</p>
             </>
@@ -359,13 +386,11 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
           )}
         </div>
       )}
+      {rfStep && <ConventionChoice id="probe-convention" value={chosen} readback={readback} onChange={(f) => choose(f)} />}
       <div class="row measure-row">
-        <div class={measured && !measured.ok ? 'field has-error grow' : 'field grow'}>
-          <label for="walk-value">Measured: {node.measure.quantity}</label>
-          <input id="walk-value" type="text" inputMode="decimal" autoComplete="off" value={measuredText}
-            onInput={(e) => props.onTyped({ value: (e.target as HTMLInputElement).value })} />
-          {measured && !measured.ok && <p class="field-error" role="alert">{measured.message}</p>}
-        </div>
+        <NumberEntry id="walk-value" class="grow" label={`Measured: ${node.measure.quantity}`} spec={spec} value={measuredText}
+          showError={tried} onInput={(t) => { setTried(false); props.onTyped({ value: t }); }}
+          hint="Exponent as 2.5e-5; a minus sign where the value can be negative." />
         {units.length > 1 ? (
           <div class="field">
             <label for="walk-unit">Unit</label>
@@ -379,7 +404,13 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
       </div>
       {live && (
         <p data-testid="live-verdict">
-          This reading would be: <VerdictWord verdict={live.verdict} side={live.side} />
+          This reading would be: {suspect ? <VerdictWord verdict="convention" /> : <VerdictWord verdict={live.verdict} side={live.side} />}
+        </p>
+      )}
+      {suspect && (
+        <p class="notice" data-testid="convention-hint">
+          Off by a factor of {factorWords(Math.max(suspect.factor, 1 / suspect.factor))}, the size of a convention slip: read as {rfFormWords[suspect.form]} it
+          would match. Check how the reading was taken and choose that convention above, before acting on a failure.
         </p>
       )}
       {derived.length > 0 && (
@@ -440,7 +471,7 @@ function ActionView(props: NodeViewProps & { node: ActionNode }) {
       props.onWalk(record(walk, tree, { kind: 'measure', value: v.value, unit: leftUnit, quantity, ...(typed.note ? { note: typed.note } : {}) }));
       props.onTyped({ leftValue: '' });
     } catch (err) {
-      setProblem((err as Error).message);
+      setProblem(errorWords(err));
     }
   }
 
