@@ -47,7 +47,7 @@
  *  the bracket, show: the coarse stage keeps 64.) With S = 128 the bound is ≈ 1e-4·T near the apex; the profile refines phases
  *  until it is ≤ 1e-3 of the peak height. `uncertainty` is 0: nothing here is random.
  */
-import { ConvexIndex, convexHull, hullOfConvexAndPoints, polarInto, polarPolygon, simplifyHull, transformRows } from './transmissionHull';
+import { ConvexIndex, convexHull, hullOfConvexAndPoints, insertIntoConvex, isCleanHull, polarInto, polarPolygon, simplifyHull, transformRows } from './transmissionHull';
 import { gaussLegendre, meanNormalCdf, normalCdf, psiExcess } from './transmissionMath';
 import { fundamentalAt, monodromy, multiply2, periodTable, power2, type PeriodTable } from './trajectoryMathieu';
 import { flightModel, requireFinite, requireInteger, type FlightModel, type TransmissionParams } from './peakInput';
@@ -124,6 +124,8 @@ export interface AxisFlight {
   /** Fast inside test for the core hull (points inside it cannot be vertices of a window's hull). */
   coreIndex: ConvexIndex | null;
   coreEnd: number;
+  /** No core vertex would be dropped by the hull clean-up (so per-phase hulls check only what changed). */
+  coreClean: boolean;
   /** The motion grows so fast that the acceptance is negligible (see COLLAPSE_LIMIT). */
   collapsed: boolean;
   /** When collapsed: actual sample rows (phase-0 frame) of periods ≥ 1, for the strip bound. */
@@ -138,7 +140,15 @@ export interface AxisFlight {
    * Samples outside the core that some window may include: period 0 and the periods after the core, as
    * (ξ, u, w) rows in the phase-0 frame, ascending ξ. Samples inside the core hull are dropped once, here.
    */
-  candidates: { xi: Float64Array; u: Float64Array; w: Float64Array; count: number };
+  candidates: {
+    xi: Float64Array;
+    u: Float64Array;
+    w: Float64Array;
+    count: number;
+    /** Core wedges (ConvexIndex.wedge) of (u, w) and of −(u, w), when there is a core index. */
+    wedgePlus: Int32Array;
+    wedgeMinus: Int32Array;
+  };
 }
 
 export function prepareAxis(
@@ -198,7 +208,8 @@ export function prepareAxis(
   const epsilon = 1 - (1 - overshoot) / growth;
   const coreIndex = core && core.length >= 6 ? new ConvexIndex(core) : null;
   const candidates = windowCandidates(table, m, coreEnd, cycles, coreIndex);
-  return { table, monodromy: m, cycles, core, coreIndex, coreEnd, collapsed, collapsedRows, epsilon, candidates };
+  const coreClean = core ? isCleanHull(core) : false;
+  return { table, monodromy: m, cycles, core, coreIndex, coreEnd, coreClean, collapsed, collapsedRows, epsilon, candidates };
 }
 
 function windowCandidates(
@@ -237,7 +248,13 @@ function windowCandidates(
       mp = multiply2(mp, m);
     }
   }
-  return { xi, u, w, count };
+  const wedgePlus = new Int32Array(index ? count : 0);
+  const wedgeMinus = new Int32Array(index ? count : 0);
+  if (index) for (let i = 0; i < count; i++) {
+    wedgePlus[i] = index.wedge(u[i], w[i]);
+    wedgeMinus[i] = index.wedge(-u[i], -w[i]);
+  }
+  return { xi, u, w, count, wedgePlus, wedgeMinus };
 }
 
 /** Hull of d ∪ e·B for convex polygons d, e (B has det 1, so e·B stays convex): linear-time merge. */
@@ -286,7 +303,13 @@ class AxisScratch {
   chain: UpperChain = { xs: new Float64Array(128), hs: new Float64Array(128), extent: 0, count: 0 };
   /** The chain scaled by the inner bracket's factor. */
   inner: UpperChain = { xs: new Float64Array(128), hs: new Float64Array(128), extent: 0, count: 0 };
-  /** Room for `numbers` numbers in the point buffers, `vertices` chain vertices. */
+  private wedgeBuffer = new Int32Array(128);
+  /** Wedge indices for `count` extra points. */
+  wedges(count: number): Int32Array {
+    if (this.wedgeBuffer.length < count) this.wedgeBuffer = new Int32Array(2 * count);
+    return this.wedgeBuffer;
+  }
+  /** Room for `numbers` numbers in the point buffers. */
   reserve(numbers: number): void {
     if (this.points.length < numbers) {
       const size = 2 * numbers;
@@ -421,38 +444,84 @@ function constraintHullInto(axis: AxisFlight, entryPhase: number, s: AxisScratch
   const lastPeriod = Math.floor(end / Math.PI);
   const coreCount = axis.core ? axis.core.length / 2 : 0;
   s.reserve(2 * (coreCount + 2 * (candidates.count + 2)));
-  const pts = s.points;
-  let count = 0;
-  if (axis.core) {
-    pts.set(axis.core);
-    count = coreCount;
-  }
-  const index = axis.coreIndex;
   const entry = entryScratch;
   fundamentalAt(table, entryPhase, entry);
-  count = pushOutside(pts, count, index, entry[0], entry[1]);
-  // Samples strictly after the entry and not after the exit (period 0 and the periods after the core).
-  const { xi, u, w } = candidates;
-  for (let i = 0; i < candidates.count; i++) {
-    const at = xi[i];
-    if (at <= entryPhase) continue;
-    if (at > end) break;
-    pts[2 * count] = u[i];
-    pts[2 * count + 1] = w[i];
-    pts[2 * count + 2] = -u[i];
-    pts[2 * count + 3] = -w[i];
-    count += 2;
-  }
-  // Exit point.
   const exit = exitScratch;
   const mEnd = monodromyPower(axis, lastPeriod);
   fundamentalAt(table, end - lastPeriod * Math.PI, exit);
-  count = pushOutside(pts, count, index, exit[0] * mEnd[0] + exit[1] * mEnd[2], exit[0] * mEnd[1] + exit[1] * mEnd[3]);
-
-  // The core is a convex polygon, the rest loose points: a linear merge and one monotone chain.
-  const extraCount = count - coreCount;
-  const m = extraCount === 0 && axis.core ? coreCount : hullOfConvexAndPoints(pts, coreCount, extraCount, false, s.hull);
-  const hull = extraCount === 0 && axis.core ? axis.core : s.hull;
+  const exitU = exit[0] * mEnd[0] + exit[1] * mEnd[2];
+  const exitW = exit[0] * mEnd[1] + exit[1] * mEnd[3];
+  const index = axis.coreIndex;
+  let m: number;
+  let hull: Float64Array;
+  if (axis.core && index && index.size >= 3 && candidates.wedgePlus.length === candidates.count) {
+    // Few points outside the core: slot them into the core's vertex sequence (insertIntoConvex).
+    const extras = s.points;
+    const wedges = s.wedges(2 * (candidates.count + 2));
+    let k = 0;
+    const push = (x: number, y: number): void => {
+      const wp = index.wedge(x, y);
+      if (index.insideEdge(wp, x, y)) return; // −(x, y) is then inside too: the core is centrally symmetric
+      extras[2 * k] = x;
+      extras[2 * k + 1] = y;
+      wedges[k++] = wp;
+      extras[2 * k] = -x;
+      extras[2 * k + 1] = -y;
+      wedges[k++] = index.wedge(-x, -y);
+    };
+    push(entry[0], entry[1]);
+    const { xi, u, w, wedgePlus, wedgeMinus } = candidates;
+    for (let i = 0; i < candidates.count; i++) {
+      const at = xi[i];
+      if (at <= entryPhase) continue;
+      if (at > end) break;
+      extras[2 * k] = u[i];
+      extras[2 * k + 1] = w[i];
+      wedges[k++] = wedgePlus[i];
+      extras[2 * k] = -u[i];
+      extras[2 * k + 1] = -w[i];
+      wedges[k++] = wedgeMinus[i];
+    }
+    push(exitU, exitW);
+    if (k === 0) {
+      m = coreCount;
+      hull = axis.core;
+    } else if (k <= 48) {
+      m = insertIntoConvex(axis.core, coreCount, axis.coreClean, extras, wedges, k, s.hull);
+      hull = s.hull;
+    } else {
+      // Many (growing motion): the core and the loose points merged in (x, y) order.
+      const pts = s.c;
+      pts.set(axis.core);
+      pts.set(extras.subarray(0, 2 * k), 2 * coreCount);
+      m = hullOfConvexAndPoints(pts, coreCount, k, false, s.hull);
+      hull = s.hull;
+    }
+  } else {
+    const pts = s.points;
+    let count = 0;
+    if (axis.core) {
+      pts.set(axis.core);
+      count = coreCount;
+    }
+    count = pushOutside(pts, count, index, entry[0], entry[1]);
+    // Samples strictly after the entry and not after the exit (period 0 and the periods after the core).
+    const { xi, u, w } = candidates;
+    for (let i = 0; i < candidates.count; i++) {
+      const at = xi[i];
+      if (at <= entryPhase) continue;
+      if (at > end) break;
+      pts[2 * count] = u[i];
+      pts[2 * count + 1] = w[i];
+      pts[2 * count + 2] = -u[i];
+      pts[2 * count + 3] = -w[i];
+      count += 2;
+    }
+    count = pushOutside(pts, count, index, exitU, exitW);
+    const extraCount = count - coreCount;
+    m = hullOfConvexAndPoints(pts, coreCount, extraCount, false, s.hull);
+    hull = s.hull;
+  }
   // (Growth past the well-conditioned range in the last periods is caught by phaseAcceptance.)
   // c = r·Φ(ξ0)⁻¹, Φ⁻¹ = [[w', −w], [−u', u]] (det Φ = 1).
   inverseScratch[0] = entry[3];

@@ -351,11 +351,13 @@ export class ConvexIndex {
     return this.xs[0] * x + this.ys[0] * y > 0 ? 0 : 1;
   }
 
-  contains(x: number, y: number): boolean {
+  /**
+   * The wedge from the origin that holds direction (x, y): the last vertex i whose angle, counted counter-clockwise
+   * from vertex 0, is ≤ the point's (so the point lies between vertices i and i + 1, cyclically).
+   */
+  wedge(x: number, y: number): number {
     const m = this.size;
-    if (m < 3) return false;
     const h = this.half(x, y);
-    // Last vertex i whose angle is ≤ the point's angle.
     let lo = 0;
     let hi = m - 1;
     while (lo < hi) {
@@ -365,13 +367,133 @@ export class ConvexIndex {
       if (before) lo = mid;
       else hi = mid - 1;
     }
-    const i = lo;
-    const j = i + 1 === m ? 0 : i + 1;
+    return lo;
+  }
+
+  /** Strictly inside the edge of wedge i. */
+  insideEdge(i: number, x: number, y: number): boolean {
+    const j = i + 1 === this.size ? 0 : i + 1;
     const ex = this.xs[j] - this.xs[i];
     const ey = this.ys[j] - this.ys[i];
     const cross = ex * (y - this.ys[i]) - ey * (x - this.xs[i]);
     return cross > 1e-12 * (Math.abs(ex) + Math.abs(ey)) * (Math.abs(x) + Math.abs(y));
   }
+
+  contains(x: number, y: number): boolean {
+    if (this.size < 3) return false;
+    return this.insideEdge(this.wedge(x, y), x, y);
+  }
+}
+
+/** True when no vertex of the polygon would be removed by the hull routines' clean-up (see cleanHullInPlace). */
+export function isCleanHull(hull: Float64Array): boolean {
+  const m = hull.length / 2;
+  if (m < 3) return true;
+  for (let i = 0; i < m; i++) if (!vertexClean(hull, m, i)) return false;
+  return true;
+}
+
+let sequenceScratch = new Float64Array(0);
+let sequenceIds = new Int32Array(0);
+let extraOrder = new Int32Array(0);
+let stackScratch = new Int32Array(0);
+
+/**
+ * Hull of a convex polygon `core` (m vertices, counter-clockwise, containing the origin, with `index` its
+ * ConvexIndex) and k extra points outside it whose wedges (ConvexIndex.wedge) are given. The extras are slotted
+ * into the core's vertex sequence by wedge and angle, which keeps the sequence in angular order about the origin,
+ * an interior point; one scan that drops every vertex without a strict left turn, started at the highest (x, y)
+ * point (a hull vertex), gives the hull (J. Sklansky, Pattern Recognit. Lett. 1 (1982) 79, for polygons
+ * star-shaped from an interior point). O(m + k²) with k small. Cleaned as cleanHullInPlace does; when
+ * `coreClean`, only vertices whose neighbours changed are checked. Writes `out`, returns the vertex count.
+ */
+export function insertIntoConvex(
+  core: Float64Array,
+  m: number,
+  coreClean: boolean,
+  extras: Float64Array,
+  wedges: Int32Array,
+  k: number,
+  out: Float64Array,
+): number {
+  const total = m + k;
+  if (sequenceIds.length < total + 1) {
+    sequenceScratch = new Float64Array(4 * total + 4);
+    sequenceIds = new Int32Array(2 * total + 2);
+    stackScratch = new Int32Array(2 * total + 2);
+  }
+  if (extraOrder.length < k) extraOrder = new Int32Array(2 * k);
+  // Extras by wedge, then counter-clockwise within the wedge (a wedge spans less than π).
+  const order = extraOrder;
+  for (let e = 0; e < k; e++) {
+    let j = e - 1;
+    const we = wedges[e];
+    const ex = extras[2 * e];
+    const ey = extras[2 * e + 1];
+    while (j >= 0) {
+      const f = order[j];
+      const wf = wedges[f];
+      if (wf < we || (wf === we && extras[2 * f] * ey - extras[2 * f + 1] * ex >= 0)) break;
+      order[j + 1] = f;
+      j--;
+    }
+    order[j + 1] = e;
+  }
+  const seq = sequenceScratch;
+  const ids = sequenceIds;
+  let n = 0;
+  let t = 0;
+  for (let i = 0; i < m; i++) {
+    seq[2 * n] = core[2 * i];
+    seq[2 * n + 1] = core[2 * i + 1];
+    ids[n++] = i;
+    while (t < k && wedges[order[t]] === i) {
+      const e = order[t++];
+      seq[2 * n] = extras[2 * e];
+      seq[2 * n + 1] = extras[2 * e + 1];
+      ids[n++] = m + e;
+    }
+  }
+  // Start at the highest (x, y) point: always a hull vertex.
+  let start = 0;
+  for (let i = 1; i < n; i++) {
+    if (seq[2 * i] > seq[2 * start] || (seq[2 * i] === seq[2 * start] && seq[2 * i + 1] > seq[2 * start + 1])) start = i;
+  }
+  const stack = stackScratch;
+  let top = 0;
+  stack[top++] = start;
+  for (let j = 1; j <= n; j++) {
+    const p = start + j >= n ? start + j - n : start + j;
+    const px = seq[2 * p];
+    const py = seq[2 * p + 1];
+    while (top >= 2) {
+      const o = stack[top - 2];
+      const a = stack[top - 1];
+      const ox = seq[2 * o];
+      const oy = seq[2 * o + 1];
+      if ((seq[2 * a] - ox) * (py - oy) - (seq[2 * a + 1] - oy) * (px - ox) > 0) break;
+      top--;
+    }
+    stack[top++] = p;
+  }
+  top--; // the start again
+  for (let i = 0; i < top; i++) {
+    out[2 * i] = seq[2 * stack[i]];
+    out[2 * i + 1] = seq[2 * stack[i] + 1];
+  }
+  if (top < 3) return cleanHullInPlace(out, top);
+  // Clean-up: a core vertex between its own core neighbours is as clean as in the core.
+  let clean = true;
+  for (let i = 0; i < top && clean; i++) {
+    const id = ids[stack[i]];
+    if (coreClean && id < m) {
+      const before = ids[stack[i === 0 ? top - 1 : i - 1]];
+      const after = ids[stack[i + 1 === top ? 0 : i + 1]];
+      if (before === (id === 0 ? m - 1 : id - 1) && after === (id + 1 === m ? 0 : id + 1)) continue;
+    }
+    if (!vertexClean(out, top, i)) clean = false;
+  }
+  return clean ? top : cleanHullInPlace(out, top);
 }
 
 /**
