@@ -47,7 +47,7 @@
  *  the bracket, show: the coarse stage keeps 64.) With S = 128 the bound is ≈ 1e-4·T near the apex; the profile refines phases
  *  until it is ≤ 1e-3 of the peak height. `uncertainty` is 0: nothing here is random.
  */
-import { ConvexIndex, convexHull, hullOfConvexAndPoints, insertIntoConvex, isCleanHull, polarInto, polarPolygon, simplifyHull, transformRows } from './transmissionHull';
+import { ConvexIndex, convexHull, hullOfConvexAndPoints, insertIntoConvex, isCleanHull, polarInto, polarPolygon, simplifyHull, simplifyInto, transformRows } from './transmissionHull';
 import { gaussLegendre, meanNormalCdf, normalCdf, psiExcess } from './transmissionMath';
 import { fundamentalAt, monodromy, multiply2, periodTable, power2, type PeriodTable } from './trajectoryMathieu';
 import { flightModel, requireFinite, requireInteger, type FlightModel, type TransmissionParams } from './peakInput';
@@ -180,28 +180,34 @@ export function prepareAxis(
   let collapsedRows: Float64Array | null = null;
   let collapsed = false;
   if (coreEnd >= 1) {
-    // D_k = hull of periods 0..k−1; binary doubling from the top bit of coreEnd.
-    let d = h1;
+    // D_k = hull of periods 0..k−1; binary doubling from the top bit of coreEnd. D lives in a scratch buffer
+    // (count nd); each step merges into another and thins back.
+    const h1Count = h1.length / 2;
+    let d = reserveDoubling(0, h1Count);
+    d.set(h1);
+    let nd = h1Count;
     let mk = m; // M^k
     const bits = coreEnd.toString(2);
     for (let i = 1; i < bits.length && !collapsed; i++) {
-      d = simplifyHull(mergeHull(d, d, mk), hullTolerance / 64, 64, hullKeep);
+      nd = doublingStep(nd, null, 0, mk, hullTolerance / 64, hullKeep);
       growth *= 1 + hullTolerance / 64;
       mk = multiply2(mk, mk);
       if (bits[i] === '1') {
-        d = simplifyHull(mergeHull(d, h1, mk), hullTolerance / 64, 64, hullKeep);
+        nd = doublingStep(nd, h1, h1Count, mk, hullTolerance / 64, hullKeep);
         growth *= 1 + hullTolerance / 64;
         mk = multiply2(mk, m);
       }
-      if (maxAbs(mk) > COLLAPSE_LIMIT || maxAbs(d) > COLLAPSE_LIMIT) collapsed = true;
+      d = doublingD;
+      if (maxAbs(mk, 4) > COLLAPSE_LIMIT || maxAbs(d, 2 * nd) > COLLAPSE_LIMIT) collapsed = true;
     }
-    const shifted = new Float64Array(d.length);
-    transformRows(d, d.length / 2, m, shifted, 0);
+    d = doublingD;
+    const shifted = new Float64Array(2 * nd);
+    transformRows(d, nd, m, shifted, 0);
     if (collapsed) collapsedRows = shifted;
     else {
       const hull = new Float64Array(shifted.length);
-      const m = hullOfConvexAndPoints(shifted, shifted.length / 2, 0, true, hull);
-      core = simplifyHull(hull.slice(0, 2 * m), hullTolerance, 64, hullKeep);
+      const count = hullOfConvexAndPoints(shifted, nd, 0, true, hull);
+      core = simplifyHull(hull.slice(0, 2 * count), hullTolerance, 64, hullKeep);
       growth *= 1 + hullTolerance;
     }
   }
@@ -257,21 +263,43 @@ function windowCandidates(
   return { xi, u, w, count, wedgePlus, wedgeMinus };
 }
 
-/** Hull of d ∪ e·B for convex polygons d, e (B has det 1, so e·B stays convex): linear-time merge. */
-function mergeHull(d: Float64Array, e: Float64Array, b: Float64Array): Float64Array {
-  const nd = d.length / 2;
-  const ne = e.length / 2;
-  const all = new Float64Array(2 * (nd + ne));
-  all.set(d);
-  transformRows(e, ne, b, all, nd);
-  const out = new Float64Array(2 * (nd + ne));
-  const m = hullOfConvexAndPoints(all, nd, ne, true, out);
-  return out.slice(0, 2 * m);
+// Buffers for the doubling in prepareAxis: D, the union's points, the merged hull.
+let doublingD = new Float64Array(1024);
+let doublingAll = new Float64Array(2048);
+let doublingMerged = new Float64Array(2048);
+
+/** Room for D of nd vertices plus ne more; returns doublingD (contents kept). */
+function reserveDoubling(nd: number, ne: number): Float64Array {
+  const need = 2 * (nd + ne);
+  if (doublingAll.length < need) {
+    doublingAll = new Float64Array(2 * need);
+    doublingMerged = new Float64Array(2 * need);
+  }
+  if (doublingD.length < need) {
+    const grown = new Float64Array(2 * need);
+    grown.set(doublingD.subarray(0, 2 * nd));
+    doublingD = grown;
+  }
+  return doublingD;
 }
 
-function maxAbs(v: Float64Array): number {
+/**
+ * D ← thin(hull(D ∪ E·B)) with E = D when `e` is null, else E = e (ne vertices): both are convex and B has
+ * det 1, so E·B stays convex and the hull is a linear-time merge. Returns D's new vertex count.
+ */
+function doublingStep(nd: number, e: Float64Array | null, ne: number, b: Float64Array, delta: number, keep: number): number {
+  const count = e ? ne : nd;
+  reserveDoubling(nd, count);
+  const all = doublingAll;
+  all.set(doublingD.subarray(0, 2 * nd));
+  transformRows(e ?? doublingD, count, b, all, nd);
+  const m = hullOfConvexAndPoints(all, nd, count, true, doublingMerged);
+  return simplifyInto(doublingMerged, m, delta, 64, keep, doublingD);
+}
+
+function maxAbs(v: Float64Array, length: number): number {
   let m = 0;
-  for (let i = 0; i < v.length; i++) m = Math.max(m, Math.abs(v[i]));
+  for (let i = 0; i < length; i++) m = Math.max(m, Math.abs(v[i]));
   return m;
 }
 
@@ -754,9 +782,9 @@ function chordIntegral(g: ChainIntegral, Y: number): number {
  * 0, ±k·s (k in `levels`) — the Gaussian velocity weight switches over there, so panels are cut at those x.
  * Level crossings adapt to the local steepness of the chain, however curved it is.
  */
-function chainFeatures(chain: UpperChain, s: number, out: number[], levels: readonly number[]): void {
+function chainFeatures(chain: UpperChain, s: number, out: NumberList, levels: readonly number[]): void {
   const { xs, hs, count } = chain;
-  out.push(chain.extent);
+  pushNumber(out, chain.extent);
   const targets = s > 0 ? 1 + 2 * levels.length : 1;
   for (let l = 0; l < targets; l++) {
     const level = l === 0 ? 0 : (l % 2 === 1 ? 1 : -1) * levels[(l - 1) >> 1] * s;
@@ -765,7 +793,8 @@ function chainFeatures(chain: UpperChain, s: number, out: number[], levels: read
       const h1 = hs[k + 1] - level;
       if ((h0 > 0) !== (h1 > 0)) {
         const x = xs[k] + (h0 / (h0 - h1)) * (xs[k + 1] - xs[k]);
-        out.push(x, -x);
+        pushNumber(out, x);
+        pushNumber(out, -x);
       }
     }
   }
@@ -786,12 +815,32 @@ function rule(order: number): { nodes: Float64Array; weights: Float64Array } {
  *   = (4/πb) ∫_0^Θ P_x(b sin θ) C_y(b cos θ) cos θ dθ, using evenness of P_x and P_y.
  */
 // Scratch for phaseTransmission (emptied or overwritten on each call; nothing keeps them).
-const featureScratchX: number[] = [];
-const featureScratchY: number[] = [];
-const cutScratch: number[] = [];
+interface NumberList {
+  values: Float64Array;
+  count: number;
+}
+const featureScratchX: NumberList = { values: new Float64Array(256), count: 0 };
+const featureScratchY: NumberList = { values: new Float64Array(256), count: 0 };
+let cutScratch = new Float64Array(256);
+let cutCount = 0;
+function pushCut(t: number): void {
+  if (cutCount === cutScratch.length) {
+    const grown = new Float64Array(2 * cutCount);
+    grown.set(cutScratch);
+    cutScratch = grown;
+  }
+  cutScratch[cutCount++] = t;
+}
+function pushNumber(list: NumberList, v: number): void {
+  if (list.count === list.values.length) {
+    const grown = new Float64Array(2 * list.count);
+    grown.set(list.values);
+    list.values = grown;
+  }
+  list.values[list.count++] = v;
+}
 const clipScratchX: UpperChain = { xs: new Float64Array(128), hs: new Float64Array(128), count: 0, extent: 0 };
 const clipScratchY: UpperChain = { xs: new Float64Array(128), hs: new Float64Array(128), count: 0, extent: 0 };
-const ascending = (p: number, q: number): number => p - q;
 
 export function phaseTransmission(
   fullX: UpperChain,
@@ -810,24 +859,40 @@ export function phaseTransmission(
   const chainY = clipChainInto(fullY, Math.min(b, fullY.extent), clipScratchY);
   const fy = chainIntegral(chainY, s);
   const thetaMax = Math.asin(Math.min(1, limit / b));
+  cutCount = 0;
+  pushCut(0);
+  pushCut(thetaMax);
   const xFeatures = featureScratchX;
-  xFeatures.length = 0;
+  xFeatures.count = 0;
   chainFeatures(chainX, s, xFeatures, levels);
-  const yFeatures = featureScratchY;
-  yFeatures.length = 0;
-  chainFeatures(chainY, s, yFeatures, levels);
-  const cuts = cutScratch;
-  cuts.length = 0;
-  cuts.push(0, thetaMax);
-  for (const x of xFeatures) if (x > 0 && x < limit) cuts.push(Math.asin(x / b));
-  for (const y of yFeatures) if (y > 0 && y < b) {
-    const t = Math.acos(y / b);
-    if (t < thetaMax) cuts.push(t);
+  for (let i = 0; i < xFeatures.count; i++) {
+    const x = xFeatures.values[i];
+    if (x > 0 && x < limit) pushCut(Math.asin(x / b));
   }
-  cuts.sort(ascending);
+  const yFeatures = featureScratchY;
+  yFeatures.count = 0;
+  chainFeatures(chainY, s, yFeatures, levels);
+  for (let i = 0; i < yFeatures.count; i++) {
+    const y = yFeatures.values[i];
+    if (y > 0 && y < b) {
+      const t = Math.acos(y / b);
+      if (t < thetaMax) pushCut(t);
+    }
+  }
+  // Ascending (insertion sort: a few dozen cuts).
+  const cuts = cutScratch;
+  for (let i = 1; i < cutCount; i++) {
+    const v = cuts[i];
+    let j = i - 1;
+    while (j >= 0 && cuts[j] > v) {
+      cuts[j + 1] = cuts[j];
+      j--;
+    }
+    cuts[j + 1] = v;
+  }
   const { nodes, weights } = rule(order);
   let sum = 0;
-  for (let i = 0; i + 1 < cuts.length; i++) {
+  for (let i = 0; i + 1 < cutCount; i++) {
     const t0 = cuts[i];
     const t1 = cuts[i + 1];
     if (t1 - t0 < 1e-15) continue;

@@ -571,7 +571,17 @@ export function simplifyHull(hull: Float64Array, delta: number, maxRun = 64, min
   const m = hull.length / 2;
   // Small hulls cost little downstream: keep them exact.
   if (m <= minVertices || delta <= 0) return hull;
-  const keep: number[] = [];
+  const out = new Float64Array(2 * m);
+  const kept = simplifyInto(hull, m, delta, maxRun, minVertices, out);
+  return out.slice(0, 2 * kept);
+}
+
+/** simplifyHull of hull[0..2m) into `out` (not `hull`; room for 2m numbers); returns the kept vertex count. */
+export function simplifyInto(hull: Float64Array, m: number, delta: number, maxRun: number, minVertices: number, out: Float64Array): number {
+  if (m <= minVertices || delta <= 0) {
+    out.set(hull.subarray(0, 2 * m));
+    return m;
+  }
   // Start from the vertex farthest from the origin (always kept).
   let start = 0;
   let far = -1;
@@ -583,7 +593,10 @@ export function simplifyHull(hull: Float64Array, delta: number, maxRun = 64, min
     }
   }
   let a = 0; // offset from start
-  keep.push(start);
+  let kept = 0;
+  out[0] = hull[2 * start];
+  out[1] = hull[2 * start + 1];
+  kept = 1;
   while (a < m) {
     let best = a + 1;
     for (let b = a + 2; b <= m && b - a <= maxRun; b++) {
@@ -604,12 +617,12 @@ export function simplifyHull(hull: Float64Array, delta: number, maxRun = 64, min
       best = b;
     }
     a = best;
-    if (a < m) keep.push((start + a) % m);
+    if (a < m) {
+      const i = (start + a) % m;
+      out[2 * kept] = hull[2 * i];
+      out[2 * kept + 1] = hull[2 * i + 1];
+      kept++;
+    }
   }
-  const out = new Float64Array(2 * keep.length);
-  keep.forEach((i, k) => {
-    out[2 * k] = hull[2 * i];
-    out[2 * k + 1] = hull[2 * i + 1];
-  });
-  return out;
+  return kept;
 }
