@@ -95,6 +95,9 @@ export function periodTable(A: number, Q: number, samples: number, substeps = 2)
   return { samples, u, w, up, wp, A, Q, substeps };
 }
 
+/** Step matrix scratch for fundamentalAt (overwritten on each call). */
+const stepScratch = new Float64Array(4);
+
 /** Φ(ξ) for 0 ≤ ξ ≤ π from the table: one short Magnus step from the sample below (same order of accuracy). */
 export function fundamentalAt(table: PeriodTable, xi: number, out: Float64Array): void {
   const spacing = Math.PI / table.samples;
@@ -107,7 +110,7 @@ export function fundamentalAt(table: PeriodTable, xi: number, out: Float64Array)
   let m01 = table.w[j];
   let m10 = table.up[j];
   let m11 = table.wp[j];
-  const step = new Float64Array(4);
+  const step = stepScratch;
   const h = rest / steps;
   for (let k = 0; k < steps && rest > 0; k++) {
     magnusStep(table.A, table.Q, j * spacing + k * h, h, step);

@@ -47,7 +47,7 @@
  *  the bracket, show: the coarse stage keeps 64.) With S = 128 the bound is ≈ 1e-4·T near the apex; the profile refines phases
  *  until it is ≤ 1e-3 of the peak height. `uncertainty` is 0: nothing here is random.
  */
-import { ConvexIndex, convexHull, insertIntoHull, polarPolygon, simplifyHull, transformRows } from './transmissionHull';
+import { ConvexIndex, convexHull, hullOfConvexAndPoints, insertIntoConvex, isCleanHull, polarInto, polarPolygon, simplifyHull, simplifyInto, transformRows } from './transmissionHull';
 import { gaussLegendre, meanNormalCdf, normalCdf, psiExcess } from './transmissionMath';
 import { fundamentalAt, monodromy, multiply2, periodTable, power2, type PeriodTable } from './trajectoryMathieu';
 import { flightModel, requireFinite, requireInteger, type FlightModel, type TransmissionParams } from './peakInput';
@@ -124,6 +124,8 @@ export interface AxisFlight {
   /** Fast inside test for the core hull (points inside it cannot be vertices of a window's hull). */
   coreIndex: ConvexIndex | null;
   coreEnd: number;
+  /** No core vertex would be dropped by the hull clean-up (so per-phase hulls check only what changed). */
+  coreClean: boolean;
   /** The motion grows so fast that the acceptance is negligible (see COLLAPSE_LIMIT). */
   collapsed: boolean;
   /** When collapsed: actual sample rows (phase-0 frame) of periods ≥ 1, for the strip bound. */
@@ -138,7 +140,15 @@ export interface AxisFlight {
    * Samples outside the core that some window may include: period 0 and the periods after the core, as
    * (ξ, u, w) rows in the phase-0 frame, ascending ξ. Samples inside the core hull are dropped once, here.
    */
-  candidates: { xi: Float64Array; u: Float64Array; w: Float64Array; count: number };
+  candidates: {
+    xi: Float64Array;
+    u: Float64Array;
+    w: Float64Array;
+    count: number;
+    /** Core wedges (ConvexIndex.wedge) of (u, w) and of −(u, w), when there is a core index. */
+    wedgePlus: Int32Array;
+    wedgeMinus: Int32Array;
+  };
 }
 
 export function prepareAxis(
@@ -170,33 +180,42 @@ export function prepareAxis(
   let collapsedRows: Float64Array | null = null;
   let collapsed = false;
   if (coreEnd >= 1) {
-    // D_k = hull of periods 0..k−1; binary doubling from the top bit of coreEnd.
-    let d = h1;
+    // D_k = hull of periods 0..k−1; binary doubling from the top bit of coreEnd. D lives in a scratch buffer
+    // (count nd); each step merges into another and thins back.
+    const h1Count = h1.length / 2;
+    let d = reserveDoubling(0, h1Count);
+    d.set(h1);
+    let nd = h1Count;
     let mk = m; // M^k
     const bits = coreEnd.toString(2);
     for (let i = 1; i < bits.length && !collapsed; i++) {
-      d = simplifyHull(mergeHull(d, d, mk), hullTolerance / 64, 64, hullKeep);
+      nd = doublingStep(nd, null, 0, mk, hullTolerance / 64, hullKeep);
       growth *= 1 + hullTolerance / 64;
       mk = multiply2(mk, mk);
       if (bits[i] === '1') {
-        d = simplifyHull(mergeHull(d, h1, mk), hullTolerance / 64, 64, hullKeep);
+        nd = doublingStep(nd, h1, h1Count, mk, hullTolerance / 64, hullKeep);
         growth *= 1 + hullTolerance / 64;
         mk = multiply2(mk, m);
       }
-      if (maxAbs(mk) > COLLAPSE_LIMIT || maxAbs(d) > COLLAPSE_LIMIT) collapsed = true;
+      d = doublingD;
+      if (maxAbs(mk, 4) > COLLAPSE_LIMIT || maxAbs(d, 2 * nd) > COLLAPSE_LIMIT) collapsed = true;
     }
-    const shifted = new Float64Array(d.length);
-    transformRows(d, d.length / 2, m, shifted, 0);
+    d = doublingD;
+    const shifted = new Float64Array(2 * nd);
+    transformRows(d, nd, m, shifted, 0);
     if (collapsed) collapsedRows = shifted;
     else {
-      core = simplifyHull(convexHull(shifted, shifted.length / 2), hullTolerance, 64, hullKeep);
+      const hull = new Float64Array(shifted.length);
+      const count = hullOfConvexAndPoints(shifted, nd, 0, true, hull);
+      core = simplifyHull(hull.slice(0, 2 * count), hullTolerance, 64, hullKeep);
       growth *= 1 + hullTolerance;
     }
   }
   const epsilon = 1 - (1 - overshoot) / growth;
   const coreIndex = core && core.length >= 6 ? new ConvexIndex(core) : null;
   const candidates = windowCandidates(table, m, coreEnd, cycles, coreIndex);
-  return { table, monodromy: m, cycles, core, coreIndex, coreEnd, collapsed, collapsedRows, epsilon, candidates };
+  const coreClean = core ? isCleanHull(core) : false;
+  return { table, monodromy: m, cycles, core, coreIndex, coreEnd, coreClean, collapsed, collapsedRows, epsilon, candidates };
 }
 
 function windowCandidates(
@@ -235,21 +254,52 @@ function windowCandidates(
       mp = multiply2(mp, m);
     }
   }
-  return { xi, u, w, count };
+  const wedgePlus = new Int32Array(index ? count : 0);
+  const wedgeMinus = new Int32Array(index ? count : 0);
+  if (index) for (let i = 0; i < count; i++) {
+    wedgePlus[i] = index.wedge(u[i], w[i]);
+    wedgeMinus[i] = index.wedge(-u[i], -w[i]);
+  }
+  return { xi, u, w, count, wedgePlus, wedgeMinus };
 }
 
-function mergeHull(d: Float64Array, e: Float64Array, b: Float64Array): Float64Array {
-  const nd = d.length / 2;
-  const ne = e.length / 2;
-  const all = new Float64Array(2 * (nd + ne));
-  all.set(d);
-  transformRows(e, ne, b, all, nd);
-  return convexHull(all, nd + ne);
+// Buffers for the doubling in prepareAxis: D, the union's points, the merged hull.
+let doublingD = new Float64Array(1024);
+let doublingAll = new Float64Array(2048);
+let doublingMerged = new Float64Array(2048);
+
+/** Room for D of nd vertices plus ne more; returns doublingD (contents kept). */
+function reserveDoubling(nd: number, ne: number): Float64Array {
+  const need = 2 * (nd + ne);
+  if (doublingAll.length < need) {
+    doublingAll = new Float64Array(2 * need);
+    doublingMerged = new Float64Array(2 * need);
+  }
+  if (doublingD.length < need) {
+    const grown = new Float64Array(2 * need);
+    grown.set(doublingD.subarray(0, 2 * nd));
+    doublingD = grown;
+  }
+  return doublingD;
 }
 
-function maxAbs(v: Float64Array): number {
+/**
+ * D ← thin(hull(D ∪ E·B)) with E = D when `e` is null, else E = e (ne vertices): both are convex and B has
+ * det 1, so E·B stays convex and the hull is a linear-time merge. Returns D's new vertex count.
+ */
+function doublingStep(nd: number, e: Float64Array | null, ne: number, b: Float64Array, delta: number, keep: number): number {
+  const count = e ? ne : nd;
+  reserveDoubling(nd, count);
+  const all = doublingAll;
+  all.set(doublingD.subarray(0, 2 * nd));
+  transformRows(e ?? doublingD, count, b, all, nd);
+  const m = hullOfConvexAndPoints(all, nd, count, true, doublingMerged);
+  return simplifyInto(doublingMerged, m, delta, 64, keep, doublingD);
+}
+
+function maxAbs(v: Float64Array, length: number): number {
   let m = 0;
-  for (let i = 0; i < v.length; i++) m = Math.max(m, Math.abs(v[i]));
+  for (let i = 0; i < length; i++) m = Math.max(m, Math.abs(v[i]));
   return m;
 }
 
@@ -270,6 +320,49 @@ export function acceptancePolygon(axis: AxisFlight, entryPhase: number): Float64
 const WELL_CONDITIONED = 1e10;
 
 /**
+ * Buffers for one axis's work at one entry phase, reused from phase to phase (a phase evaluation reads them and
+ * keeps nothing): the hull's input points, the hull, the hull in c-space, its polar polygon and upper chain.
+ */
+class AxisScratch {
+  points = new Float64Array(256);
+  hull = new Float64Array(256);
+  c = new Float64Array(256);
+  polar = new Float64Array(256);
+  chain: UpperChain = { xs: new Float64Array(128), hs: new Float64Array(128), extent: 0, count: 0 };
+  /** The chain scaled by the inner bracket's factor. */
+  inner: UpperChain = { xs: new Float64Array(128), hs: new Float64Array(128), extent: 0, count: 0 };
+  private wedgeBuffer = new Int32Array(128);
+  /** Wedge indices for `count` extra points. */
+  wedges(count: number): Int32Array {
+    if (this.wedgeBuffer.length < count) this.wedgeBuffer = new Int32Array(2 * count);
+    return this.wedgeBuffer;
+  }
+  /** Room for `numbers` numbers in the point buffers. */
+  reserve(numbers: number): void {
+    if (this.points.length < numbers) {
+      const size = 2 * numbers;
+      this.points = new Float64Array(size);
+      this.hull = new Float64Array(size);
+      this.c = new Float64Array(size);
+      this.polar = new Float64Array(size);
+    }
+  }
+}
+const scratchX = new AxisScratch();
+const scratchY = new AxisScratch();
+const scratchOther = new AxisScratch();
+const entryScratch = new Float64Array(4);
+const exitScratch = new Float64Array(4);
+const inverseScratch = new Float64Array(4);
+
+function reserveChain(chain: UpperChain, count: number): void {
+  if (chain.xs.length < count) {
+    chain.xs = new Float64Array(2 * count);
+    chain.hs = new Float64Array(2 * count);
+  }
+}
+
+/**
  * Accepted polygon for one axis and phase, or `polygon: null` with `bound` ≥ the transmission of that phase
  * when the acceptance is negligible. Bound: the accepted set lies in the strip |c·z| < 1 of the longest hull
  * vector c (width 2/|c|); the density of ĉ·z is at most √2·max(2/(πb), 1/(s√(2π))) (disc marginal and Gaussian,
@@ -281,21 +374,46 @@ export function phaseAcceptance(
   beamRadius: number,
   slopeSigma: number,
 ): { polygon: Float64Array | null; bound: number } {
-  let c = constraintHull(axis, entryPhase);
-  if (!c) {
-    if (!axis.collapsedRows) return { polygon: null, bound: 0 };
+  const s = scratchOther;
+  const m = acceptanceInto(axis, entryPhase, beamRadius, slopeSigma, s);
+  if (m < 0) return { polygon: null, bound: -m - 1 };
+  return { polygon: s.polar.slice(0, 2 * m), bound: 0 };
+}
+
+/**
+ * phaseAcceptance into `s`: returns the polygon's vertex count (polygon in s.polar), or −1 − bound when the
+ * acceptance is negligible (bound as in phaseAcceptance; 0 when the axis collapsed with nothing kept).
+ */
+function acceptanceInto(axis: AxisFlight, entryPhase: number, beamRadius: number, slopeSigma: number, s: AxisScratch): number {
+  let count = constraintHullInto(axis, entryPhase, s);
+  const c = s.c;
+  if (count < 0) {
+    if (!axis.collapsedRows) return -1;
     // Collapsed axis: the kept rows seen from this entry phase, c = r·Φ(ξ0)⁻¹.
-    const entry = new Float64Array(4);
+    const entry = entryScratch;
     fundamentalAt(axis.table, entryPhase, entry);
-    c = new Float64Array(axis.collapsedRows.length);
-    transformRows(axis.collapsedRows, c.length / 2, Float64Array.of(entry[3], -entry[1], -entry[2], entry[0]), c, 0);
+    count = axis.collapsedRows.length / 2;
+    s.reserve(2 * count);
+    inverseScratch[0] = entry[3];
+    inverseScratch[1] = -entry[1];
+    inverseScratch[2] = -entry[2];
+    inverseScratch[3] = entry[0];
+    transformRows(axis.collapsedRows, count, inverseScratch, s.c, 0);
+    return conditionedPolar(s.c, count, beamRadius, slopeSigma, s);
   }
-  let longest = 0;
+  return conditionedPolar(c, count, beamRadius, slopeSigma, s);
+}
+
+function conditionedPolar(c: Float64Array, count: number, beamRadius: number, slopeSigma: number, s: AxisScratch): number {
+  let longest2 = 0;
   let longestX = 0;
-  for (let i = 0; i < c.length; i += 2) {
-    longest = Math.max(longest, Math.sqrt(c[i] * c[i] + c[i + 1] * c[i + 1]));
-    longestX = Math.max(longestX, Math.abs(c[i]));
+  for (let i = 0; i < 2 * count; i += 2) {
+    const r2 = c[i] * c[i] + c[i + 1] * c[i + 1];
+    if (r2 > longest2) longest2 = r2;
+    const ax = Math.abs(c[i]);
+    if (ax > longestX) longestX = ax;
   }
+  const longest = Math.sqrt(longest2);
   if (longest > WELL_CONDITIONED) {
     const disc = 2 / (Math.PI * beamRadius);
     const bound =
@@ -304,9 +422,10 @@ export function phaseAcceptance(
         : longestX > 0
           ? (2 / longestX) * disc
           : 1;
-    return { polygon: null, bound: Math.min(1, bound) };
+    return -1 - Math.min(1, bound);
   }
-  return { polygon: polarPolygon(c), bound: 0 };
+  polarInto(c, count, s.polar);
+  return count;
 }
 
 /** M^k for the exit period (k takes one or two values per flight): computed once per axis and k. */
@@ -325,9 +444,6 @@ function monodromyPower(axis: AxisFlight, k: number): Float64Array {
   return value;
 }
 
-/** Scratch for constraintHull's point set (nothing keeps it: the hull routines return fresh arrays). */
-let hullScratch = new Float64Array(0);
-
 /** Append ±(x, y) unless inside the core hull; returns the new count. */
 function pushOutside(pts: Float64Array, count: number, index: ConvexIndex | null, x: number, y: number): number {
   if (index && index.contains(x, y)) return count;
@@ -343,52 +459,105 @@ function pushOutside(pts: Float64Array, count: number, index: ConvexIndex | null
  * null if the axis collapsed. max over its vertices of |c·z| is the largest sampled |x|/r0 of the ion z.
  */
 export function constraintHull(axis: AxisFlight, entryPhase: number): Float64Array | null {
-  if (axis.collapsed) return null;
+  const s = scratchOther;
+  const m = constraintHullInto(axis, entryPhase, s);
+  return m < 0 ? null : s.c.slice(0, 2 * m);
+}
+
+/** constraintHull into s.c; returns the vertex count, or −1 if the axis collapsed. */
+function constraintHullInto(axis: AxisFlight, entryPhase: number, s: AxisScratch): number {
+  if (axis.collapsed) return -1;
   const { table, cycles, candidates } = axis;
   const end = entryPhase + cycles * Math.PI;
   const lastPeriod = Math.floor(end / Math.PI);
   const coreCount = axis.core ? axis.core.length / 2 : 0;
-  const need = 2 * (coreCount + 2 * (candidates.count + 2));
-  if (hullScratch.length < need) hullScratch = new Float64Array(2 * need);
-  const pts = hullScratch;
-  let count = 0;
-  if (axis.core) {
-    pts.set(axis.core);
-    count = coreCount;
-  }
-  const index = axis.coreIndex;
-  const entry = new Float64Array(4);
+  s.reserve(2 * (coreCount + 2 * (candidates.count + 2)));
+  const entry = entryScratch;
   fundamentalAt(table, entryPhase, entry);
-  count = pushOutside(pts, count, index, entry[0], entry[1]);
-  // Samples strictly after the entry and not after the exit (period 0 and the periods after the core).
-  for (let i = 0; i < candidates.count; i++) {
-    const at = candidates.xi[i];
-    if (at <= entryPhase) continue;
-    if (at > end) break;
-    pts[2 * count] = candidates.u[i];
-    pts[2 * count + 1] = candidates.w[i];
-    pts[2 * count + 2] = -candidates.u[i];
-    pts[2 * count + 3] = -candidates.w[i];
-    count += 2;
-  }
-  // Exit point.
-  const exit = new Float64Array(4);
+  const exit = exitScratch;
   const mEnd = monodromyPower(axis, lastPeriod);
   fundamentalAt(table, end - lastPeriod * Math.PI, exit);
-  count = pushOutside(pts, count, index, exit[0] * mEnd[0] + exit[1] * mEnd[2], exit[0] * mEnd[1] + exit[1] * mEnd[3]);
-
-  // Few points outside the core: insert them; many (growing motion): one full hull.
-  const extraCount = count - coreCount;
-  const hull =
-    axis.core && extraCount <= 24
-      ? insertIntoHull(axis.core, pts.subarray(2 * coreCount), extraCount)
-      : convexHull(pts, count);
+  const exitU = exit[0] * mEnd[0] + exit[1] * mEnd[2];
+  const exitW = exit[0] * mEnd[1] + exit[1] * mEnd[3];
+  const index = axis.coreIndex;
+  let m: number;
+  let hull: Float64Array;
+  if (axis.core && index && index.size >= 3 && candidates.wedgePlus.length === candidates.count) {
+    // Few points outside the core: slot them into the core's vertex sequence (insertIntoConvex).
+    const extras = s.points;
+    const wedges = s.wedges(2 * (candidates.count + 2));
+    let k = 0;
+    const push = (x: number, y: number): void => {
+      const wp = index.wedge(x, y);
+      if (index.insideEdge(wp, x, y)) return; // −(x, y) is then inside too: the core is centrally symmetric
+      extras[2 * k] = x;
+      extras[2 * k + 1] = y;
+      wedges[k++] = wp;
+      extras[2 * k] = -x;
+      extras[2 * k + 1] = -y;
+      wedges[k++] = index.wedge(-x, -y);
+    };
+    push(entry[0], entry[1]);
+    const { xi, u, w, wedgePlus, wedgeMinus } = candidates;
+    for (let i = 0; i < candidates.count; i++) {
+      const at = xi[i];
+      if (at <= entryPhase) continue;
+      if (at > end) break;
+      extras[2 * k] = u[i];
+      extras[2 * k + 1] = w[i];
+      wedges[k++] = wedgePlus[i];
+      extras[2 * k] = -u[i];
+      extras[2 * k + 1] = -w[i];
+      wedges[k++] = wedgeMinus[i];
+    }
+    push(exitU, exitW);
+    if (k === 0) {
+      m = coreCount;
+      hull = axis.core;
+    } else if (k <= 48) {
+      m = insertIntoConvex(axis.core, coreCount, axis.coreClean, extras, wedges, k, s.hull);
+      hull = s.hull;
+    } else {
+      // Many (growing motion): the core and the loose points merged in (x, y) order.
+      const pts = s.c;
+      pts.set(axis.core);
+      pts.set(extras.subarray(0, 2 * k), 2 * coreCount);
+      m = hullOfConvexAndPoints(pts, coreCount, k, false, s.hull);
+      hull = s.hull;
+    }
+  } else {
+    const pts = s.points;
+    let count = 0;
+    if (axis.core) {
+      pts.set(axis.core);
+      count = coreCount;
+    }
+    count = pushOutside(pts, count, index, entry[0], entry[1]);
+    // Samples strictly after the entry and not after the exit (period 0 and the periods after the core).
+    const { xi, u, w } = candidates;
+    for (let i = 0; i < candidates.count; i++) {
+      const at = xi[i];
+      if (at <= entryPhase) continue;
+      if (at > end) break;
+      pts[2 * count] = u[i];
+      pts[2 * count + 1] = w[i];
+      pts[2 * count + 2] = -u[i];
+      pts[2 * count + 3] = -w[i];
+      count += 2;
+    }
+    count = pushOutside(pts, count, index, exitU, exitW);
+    const extraCount = count - coreCount;
+    m = hullOfConvexAndPoints(pts, coreCount, extraCount, false, s.hull);
+    hull = s.hull;
+  }
   // (Growth past the well-conditioned range in the last periods is caught by phaseAcceptance.)
   // c = r·Φ(ξ0)⁻¹, Φ⁻¹ = [[w', −w], [−u', u]] (det Φ = 1).
-  const inverse = Float64Array.of(entry[3], -entry[1], -entry[2], entry[0]);
-  const c = new Float64Array(hull.length);
-  transformRows(hull, hull.length / 2, inverse, c, 0);
-  return c;
+  inverseScratch[0] = entry[3];
+  inverseScratch[1] = -entry[1];
+  inverseScratch[2] = -entry[2];
+  inverseScratch[3] = entry[0];
+  transformRows(hull, m, inverseScratch, s.c, 0);
+  return m;
 }
 
 /** Largest sampled |x|/r0 along the flight of an ion entering at ξ0 with (x0, x0') in units of r0. */
@@ -400,14 +569,22 @@ export function sampledExcursion(hull: Float64Array, x0: number, slope0: number)
 
 /** Upper boundary x0'max(x0) of a centrally symmetric convex polygon, as increasing x with heights. */
 export interface UpperChain {
+  /** Vertices xs[0..count), hs[0..count) (the buffers may be longer). */
   xs: Float64Array;
   hs: Float64Array;
+  count: number;
   /** Half-width of the polygon in x. */
   extent: number;
 }
 
 export function upperChain(polygon: Float64Array, scale = 1): UpperChain {
-  const m = polygon.length / 2;
+  const chain: UpperChain = { xs: new Float64Array(0), hs: new Float64Array(0), count: 0, extent: 0 };
+  upperChainInto(polygon, polygon.length / 2, scale, chain);
+  return chain;
+}
+
+/** upperChain of polygon[0..2m) into `chain`'s buffers (grown when short). */
+function upperChainInto(polygon: Float64Array, m: number, scale: number, chain: UpperChain): void {
   let right = 0;
   let left = 0;
   for (let i = 1; i < m; i++) {
@@ -417,47 +594,71 @@ export function upperChain(polygon: Float64Array, scale = 1): UpperChain {
     if (x < polygon[2 * left]) left = i;
   }
   const minX = polygon[2 * left];
-  const indices: number[] = [];
-  for (let i = right; ; i = (i + 1) % m) {
-    indices.push(i);
+  // Walk counter-clockwise from the rightmost vertex over the top to the leftmost.
+  let k = 0;
+  for (let j = 0; ; j++) {
+    const i = (right + j) % m;
+    k = j + 1;
     if (polygon[2 * i] === minX) break;
-    if (indices.length > m) break;
+    if (k > m) break;
   }
-  const k = indices.length;
-  const xs = new Float64Array(k);
-  const hs = new Float64Array(k);
+  reserveChain(chain, k);
+  const { xs, hs } = chain;
   for (let t = 0; t < k; t++) {
-    const i = indices[k - 1 - t];
+    const i = (right + (k - 1 - t)) % m;
     xs[t] = scale * polygon[2 * i];
     hs[t] = scale * polygon[2 * i + 1];
   }
-  return { xs, hs, extent: scale * polygon[2 * right] };
+  chain.count = k;
+  chain.extent = scale * polygon[2 * right];
+}
+
+/** `chain` scaled by `scale` into `out`. */
+function scaleChainInto(chain: UpperChain, scale: number, out: UpperChain): void {
+  reserveChain(out, chain.count);
+  for (let t = 0; t < chain.count; t++) {
+    out.xs[t] = scale * chain.xs[t];
+    out.hs[t] = scale * chain.hs[t];
+  }
+  out.count = chain.count;
+  out.extent = scale * chain.extent;
 }
 
 /** The part of a chain over [−limit, limit] (limit ≤ extent), ends interpolated; `extent` is kept. */
 export function clipChain(chain: UpperChain, limit: number): UpperChain {
+  const out: UpperChain = { xs: new Float64Array(0), hs: new Float64Array(0), count: 0, extent: 0 };
+  return clipChainInto(chain, limit, out);
+}
+
+/** clipChain into `out` (returns `chain` itself when nothing is cut). */
+function clipChainInto(chain: UpperChain, limit: number, out: UpperChain): UpperChain {
   const { xs, hs } = chain;
-  if (limit >= chain.extent || xs.length < 2) return chain;
-  const k0 = segmentOf(xs, -limit);
-  const k1 = segmentOf(xs, limit);
+  if (limit >= chain.extent || chain.count < 2) return chain;
+  const k0 = segmentOf(xs, chain.count, -limit);
+  const k1 = segmentOf(xs, chain.count, limit);
   const n = k1 - k0 + 2;
-  const cx = new Float64Array(n);
-  const ch = new Float64Array(n);
+  reserveChain(out, n);
+  const cx = out.xs;
+  const ch = out.hs;
+  const first = heightAt(chain, -limit);
+  const last = heightAt(chain, limit);
   cx[0] = -limit;
-  ch[0] = heightAt(chain, -limit);
+  ch[0] = first;
   for (let k = k0 + 1; k <= k1; k++) {
     cx[k - k0] = xs[k];
     ch[k - k0] = hs[k];
   }
   cx[n - 1] = limit;
-  ch[n - 1] = heightAt(chain, limit);
-  return { xs: cx, hs: ch, extent: chain.extent };
+  ch[n - 1] = last;
+  out.count = n;
+  out.extent = chain.extent;
+  return out;
 }
 
-/** Index k with xs[k] ≤ x ≤ xs[k+1] (clamped). */
-function segmentOf(xs: Float64Array, x: number): number {
+/** Index k with xs[k] ≤ x ≤ xs[k+1] (clamped), over xs[0..count). */
+function segmentOf(xs: Float64Array, count: number, x: number): number {
   let lo = 0;
-  let hi = xs.length - 1;
+  let hi = count - 1;
   if (x <= xs[0]) return 0;
   if (x >= xs[hi]) return Math.max(0, hi - 1);
   while (hi - lo > 1) {
@@ -469,9 +670,9 @@ function segmentOf(xs: Float64Array, x: number): number {
 }
 
 function heightAt(chain: UpperChain, x: number): number {
-  const { xs, hs } = chain;
-  if (xs.length === 1) return hs[0];
-  const k = segmentOf(xs, x);
+  const { xs, hs, count } = chain;
+  if (count === 1) return hs[0];
+  const k = segmentOf(xs, count, x);
   const dx = xs[k + 1] - xs[k];
   if (dx <= 0) return Math.max(hs[k], hs[k + 1]);
   const t = Math.min(1, Math.max(0, (x - xs[k]) / dx));
@@ -513,17 +714,35 @@ interface ChainIntegral {
   psi: Float64Array;
 }
 
+const integralScratch: ChainIntegral = {
+  chain: { xs: new Float64Array(0), hs: new Float64Array(0), count: 0, extent: 0 },
+  s: 0,
+  f: new Float64Array(128),
+  tau: new Float64Array(128),
+  psi: new Float64Array(128),
+};
+
+/** The chain's integral in the shared scratch (one at a time: phaseTransmission uses it and keeps nothing). */
 function chainIntegral(chain: UpperChain, s: number): ChainIntegral {
-  const { xs, hs } = chain;
-  const n = xs.length;
-  const f = new Float64Array(n);
-  const tau = new Float64Array(n);
-  const psi = new Float64Array(n);
+  const { xs, hs, count: n } = chain;
+  const integral = integralScratch;
+  if (integral.f.length < n) {
+    integral.f = new Float64Array(2 * n);
+    integral.tau = new Float64Array(2 * n);
+    integral.psi = new Float64Array(2 * n);
+  }
+  integral.chain = chain;
+  integral.s = s;
+  const { f, tau, psi } = integral;
+  f[0] = 0;
   if (s > 0) for (let k = 0; k < n; k++) {
     tau[k] = hs[k] / s;
     psi[k] = psiExcess(tau[k]);
   }
-  const integral: ChainIntegral = { chain, s, f, tau, psi };
+  else for (let k = 0; k < n; k++) {
+    tau[k] = 0;
+    psi[k] = 0;
+  }
   for (let k = 0; k + 1 < n; k++) f[k + 1] = f[k] + pieceIntegral(integral, k, xs[k + 1] - xs[k], hs[k + 1], tau[k + 1], psi[k + 1]);
   return integral;
 }
@@ -542,9 +761,9 @@ function pieceIntegral(g: ChainIntegral, k: number, dy: number, h: number, tauEn
 }
 
 function cumulativeAt(g: ChainIntegral, y: number): number {
-  const { xs } = g.chain;
-  if (xs.length === 1) return 0;
-  const k = segmentOf(xs, y);
+  const { xs, count } = g.chain;
+  if (count === 1) return 0;
+  const k = segmentOf(xs, count, y);
   const dy = y - xs[k];
   if (dy <= 0) return g.f[k];
   return g.f[k] + pieceIntegral(g, k, dy, heightAt(g.chain, y), Number.NaN, Number.NaN);
@@ -563,18 +782,19 @@ function chordIntegral(g: ChainIntegral, Y: number): number {
  * 0, ±k·s (k in `levels`) — the Gaussian velocity weight switches over there, so panels are cut at those x.
  * Level crossings adapt to the local steepness of the chain, however curved it is.
  */
-function chainFeatures(chain: UpperChain, s: number, out: number[], levels: readonly number[]): void {
-  const { xs, hs } = chain;
-  out.push(chain.extent);
-  const targets = [0];
-  if (s > 0) for (const k of levels) targets.push(k * s, -k * s);
-  for (const level of targets) {
-    for (let k = 0; k + 1 < xs.length; k++) {
+function chainFeatures(chain: UpperChain, s: number, out: NumberList, levels: readonly number[]): void {
+  const { xs, hs, count } = chain;
+  pushNumber(out, chain.extent);
+  const targets = s > 0 ? 1 + 2 * levels.length : 1;
+  for (let l = 0; l < targets; l++) {
+    const level = l === 0 ? 0 : (l % 2 === 1 ? 1 : -1) * levels[(l - 1) >> 1] * s;
+    for (let k = 0; k + 1 < count; k++) {
       const h0 = hs[k] - level;
       const h1 = hs[k + 1] - level;
       if ((h0 > 0) !== (h1 > 0)) {
         const x = xs[k] + (h0 / (h0 - h1)) * (xs[k + 1] - xs[k]);
-        out.push(x, -x);
+        pushNumber(out, x);
+        pushNumber(out, -x);
       }
     }
   }
@@ -594,11 +814,33 @@ function rule(order: number): { nodes: Float64Array; weights: Float64Array } {
  * Transmission at one entry phase: (1/πb²)∫∫_disc P_x(x) P_y(y) dx dy
  *   = (4/πb) ∫_0^Θ P_x(b sin θ) C_y(b cos θ) cos θ dθ, using evenness of P_x and P_y.
  */
-// Scratch lists for phaseTransmission (emptied on each call; nothing keeps them).
-const featureScratchX: number[] = [];
-const featureScratchY: number[] = [];
-const cutScratch: number[] = [];
-const ascending = (p: number, q: number): number => p - q;
+// Scratch for phaseTransmission (emptied or overwritten on each call; nothing keeps them).
+interface NumberList {
+  values: Float64Array;
+  count: number;
+}
+const featureScratchX: NumberList = { values: new Float64Array(256), count: 0 };
+const featureScratchY: NumberList = { values: new Float64Array(256), count: 0 };
+let cutScratch = new Float64Array(256);
+let cutCount = 0;
+function pushCut(t: number): void {
+  if (cutCount === cutScratch.length) {
+    const grown = new Float64Array(2 * cutCount);
+    grown.set(cutScratch);
+    cutScratch = grown;
+  }
+  cutScratch[cutCount++] = t;
+}
+function pushNumber(list: NumberList, v: number): void {
+  if (list.count === list.values.length) {
+    const grown = new Float64Array(2 * list.count);
+    grown.set(list.values);
+    list.values = grown;
+  }
+  list.values[list.count++] = v;
+}
+const clipScratchX: UpperChain = { xs: new Float64Array(128), hs: new Float64Array(128), count: 0, extent: 0 };
+const clipScratchY: UpperChain = { xs: new Float64Array(128), hs: new Float64Array(128), count: 0, extent: 0 };
 
 export function phaseTransmission(
   fullX: UpperChain,
@@ -613,28 +855,44 @@ export function phaseTransmission(
   const limit = Math.min(b, fullX.extent);
   if (limit <= 0 || fullY.extent <= 0) return 0;
   // Only the parts of the chains inside the beam matter.
-  const chainX = clipChain(fullX, limit);
-  const chainY = clipChain(fullY, Math.min(b, fullY.extent));
+  const chainX = clipChainInto(fullX, limit, clipScratchX);
+  const chainY = clipChainInto(fullY, Math.min(b, fullY.extent), clipScratchY);
   const fy = chainIntegral(chainY, s);
   const thetaMax = Math.asin(Math.min(1, limit / b));
+  cutCount = 0;
+  pushCut(0);
+  pushCut(thetaMax);
   const xFeatures = featureScratchX;
-  xFeatures.length = 0;
+  xFeatures.count = 0;
   chainFeatures(chainX, s, xFeatures, levels);
-  const yFeatures = featureScratchY;
-  yFeatures.length = 0;
-  chainFeatures(chainY, s, yFeatures, levels);
-  const cuts = cutScratch;
-  cuts.length = 0;
-  cuts.push(0, thetaMax);
-  for (const x of xFeatures) if (x > 0 && x < limit) cuts.push(Math.asin(x / b));
-  for (const y of yFeatures) if (y > 0 && y < b) {
-    const t = Math.acos(y / b);
-    if (t < thetaMax) cuts.push(t);
+  for (let i = 0; i < xFeatures.count; i++) {
+    const x = xFeatures.values[i];
+    if (x > 0 && x < limit) pushCut(Math.asin(x / b));
   }
-  cuts.sort(ascending);
+  const yFeatures = featureScratchY;
+  yFeatures.count = 0;
+  chainFeatures(chainY, s, yFeatures, levels);
+  for (let i = 0; i < yFeatures.count; i++) {
+    const y = yFeatures.values[i];
+    if (y > 0 && y < b) {
+      const t = Math.acos(y / b);
+      if (t < thetaMax) pushCut(t);
+    }
+  }
+  // Ascending (insertion sort: a few dozen cuts).
+  const cuts = cutScratch;
+  for (let i = 1; i < cutCount; i++) {
+    const v = cuts[i];
+    let j = i - 1;
+    while (j >= 0 && cuts[j] > v) {
+      cuts[j + 1] = cuts[j];
+      j--;
+    }
+    cuts[j + 1] = v;
+  }
   const { nodes, weights } = rule(order);
   let sum = 0;
-  for (let i = 0; i + 1 < cuts.length; i++) {
+  for (let i = 0; i + 1 < cutCount; i++) {
     const t0 = cuts[i];
     const t1 = cuts[i + 1];
     if (t1 - t0 < 1e-15) continue;
@@ -714,18 +972,21 @@ export interface PhaseValues {
 interface PhaseChains {
   x: UpperChain;
   y: UpperChain;
-  px: Float64Array;
-  py: Float64Array;
 }
 
-/** The acceptance polygons of both axes at one phase, or the bound of a negligible phase. */
+/**
+ * The acceptance chains of both axes at one phase (in the per-axis scratch: valid until the next phase is
+ * evaluated), or the bound of a negligible phase.
+ */
 function phaseChains(ctx: FastContext, entry: number): PhaseChains | { bound: number } {
   const { beamRadius, slopeSigma } = ctx.model;
-  const ax = phaseAcceptance(ctx.x, entry, beamRadius, slopeSigma);
-  if (!ax.polygon) return { bound: ax.bound };
-  const ay = phaseAcceptance(ctx.y, entry, beamRadius, slopeSigma);
-  if (!ay.polygon) return { bound: ay.bound };
-  return { x: upperChain(ax.polygon), y: upperChain(ay.polygon), px: ax.polygon, py: ay.polygon };
+  const mx = acceptanceInto(ctx.x, entry, beamRadius, slopeSigma, scratchX);
+  if (mx < 0) return { bound: -mx - 1 };
+  const my = acceptanceInto(ctx.y, entry, beamRadius, slopeSigma, scratchY);
+  if (my < 0) return { bound: -my - 1 };
+  upperChainInto(scratchX.polar, mx, 1, scratchX.chain);
+  upperChainInto(scratchY.polar, my, 1, scratchY.chain);
+  return { x: scratchX.chain, y: scratchY.chain };
 }
 
 function innerTransmission(ctx: FastContext, chains: PhaseChains, outer: number): number {
@@ -734,9 +995,11 @@ function innerTransmission(ctx: FastContext, chains: PhaseChains, outer: number)
     const d = slopeSigma > 0 ? 2 : 1;
     return Math.pow((1 - ctx.x.epsilon) * (1 - ctx.y.epsilon), d) * outer;
   }
+  scaleChainInto(chains.x, 1 - ctx.x.epsilon, scratchX.inner);
+  scaleChainInto(chains.y, 1 - ctx.y.epsilon, scratchY.inner);
   return phaseTransmission(
-    upperChain(chains.px, 1 - ctx.x.epsilon),
-    upperChain(chains.py, 1 - ctx.y.epsilon),
+    scratchX.inner,
+    scratchY.inner,
     beamRadius,
     slopeSigma,
     ctx.options.quadratureOrder,

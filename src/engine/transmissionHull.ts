@@ -18,79 +18,205 @@ export function convexHull(points: Float64Array, count: number): Float64Array {
     }
     return out;
   }
-  keep.sort((i, j) => points[2 * i] - points[2 * j] || points[2 * i + 1] - points[2 * j + 1]);
-  const hull = new Uint32Array(2 * n + 1);
+  sortByXY(points, keep, 0, n);
+  const out = new Float64Array(2 * n);
+  const m = monotoneChain(points, keep, n, out);
+  return m === n ? out : out.slice(0, 2 * m);
+}
+
+/** (x, y) order of points a and b: negative, 0 or positive. */
+function compareXY(points: Float64Array, a: number, b: number): number {
+  return points[2 * a] - points[2 * b] || points[2 * a + 1] - points[2 * b + 1];
+}
+
+/** Sort order[from, to) by (x, y): insertion sort for short runs, the built-in sort otherwise. */
+function sortByXY(points: Float64Array, order: Uint32Array, from: number, to: number): void {
+  if (to - from > 32) {
+    order.subarray(from, to).sort((i, j) => points[2 * i] - points[2 * j] || points[2 * i + 1] - points[2 * j + 1]);
+    return;
+  }
+  for (let i = from + 1; i < to; i++) {
+    const v = order[i];
+    const vx = points[2 * v];
+    const vy = points[2 * v + 1];
+    let j = i - 1;
+    while (j >= from) {
+      const w = order[j];
+      const wx = points[2 * w];
+      if (wx < vx || (wx === vx && points[2 * w + 1] <= vy)) break;
+      order[j + 1] = w;
+      j--;
+    }
+    order[j + 1] = v;
+  }
+}
+
+let chainScratch = new Uint32Array(0);
+
+/**
+ * Andrew's monotone chain over points already in (x, y) order (order[0..n)); writes the hull vertices,
+ * counter-clockwise from the lowest (x, y), into `out` (room for 2n numbers), cleaned as cleanHull does.
+ * Returns the vertex count.
+ */
+function monotoneChain(points: Float64Array, order: Uint32Array, n: number, out: Float64Array): number {
+  if (n <= 2) {
+    for (let i = 0; i < n; i++) {
+      out[2 * i] = points[2 * order[i]];
+      out[2 * i + 1] = points[2 * order[i] + 1];
+    }
+    return n;
+  }
+  if (chainScratch.length < 2 * n + 1) chainScratch = new Uint32Array(4 * n + 2);
+  const hull = chainScratch;
   let k = 0;
   for (let t = 0; t < n; t++) {
-    const p = keep[t];
+    const p = order[t];
     while (k >= 2 && cross(points, hull[k - 2], hull[k - 1], p) <= 0) k--;
     hull[k++] = p;
   }
   const lowerSize = k + 1;
   for (let t = n - 2; t >= 0; t--) {
-    const p = keep[t];
+    const p = order[t];
     while (k >= lowerSize && cross(points, hull[k - 2], hull[k - 1], p) <= 0) k--;
     hull[k++] = p;
   }
   k--; // last point repeats the first
-  const out = new Float64Array(2 * k);
   for (let i = 0; i < k; i++) {
     out[2 * i] = points[2 * hull[i]];
     out[2 * i + 1] = points[2 * hull[i] + 1];
   }
-  return cleanHull(out);
+  return cleanHullInPlace(out, k);
+}
+
+/**
+ * Indices offset..offset+m−1 of a convex polygon (counter-clockwise, in `points`) written to order[at..at+m) in
+ * (x, y) order, in linear time: the lower chain (lowest to highest vertex, counter-clockwise) and the upper chain
+ * (the other way round) are each already in order, so they are merged. False if rounding left a chain out of
+ * order (the caller then sorts).
+ */
+function convexOrder(points: Float64Array, offset: number, m: number, order: Uint32Array, at: number): boolean {
+  if (m === 0) return true;
+  let low = 0;
+  let high = 0;
+  for (let i = 1; i < m; i++) {
+    if (compareXY(points, offset + i, offset + low) < 0) low = i;
+    if (compareXY(points, offset + i, offset + high) > 0) high = i;
+  }
+  // Lower chain: low, low + 1, …, high. Upper chain, reversed: low − 1, low − 2, …, high + 1.
+  const lowerLength = ((high - low + m) % m) + 1;
+  const upperLength = m - lowerLength;
+  let a = 0; // steps taken along the lower chain
+  let b = 0; // along the upper chain
+  let out = at;
+  let previous = -1;
+  while (a < lowerLength || b < upperLength) {
+    const ia = a < lowerLength ? offset + ((low + a) % m) : -1;
+    const ib = b < upperLength ? offset + ((low - 1 - b + 2 * m) % m) : -1;
+    let next: number;
+    if (ib < 0 || (ia >= 0 && compareXY(points, ia, ib) <= 0)) {
+      next = ia;
+      a++;
+    } else {
+      next = ib;
+      b++;
+    }
+    if (previous >= 0 && compareXY(points, previous, next) > 0) return false;
+    order[out++] = next;
+    previous = next;
+  }
+  return true;
+}
+
+/** Merge the sorted runs order[0..na) and order[na..na+nb) into `into` (another buffer). */
+function mergeOrders(points: Float64Array, order: Uint32Array, na: number, nb: number, into: Uint32Array): void {
+  let a = 0;
+  let b = na;
+  const endB = na + nb;
+  let t = 0;
+  while (a < na && b < endB) into[t++] = compareXY(points, order[a], order[b]) <= 0 ? order[a++] : order[b++];
+  while (a < na) into[t++] = order[a++];
+  while (b < endB) into[t++] = order[b++];
+}
+
+let orderScratch = new Uint32Array(0);
+let mergedScratch = new Uint32Array(0);
+function orderBuffers(n: number): void {
+  if (orderScratch.length < n) {
+    orderScratch = new Uint32Array(2 * n);
+    mergedScratch = new Uint32Array(2 * n);
+  }
+}
+
+/**
+ * Hull of points[0..na) ∪ points[na..na+nb), where the first run is a convex polygon (counter-clockwise) and the
+ * second either a convex polygon too (`secondConvex`) or a few loose points. Linear time apart from sorting the
+ * loose points: each polygon's vertices come out in (x, y) order from its two chains, the runs are merged, and
+ * one monotone chain gives the hull — the same vertices as convexHull on the union. Writes into `out` (room for
+ * 2(na + nb) numbers) and returns the vertex count.
+ */
+export function hullOfConvexAndPoints(points: Float64Array, na: number, nb: number, secondConvex: boolean, out: Float64Array): number {
+  const n = na + nb;
+  orderBuffers(n);
+  const order = orderScratch;
+  let sorted = convexOrder(points, 0, na, order, 0);
+  if (sorted) {
+    if (secondConvex) sorted = convexOrder(points, na, nb, order, na);
+    else {
+      for (let i = 0; i < nb; i++) order[na + i] = na + i;
+      sortByXY(points, order, na, n);
+    }
+  }
+  if (!sorted) {
+    for (let i = 0; i < n; i++) order[i] = i;
+    sortByXY(points, order, 0, n);
+    return monotoneChain(points, order, n, out);
+  }
+  mergeOrders(points, order, na, nb, mergedScratch);
+  return monotoneChain(points, mergedScratch, n, out);
 }
 
 /**
  * Remove vertices that rounding left nearly coincident with, or nearly on the line through, their neighbours
  * (relative 1e-10): they would make the polar vertex 0/0 or ∞ and change the polygon by nothing measurable.
+ * Works in place on hull[0..2m) and returns the new vertex count.
  */
-function cleanHull(hull: Float64Array): Float64Array {
-  let m = hull.length / 2;
-  if (m < 3) return hull;
+function cleanHullInPlace(hull: Float64Array, count: number): number {
+  let m = count;
+  if (m < 3) return m;
   let clean = true;
-  for (let i = 0; i < m && clean; i++) {
-    const p = (i + m - 1) % m;
-    const n = (i + 1) % m;
-    const ax = hull[2 * i] - hull[2 * p];
-    const ay = hull[2 * i + 1] - hull[2 * p + 1];
-    const bx = hull[2 * n] - hull[2 * i];
-    const by = hull[2 * n + 1] - hull[2 * i + 1];
-    const lengthA = Math.sqrt(ax * ax + ay * ay);
-    const size = Math.max(Math.sqrt(hull[2 * i] * hull[2 * i] + hull[2 * i + 1] * hull[2 * i + 1]), 1e-300);
-    if (lengthA <= 1e-10 * size || ax * by - ay * bx <= 1e-10 * lengthA * Math.sqrt(bx * bx + by * by)) clean = false;
-  }
-  if (clean) return hull;
-  const xs = Array.from({ length: m }, (_, i) => hull[2 * i]);
-  const ys = Array.from({ length: m }, (_, i) => hull[2 * i + 1]);
+  for (let i = 0; i < m && clean; i++) if (!vertexClean(hull, m, i)) clean = false;
+  if (clean) return m;
   let changed = true;
   while (changed && m > 3) {
     changed = false;
     for (let i = 0; i < m && m > 3; i++) {
-      const p = (i + m - 1) % m;
-      const n = (i + 1) % m;
-      const ax = xs[i] - xs[p];
-      const ay = ys[i] - ys[p];
-      const bx = xs[n] - xs[i];
-      const by = ys[n] - ys[i];
-      const lengthA = Math.sqrt(ax * ax + ay * ay);
-      const lengthB = Math.sqrt(bx * bx + by * by);
-      const size = Math.max(Math.sqrt(xs[i] * xs[i] + ys[i] * ys[i]), 1e-300);
-      if (lengthA <= 1e-10 * size || ax * by - ay * bx <= 1e-10 * lengthA * lengthB) {
-        xs.splice(i, 1);
-        ys.splice(i, 1);
+      if (!vertexClean(hull, m, i)) {
+        hull.copyWithin(2 * i, 2 * i + 2, 2 * m);
         m--;
         changed = true;
         i--;
       }
     }
   }
-  const out = new Float64Array(2 * m);
-  for (let i = 0; i < m; i++) {
-    out[2 * i] = xs[i];
-    out[2 * i + 1] = ys[i];
-  }
-  return out;
+  return m;
+}
+
+/** Vertex i of hull[0..2m) is neither (nearly) on its predecessor nor (nearly) on the line through its neighbours. */
+function vertexClean(hull: Float64Array, m: number, i: number): boolean {
+  const p = (i + m - 1) % m;
+  const n = (i + 1) % m;
+  const ax = hull[2 * i] - hull[2 * p];
+  const ay = hull[2 * i + 1] - hull[2 * p + 1];
+  const bx = hull[2 * n] - hull[2 * i];
+  const by = hull[2 * n + 1] - hull[2 * i + 1];
+  const lengthA = Math.sqrt(ax * ax + ay * ay);
+  const size = Math.max(Math.sqrt(hull[2 * i] * hull[2 * i] + hull[2 * i + 1] * hull[2 * i + 1]), 1e-300);
+  return !(lengthA <= 1e-10 * size || ax * by - ay * bx <= 1e-10 * lengthA * Math.sqrt(bx * bx + by * by));
+}
+
+function cleanHull(hull: Float64Array): Float64Array {
+  const m = cleanHullInPlace(hull, hull.length / 2);
+  return m === hull.length / 2 ? hull : hull.slice(0, 2 * m);
 }
 
 function cross(points: Float64Array, o: number, a: number, b: number): number {
@@ -177,8 +303,14 @@ export function transformRows(points: Float64Array, count: number, b: Float64Arr
 export function polarPolygon(hull: Float64Array): Float64Array {
   const m = hull.length / 2;
   const out = new Float64Array(2 * m);
+  polarInto(hull, m, out);
+  return out;
+}
+
+/** polarPolygon of hull[0..2m) into out[0..2m). */
+export function polarInto(hull: Float64Array, m: number, out: Float64Array): void {
   for (let i = 0; i < m; i++) {
-    const j = (i + 1) % m;
+    const j = i + 1 === m ? 0 : i + 1;
     const ax = hull[2 * i];
     const ay = hull[2 * i + 1];
     const bx = hull[2 * j];
@@ -187,7 +319,6 @@ export function polarPolygon(hull: Float64Array): Float64Array {
     out[2 * i] = (by - ay) / det;
     out[2 * i + 1] = (ax - bx) / det;
   }
-  return out;
 }
 
 /**
@@ -220,11 +351,13 @@ export class ConvexIndex {
     return this.xs[0] * x + this.ys[0] * y > 0 ? 0 : 1;
   }
 
-  contains(x: number, y: number): boolean {
+  /**
+   * The wedge from the origin that holds direction (x, y): the last vertex i whose angle, counted counter-clockwise
+   * from vertex 0, is ≤ the point's (so the point lies between vertices i and i + 1, cyclically).
+   */
+  wedge(x: number, y: number): number {
     const m = this.size;
-    if (m < 3) return false;
     const h = this.half(x, y);
-    // Last vertex i whose angle is ≤ the point's angle.
     let lo = 0;
     let hi = m - 1;
     while (lo < hi) {
@@ -234,13 +367,133 @@ export class ConvexIndex {
       if (before) lo = mid;
       else hi = mid - 1;
     }
-    const i = lo;
-    const j = i + 1 === m ? 0 : i + 1;
+    return lo;
+  }
+
+  /** Strictly inside the edge of wedge i. */
+  insideEdge(i: number, x: number, y: number): boolean {
+    const j = i + 1 === this.size ? 0 : i + 1;
     const ex = this.xs[j] - this.xs[i];
     const ey = this.ys[j] - this.ys[i];
     const cross = ex * (y - this.ys[i]) - ey * (x - this.xs[i]);
     return cross > 1e-12 * (Math.abs(ex) + Math.abs(ey)) * (Math.abs(x) + Math.abs(y));
   }
+
+  contains(x: number, y: number): boolean {
+    if (this.size < 3) return false;
+    return this.insideEdge(this.wedge(x, y), x, y);
+  }
+}
+
+/** True when no vertex of the polygon would be removed by the hull routines' clean-up (see cleanHullInPlace). */
+export function isCleanHull(hull: Float64Array): boolean {
+  const m = hull.length / 2;
+  if (m < 3) return true;
+  for (let i = 0; i < m; i++) if (!vertexClean(hull, m, i)) return false;
+  return true;
+}
+
+let sequenceScratch = new Float64Array(0);
+let sequenceIds = new Int32Array(0);
+let extraOrder = new Int32Array(0);
+let stackScratch = new Int32Array(0);
+
+/**
+ * Hull of a convex polygon `core` (m vertices, counter-clockwise, containing the origin, with `index` its
+ * ConvexIndex) and k extra points outside it whose wedges (ConvexIndex.wedge) are given. The extras are slotted
+ * into the core's vertex sequence by wedge and angle, which keeps the sequence in angular order about the origin,
+ * an interior point; one scan that drops every vertex without a strict left turn, started at the highest (x, y)
+ * point (a hull vertex), gives the hull (J. Sklansky, Pattern Recognit. Lett. 1 (1982) 79, for polygons
+ * star-shaped from an interior point). O(m + k²) with k small. Cleaned as cleanHullInPlace does; when
+ * `coreClean`, only vertices whose neighbours changed are checked. Writes `out`, returns the vertex count.
+ */
+export function insertIntoConvex(
+  core: Float64Array,
+  m: number,
+  coreClean: boolean,
+  extras: Float64Array,
+  wedges: Int32Array,
+  k: number,
+  out: Float64Array,
+): number {
+  const total = m + k;
+  if (sequenceIds.length < total + 1) {
+    sequenceScratch = new Float64Array(4 * total + 4);
+    sequenceIds = new Int32Array(2 * total + 2);
+    stackScratch = new Int32Array(2 * total + 2);
+  }
+  if (extraOrder.length < k) extraOrder = new Int32Array(2 * k);
+  // Extras by wedge, then counter-clockwise within the wedge (a wedge spans less than π).
+  const order = extraOrder;
+  for (let e = 0; e < k; e++) {
+    let j = e - 1;
+    const we = wedges[e];
+    const ex = extras[2 * e];
+    const ey = extras[2 * e + 1];
+    while (j >= 0) {
+      const f = order[j];
+      const wf = wedges[f];
+      if (wf < we || (wf === we && extras[2 * f] * ey - extras[2 * f + 1] * ex >= 0)) break;
+      order[j + 1] = f;
+      j--;
+    }
+    order[j + 1] = e;
+  }
+  const seq = sequenceScratch;
+  const ids = sequenceIds;
+  let n = 0;
+  let t = 0;
+  for (let i = 0; i < m; i++) {
+    seq[2 * n] = core[2 * i];
+    seq[2 * n + 1] = core[2 * i + 1];
+    ids[n++] = i;
+    while (t < k && wedges[order[t]] === i) {
+      const e = order[t++];
+      seq[2 * n] = extras[2 * e];
+      seq[2 * n + 1] = extras[2 * e + 1];
+      ids[n++] = m + e;
+    }
+  }
+  // Start at the highest (x, y) point: always a hull vertex.
+  let start = 0;
+  for (let i = 1; i < n; i++) {
+    if (seq[2 * i] > seq[2 * start] || (seq[2 * i] === seq[2 * start] && seq[2 * i + 1] > seq[2 * start + 1])) start = i;
+  }
+  const stack = stackScratch;
+  let top = 0;
+  stack[top++] = start;
+  for (let j = 1; j <= n; j++) {
+    const p = start + j >= n ? start + j - n : start + j;
+    const px = seq[2 * p];
+    const py = seq[2 * p + 1];
+    while (top >= 2) {
+      const o = stack[top - 2];
+      const a = stack[top - 1];
+      const ox = seq[2 * o];
+      const oy = seq[2 * o + 1];
+      if ((seq[2 * a] - ox) * (py - oy) - (seq[2 * a + 1] - oy) * (px - ox) > 0) break;
+      top--;
+    }
+    stack[top++] = p;
+  }
+  top--; // the start again
+  for (let i = 0; i < top; i++) {
+    out[2 * i] = seq[2 * stack[i]];
+    out[2 * i + 1] = seq[2 * stack[i] + 1];
+  }
+  if (top < 3) return cleanHullInPlace(out, top);
+  // Clean-up: a core vertex between its own core neighbours is as clean as in the core.
+  let clean = true;
+  for (let i = 0; i < top && clean; i++) {
+    const id = ids[stack[i]];
+    if (coreClean && id < m) {
+      const before = ids[stack[i === 0 ? top - 1 : i - 1]];
+      const after = ids[stack[i + 1 === top ? 0 : i + 1]];
+      if (before === (id === 0 ? m - 1 : id - 1) && after === (id + 1 === m ? 0 : id + 1)) continue;
+    }
+    if (!vertexClean(out, top, i)) clean = false;
+  }
+  return clean ? top : cleanHullInPlace(out, top);
 }
 
 /**
@@ -318,7 +571,17 @@ export function simplifyHull(hull: Float64Array, delta: number, maxRun = 64, min
   const m = hull.length / 2;
   // Small hulls cost little downstream: keep them exact.
   if (m <= minVertices || delta <= 0) return hull;
-  const keep: number[] = [];
+  const out = new Float64Array(2 * m);
+  const kept = simplifyInto(hull, m, delta, maxRun, minVertices, out);
+  return out.slice(0, 2 * kept);
+}
+
+/** simplifyHull of hull[0..2m) into `out` (not `hull`; room for 2m numbers); returns the kept vertex count. */
+export function simplifyInto(hull: Float64Array, m: number, delta: number, maxRun: number, minVertices: number, out: Float64Array): number {
+  if (m <= minVertices || delta <= 0) {
+    out.set(hull.subarray(0, 2 * m));
+    return m;
+  }
   // Start from the vertex farthest from the origin (always kept).
   let start = 0;
   let far = -1;
@@ -330,7 +593,10 @@ export function simplifyHull(hull: Float64Array, delta: number, maxRun = 64, min
     }
   }
   let a = 0; // offset from start
-  keep.push(start);
+  let kept = 0;
+  out[0] = hull[2 * start];
+  out[1] = hull[2 * start + 1];
+  kept = 1;
   while (a < m) {
     let best = a + 1;
     for (let b = a + 2; b <= m && b - a <= maxRun; b++) {
@@ -351,12 +617,12 @@ export function simplifyHull(hull: Float64Array, delta: number, maxRun = 64, min
       best = b;
     }
     a = best;
-    if (a < m) keep.push((start + a) % m);
+    if (a < m) {
+      const i = (start + a) % m;
+      out[2 * kept] = hull[2 * i];
+      out[2 * kept + 1] = hull[2 * i + 1];
+      kept++;
+    }
   }
-  const out = new Float64Array(2 * keep.length);
-  keep.forEach((i, k) => {
-    out[2 * k] = hull[2 * i];
-    out[2 * k + 1] = hull[2 * i + 1];
-  });
-  return out;
+  return kept;
 }

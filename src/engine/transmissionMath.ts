@@ -20,7 +20,13 @@ const ERFC_CHEBYSHEV = [
   3.1309213993507742e-13, -1.1270822361426012e-13, 3.8109051986874039e-16, 7.1060976402505253e-15,
   -1.5230282401808004e-15, -9.4575081748730267e-17, 1.2102459734085757e-16,
 ];
-const ERFC_TERMS = ERFC_CHEBYSHEV.length;
+// The series split into its even and odd halves: Σ c_j T_j(u) = Σ c_2k T_k(v) + u·Σ c_2k+1 V_k(v), v = 2u² − 1
+// (T_2k(u) = T_k(T_2(u)); T_2k+1(u) = u·V_k(v) with V_0 = 1, V_1 = 2v − 1, V_k+1 = 2v·V_k − V_k−1, the Chebyshev
+// polynomials of the fourth kind), so the two Clenshaw recurrences of half the length run side by side.
+const ERFC_EVEN = Float64Array.from(ERFC_CHEBYSHEV.filter((_, j) => j % 2 === 0));
+const ERFC_ODD = Float64Array.from(ERFC_CHEBYSHEV.filter((_, j) => j % 2 === 1));
+const EVEN_TERMS = ERFC_EVEN.length;
+const ODD_TERMS = ERFC_ODD.length;
 
 /** Complementary error function for real x. */
 export function erfc(x: number): number {
@@ -30,16 +36,31 @@ export function erfc(x: number): number {
   if (z < 27) {
     const t = 2 / (2 + z);
     const u = 2 * t - 1;
-    const u2 = 2 * u;
-    // Clenshaw recurrence.
-    let b1 = 0;
-    let b2 = 0;
-    for (let j = ERFC_TERMS - 1; j >= 1; j--) {
-      const b0 = u2 * b1 - b2 + ERFC_CHEBYSHEV[j];
-      b2 = b1;
-      b1 = b0;
+    const v = 2 * u * u - 1;
+    const v2 = 2 * v;
+    // Clenshaw recurrences: T_k(v) for the even half, V_k(v) for the odd half.
+    let e1 = 0;
+    let e2 = 0;
+    let o1 = 0;
+    let o2 = 0;
+    let k = EVEN_TERMS - 1;
+    for (; k >= ODD_TERMS; k--) {
+      const e0 = v2 * e1 - e2 + ERFC_EVEN[k];
+      e2 = e1;
+      e1 = e0;
     }
-    value = t * Math.exp(-z * z + u * b1 - b2 + ERFC_CHEBYSHEV[0]);
+    for (; k >= 1; k--) {
+      const e0 = v2 * e1 - e2 + ERFC_EVEN[k];
+      e2 = e1;
+      e1 = e0;
+      const o0 = v2 * o1 - o2 + ERFC_ODD[k];
+      o2 = o1;
+      o1 = o0;
+    }
+    const even = v * e1 - e2 + ERFC_EVEN[0];
+    const odd = (v2 - 1) * o1 - o2 + ERFC_ODD[0];
+    const f = even + u * odd;
+    value = t * Math.exp(-z * z + f);
   }
   return x >= 0 ? value : 2 - value;
 }

@@ -8,12 +8,14 @@
 // axial voltage V_z (ion energy per charge), which need new profiles. λ and V_z are searched in
 // g = ln(λ_apex − λ) and e = ln V_z: a small grid, then Levenberg–Marquardt (K. Levenberg 1944; D. W. Marquardt,
 // J. SIAM 11 (1963) 431) on the projected residual (variable projection: G. H. Golub, V. Pereyra, SIAM J. Numer.
-// Anal. 10 (1973) 413), with profiles at a coarse point count and tolerance during the search. Uncertainty: 1σ
+// Anal. 10 (1973) 413), with profiles at a coarse point count and tolerance during the search (the engine's coarse-stage
+// settings, COARSE_PROFILE_OPTIONS, whose bound is the same 1 % of the peak). Uncertainty: 1σ
 // from s²(JᵀJ)⁻¹ over all five parameters, s² = SSR/(N − 5).
 //
 // Limits: the engine's model — ideal hyperbolic field, no fringe fields, no space charge, no collisions,
 // a round uniformly filled entrance beam.
 import {
+  COARSE_PROFILE_OPTIONS,
   apexRatio,
   exactResolutionAtRatio,
   peakProfile,
@@ -288,7 +290,11 @@ export function fitPeak(request: PeakFitRequest, control: RunControl = {}): Peak
         mzTo: mirrorHi,
         points,
       },
-      { relativeTolerance: tolerance, signal: control.signal, shouldStop: control.shouldStop },
+      // The search runs on the engine's coarse stage settings (its bound ≤ 1 % of the peak, as SEARCH_TOLERANCE
+      // asks); the final stage on the full settings.
+      points === SEARCH_POINTS
+        ? { ...COARSE_PROFILE_OPTIONS, relativeTolerance: tolerance, signal: control.signal, shouldStop: control.shouldStop }
+        : { relativeTolerance: tolerance, signal: control.signal, shouldStop: control.shouldStop },
     );
     profiles++;
     const t = interpolator(mirrorLo, (mirrorHi - mirrorLo) / (points - 1), p.transmission);
