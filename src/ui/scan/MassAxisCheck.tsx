@@ -175,7 +175,7 @@ export function MassAxisCheck() {
     <>
       <div class="card answer" data-testid="axis-answer">
         {c.largest && c.tolerance !== null && (
-          <p class={within ? 'verdict verdict-ok' : 'verdict verdict-bad'} data-testid="axis-verdict">
+          <p class={within ? 'scan-verdict verdict-pass' : 'scan-verdict verdict-fail'} data-testid="axis-verdict">
             {within
               ? `Within tolerance: the largest error is ${c.largest.value.toFixed(4)} u, inside ±${c.tolerance} u.`
               : `Outside tolerance: the largest error is ${c.largest.value.toFixed(4)} u, beyond ±${c.tolerance} u.`}

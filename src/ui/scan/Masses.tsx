@@ -73,7 +73,7 @@ export function IsotopeBars(props: { pattern: IsotopePeak[]; label: string; test
 export function IsotopeTable(props: { pattern: IsotopePeak[] }) {
   const top = Math.max(...props.pattern.map((p) => p.abundance), 0);
   return (
-    <table class="table" data-testid="isotope-table">
+    <table class="values" data-testid="isotope-table">
       <thead>
         <tr><th scope="col">m/z</th><th scope="col">Relative height (tallest 100 %)</th></tr>
       </thead>

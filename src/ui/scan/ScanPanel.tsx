@@ -237,8 +237,8 @@ export function ScanPanel(props: { client?: SimClient }) {
             {read.peaks.length === 0 ? (
               <p class="notice" role="status">No peak stands out of the noise in this scan.</p>
             ) : (
-              <div class="table-wrap">
-                <table class="table" data-testid="peak-table">
+              <div class="scroll-x">
+                <table class="values" data-testid="peak-table">
                   <caption>Peaks found · tap one to check its shape</caption>
                   <thead><tr><th scope="col">m/z centroid</th><th scope="col">Height</th><th scope="col">FWHM (u)</th><th scope="col">m/Δm</th><th scope="col">Asym. 10 %</th></tr></thead>
                   <tbody>
@@ -372,7 +372,7 @@ function FitView(props: { state: FitState; ctx: Record<string, string | number> 
   return (
     <div class="card answer" data-testid="fit-result">
       <h2 class="card-title">Verdict · m/z {r.peak.centroid.toFixed(3)}</h2>
-      <p class={v.explained ? 'verdict verdict-ok' : 'verdict verdict-bad'} data-testid="fit-verdict">
+      <p class={v.explained ? 'scan-verdict verdict-pass' : 'scan-verdict verdict-fail'} data-testid="fit-verdict">
         <strong>{v.explained ? 'Explained by the operating point.' : 'Not explained by the operating point.'}</strong> {v.summary}
       </p>
       {data && (
