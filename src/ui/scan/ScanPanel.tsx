@@ -297,7 +297,7 @@ export function ScanPanel(props: { client?: SimClient }) {
       {fitOpen && <FitView state={fit} ctx={ctx} />}
 
       <DraftProblem problem={draft.problem} />
-      <InputsFold id="scan-fold" testId="scan-fold" invalid={read.ok === false || !!overlay?.error || !charge.ok || !beam.ok || !transverse.ok || !ionEnergy.ok || !!beamError}
+      <InputsFold id="scan-fold" testId="scan-fold" invalid={read.ok !== true || !!overlay?.error || !charge.ok || !beam.ok || !transverse.ok || !ionEnergy.ok || !!beamError}
         summary={`${inputs.source || (read.ok ? 'pasted scan' : 'no scan yet')}${formula ? ` · ${formula}` : ''} · beam ${inputs.beamRadiusMm.trim() || '—'} mm`}>
         <form class="card form" onSubmit={(e) => e.preventDefault()}>
           <h2 class="card-title">Scan</h2>
