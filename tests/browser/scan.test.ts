@@ -48,7 +48,7 @@ describe('Scan area offline', () => {
     await page.locator('[data-testid="peak-choose"]').nth(main).click();
     await page.locator('[data-testid="fit-run"]').click();
     await expect.poll(() => page.locator('[data-testid="fit-verdict"]').textContent(), { timeout: 120_000 })
-      .toMatch(/^(Explained by the operating point\.|Not explained by the operating point\.)/);
+      .toMatch(/^(Explained by the operating point|Not explained by the operating point): \S/);
     expect(await page.locator('main').textContent()).not.toMatch(/NaN/);
     await screenshot(page, 'scan-verdict');
 

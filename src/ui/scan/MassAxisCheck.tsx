@@ -211,13 +211,13 @@ export function MassAxisCheck() {
         )}
         {c.refusal && <p class="notice" role="status" data-testid="axis-refusal">{c.refusal}</p>}
         {!c.largest && !c.refusal && Object.keys(c.rowErrors).length === 0 && (
-          <p class="muted">Enter the observed m/z of each calibrant ion below.</p>
+          <p class="muted" data-testid="axis-empty">Enter the observed m/z of each calibrant ion: tap the line of ions below.</p>
         )}
         {Object.keys(c.rowErrors).length > 0 && <p class="notice" role="status">Fix the marked rows below to see the fit.</p>}
       </div>
       <DraftProblem problem={draft.problem} />
       <InputsFold id="axis-fold" testId="axis-fold" summary={summary}
-        invalid={Object.keys(c.rowErrors).length > 0 || !!c.chargeError || !!c.toleranceError || (c.largest === null && c.points.length === 0)}>
+        invalid={Object.keys(c.rowErrors).length > 0 || !!c.chargeError || !!c.toleranceError}>
         <form class="card form" onSubmit={(e) => e.preventDefault()}>
           <h2 class="card-title">Calibrant ions</h2>
           {inputs.rows.map((row, i) => (

@@ -238,7 +238,7 @@ export function ScanPanel(props: { client?: SimClient }) {
               <p class="notice" role="status">No peak stands out of the noise in this scan.</p>
             ) : (
               <div class="scroll-x">
-                <table class="values" data-testid="peak-table">
+                <table class="values compact" data-testid="peak-table">
                   <caption>Peaks found · tap one to check its shape</caption>
                   <thead><tr><th scope="col">m/z centroid</th><th scope="col">Height</th><th scope="col">FWHM (u)</th><th scope="col">m/Δm</th><th scope="col">Asym. 10 %</th></tr></thead>
                   <tbody>
@@ -309,7 +309,7 @@ export function ScanPanel(props: { client?: SimClient }) {
             }}>Load the demo scan</button>
             <label class="btn file-btn">
               Pick a file…
-              <input type="file" class="visually-hidden" accept=".csv,.txt,.tsv,.xy,text/plain,text/csv" data-testid="scan-file"
+              <input type="file" class="file-input" aria-label="Pick a scan file on this device" accept=".csv,.txt,.tsv,.xy,text/plain,text/csv" data-testid="scan-file"
                 onChange={(e) => {
                   const f = (e.target as HTMLInputElement).files?.[0];
                   if (f) void pickFile(f);
@@ -368,12 +368,13 @@ function FitView(props: { state: FitState; ctx: Record<string, string | number> 
   const v = r.verdict;
   const ctx = { ...props.ctx, peak: Number(r.peak.centroid.toFixed(4)) };
   const pm = (f: { value: number; sigma: number }, digits: number, unit = '') =>
-    `${fmt(f.value, digits)}${Number.isFinite(f.sigma) ? ` ± ${fmt(f.sigma, digits)}` : ''}${unit ? ' ' + unit : ''}`;
+    `${fmt(f.value, digits)}${Number.isFinite(f.sigma) ? ` ± ${fmtG(f.sigma, 2)}` : ''}${unit ? ' ' + unit : ''}`;
   return (
     <div class="card answer" data-testid="fit-result">
       <h2 class="card-title">Verdict · m/z {r.peak.centroid.toFixed(3)}</h2>
       <p class={v.explained ? 'scan-verdict verdict-pass' : 'scan-verdict verdict-fail'} data-testid="fit-verdict">
-        <strong>{v.explained ? 'Explained by the operating point.' : 'Not explained by the operating point.'}</strong> {v.summary}
+        <strong>{v.explained ? 'Explained by the operating point' : 'Not explained by the operating point'}</strong>
+        {`: ${v.summary.replace(/^(Not explained|Explained) by the operating point[:.]?\s*/i, '')}`}
       </p>
       {data && (
         <Chart testId="fit-chart" label={`Measured peak and the fitted ideal peak near m/z ${r.peak.centroid.toFixed(2)}`} height={200} data={data}
