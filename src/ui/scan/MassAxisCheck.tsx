@@ -63,6 +63,8 @@ export interface AxisCheck {
   /** Largest |observed − reference| before any new calibration, u (and the row). */
   largest: { value: number; row: number } | null;
   fit: MassAxisFit | null;
+  /** Ions listed without an observed m/z yet. */
+  waiting: number;
   /** Why there is no fit (too few points, repeated observed m/z…), in a sentence. */
   refusal: string | null;
 }
@@ -89,14 +91,19 @@ export function checkAxis(inputs: AxisInputs): AxisCheck {
   const tol = readInRange(inputs.tolerance, 'Tolerance', 0.001, 5, 'u', '0.1');
   const points: AxisPoint[] = [];
   const rowErrors: AxisCheck['rowErrors'] = {};
+  let waiting = 0;
   inputs.rows.forEach((row, i) => {
     if (row.reference.trim() === '' && row.observed.trim() === '') return; // a blank row is not a point
     const ref = referenceOf(row.reference, charge.ok ? charge.value : null);
-    const obs = row.observed.trim() === ''
-      ? ({ ok: false, message: 'Observed m/z: enter the centroid you measured, 1 to 100000 u.' } as const)
-      : readInRange(row.observed, 'Observed m/z', 1, 100000, 'u', '219.02');
     const errors: { reference?: string; observed?: string } = {};
     if ('error' in ref) errors.reference = ref.error;
+    if (row.observed.trim() === '') {
+      // An ion listed but not yet measured waits; only a wrong reference is marked.
+      waiting += 1;
+      if (errors.reference) rowErrors[i] = errors;
+      return;
+    }
+    const obs = readInRange(row.observed, 'Observed m/z', 1, 100000, 'u', '219.02');
     if (!obs.ok) errors.observed = obs.message;
     if (errors.reference || errors.observed) rowErrors[i] = errors;
     else if ('value' in ref && obs.ok) points.push({ row: i, reference: ref.value, observed: obs.value, formula: ref.formula });
@@ -112,7 +119,8 @@ export function checkAxis(inputs: AxisInputs): AxisCheck {
   const bad = Object.keys(rowErrors).length > 0;
   if (!bad) {
     const needed = order + 2;
-    if (points.length < needed) refusal = `A ${order === 1 ? 'straight-line' : 'quadratic'} fit needs at least ${needed} ions with both values (you have ${points.length}); add a row, or choose a straight line.`;
+    if (points.length === 0) refusal = null;
+    else if (points.length < needed) refusal = `A ${order === 1 ? 'straight-line' : 'quadratic'} fit needs at least ${needed} ions with both values (you have ${points.length}${waiting > 0 ? `; ${waiting} more listed without an observed m/z` : ''}); add a row, or choose a straight line.`;
     else {
       const seen = new Set<number>();
       const repeated = points.find((p) => (seen.has(p.observed) ? true : (seen.add(p.observed), false)));
@@ -131,7 +139,7 @@ export function checkAxis(inputs: AxisInputs): AxisCheck {
     }
   }
   return {
-    points, rowErrors, fit, refusal, largest,
+    points, rowErrors, fit, refusal, largest, waiting,
     chargeError: charge.ok ? undefined : charge.message,
     toleranceError: tol.ok ? undefined : tol.message,
     tolerance: tol.ok ? tol.value : null,
