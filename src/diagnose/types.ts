@@ -176,6 +176,8 @@ export interface MeasureSpec {
   /** Other units the engineer may enter in (same dimension). */
   altUnits?: string[];
   tool: string;
+  /** A screen of the app that makes this measurement (path and its name), linked beside the tool. */
+  toolLink?: { path: string; label: string };
   how: string;
   /** Reading type in the visit log's catalogue this measurement is recorded as, when one fits. */
   visitType?: string;

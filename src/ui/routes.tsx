@@ -46,6 +46,7 @@ const table: [prefix: string, screen: FunctionComponent][] = [
   ['/bench', lazyScreen('Bench', () => import('./screens/BenchScreen').then((m) => m.BenchScreen))],
   ['/stability', lazyScreen('Stability', () => import('./screens/StabilityScreen').then((m) => m.StabilityScreen))],
   ['/peak', lazyScreen('Peak', () => import('./screens/PeakScreen').then((m) => m.PeakScreen))],
+  ['/scan', lazyScreen('Scan', () => import('./screens/ScanScreen').then((m) => m.ScanScreen))],
   ['/diagnose', lazyScreen('Diagnose', () => import('./screens/DiagnoseScreen').then((m) => m.DiagnoseScreen))],
   ['/visits', lazyScreen('Visits', () => import('./screens/VisitsScreen').then((m) => m.VisitsScreen))],
   ['/instruments', lazyScreen('Instruments', () => import('./screens/InstrumentsScreen').then((m) => m.InstrumentsScreen))],

@@ -66,6 +66,10 @@ const areas: Area[] = [
       await expect.poll(() => canvasInked(page, '[data-testid="peak-chart"]'), { timeout: 60_000 }).toBeGreaterThan(500);
     },
   },
+  // No scan kept yet: the paste field and the demo button come first.
+  { path: '/scan', name: 'scan' },
+  { path: '/scan/masses', name: 'scan-masses', answer: '[data-testid="masses-mz"]' },
+  { path: '/scan/mass-axis', name: 'scan-mass-axis' },
   { path: '/diagnose', name: 'diagnose' },
   { path: '/visits', name: 'visits', answer: 'main a[href="/visits/new"]' },
   { path: '/instruments', name: 'instruments' },

@@ -19,7 +19,7 @@ export const massAxisTree: Tree = {
         'Perfluorinated calibrant ions have a negative mass defect: CF3⁺ 68.995, C4F9⁺ 218.985, C9F20N⁺ 501.971 (AME 2020; computed).',
         'Expect some drift after venting until temperatures settle (common practice).',
       ],
-      measure: { quantity: 'Largest |observed − reference| m/z', unit: 'u', tool: 'Calibrant scan', how: 'Centroid each reference ion; compare with its exact mass.' },
+      measure: { quantity: 'Largest |observed − reference| m/z', unit: 'u', tool: 'Calibrant scan', toolLink: { path: '/scan/mass-axis', label: 'Mass-axis check' }, how: 'Centroid each reference ion; compare with its exact mass.' },
       expect: { range: { low: 0, high: 0.1 }, tolerance: { kind: 'range', borderline: 1 }, source: 'Mass errors within about ±0.1–0.2 u (common practice); your method’s limit wins.' },
       branches: { pass: 'MA-ok', borderline: 'MA2', high: 'MA2', low: 'MA2' },
     },

@@ -27,6 +27,12 @@ export const IconPeak = () => (
     <path d="M3 20h18" /><path d="M4 19c4 0 5-13 8-13s4 13 8 13" />
   </Svg>
 );
+/** Sticks of a measured spectrum over an axis. */
+export const IconSpectrum = () => (
+  <Svg>
+    <path d="M3 20h18" /><path d="M6 20v-6" /><path d="M10 20V6" /><path d="M14 20v-9" /><path d="M18 20v-3" />
+  </Svg>
+);
 /** Branching path. */
 export const IconWalk = () => (
   <Svg>

@@ -98,6 +98,7 @@ export function HomeScreen() {
             : <li><a class="btn btn-primary" href="/instruments/new">Add an instrument</a></li>}
           <li><a class="btn" href="/diagnose">{openWalk ? 'Diagnose' : 'Start a walk'}</a></li>
           {(instrument || opening) && <li><a class="btn" href="/visits/new">New visit</a></li>}
+          <li><a class="btn" href="/scan">Check a scan</a></li>
           <li><a class="btn" href="/safety">Safety cards</a></li>
         </ul>
       </nav>

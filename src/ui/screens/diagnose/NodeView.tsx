@@ -356,7 +356,7 @@ function MeasureView(props: NodeViewProps & { node: MeasureNode }) {
       <SafetyCards ids={node.cards} />
       <dl class="facts">
         <div><dt>Measure</dt><dd>{node.measure.quantity}</dd></div>
-        <div><dt>Tool</dt><dd>{node.measure.tool}</dd></div>
+        <div><dt>Tool</dt><dd>{node.measure.tool}{node.measure.toolLink && <> · <a href={node.measure.toolLink.path} data-testid="tool-link">{node.measure.toolLink.label}</a></>}</dd></div>
         <div><dt>How</dt><dd>{node.measure.how}</dd></div>
       </dl>
       {calcInputs.map((i) => (
