@@ -52,9 +52,11 @@ interface ActiveRun {
 /** The curve runs in a worker of its own, so a slider move (which terminates the peak worker) does not kill it. */
 let curveWorkerClient: SimClient | null = null;
 
-export function PeakSimulation(props: { client?: SimClient; curveClient?: SimClient }) {
+/** `clock` gives the time in ms (Date.now by default): the hand-over rule below is about time, so tests set it. */
+export function PeakSimulation(props: { client?: SimClient; curveClient?: SimClient; clock?: () => number }) {
   const { instrument } = useApp();
   const client = props.client ?? simClient();
+  const clock = props.clock ?? Date.now;
   const curveClient = props.curveClient ?? (curveWorkerClient ??= new SimClient());
   const [inputs, update, inputsProblem] = usePersistentInputs<PeakInputs>('peak', peakDefaults);
   const [peak, setPeak] = useState<PeakState>({ status: 'idle' });
@@ -106,7 +108,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
       .run('peakProfile', next.params, {
         signal: entry.controller.signal,
         onProgress: (f) => {
-          entry.lastProgress = Date.now();
+          entry.lastProgress = clock();
           if (active.current !== entry) return;
           setPeak((s) => (s.status === 'coarse' && s.key === entry.key ? { ...s, progress: f } : { status: 'running', progress: f }));
         },
@@ -137,7 +139,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     const current = active.current;
     if (current && current.key === run.key) return;
     setPeak((s) => (s.status === 'running' ? s : { status: 'running', progress: 0 }));
-    const now = Date.now();
+    const now = clock();
     if (current && !current.coarseShown && now - current.lastProgress < COARSE_WAIT_MS && (current.waitUntil ?? now + 1) > now) {
       // Let it land its coarse profile (onPartial hands over); one that takes too long is replaced.
       if (current.waitUntil === null) {
