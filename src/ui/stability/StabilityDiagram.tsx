@@ -19,7 +19,7 @@ import { listHint, parseMzList, parseNumber, usePersistentInputs } from '../benc
 import { Result } from '../bench/NoteButton';
 import { buildScanLine, expectedFor } from '../bench/scanLine';
 import { ScanLineFields } from '../bench/ScanLineFields';
-import { diagramColumns, ISO_BETAS, Q_MAX } from './diagramData';
+import { diagramColumns, ISO_BETAS, placeLabels, Q_MAX } from './diagramData';
 import { DraftProblem } from '../components/DraftProblem';
 
 type StabilityInputs = {
@@ -355,6 +355,15 @@ function chartOptions(palette: ChartPalette, pointsRef: { current: PlottedPoint[
           ctx.fillStyle = ink;
           ctx.font = `${12 * dpr}px system-ui, sans-serif`;
           ctx.fillText('apex', ax + s + 3 * dpr, ay - s);
+          // Point labels never overlap each other or the apex label (tightly packed ions in the whole-region view).
+          const lineHeight = 12 * dpr;
+          const apexBox = { x: ax + s + 3 * dpr, y: ay - s - lineHeight, w: ctx.measureText('apex').width, h: lineHeight };
+          const ordered = [...pointsRef.current].sort((a, b) => Number(b.set) - Number(a.set));
+          const spots = placeLabels(ordered.map((p) => ({
+            x: u.valToPos(p.op.q, 'x', true), y: u.valToPos(p.op.a, 'y', true), r: (p.set ? 7 : 6) * dpr,
+            w: ctx.measureText(`${p.mz}`).width, h: lineHeight,
+          })), [apexBox]);
+          const labelAt = new Map(ordered.map((p, i) => [p, spots[i]]));
           // Where each point sits, in CSS px of the plot overlay: for tests and for tap checks.
           u.over.dataset.points = JSON.stringify(pointsRef.current.map((p) => ({ mz: p.mz, x: u.valToPos(p.op.q, 'x'), y: u.valToPos(p.op.a, 'y') })));
           for (const p of pointsRef.current) {
@@ -376,8 +385,11 @@ function chartOptions(palette: ChartPalette, pointsRef: { current: PlottedPoint[
               ctx.lineWidth = 2 * dpr;
               ctx.beginPath(); ctx.arc(x, y, r + 5 * dpr, 0, 2 * Math.PI); ctx.stroke();
             }
-            ctx.fillStyle = ink;
-            ctx.fillText(`${p.mz}`, x + r + 3 * dpr, y + r + 12 * dpr);
+            const at = labelAt.get(p);
+            if (at) {
+              ctx.fillStyle = ink;
+              ctx.fillText(`${p.mz}`, at.x, at.y);
+            }
           }
           ctx.restore();
         },

@@ -65,3 +65,33 @@ export function diagramColumns(slope: number | null, withIsoBeta = false): Colum
   lastColumns = { key, columns };
   return columns;
 }
+
+/** A label's box on the canvas (device px). */
+export interface LabelBox { x: number; y: number; w: number; h: number }
+
+function overlaps(a: LabelBox, b: LabelBox): boolean {
+  return a.x < b.x + b.w && b.x < a.x + a.w && a.y < b.y + b.h && b.y < a.y + a.h;
+}
+
+/**
+ * Where to write each point's label so no two labels (nor a label and `taken`, e.g. the apex mark's) overlap:
+ * the first free spot of below-right, above-right, below-left, above-left of the marker (radius r), else null —
+ * the point is then named only in the list under the chart. Labels are placed in the order given (the set m/z
+ * first, so it keeps its label). Returns the text's left/baseline position for fillText.
+ */
+export function placeLabels(points: readonly { x: number; y: number; r: number; w: number; h: number }[], taken: readonly LabelBox[] = []): ({ x: number; y: number } | null)[] {
+  const used: LabelBox[] = [...taken];
+  return points.map((p) => {
+    const gap = 3;
+    const spots: LabelBox[] = [
+      { x: p.x + p.r + gap, y: p.y + p.r, w: p.w, h: p.h },
+      { x: p.x + p.r + gap, y: p.y - p.r - p.h, w: p.w, h: p.h },
+      { x: p.x - p.r - gap - p.w, y: p.y + p.r, w: p.w, h: p.h },
+      { x: p.x - p.r - gap - p.w, y: p.y - p.r - p.h, w: p.w, h: p.h },
+    ];
+    const free = spots.find((s) => !used.some((u) => overlaps(s, u)));
+    if (!free) return null;
+    used.push(free);
+    return { x: free.x, y: free.y + free.h };
+  });
+}
