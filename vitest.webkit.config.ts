@@ -10,6 +10,11 @@ export default defineConfig({
     hookTimeout: 180_000,
     fileParallelism: false,
     maxWorkers: 1,
+    // One retry, for WebKit only: now and then a page opened right after another never gets its IndexedDB
+    // connection (seen in 1 of 4 full runs; likely the previous page kept in the back/forward cache still holds
+    // it, not confirmed). The app-level fix (close the database on pagehide, reopen on pageshow) is open work;
+    // the JSON report still counts a test that needed the retry as passed, and the flake is written up.
+    retry: 1,
     reporters: ['default'],
   },
 });
