@@ -117,6 +117,15 @@ const setpoint = (unit: string, min: number, max: number): ContextField => ({
   help: 'The value the instrument was set to, in the same unit as the reading; the reading is judged against it.',
 });
 
+/** Tolerance rules in one call each: relative (fractions), absolute (base units), or a factor either way. */
+const rel = (pass: number, borderline: number): ToleranceRule => ({ kind: 'relative', pass, borderline });
+const abs = (pass: number, borderline: number): ToleranceRule => ({ kind: 'absolute', pass, borderline });
+const times = (pass: number, borderline: number): ToleranceRule => ({ kind: 'factor', pass, borderline });
+
+/** A calculated expectation with its tolerance and its source, as one spread. */
+const against = (computed: ComputedExpectation, computedTolerance: ToleranceRule, computedSource: string) =>
+  ({ computed, computedTolerance, computedSource });
+
 const gcKinds: InstrumentKind[] = ['gc-ms-single', 'gc-ms-triple'];
 const lcKinds: InstrumentKind[] = ['lc-ms-single', 'lc-ms-triple'];
 
@@ -125,10 +134,19 @@ function earlierLeakPeak(mz: number, gas: string, help: string): ReadingType {
   return {
     id: `leak-${gas}-${mz}`, label: `Earlier design: ${gas}, m/z ${mz} as % of a reference ion`, group: 'earlier', baseUnit: '%', units: percentUnits,
     defaultUnit: 'percent', plausible: { min: 0, max: 10000, source: 'physical: an intensity share is not negative; 100 times the reference ion is a typing slip' }, badSide: 'high',
-    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
+    baselineTolerance: times(1.5, 3),
     context: [{ key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true }],
     matchContext: ['referenceMz'], trendScale: 'log',
     help,
+  };
+}
+
+/** An earlier-design background ratio with no context: read, shown and trended against the baseline only. */
+function earlierRatio(id: string, label: string, baseUnit: string, units: readonly UnitDef[], help: string): ReadingType {
+  return {
+    id, label, group: 'earlier', baseUnit, units, defaultUnit: units[0].id, badSide: 'both',
+    plausible: { min: 0, max: 10000, source: 'physical: a ratio of peak heights is not negative' },
+    baselineTolerance: rel(0.25, 0.5), context: [], matchContext: [], trendScale: 'linear', help,
   };
 }
 
@@ -137,25 +155,25 @@ export const catalogue: readonly ReadingType[] = [
     id: 'vacuum-high', label: 'High vacuum (analyser)', group: 'vacuum', baseUnit: 'Pa', units: pressureUnits,
     defaultUnit: 'mbar', plausible: { min: 1e-10, max: 1.2e5, source: 'class: ion gauges read down to about 1e-10 Pa (extreme high vacuum, ISO 3529-1:2019 ranges); at most a little above one standard atmosphere, 101 325 Pa (ISO 2533:1975)' }, badSide: 'high',
     // A doubling of analyser pressure at the same gas load is worth a look; ×3 points to a leak or pump fault [cp].
-    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
+    baselineTolerance: times(1.5, 3),
     generic: [
       { kinds: gcKinds, low: 5e-6 * (101325 / 760), high: 5e-5 * (101325 / 760),
         source: 'EI GC-MS with about 1 mL/min helium, N2-equivalent: 5e-6 to 5e-5 Torr (common practice)', when: { gaugeGas: 'N2-equivalent' } },
       { kinds: ['rga'], high: 1e-2, source: 'RGA operation: below 1e-4 mbar (common practice)', when: { gaugeGas: 'N2-equivalent' } },
     ],
-    genericMargin: { kind: 'factor', pass: 1, borderline: 2 },
+    genericMargin: times(1, 2),
     context: [gaugeGas], matchContext: ['gaugeGas'], trendScale: 'log',
     help: 'Ion-gauge read-back at the analyser. State whether it is the N2-equivalent indication.',
   },
   {
     id: 'vacuum-fore', label: 'Fore-vacuum', group: 'vacuum', baseUnit: 'Pa', units: pressureUnits,
     defaultUnit: 'mbar', plausible: { min: 1e-6, max: 1.2e5, source: 'class: Pirani and capacitance gauges read down to about 1e-6 Pa at best (common practice); at most a little above one standard atmosphere (ISO 2533:1975)' }, badSide: 'high',
-    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
+    baselineTolerance: times(1.5, 3),
     generic: [
       { kinds: [...gcKinds, 'rga'], low: 1e-2 * 100, high: 1e-1 * 100, source: 'GC-MS fore-vacuum about 1e-2 to 1e-1 mbar (from memory)', when: { gaugeGas: 'N2-equivalent' } },
       { kinds: lcKinds, low: 1 * 100, high: 10 * 100, source: 'API first stage about 1 to 10 mbar (from memory)', when: { gaugeGas: 'N2-equivalent' } },
     ],
-    genericMargin: { kind: 'factor', pass: 1, borderline: 3 },
+    genericMargin: times(1, 3),
     context: [gaugeGas], matchContext: ['gaugeGas'], trendScale: 'log',
     help: 'Pirani or thermocouple gauge between the turbo and the rough pump.',
   },
@@ -163,23 +181,19 @@ export const catalogue: readonly ReadingType[] = [
     id: 'rf-amplitude', label: 'RF amplitude at a parked m/z', group: 'analyser', baseUnit: 'V (zero-to-peak, one rod to ground)',
     units: rfAmplitudeUnits, defaultUnit: 'V0p-rod', plausible: { min: 0, max: 20000, source: 'class: quadrupole RF supplies give at most a few kV zero-to-peak per rod; 20 kV covers every convention (common practice)' }, badSide: 'both',
     // Proportionality V ∝ m/z should hold within about ±1 % (V ∝ m/z at fixed f and r0: Dawson, Quadrupole Mass Spectrometry and Its Applications, 1976; the ±1 % is common practice).
-    baselineTolerance: { kind: 'relative', pass: 0.01, borderline: 0.02 },
-    computed: 'rf-amplitude',
+    baselineTolerance: rel(0.01, 0.02),
     // The instrument's operating point sits a little below the apex q and its r0 and f are nominal: 3 % and 6 %
     // allow for that (common practice) while still catching a factor-of-2 convention slip.
-    computedTolerance: { kind: 'relative', pass: 0.03, borderline: 0.06 },
-    computedSource: 'calculated from the profile’s r0 and f at the apex q = 0.706 (Mathieu stability, Dawson 1976)',
+    ...against('rf-amplitude', rel(0.03, 0.06), 'calculated from the profile’s r0 and f at the apex q = 0.706 (Mathieu stability, Dawson 1976)'),
     context: [parkedMz], matchContext: ['mz'], trendScale: 'linear',
     help: 'Read at the RF monitor point or with a rated low-capacitance probe. Say which convention the figure uses.',
   },
   {
     id: 'dc-amplitude', label: 'DC at a parked m/z', group: 'analyser', baseUnit: 'V (one rod pair to ground)',
     units: dcUnits, defaultUnit: 'V-rod', plausible: { min: -5000, max: 5000, source: 'class: quadrupole DC at most about 0.17 of the RF, below ±5 kV (Dawson 1976 apex a/q; common practice)' }, badSide: 'both',
-    baselineTolerance: { kind: 'relative', pass: 0.01, borderline: 0.02 },
-    computed: 'dc-amplitude',
+    baselineTolerance: rel(0.01, 0.02),
     // At unit resolution U sits just below the apex value 0.16784·V (resolution offset), about 1–5 % [cp].
-    computedTolerance: { kind: 'relative', pass: 0.05, borderline: 0.1 },
-    computedSource: 'apex DC, U = 0.16784·V (Dawson 1976), less a resolution offset of a few per cent',
+    ...against('dc-amplitude', rel(0.05, 0.1), 'apex DC, U = 0.16784·V (Dawson 1976), less a resolution offset of a few per cent'),
     context: [parkedMz], matchContext: ['mz'], trendScale: 'linear',
     help: 'Read back from the instrument; never put a meter on the rods while RF is on.',
   },
@@ -187,10 +201,8 @@ export const catalogue: readonly ReadingType[] = [
     id: 'rf-frequency', label: 'RF frequency', group: 'analyser', baseUnit: 'Hz', units: frequencyUnits,
     defaultUnit: 'MHz', plausible: { min: 1e4, max: 5e7, source: 'class: quadrupole RF from tens of kHz (large RGAs) to a few tens of MHz (common practice)' }, badSide: 'both',
     // δm/m ≈ 2·δf/f (from q = 4eV/(m r0²Ω²), Dawson, Quadrupole Mass Spectrometry and Its Applications, 1976): 0.02 % of f is 0.2 u at m/z 500, the edge of ±0.1–0.2 u mass accuracy.
-    baselineTolerance: { kind: 'relative', pass: 0.0001, borderline: 0.0002 },
-    computed: 'rf-frequency',
-    computedTolerance: { kind: 'relative', pass: 0.005, borderline: 0.02 },
-    computedSource: 'nominal frequency in the instrument profile (profile values are nominal: ±0.5 % common practice)',
+    baselineTolerance: rel(0.0001, 0.0002),
+    ...against('rf-frequency', rel(0.005, 0.02), 'nominal frequency in the instrument profile (profile values are nominal: ±0.5 % common practice)'),
     context: [], matchContext: [], trendScale: 'linear',
     help: 'Counter or oscilloscope through a loosely coupled pickup loop: a probe on the tank detunes it.',
   },
@@ -198,37 +210,33 @@ export const catalogue: readonly ReadingType[] = [
     id: 'multiplier-voltage', label: 'Multiplier voltage (as set for the wanted gain)', group: 'detector', baseUnit: 'V', units: voltageUnits,
     defaultUnit: 'V', plausible: { min: 0, max: 6000, source: 'class: multiplier supplies below 6 kV (common practice)' }, badSide: 'high',
     // The voltage climbs as the multiplier ages (common practice); +10 % over the baseline is worth planning for [cp].
-    baselineTolerance: { kind: 'relative', pass: 0.1, borderline: 0.2 },
+    baselineTolerance: rel(0.1, 0.2),
     generic: [{ low: 1000, high: 3000, source: 'discrete-dynode multipliers 1000 to 3000 V (common practice)' }],
-    genericMargin: { kind: 'relative', pass: 0, borderline: 0.1 },
+    genericMargin: rel(0, 0.1),
     context: [], matchContext: [], trendScale: 'linear',
     help: 'The voltage the instrument set at its latest gain adjustment (from the calibration report or the read-back). Enter its magnitude.',
   },
   {
     id: 'emission-current', label: 'Emission current', group: 'source', baseUnit: 'A', units: currentUnits,
     defaultUnit: 'uA', plausible: { min: 0, max: 0.02, source: 'class: EI and RGA emission below 20 mA (common practice)' }, badSide: 'low',
-    baselineTolerance: { kind: 'relative', pass: 0.05, borderline: 0.2 },
-    computed: 'setpoint',
+    baselineTolerance: rel(0.05, 0.2),
     // Signal scales with emission, I⁺ = K·I_e·p (CRC Handbook of Chemistry and Physics, Bayard–Alpert gauge relation): a 20 % shortfall is 20 % less signal.
-    computedTolerance: { kind: 'relative', pass: 0.05, borderline: 0.2 },
-    computedSource: 'the set value (signal scales with emission current)',
+    ...against('setpoint', rel(0.05, 0.2), 'the set value (signal scales with emission current)'),
     generic: [
       { kinds: [...gcKinds, ...lcKinds], low: 10e-6, high: 500e-6, source: 'EI sources: tens to a few hundred µA (common practice)' },
       { kinds: ['rga'], low: 0.1e-3, high: 2e-3, source: 'RGA: 0.1 to 2 mA (from memory)' },
     ],
-    genericMargin: { kind: 'relative', pass: 0, borderline: 0.2 },
+    genericMargin: rel(0, 0.2),
     context: [setpoint('A', 0, 0.02)], matchContext: [], trendScale: 'linear',
     help: 'Actual emission read back with the filament on.',
   },
   {
     id: 'source-temperature', label: 'Ion source temperature', group: 'source', baseUnit: '°C', units: temperatureUnits,
     defaultUnit: 'degC', plausible: { min: -50, max: 800, source: 'class: source heaters from room temperature to a few hundred °C; −50 to 800 °C with margin (common practice)' }, badSide: 'both',
-    baselineTolerance: { kind: 'absolute', pass: 2, borderline: 5 },
-    computed: 'setpoint',
-    computedTolerance: { kind: 'absolute', pass: 2, borderline: 5 },
-    computedSource: 'the set value; actual within about ±2 °C of set (common practice)',
+    baselineTolerance: abs(2, 5),
+    ...against('setpoint', abs(2, 5), 'the set value; actual within about ±2 °C of set (common practice)'),
     generic: [{ kinds: gcKinds, low: 200, high: 300, source: 'EI source 200 to 300 °C (common practice)' }],
-    genericMargin: { kind: 'absolute', pass: 0, borderline: 20 },
+    genericMargin: abs(0, 20),
     context: [setpoint('°C', -50, 800)], matchContext: [], trendScale: 'linear',
     help: 'Actual temperature read back after it has settled.',
   },
@@ -236,7 +244,7 @@ export const catalogue: readonly ReadingType[] = [
     id: 'peak-width', label: 'Peak width (FWHM) at a calibrant ion', group: 'performance', baseUnit: 'u', units: massUnits,
     defaultUnit: 'u', plausible: { min: 0.01, max: 10, source: 'class: quadrupole FWHM from 0.01 u (high resolution) to 10 u (wide open) (common practice)' }, badSide: 'both',
     // Against the instrument's own baseline only: no preset width limit; a maker's or engineer's limit replaces it.
-    baselineTolerance: { kind: 'absolute', pass: 0.05, borderline: 0.1 },
+    baselineTolerance: abs(0.05, 0.1),
     limitWins: true,
     context: [ionMz('Calibrant ion m/z')], matchContext: ['mz'], trendScale: 'linear',
     help: 'Full width at half maximum from a profile scan of a calibrant ion you chose for this instrument. Judged against its baseline, or the limit entered for the instrument.',
@@ -247,7 +255,7 @@ export const catalogue: readonly ReadingType[] = [
     units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 100000, source: 'physical: an intensity share is not negative; a thousand times the reference ion is a typing slip' }, badSide: 'both',
     // Against the baseline within about ±20–30 % relative (common practice); regulated methods set their own windows,
     // entered as the instrument's limit, which then replaces this check.
-    baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
+    baselineTolerance: rel(0.2, 0.3),
     limitWins: true,
     context: [
       { ...ionMz('Ion m/z'), help: 'A calibrant ion you chose for this instrument.' },
@@ -259,11 +267,9 @@ export const catalogue: readonly ReadingType[] = [
   {
     id: 'calibrant-isotope', label: 'Calibrant: isotope ratio M+1/M', group: 'performance', baseUnit: '%',
     units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 1000, source: 'physical: M+1/M is not negative; ten times M is a typing slip' }, badSide: 'both',
-    baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
-    computed: 'isotope-formula',
+    baselineTolerance: rel(0.2, 0.3),
     // Measured M+1/M within about ±20 % of the calculated value on a clean, unsaturated peak (common practice).
-    computedTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
-    computedSource: 'calculated from the ion’s formula with IUPAC isotopic abundances (representative compositions, as tabulated by NIST)',
+    ...against('isotope-formula', rel(0.2, 0.3), 'calculated from the ion’s formula with IUPAC isotopic abundances (representative compositions, as tabulated by NIST)'),
     limitWins: true,
     context: [
       { ...ionMz('Ion m/z (M)'), help: 'A calibrant ion you chose for this instrument.' },
@@ -276,7 +282,7 @@ export const catalogue: readonly ReadingType[] = [
   {
     id: 'air-ratio-28-32', label: 'Background: air check, m/z 28 to 32', group: 'leak-check', baseUnit: 'ratio', units: ratioUnits,
     defaultUnit: 'ratio', plausible: { min: 0, max: 10000, source: 'physical: a ratio of peak heights is not negative' }, badSide: 'both',
-    baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
+    baselineTolerance: rel(0.25, 0.5),
     computed: 'air-signature',
     limitWins: true,
     context: [
@@ -291,7 +297,7 @@ export const catalogue: readonly ReadingType[] = [
     defaultUnit: 'percent', plausible: { min: 0, max: 100000, source: 'physical: an intensity share is not negative; a thousand times the reference ion is a typing slip' }, badSide: 'high',
     // No preset limit: water depends on the instrument and its history. Judged against its own baseline; twice the
     // baseline is worth a look and three times points to a leak or wet carrier (common practice).
-    baselineTolerance: { kind: 'factor', pass: 1.5, borderline: 3 },
+    baselineTolerance: times(1.5, 3),
     limitWins: true,
     context: [{ key: 'referenceMz', label: 'As % of m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true,
       help: 'The ion you compare with (for example a calibrant ion); keep it the same from visit to visit.' }],
@@ -302,7 +308,7 @@ export const catalogue: readonly ReadingType[] = [
   {
     id: 'relative-abundance', label: 'Earlier design: relative abundance of a reference ion', group: 'earlier', baseUnit: '%',
     units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 1000, source: 'physical: an abundance is not negative; ten times the reference ion is a typing slip' }, badSide: 'both',
-    baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
+    baselineTolerance: rel(0.2, 0.3),
     context: [
       ionMz('Ion m/z'),
       { key: 'referenceMz', label: 'Relative to m/z', kind: 'number', unit: 'u', min: 1, max: 5000, required: true },
@@ -313,30 +319,20 @@ export const catalogue: readonly ReadingType[] = [
   {
     id: 'isotope-ratio', label: 'Earlier design: isotope ratio M+1/M of a calibrant ion', group: 'earlier', baseUnit: '%',
     units: percentUnits, defaultUnit: 'percent', plausible: { min: 0, max: 100, source: 'physical: M+1/M of a calibrant ion is not negative and below 100 % for ions below about 90 carbons (IUPAC 13C abundance 1.082 %)' }, badSide: 'both',
-    baselineTolerance: { kind: 'relative', pass: 0.2, borderline: 0.3 },
+    baselineTolerance: rel(0.2, 0.3),
     context: [ionMz('Ion m/z (M)')], matchContext: ['mz'], trendScale: 'linear',
     help: 'Recorded before the calibrant check was rebuilt. New readings: “Calibrant: isotope ratio M+1/M”, which takes the ion’s formula.',
   },
   earlierLeakPeak(18, 'water', 'Recorded before the background check was rebuilt. New readings: “Background: water”.'),
   earlierLeakPeak(28, 'nitrogen', 'Recorded before the background check was rebuilt. New readings: “Background: air check”.'),
-  {
-    id: 'leak-ratio-28-32', label: 'Earlier design: ratio m/z 28 to 32', group: 'earlier', baseUnit: 'ratio', units: ratioUnits,
-    defaultUnit: 'ratio', plausible: { min: 0, max: 10000, source: 'physical: a ratio of peak heights is not negative' }, badSide: 'both',
-    baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
-    context: [], matchContext: [], trendScale: 'linear',
-    help: 'Recorded before the background check was rebuilt. New readings: “Background: air check, m/z 28 to 32”.',
-  },
-  {
-    id: 'leak-argon-40', label: 'Earlier design: argon, m/z 40 relative to 28', group: 'earlier', baseUnit: '%', units: percentUnits,
-    defaultUnit: 'percent', plausible: { min: 0, max: 10000, source: 'physical: a ratio of peak heights is not negative' }, badSide: 'both',
-    baselineTolerance: { kind: 'relative', pass: 0.25, borderline: 0.5 },
-    context: [], matchContext: [], trendScale: 'linear',
-    help: 'Recorded before the background check was rebuilt. New readings give 40:28 with the air check.',
-  },
+  earlierRatio('leak-ratio-28-32', 'Earlier design: ratio m/z 28 to 32', 'ratio', ratioUnits,
+    'Recorded before the background check was rebuilt. New readings: “Background: air check, m/z 28 to 32”.'),
+  earlierRatio('leak-argon-40', 'Earlier design: argon, m/z 40 relative to 28', '%', percentUnits,
+    'Recorded before the background check was rebuilt. New readings give 40:28 with the air check.'),
   {
     id: 'noted-value', label: 'Noted value', group: 'own', baseUnit: 'as noted', units: [{ id: 'as-noted', label: 'as noted', factor: 1 }],
     defaultUnit: 'as-noted', plausible: { min: -1e30, max: 1e30, source: 'none: a noted value is kept as given' }, badSide: 'both',
-    baselineTolerance: { kind: 'relative', pass: 0, borderline: 0 },
+    baselineTolerance: rel(0, 0),
     context: [
       { key: 'label', label: 'What it is', kind: 'text', required: true },
       { key: 'unit', label: 'Unit', kind: 'text' },

@@ -79,6 +79,19 @@ function date(p: Problems, path: string, v: unknown, optional = false): void {
   }
 }
 
+/** The date fields of a record, each required. */
+function dates(p: Problems, path: string, v: Obj, keys: readonly string[]): void {
+  for (const k of keys) date(p, `${path}.${k}`, v[k]);
+}
+
+/** What the user typed, kept beside the value: {text, unit}. */
+function enteredAs(p: Problems, path: string, v: unknown): void {
+  if (!isObj(v)) { p.push(`${path}: expected {text, unit}, got ${shown(v)}`); return; }
+  allowedKeys(p, path, v, ['text', 'unit']);
+  str(p, `${path}.text`, v.text, LIMITS.enteredText);
+  str(p, `${path}.unit`, v.unit, LIMITS.enteredText);
+}
+
 function finite(p: Problems, path: string, v: unknown, optional = false): void {
   if (v === undefined && optional) return;
   if (typeof v !== 'number' || !Number.isFinite(v)) p.push(`${path}: expected a finite number, got ${shown(v)}`);
@@ -131,8 +144,7 @@ export function instrumentProblems(path: string, v: unknown): string[] {
     }
   }
   bool(p, `${path}.demo`, v.demo);
-  date(p, `${path}.createdAt`, v.createdAt);
-  date(p, `${path}.updatedAt`, v.updatedAt);
+  dates(p, path, v, ['createdAt', 'updatedAt']);
   return p;
 }
 
@@ -153,8 +165,7 @@ export function visitProblems(path: string, v: unknown): string[] {
   str(p, `${path}.testEquipment`, v.testEquipment, LIMITS.longText, { optional: true });
   bool(p, `${path}.baseline`, v.baseline);
   bool(p, `${path}.demo`, v.demo);
-  date(p, `${path}.createdAt`, v.createdAt);
-  date(p, `${path}.updatedAt`, v.updatedAt);
+  dates(p, path, v, ['createdAt', 'updatedAt']);
   return p;
 }
 
@@ -177,12 +188,7 @@ export function readingProblems(path: string, v: unknown): string[] {
       p.push(`${path}.value: ${v.value} ${t.baseUnit} is outside the accepted range ${t.plausible.min} to ${t.plausible.max} for ${t.label}`);
     }
   }
-  if (!isObj(v.entered)) p.push(`${path}.entered: expected {text, unit}, got ${shown(v.entered)}`);
-  else {
-    allowedKeys(p, `${path}.entered`, v.entered, ['text', 'unit']);
-    str(p, `${path}.entered.text`, v.entered.text, LIMITS.enteredText);
-    str(p, `${path}.entered.unit`, v.entered.unit, LIMITS.enteredText);
-  }
+  enteredAs(p, `${path}.entered`, v.entered);
   if (v.context !== undefined) {
     if (!isObj(v.context)) p.push(`${path}.context: expected an object, got ${shown(v.context)}`);
     else {
@@ -224,16 +230,10 @@ export function readingProblems(path: string, v: unknown): string[] {
         if (!isObj(h)) { p.push(`${hp}: expected an earlier version, got ${shown(h)}`); return; }
         allowedKeys(p, hp, h, ['value', 'entered', 'verdict', 'note', 'recordedAt', 'replacedAt']);
         finite(p, `${hp}.value`, h.value);
-        if (!isObj(h.entered)) p.push(`${hp}.entered: expected {text, unit}, got ${shown(h.entered)}`);
-        else {
-          allowedKeys(p, `${hp}.entered`, h.entered, ['text', 'unit']);
-          str(p, `${hp}.entered.text`, h.entered.text, LIMITS.enteredText);
-          str(p, `${hp}.entered.unit`, h.entered.unit, LIMITS.enteredText);
-        }
+        enteredAs(p, `${hp}.entered`, h.entered);
         oneOf(p, `${hp}.verdict`, h.verdict, verdicts, true);
         str(p, `${hp}.note`, h.note, LIMITS.readingNote);
-        date(p, `${hp}.recordedAt`, h.recordedAt);
-        date(p, `${hp}.replacedAt`, h.replacedAt);
+        dates(p, hp, h, ['recordedAt', 'replacedAt']);
       });
     }
   }
@@ -244,14 +244,11 @@ export function walkProblems(path: string, v: unknown): string[] {
   if (!isObj(v)) return [`${path}: expected a walk object, got ${shown(v)}`];
   const p: Problems = [];
   allowedKeys(p, path, v, ['id', 'visitId', 'instrumentId', 'treeId', 'state', 'status', 'startedAt', 'updatedAt', 'demo']);
-  id(p, `${path}.id`, v.id);
-  id(p, `${path}.visitId`, v.visitId, true);
-  id(p, `${path}.instrumentId`, v.instrumentId, true);
-  id(p, `${path}.treeId`, v.treeId);
+  ids(p, path, v, ['id', 'treeId']);
+  for (const k of ['visitId', 'instrumentId'] as const) id(p, `${path}.${k}`, v[k], true);
   p.push(...jsonValueProblems(`${path}.state`, v.state));
   oneOf(p, `${path}.status`, v.status, walkStatuses);
-  date(p, `${path}.startedAt`, v.startedAt);
-  date(p, `${path}.updatedAt`, v.updatedAt);
+  dates(p, path, v, ['startedAt', 'updatedAt']);
   bool(p, `${path}.demo`, v.demo);
   return p;
 }
