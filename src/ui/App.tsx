@@ -27,6 +27,8 @@ export function App() {
   const [currentId, setCurrentId] = useState<string | null>(null);
   const [toast, setToast] = useState<Toast | null>(null);
   const toastTimer = useRef<number | undefined>(undefined);
+  // Bumped when the page comes back from the back/forward cache: the database is opened afresh.
+  const [opening, setOpening] = useState(0);
 
   const notify = useCallback((message: string, action?: Toast['action']) => {
     window.clearTimeout(toastTimer.current);
@@ -44,8 +46,8 @@ export function App() {
           onVersionChange: () =>
             setStoreProblem('A newer version of Rodside opened in another tab. Reload this tab to keep working; anything typed here is kept as a draft.'),
         }, { engine: storeEngine });
-        if (cancelled) return;
-        await s.loadDemo();
+        if (cancelled) { s.close(); return; }
+        if (opening === 0) await s.loadDemo();
         const list = await s.listInstruments();
         const saved = await s.getSetting<string>(CURRENT_INSTRUMENT_KEY);
         setStore(s);
@@ -58,7 +60,24 @@ export function App() {
     return () => {
       cancelled = true;
     };
-  }, []);
+  }, [opening]);
+
+  // A page kept in the back/forward cache must not hold its database connection: the page that replaces it
+  // (or a newer version's upgrade) would wait on it. Close when the page is hidden (pending writes finish
+  // first: IndexedDB closes after its running transactions), open again when it is shown from the cache.
+  useEffect(() => {
+    if (!store) return;
+    const hide = (): void => store.close();
+    const show = (e: PageTransitionEvent): void => {
+      if (e.persisted) setOpening((n) => n + 1);
+    };
+    window.addEventListener('pagehide', hide);
+    window.addEventListener('pageshow', show);
+    return () => {
+      window.removeEventListener('pagehide', hide);
+      window.removeEventListener('pageshow', show);
+    };
+  }, [store]);
 
   const reloadInstruments = useCallback(async () => {
     if (!store) return;
