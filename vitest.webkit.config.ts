@@ -10,11 +10,11 @@ export default defineConfig({
     hookTimeout: 180_000,
     fileParallelism: false,
     maxWorkers: 1,
-    // One retry, for WebKit only: now and then a page opened right after another never gets its IndexedDB
-    // connection (seen in 1 of 4 full runs; likely the previous page kept in the back/forward cache still holds
-    // it, not confirmed). The app-level fix (close the database on pagehide, reopen on pageshow) is open work;
-    // the JSON report still counts a test that needed the retry as passed, and the flake is written up.
-    retry: 1,
+    // No retry by default. WebKit used to leave the next page waiting for its IndexedDB data for good when the page
+    // before it went into the back/forward cache with a transaction still running (1 full run in 4-5 failed); the
+    // app now aborts what it runs and closes the database on pagehide (Store.suspend). RODSIDE_WEBKIT_RETRY=1
+    // brings one retry back, e.g. to tell a new flake from a real fault.
+    retry: Number(process.env.RODSIDE_WEBKIT_RETRY ?? 0),
     reporters: ['default'],
   },
 });

@@ -1,4 +1,3 @@
-import './ui/localeGuard';
 import { render } from 'preact';
 import 'uplot/dist/uPlot.min.css';
 import './ui/styles.css';

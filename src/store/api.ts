@@ -54,6 +54,14 @@ export interface StoreEvents {
 export interface Store {
   readonly name: string;
   close(): void;
+  /**
+   * The page is put away (pagehide): close the connection so that nothing another page needs stays held.
+   * - 'unload': the page is going for good; running reads are aborted, running writes finish first.
+   * - 'cached': the page is kept frozen in the back/forward cache, where nothing it started can finish; every
+   *   running transaction is aborted (a write in flight was not saved and says so when the page is shown again).
+   * Open a new store when the page is shown again.
+   */
+  suspend(until?: 'unload' | 'cached'): void;
 
   listInstruments(): Promise<InstrumentProfile[]>;
   getInstrument(id: string): Promise<InstrumentProfile | undefined>;

@@ -35,17 +35,24 @@ export function demoMethods({ db, engine }: StoreContext): Pick<Store, 'loadDemo
           await tx.done;
           return false;
         }
-        for (const p of demoInstruments) if (!(await tx.objectStore('instruments').get(p.id))) await tx.objectStore('instruments').put({ ...p });
+        // What is there already stays as it is (a demo record the user edited is not put back): one key list per
+        // store, then only the missing records are written, none of them awaited one by one.
+        const [haveInstruments, haveVisits, haveReadings] = await Promise.all(
+          (['instruments', 'visits', 'readings'] as const).map(async (n) => new Set(await tx.objectStore(n).getAllKeys())),
+        );
+        const writes: Promise<unknown>[] = [];
+        for (const p of demoInstruments) if (!haveInstruments.has(p.id)) writes.push(tx.objectStore('instruments').put({ ...p }));
         // In date order, so each visit is judged against the baseline known by then.
         const visits = [...demoVisits].sort((a, b) => (a.startedAt < b.startedAt ? -1 : 1));
-        for (const v of visits) if (!(await tx.objectStore('visits').get(v.id))) await tx.objectStore('visits').put({ ...v });
+        for (const v of visits) if (!haveVisits.has(v.id)) writes.push(tx.objectStore('visits').put({ ...v }));
         const done = new Map<string, Reading[]>();
         for (const v of visits) {
           const baselineVisit = pickBaselineVisit(visits.filter((x) => x.instrumentId === v.instrumentId && x.startedAt <= v.startedAt));
           const list = demoReadingsOf(v, baselineVisit ? { visit: baselineVisit, readings: done.get(baselineVisit.id) ?? [] } : undefined, engine);
-          for (const r of list) if (!(await tx.objectStore('readings').get(r.id))) await tx.objectStore('readings').put(r);
+          for (const r of list) if (!haveReadings.has(r.id)) writes.push(tx.objectStore('readings').put(r));
           done.set(v.id, list);
         }
+        await Promise.all(writes);
         await tx.objectStore('settings').put({ key: 'demoLoaded', value: true });
         await tx.done;
         return true;

@@ -4,6 +4,7 @@ import { deleteDB, openDB } from 'idb';
 import { defaultEngine } from '../records';
 import type { Store, StoreEvents, StoreOptions } from './api';
 import { demoMethods } from './demo';
+import { tracked } from './connection';
 import { guard } from './errors';
 import { instrumentMethods } from './instruments';
 import { noteMethods } from './notes';
@@ -29,7 +30,7 @@ export { defaultEngine };
 
 export async function openStore(name: string = DB_NAME, events: StoreEvents = {}, given: StoreOptions = {}): Promise<Store> {
   const options: StoreOptions = { engine: defaultEngine, ...given };
-  const db = await guard('open the database', () =>
+  const opened = await guard('open the database', () =>
     openDB<RodsideSchema>(name, DB_VERSION, {
       upgrade: (database, oldVersion, _newVersion, tx) => upgrade(database, oldVersion, tx),
       blocked: () => events.onBlocked?.(),
@@ -41,11 +42,16 @@ export async function openStore(name: string = DB_NAME, events: StoreEvents = {}
       terminated: () => events.onVersionChange?.(),
     }),
   );
+  const { db, abortRunning } = tracked(opened);
   const ctx = { db, engine: options.engine };
   return {
     name,
     db,
     close: () => db.close(),
+    suspend: (until = 'unload') => {
+      abortRunning(until === 'cached');
+      db.close();
+    },
     ...instrumentMethods(ctx),
     ...undoMethods(ctx),
     ...demoMethods(ctx),

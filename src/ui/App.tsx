@@ -62,12 +62,12 @@ export function App() {
     };
   }, [opening]);
 
-  // A page kept in the back/forward cache must not hold its database connection: the page that replaces it
-  // (or a newer version's upgrade) would wait on it. Close when the page is hidden (pending writes finish
-  // first: IndexedDB closes after its running transactions), open again when it is shown from the cache.
+  // A page kept in the back/forward cache must not hold its database: the page that replaces it (or a newer
+  // version's upgrade) would wait on it. When the page is hidden the connection is closed and what it still runs
+  // is aborted (see Store.suspend); shown again from the cache, it opens the database afresh.
   useEffect(() => {
     if (!store) return;
-    const hide = (): void => store.close();
+    const hide = (e: PageTransitionEvent): void => store.suspend(e.persisted ? 'cached' : 'unload');
     const show = (e: PageTransitionEvent): void => {
       if (e.persisted) setOpening((n) => n + 1);
     };

@@ -5,16 +5,23 @@
 /** Used when the device's language tag is missing or refused by Intl. */
 export const FALLBACK_LOCALE = 'en-US';
 
-/** True when Intl accepts `tag` as a language tag. */
+const verdicts = new Map<string, boolean>();
+
+/** True when Intl accepts `tag` as a language tag (asked once per tag: building a formatter is not free). */
 export function acceptedTag(tag: unknown): tag is string {
   if (typeof tag !== 'string' || tag.trim() === '') return false;
-  try {
-    new Intl.NumberFormat(tag);
-    return true;
-  } catch {
-    // RangeError: not a well-formed BCP 47 language tag (e.g. 'C', 'x-bogus_tag').
-    return false;
+  let ok = verdicts.get(tag);
+  if (ok === undefined) {
+    try {
+      new Intl.NumberFormat(tag);
+      ok = true;
+    } catch {
+      // RangeError: not a well-formed BCP 47 language tag (e.g. 'C', 'x-bogus_tag').
+      ok = false;
+    }
+    verdicts.set(tag, ok);
   }
+  return ok;
 }
 
 /** `tag` when Intl accepts it, else FALLBACK_LOCALE (missing, not a string, empty or refused). */

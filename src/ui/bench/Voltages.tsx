@@ -20,6 +20,7 @@ import { Result } from './NoteButton';
 import { buildScanLine, expectedFor, type BuiltLine, type Expected } from './scanLine';
 import { ScanLineFields } from './ScanLineFields';
 import { DraftProblem } from '../components/DraftProblem';
+import { NeedInstrument } from '../components/NeedInstrument';
 
 export type BenchInputs = {
   mzList: string; mode: string; width: string; referenceMz: string; resolution: string;
@@ -40,7 +41,7 @@ export function Voltages() {
   const { instrument } = useApp();
   const [inputs, update, inputsProblem] = usePersistentInputs<BenchInputs>('bench', benchDefaults);
   // Keyed, so the notice shown while the database opens is never reused (moved) as a notice of the filled screen.
-  if (!instrument) return <p key="no-instrument" class="notice">Pick or add an instrument first: every expected value comes from its profile. <a href="/instruments/new">Add an instrument</a></p>;
+  if (!instrument) return <NeedInstrument key="no-instrument">Pick or add an instrument first: every expected value comes from its profile.</NeedInstrument>;
   const profile = instrument;
   const errors: FieldErrors = {};
   const list = parseMzList(inputs.mzList);

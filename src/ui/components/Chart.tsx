@@ -242,4 +242,23 @@ export function Chart(props: ChartProps) {
   );
 }
 
+/**
+ * The space of a chart that has no data yet, with the same frame (and the zoom buttons, disabled) as the chart
+ * that replaces it: when the data arrives, nothing around it moves.
+ */
+export function ChartReserve(props: { height?: number; zoomButtons?: boolean; label: string; testId?: string }) {
+  return (
+    <figure class="chart-figure" data-testid={props.testId}>
+      {props.zoomButtons && (
+        <div class="chart-tools">
+          <button type="button" class="btn btn-small" disabled>Zoom in</button>
+          <button type="button" class="btn btn-small" disabled>Zoom out</button>
+          <button type="button" class="btn btn-small" disabled aria-label="Reset the chart view">Reset</button>
+        </div>
+      )}
+      <div class="chart chart-reserve" role="img" aria-label={props.label} aria-busy="true" style={{ minHeight: `${props.height ?? 300}px` }} />
+    </figure>
+  );
+}
+
 export type { uPlot };

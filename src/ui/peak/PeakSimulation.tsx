@@ -4,7 +4,7 @@
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { apexRatio, hazardousLive, type PeakProfile, type TransmissionVsResolution } from '../../engine';
 import { isAbortError, simClient, SimClient } from '../../worker/client';
-import { Chart } from '../components/Chart';
+import { Chart, ChartReserve } from '../components/Chart';
 import { NumberField } from '../components/Field';
 import { CautionLine, InputsFold, More } from '../components/Fold';
 import { InstrumentLine } from '../components/InstrumentLine';
@@ -16,6 +16,7 @@ import { Result } from '../bench/NoteButton';
 import type { FieldErrors } from '../bench/engineErrors';
 import { buildPeakRun, peakDefaults, SLIDERS, type PeakInputs } from './peakInputs';
 import { DraftProblem } from '../components/DraftProblem';
+import { NeedInstrument } from '../components/NeedInstrument';
 
 type RunState<T> =
   | { status: 'idle' }
@@ -188,7 +189,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     return [rows.map((x) => x[0]), rows.map((x) => x[1])] as [number[], number[]];
   }, [curve]);
 
-  if (!instrument) return <p class="notice">Pick or add an instrument first: the simulation uses its field radius, rod length and frequency. <a href="/instruments/new">Add an instrument</a></p>;
+  if (!instrument) return <NeedInstrument>Pick or add an instrument first: the simulation uses its field radius, rod length and frequency.</NeedInstrument>;
 
   function computeCurve() {
     if (!instrument || !run) return;
@@ -263,18 +264,20 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
 
       <div class="card" data-testid="peak-result" aria-busy={stale ? 'true' : 'false'}>
         <h2 class="card-title">Simulated peak</h2>
-        {peak.status === 'running' && (
-          <p class="hint" role="status">
-            <progress max={1} value={peak.progress} aria-label="Simulation progress" /> Computing… {Math.round(100 * peak.progress)} %
-          </p>
-        )}
-        {coarse && peak.status !== 'failed' && (
-          <p class="hint" role="status" data-testid="peak-coarse">
-            <strong>coarse — refining…</strong> (each point within 1 % of the peak height)
-            {peak.status === 'coarse' && peak.progress > 0 && <> · <progress max={1} value={peak.progress} aria-label="Refinement progress" /> {Math.round(100 * peak.progress)} %</>}
-          </p>
-        )}
+        <p class="hint status-row" role="status" data-testid="peak-status">
+          {peak.status === 'running' && (
+            <><progress max={1} value={peak.progress} aria-label="Simulation progress" /> Computing… {Math.round(100 * peak.progress)} %</>
+          )}
+          {coarse && peak.status !== 'failed' && (
+            <span data-testid="peak-coarse">
+              <strong>coarse — refining…</strong> (each point within 1 % of the peak height)
+              {peak.status === 'coarse' && peak.progress > 0 && <> · <progress max={1} value={peak.progress} aria-label="Refinement progress" /> {Math.round(100 * peak.progress)} %</>}
+            </span>
+          )}
+        </p>
         {peak.status === 'failed' && <p class="field-error" role="alert">The simulation stopped: {peak.message}</p>}
+        {!(result && peakData) && <ChartReserve height={260} zoomButtons label="The simulated peak is being computed" />}
+        {!result && <div class="peak-results" aria-hidden="true" />}
         {result && (
           <>
             {peakData && (
@@ -286,6 +289,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
                   axes: [{ label: 'm/z' }, { label: 'Transmission (%)' }],
                 })} />
             )}
+            <div class="peak-results">
             <Result label="Peak transmission" value={`${formatNumber(100 * result.peakTransmission, 3)} % at m/z ${formatNumber(result.peakMz, 6)}`} testId="peak-transmission"
               note={{ label: `Simulated peak transmission at m/z ${mzText}`, value: 100 * result.peakTransmission, unit: '%', origin: 'calculator', context: ctx }} />
             <Result label="Resolution m/Δm at 50 % height" value={result.resolution50 > 0 ? formatNumber(result.resolution50, 4) : 'no measurable width in this range'} testId="peak-r50"
@@ -300,6 +304,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
               </p>
             )}
             <p class="hint">Numerical error of each point ≤ {coarse ? '1' : '0.1'} % of the peak height (deterministic: no counting noise).</p>
+            </div>
           </>
         )}
       </div>

@@ -20,6 +20,7 @@ import { ScanLawChart } from './ScanLawChart';
 import { ScanPlanning } from './ScanPlanning';
 import { TransmissionCost } from './TransmissionCost';
 import { DraftProblem } from '../components/DraftProblem';
+import { NeedInstrument } from '../components/NeedInstrument';
 
 type PlannerInputs = {
   ratio: string; mz: string; rodLength: string; frequency: string; axialEnergy: string; k: string; wantedWidth: string; targetR: string;
@@ -39,7 +40,7 @@ const kChoices = Object.entries(CYCLE_LIMIT_CONSTANTS).map(([key, v]) => ({ valu
 export function ResolutionPlanner() {
   const { instrument } = useApp();
   const [inputs, update, inputsProblem] = usePersistentInputs<PlannerInputs>('resolution', plannerDefaults);
-  if (!instrument) return <p class="notice">Pick or add an instrument first: the planner starts from its rods and RF. <a href="/instruments/new">Add an instrument</a></p>;
+  if (!instrument) return <NeedInstrument>Pick or add an instrument first: the planner starts from its rods and RF.</NeedInstrument>;
   const profile = instrument;
   const errors: FieldErrors = {};
   const num = (key: keyof PlannerInputs, label: string, example: string) => {

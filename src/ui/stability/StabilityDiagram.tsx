@@ -21,6 +21,7 @@ import { buildScanLine, expectedFor } from '../bench/scanLine';
 import { ScanLineFields } from '../bench/ScanLineFields';
 import { diagramColumns, ISO_BETAS, placeLabels, Q_MAX } from './diagramData';
 import { DraftProblem } from '../components/DraftProblem';
+import { NeedInstrument } from '../components/NeedInstrument';
 
 type StabilityInputs = {
   setMz: string; mzList: string; mode: string; width: string; referenceMz: string; resolution: string;
@@ -57,7 +58,7 @@ export function StabilityDiagram() {
   selectedRef.current = selected;
   const options = useMemo(() => (palette: ChartPalette) => chartOptions(palette, pointsRef, selectedRef), []);
 
-  if (!instrument) return <p key="no-instrument" class="notice">Pick or add an instrument first: the diagram uses its geometry. <a href="/instruments/new">Add an instrument</a></p>;
+  if (!instrument) return <NeedInstrument key="no-instrument">Pick or add an instrument first: the diagram uses its geometry.</NeedInstrument>;
   const profile = instrument;
   const r0 = profile.rodFieldRadius;
   const frequency = profile.rfFrequency;

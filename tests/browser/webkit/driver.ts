@@ -219,9 +219,9 @@ export class WebKitSession {
 
   /**
    * Wait until the app has opened its database and listed the instruments (the picker in the top bar has entries).
-   * Tests wait for this before leaving a page. Seen here: leaving a page in WebKit before its first database work had
-   * finished sometimes left the next page waiting for its data for good (likely the old page, frozen in WebKit's
-   * back-forward cache, still holding its IndexedDB connection; not yet confirmed).
+   * Tests wait for this before leaving a page, so each page is tested with its data. (A page left while its
+   * database work was still running used to hold that work in WebKit's back/forward cache and stall the next page;
+   * the app now lets go of it on pagehide, see Store.suspend.)
    */
   async appReady(timeout = 30_000): Promise<void> {
     await waitFor('the app to open its data (instrument picker filled)', () => this.run<boolean>(`return !!document.querySelector('.picker select option');`), timeout);
@@ -241,10 +241,6 @@ export class WebKitSession {
     const { handle } = await this.cmd<{ handle: string }>('POST', '/window/new', { type: 'tab' });
     await this.cmd('POST', '/window', { handle });
     return handle;
-  }
-
-  async acceptPrompt(): Promise<void> {
-    await waitFor('a dialog to accept', () => this.cmd('POST', '/alert/accept').then(() => true), 10_000);
   }
 
   /** Save a PNG of the viewport to test-artifacts/<name>.png. */

@@ -18,6 +18,7 @@ vi.mock('../../../src/ui/components/Chart', () => ({
   Chart: (props: { data: number[][]; testId?: string; label: string }) => (
     <figure data-testid={props.testId} data-points={props.data[0].length} data-first={props.data[1][50]} aria-label={props.label} />
   ),
+  ChartReserve: (props: { label: string }) => <figure data-testid="chart-reserve" aria-label={props.label} />,
 }));
 
 /** Computes each request with the real protocol but hands its messages over one at a time, on request. */

@@ -16,6 +16,7 @@ vi.mock('../../../src/ui/components/Chart', () => ({
   Chart: (props: { data: number[][]; testId?: string; label: string }) => (
     <figure data-testid={props.testId} data-points={props.data[0].length} aria-label={props.label} />
   ),
+  ChartReserve: (props: { label: string }) => <figure data-testid="chart-reserve" aria-label={props.label} />,
 }));
 
 class ManualWorker implements WorkerLike {

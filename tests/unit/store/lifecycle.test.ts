@@ -66,3 +66,62 @@ describe('failed writes give a plain message', () => {
     store.close();
   });
 });
+
+describe('a page put away in the back/forward cache (suspend)', () => {
+  const draft = () => {
+    const v = validateDraft({ ...emptyDraft(), name: 'Suspended', rodFieldRadius: '4', rodLength: '150', rfFrequency: '1', maxRfAmplitude: '1000', axialEnergy: '5' });
+    if (!v.ok) throw new Error('valid draft expected');
+    return v.fields;
+  };
+
+  it('aborts a read still running, so a write from another page is not held up behind it', async () => {
+    const name = freshName();
+    const page = await openStore(name);
+    await page.saveInstrument(draft());
+    // A read the page started and has not finished (its callbacks never ran: the page was frozen).
+    const reading = page.db.transaction(['instruments', 'visits', 'readings'], 'readonly');
+    const pending = reading.objectStore('instruments').getAll();
+    page.suspend('cached');
+    await expect(reading.done).rejects.toMatchObject({ name: 'AbortError' });
+    await pending.catch(() => undefined);
+    // The next page writes at once and reads what the first page saved.
+    const next = await openStore(name);
+    await next.loadDemo();
+    expect((await next.listInstruments()).map((p) => p.name)).toContain('Suspended');
+    next.close();
+  });
+
+  it('going for good (unload), lets a write still running finish: nothing typed is lost', async () => {
+    const name = freshName();
+    const page = await openStore(name);
+    const saving = page.saveInstrument(draft());
+    page.suspend('unload');
+    const saved = await saving;
+    const next = await openStore(name);
+    expect(await next.getInstrument(saved.id)).toMatchObject({ name: 'Suspended' });
+    next.close();
+  });
+
+  it('tracks the reads idb opens for its shortcut methods too (db.get, db.getAll…)', async () => {
+    const name = freshName();
+    const page = await openStore(name);
+    const read = page.db.getAll('instruments');
+    page.suspend('unload');
+    await expect(read).rejects.toMatchObject({ name: 'AbortError' });
+  });
+
+  it('frozen in the cache, aborts a write too, and the caller is told it was not saved', async () => {
+    const name = freshName();
+    const page = await openStore(name);
+    // The write that marks a visit in use, started as the page was left: frozen, it would hold that store for good.
+    const saving = page.setSetting('some-mark', { visitId: 'v1' });
+    page.suspend('cached');
+    await expect(saving).rejects.toMatchObject({ userMessage: expect.stringMatching(/save a setting/i) });
+    const next = await openStore(name);
+    // Nothing is held: the next page reads and writes that store at once.
+    expect(await next.getSetting('some-mark')).toBeUndefined();
+    await next.setSetting('some-mark', 1);
+    expect(await next.getSetting('some-mark')).toBe(1);
+    next.close();
+  });
+});
