@@ -26,13 +26,49 @@ function demoReadingsOf(v: Visit, baseline: { visit: Visit; readings: Reading[] 
   });
 }
 
+/** Let the page run between two pieces of work (a new task, not a microtask; not a timer, which tests may fake). */
+export function nextTask(): Promise<void> {
+  const scheduler = (globalThis as { scheduler?: { yield?: () => Promise<void> } }).scheduler;
+  if (typeof scheduler?.yield === 'function') return scheduler.yield();
+  if (typeof MessageChannel === 'function') {
+    return new Promise((resolve) => {
+      const channel = new MessageChannel();
+      channel.port1.onmessage = () => {
+        channel.port1.close();
+        resolve();
+      };
+      channel.port2.postMessage(null);
+    });
+  }
+  return new Promise((resolve) => setTimeout(resolve, 0));
+}
+
+/** Every demo visit in date order with its readings, each judged against the baseline known by then. */
+async function judgedDemo(engine: StoreContext['engine']): Promise<{ visits: Visit[]; readings: Reading[] }> {
+  const visits = [...demoVisits].sort((a, b) => (a.startedAt < b.startedAt ? -1 : 1));
+  const done = new Map<string, Reading[]>();
+  const readings: Reading[] = [];
+  for (const v of visits) {
+    const baselineVisit = pickBaselineVisit(visits.filter((x) => x.instrumentId === v.instrumentId && x.startedAt <= v.startedAt));
+    const list = demoReadingsOf(v, baselineVisit ? { visit: baselineVisit, readings: done.get(baselineVisit.id) ?? [] } : undefined, engine);
+    done.set(v.id, list);
+    readings.push(...list);
+    await nextTask();
+  }
+  return { visits, readings };
+}
+
 export function demoMethods({ db, engine }: StoreContext): Pick<Store, 'loadDemo' | 'removeDemo'> {
   return {
     loadDemo: (force = false) =>
       guard('load the demo instruments', async () => {
+        if (!force && (await db.get('settings', 'demoLoaded'))) return false;
+        // Judged before the write, one visit per task: on a phone's first start this runs while the first
+        // screen draws, and one long burst would hold the page still.
+        const { visits, readings } = await judgedDemo(engine);
         const tx = db.transaction(['instruments', 'settings', 'visits', 'readings'], 'readwrite');
         if ((await tx.objectStore('settings').get('demoLoaded')) && !force) {
-          await tx.done;
+          await tx.done; // another tab loaded it meanwhile
           return false;
         }
         // What is there already stays as it is (a demo record the user edited is not put back): one key list per
@@ -42,18 +78,10 @@ export function demoMethods({ db, engine }: StoreContext): Pick<Store, 'loadDemo
         );
         const writes: Promise<unknown>[] = [];
         for (const p of demoInstruments) if (!haveInstruments.has(p.id)) writes.push(tx.objectStore('instruments').put({ ...p }));
-        // In date order, so each visit is judged against the baseline known by then.
-        const visits = [...demoVisits].sort((a, b) => (a.startedAt < b.startedAt ? -1 : 1));
         for (const v of visits) if (!haveVisits.has(v.id)) writes.push(tx.objectStore('visits').put({ ...v }));
-        const done = new Map<string, Reading[]>();
-        for (const v of visits) {
-          const baselineVisit = pickBaselineVisit(visits.filter((x) => x.instrumentId === v.instrumentId && x.startedAt <= v.startedAt));
-          const list = demoReadingsOf(v, baselineVisit ? { visit: baselineVisit, readings: done.get(baselineVisit.id) ?? [] } : undefined, engine);
-          for (const r of list) if (!haveReadings.has(r.id)) writes.push(tx.objectStore('readings').put(r));
-          done.set(v.id, list);
-        }
+        for (const r of readings) if (!haveReadings.has(r.id)) writes.push(tx.objectStore('readings').put(r));
+        writes.push(tx.objectStore('settings').put({ key: 'demoLoaded', value: true }));
         await Promise.all(writes);
-        await tx.objectStore('settings').put({ key: 'demoLoaded', value: true });
         await tx.done;
         return true;
       }),
