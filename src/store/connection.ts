@@ -14,8 +14,6 @@ const SHORTCUT = /^(get|getKey|getAll|getAllKeys|count|put|add|delete|clear)(Fro
 
 export interface TrackedDb {
   db: Db;
-  /** Transactions started and not yet ended (completed or aborted). */
-  running(): AnyTx[];
   /** Abort the running read-only transactions, and with `writes` the read-write ones too; returns how many. */
   abortRunning(writes: boolean): number;
 }
@@ -41,7 +39,6 @@ export function tracked(raw: Db): TrackedDb {
   });
   return {
     db,
-    running: () => [...open],
     abortRunning: (writes) => {
       let n = 0;
       for (const tx of open) {

@@ -27,7 +27,7 @@ function demoReadingsOf(v: Visit, baseline: { visit: Visit; readings: Reading[] 
 }
 
 /** Let the page run between two pieces of work (a new task, not a microtask; not a timer, which tests may fake). */
-export function nextTask(): Promise<void> {
+function nextTask(): Promise<void> {
   const scheduler = (globalThis as { scheduler?: { yield?: () => Promise<void> } }).scheduler;
   if (typeof scheduler?.yield === 'function') return scheduler.yield();
   if (typeof MessageChannel === 'function') {

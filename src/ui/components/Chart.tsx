@@ -228,17 +228,23 @@ export function Chart(props: ChartProps) {
 
   return (
     <figure class="chart-figure" data-testid={props.testId}>
-      {props.zoomButtons && (
-        <div class="chart-tools">
-          <button type="button" class="btn btn-small" onClick={() => zoom(0.5)}>Zoom in</button>
-          <button type="button" class="btn btn-small" onClick={() => zoom(2)}>Zoom out</button>
-          <button type="button" class="btn btn-small" onClick={reset} aria-label="Reset the chart view">Reset</button>
-        </div>
-      )}
+      {props.zoomButtons && <ChartTools zoom={zoom} reset={reset} />}
       <div class="chart" ref={host} role="img" aria-label={props.label} style={noCanvas || loadFailed ? undefined : { minHeight: `${props.height ?? 300}px` }} />
       {loadFailed && <p class="notice">The chart could not be loaded on this device yet (open Rodside once with a network so it keeps every part); the values below are complete without it.</p>}
       {noCanvas && <p class="notice">This browser does not allow drawing on a canvas, so the chart cannot be shown; the values below are complete without it.</p>}
     </figure>
+  );
+}
+
+/** Zoom in, zoom out and reset; disabled (holding their place) when there is no chart to act on yet. */
+function ChartTools(props: { zoom?: (factor: number) => void; reset?: () => void }) {
+  const { zoom, reset } = props;
+  return (
+    <div class="chart-tools">
+      <button type="button" class="btn btn-small" disabled={!zoom} onClick={() => zoom?.(0.5)}>Zoom in</button>
+      <button type="button" class="btn btn-small" disabled={!zoom} onClick={() => zoom?.(2)}>Zoom out</button>
+      <button type="button" class="btn btn-small" disabled={!reset} onClick={reset} aria-label="Reset the chart view">Reset</button>
+    </div>
   );
 }
 
@@ -249,13 +255,7 @@ export function Chart(props: ChartProps) {
 export function ChartReserve(props: { height?: number; zoomButtons?: boolean; label: string; testId?: string }) {
   return (
     <figure class="chart-figure" data-testid={props.testId}>
-      {props.zoomButtons && (
-        <div class="chart-tools">
-          <button type="button" class="btn btn-small" disabled>Zoom in</button>
-          <button type="button" class="btn btn-small" disabled>Zoom out</button>
-          <button type="button" class="btn btn-small" disabled aria-label="Reset the chart view">Reset</button>
-        </div>
-      )}
+      {props.zoomButtons && <ChartTools />}
       <div class="chart chart-reserve" role="img" aria-label={props.label} aria-busy="true" style={{ minHeight: `${props.height ?? 300}px` }} />
     </figure>
   );
