@@ -3,16 +3,10 @@
 // serious or critical violation on any screen; a 390 × 844 screenshot of every screen goes to test-artifacts/.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { join } from 'node:path';
-import type { PreviewServer } from 'vite';
-import {
-  distDir, freshProfileDir, openBrowser, projectRoot, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session, testPort,
-} from './harness';
+import { appForFile, firstVisit, offlineOnKestrel, openBrowser, projectRoot, screenshot } from './harness';
 
-const PORT = testPort(4321);
-const origin = `http://127.0.0.1:${PORT}`;
-let server: PreviewServer | null = null;
-const profile = freshProfileDir();
-let session: Session | null = null;
+const app = appForFile(4321);
+const { origin } = app;
 
 const screens: [path: string, name: string][] = [
   ['/', 'overview'],
@@ -28,30 +22,18 @@ const screens: [path: string, name: string][] = [
 ];
 
 beforeAll(async () => {
-  server = await startPreview(distDir, PORT);
-  session = await openBrowser(profile, { viewport: { width: 390, height: 844 } });
-  await session.page.goto(origin + '/');
-  await waitForServiceWorkerControl(session.page);
-  await session.page.waitForFunction(() => /\(demo\)/.test(document.querySelector('[data-testid="current-instrument"]')?.textContent ?? ''), undefined, { timeout: 30_000 });
-  // The demo Kestrel (r0 4.5 mm, 1 MHz, read-backs 0-p per rod) is the instrument in front of us.
-  await session.page.locator('.picker select').selectOption('demo-gcms-kestrel');
+  const session = (app.session = await openBrowser(app.profile, { viewport: { width: 390, height: 844 } }));
+  await firstVisit(session.page, origin);
   // The app's CSP forbids inline scripts; let axe-core in through the DevTools protocol (test only).
   const cdp = await session.context.newCDPSession(session.page);
   await cdp.send('Page.setBypassCSP', { enabled: true });
-  // From here on: no network, no server.
-  await session.context.setOffline(true);
-  await stopPreview(server);
-  server = null;
-});
-
-afterAll(async () => {
-  await session?.close().catch(() => undefined);
-  await stopPreview(server).catch(() => undefined);
-  removeDir(profile);
+  // From here on the demo Kestrel (r0 4.5 mm, 1 MHz, read-backs 0-p per rod) is the instrument in front of us,
+  // with no network and no server.
+  await offlineOnKestrel(app);
 });
 
 async function axeSeriousOrCritical(): Promise<string[]> {
-  const page = session!.page;
+  const page = app.session!.page;
   await page.addScriptTag({ path: join(projectRoot, 'node_modules/axe-core/axe.min.js') });
   return page.evaluate(async () => {
     type AxeResult = { passes: unknown[]; violations: { id: string; impact: string; nodes: { target: string[] }[] }[] };
@@ -66,7 +48,7 @@ async function axeSeriousOrCritical(): Promise<string[]> {
 }
 
 async function canvasInkedPixels(selector: string): Promise<number> {
-  return session!.page.evaluate((sel) => {
+  return app.session!.page.evaluate((sel) => {
     const canvas = document.querySelector(`${sel} canvas`) as HTMLCanvasElement | null;
     if (!canvas) return -1;
     const ctx = canvas.getContext('2d');
@@ -80,7 +62,7 @@ async function canvasInkedPixels(selector: string): Promise<number> {
 
 describe('Bench and Stability, offline on a phone-sized screen', () => {
   it('the resolution planner gets the transmission cost from the peak worker, offline', async () => {
-    const page = session!.page;
+    const page = app.session!.page;
     await page.goto(origin + '/stability/resolution');
     const loss = page.locator('[data-testid="transmission-loss"]');
     await expect.poll(() => loss.textContent(), { timeout: 30_000 }).toMatch(/Resolving to m\/Δm 1000 costs \d+(\.\d+)? % of the ions/);
@@ -90,7 +72,7 @@ describe('Bench and Stability, offline on a phone-sized screen', () => {
   });
 
   it('every area renders offline with a heading, no page errors, and no serious or critical axe violations', async () => {
-    const page = session!.page;
+    const page = app.session!.page;
     const problems: string[] = [];
     for (const [path, name] of screens) {
       await page.goto(origin + path);
@@ -104,12 +86,12 @@ describe('Bench and Stability, offline on a phone-sized screen', () => {
       expect(await page.locator('body').textContent()).not.toMatch(/NaN/);
     }
     expect(problems).toEqual([]);
-    expect(session!.pageErrors).toEqual([]);
-    expect(session!.foreignRequests).toEqual([]);
+    expect(app.session!.pageErrors).toEqual([]);
+    expect(app.session!.foreignRequests).toEqual([]);
   });
 
   it('at 360 px wide nothing on the Bench and Stability screens runs off the side', async () => {
-    const page = session!.page;
+    const page = app.session!.page;
     await page.setViewportSize({ width: 360, height: 780 });
     try {
       for (const path of ['/bench', '/bench/vacuum', '/stability', '/stability/resolution']) {
@@ -125,7 +107,7 @@ describe('Bench and Stability, offline on a phone-sized screen', () => {
   });
 
   it('the expected voltages for Kestrel show m/z 69 at 100.91 V 0-p and 16.936 V DC with the HV caution', async () => {
-    const page = session!.page;
+    const page = app.session!.page;
     await page.goto(origin + '/bench');
     const card69 = page.locator('[data-testid="expected-card"][data-mz="69"]');
     await expect.poll(() => card69.locator('[data-testid="rf-readback"] .result-value').textContent()).toBe('100.91 V 0-p');
@@ -141,7 +123,7 @@ describe('Bench and Stability, offline on a phone-sized screen', () => {
   });
 
   it('the stability chart draws; a tap near the set m/z point shows a, q, β_x, β_y and the nearest edge', async () => {
-    const page = session!.page;
+    const page = app.session!.page;
     await page.goto(origin + '/stability');
     await expect.poll(() => canvasInkedPixels('[data-testid="stability-chart"]')).toBeGreaterThan(1000);
     const over = page.locator('[data-testid="stability-chart"] .u-over');

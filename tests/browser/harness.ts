@@ -6,6 +6,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { preview, build, type PreviewServer } from 'vite';
+import { afterAll, beforeAll } from 'vitest';
 
 export const projectRoot = resolve(__dirname, '../..');
 export const artifactsDir = join(projectRoot, 'test-artifacts');
@@ -54,9 +55,62 @@ export async function startPreview(outDir: string, port: number): Promise<Previe
 
 export async function stopPreview(server: PreviewServer | null): Promise<void> {
   if (!server) return;
-  await new Promise<void>((res) => server.httpServer.close(() => res()));
-  // Close keep-alive sockets so the port is really released.
+  const closed = new Promise<void>((res) => server.httpServer.close(() => res()));
+  // Drop the browser's keep-alive sockets at once: close() alone waits for them to time out before the port is free.
   (server.httpServer as unknown as { closeAllConnections?: () => void }).closeAllConnections?.();
+  await closed;
+}
+
+/** The built app for one test file: a preview server and a browser profile, with the session the file opens. */
+export interface FileApp {
+  origin: string;
+  profile: string;
+  session: Session | null;
+  /** Stop the server for good: from here on only the service worker serves the app. */
+  stopServer(): Promise<void>;
+}
+
+/**
+ * Serve the built app for the test file that calls this (at the top level): the server starts before the file's
+ * tests; after them the session is closed, the server stopped and the profile removed.
+ */
+export function appForFile(basePort: number): FileApp {
+  const port = testPort(basePort);
+  let server: PreviewServer | null = null;
+  const app: FileApp = {
+    origin: `http://127.0.0.1:${port}`,
+    profile: freshProfileDir(),
+    session: null,
+    stopServer: async () => {
+      const s = server;
+      server = null;
+      await stopPreview(s);
+    },
+  };
+  beforeAll(async () => {
+    server = await startPreview(distDir, port);
+  });
+  afterAll(async () => {
+    await app.session?.close().catch(() => undefined);
+    await stopPreview(server).catch(() => undefined);
+    removeDir(app.profile);
+  });
+  return app;
+}
+
+/** The first visit: the overview, until a service worker controls the page and the demo profiles are listed. */
+export async function firstVisit(page: Page, origin: string): Promise<void> {
+  await page.goto(origin + '/');
+  await waitForServiceWorkerControl(page);
+  await page.waitForFunction(() => /\(demo\)/.test(document.querySelector('[data-testid="current-instrument"]')?.textContent ?? ''), undefined, { timeout: 30_000 });
+}
+
+/** From here on the demo Kestrel is the instrument in front of us, with the network cut and the server stopped. */
+export async function offlineOnKestrel(app: FileApp): Promise<void> {
+  const session = app.session!;
+  await session.page.locator('.picker select').selectOption('demo-gcms-kestrel');
+  await session.context.setOffline(true);
+  await app.stopServer();
 }
 
 /** Build the app into `outDir` (for tests that need their own build, e.g. an update). */

@@ -1,34 +1,17 @@
 // Peak simulation in a real browser, offline: the run happens in a Web Worker, so the page keeps handling input
 // while it computes; a newer input cancels the stale run and the result that lands belongs to the newest input.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { PreviewServer } from 'vite';
-import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session, testPort } from './harness';
+import { describe, expect, it } from 'vitest';
+import { appForFile, firstVisit, offlineOnKestrel, openBrowser, screenshot } from './harness';
 
-const PORT = testPort(4341);
-const origin = `http://127.0.0.1:${PORT}`;
-let server: PreviewServer | null = null;
-const profile = freshProfileDir();
-let session: Session | null = null;
-
-beforeAll(async () => {
-  server = await startPreview(distDir, PORT);
-});
-afterAll(async () => {
-  await session?.close().catch(() => undefined);
-  await stopPreview(server).catch(() => undefined);
-  removeDir(profile);
-});
+const app = appForFile(4341);
+const { origin } = app;
 
 describe('peak simulation keeps the page responsive', () => {
   it('handles typing while a simulation runs, cancels the stale run and shows the newest result', async () => {
-    session = await openBrowser(profile);
+    const session = (app.session = await openBrowser(app.profile));
     const { page } = session;
-    await page.goto(origin + '/');
-    await waitForServiceWorkerControl(page);
-    await page.locator('.picker select').selectOption('demo-gcms-kestrel');
-    await session.context.setOffline(true);
-    await stopPreview(server);
-    server = null;
+    await firstVisit(page, origin);
+    await offlineOnKestrel(app);
 
     await page.goto(origin + '/peak');
     await page.getByTestId('peak-transmission').waitFor({ timeout: 60_000 });

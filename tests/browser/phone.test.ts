@@ -8,18 +8,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
-import type { PreviewServer } from 'vite';
-import {
-  artifactsDir, distDir, freshProfileDir, openBrowser, projectRoot, removeDir, startPreview, stopPreview, waitForServiceWorkerControl, type Session, testPort,
-} from './harness';
+import { appForFile, artifactsDir, firstVisit, offlineOnKestrel, openBrowser, projectRoot } from './harness';
 
-const PORT = testPort(4361);
-const origin = `http://127.0.0.1:${PORT}`;
+const app = appForFile(4361);
+const { origin } = app;
 const SCREEN = { width: 390, height: 844 };
 const MAX_HEIGHT = 2110; // 2.5 screens of 844 px
-let server: PreviewServer | null = null;
-const profile = freshProfileDir();
-let session: Session | null = null;
 const heights: Record<string, Record<string, number>> = { normal: {}, field: {} };
 
 interface Area {
@@ -77,27 +71,18 @@ const areas: Area[] = [
 ];
 
 beforeAll(async () => {
-  server = await startPreview(distDir, PORT);
-  session = await openBrowser(profile, { viewport: SCREEN });
-  await session.page.goto(origin + '/');
-  await waitForServiceWorkerControl(session.page);
-  await session.page.waitForFunction(() => /\(demo\)/.test(document.querySelector('[data-testid="current-instrument"]')?.textContent ?? ''), undefined, { timeout: 30_000 });
-  await session.page.locator('.picker select').selectOption('demo-gcms-kestrel');
+  const session = (app.session = await openBrowser(app.profile, { viewport: SCREEN }));
+  await firstVisit(session.page, origin);
   // The app's CSP forbids inline scripts; let axe-core in through the DevTools protocol (test only).
   const cdp = await session.context.newCDPSession(session.page);
   await cdp.send('Page.setBypassCSP', { enabled: true });
-  await session.context.setOffline(true);
-  await stopPreview(server);
-  server = null;
+  await offlineOnKestrel(app);
 });
 
 afterAll(async () => {
   // The page heights measured, for the record.
   mkdirSync(artifactsDir, { recursive: true });
   writeFileSync(join(artifactsDir, 'phone-heights.json'), JSON.stringify(heights, null, 2));
-  await session?.close().catch(() => undefined);
-  await stopPreview(server).catch(() => undefined);
-  removeDir(profile);
 });
 
 async function open(page: Page, area: Area): Promise<void> {
@@ -245,7 +230,7 @@ async function axeSeriousOrCritical(page: Page): Promise<string[]> {
 describe('phone first at 390 × 844, offline', () => {
   for (const mode of ['normal', 'field'] as const) {
     it(`${mode} look: the answer in the first screen, every page within 2.5 screens`, async () => {
-      const page = session!.page;
+      const page = app.session!.page;
       await setFieldMode(page, mode === 'field');
       const problems: string[] = [];
       for (const area of areas) {
@@ -262,13 +247,13 @@ describe('phone first at 390 × 844, offline', () => {
         expect(await page.locator('body').textContent()).not.toMatch(/NaN/);
       }
       expect(problems).toEqual([]);
-      expect(session!.pageErrors).toEqual([]);
-      expect(session!.foreignRequests).toEqual([]);
+      expect(app.session!.pageErrors).toEqual([]);
+      expect(app.session!.foreignRequests).toEqual([]);
     });
   }
 
   it('field mode: 56 px targets, results at 20 px or more, text at 7:1, no serious or critical axe finding', async () => {
-    const page = session!.page;
+    const page = app.session!.page;
     await setFieldMode(page, true);
     const problems: string[] = [];
     for (const area of areas) {
@@ -289,7 +274,7 @@ describe('phone first at 390 × 844, offline', () => {
   });
 
   it('field mode is kept per device across a reload, and the folded inputs open in place with focus inside', async () => {
-    const page = session!.page;
+    const page = app.session!.page;
     await setFieldMode(page, true);
     await page.reload();
     await expect.poll(() => page.evaluate(() => document.documentElement.hasAttribute('data-field-mode')), { timeout: 15_000 }).toBe(true);

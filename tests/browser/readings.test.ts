@@ -1,24 +1,14 @@
 // Readings that cannot mislead: plausible ranges refused where typed, an exponent typed with key presses only,
 // the RF convention chosen at the probe, a convention slip flagged, and readings corrected without being lost.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import type { PreviewServer } from 'vite';
-import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, type Session, testPort } from './harness';
+import { appForFile, openBrowser, screenshot } from './harness';
 
-const PORT = testPort(4361);
-const origin = `http://127.0.0.1:${PORT}`;
-let server: PreviewServer | null = null;
-const profile = freshProfileDir();
-let session: Session | null = null;
+const app = appForFile(4361);
+const { origin } = app;
 
 beforeAll(async () => {
-  server = await startPreview(distDir, PORT);
-  session = await openBrowser(profile, { viewport: { width: 390, height: 844 } });
-});
-afterAll(async () => {
-  await session?.close().catch(() => undefined);
-  await stopPreview(server).catch(() => undefined);
-  removeDir(profile);
+  app.session = await openBrowser(app.profile, { viewport: { width: 390, height: 844 } });
 });
 
 const nodeId = (page: Page) => page.locator('[data-testid="walk-node"]').getAttribute('data-node-id');
@@ -53,7 +43,7 @@ async function typeAndLeave(page: Page, id: string, text: string): Promise<strin
 
 describe('readings', () => {
   it('refuses 1e308 and −5 at the pressure step, takes an exponent typed key by key, and catches a convention slip at the RF step', async () => {
-    const page = session!.page;
+    const page = app.session!.page;
     await page.goto(origin + '/diagnose');
     await expect.poll(() => page.locator('#walk-instrument option[value="demo-lcms-heron"]').count(), { timeout: 15_000 }).toBe(1);
     await page.locator('#walk-instrument').selectOption('demo-lcms-heron');
@@ -124,11 +114,11 @@ describe('readings', () => {
     await expect.poll(() => page.locator('[data-testid="live-verdict"]').textContent()).toMatch(/✓ pass/);
     await pick(page, 'Record reading and continue');
     await atNode(page, 'NS5b');
-    expect(session!.pageErrors).toEqual([]);
+    expect(app.session!.pageErrors).toEqual([]);
   });
 
   it('the leak check refuses 1e308 and −5 heights with plain messages and forms no ratio from them', async () => {
-    const page = session!.page;
+    const page = app.session!.page;
     await page.goto(origin + '/diagnose/leak-check');
     await page.locator('#leak-m32').fill('258');
     expect(await typeAndLeave(page, 'leak-m28', '1e308')).toBe('Height at m/z 28 must be between 0 and 1e15; 1e308 is above that.');
@@ -140,11 +130,11 @@ describe('readings', () => {
     await m28.fill('');
     await m28.pressSequentially('1.0e3');
     await expect.poll(() => page.locator('main').textContent()).toMatch(/Air leak|Not air|nitrogen/i);
-    expect(session!.pageErrors).toEqual([]);
+    expect(app.session!.pageErrors).toEqual([]);
   });
 
   it('a reading is edited with its history kept, and a deleted reading comes back with Undo', async () => {
-    const page = session!.page;
+    const page = app.session!.page;
     await page.goto(origin + '/visits/new');
     await page.locator('#visit-engineer').fill('Readings test');
     await page.locator('#visit-site').fill('Bench 2');
@@ -182,6 +172,6 @@ describe('readings', () => {
     await expect.poll(rows).toEqual([]);
     await page.getByRole('button', { name: 'Undo' }).click();
     await expect.poll(rows).toEqual([expect.stringMatching(/3e-5 mbar\s*Earlier: 2e-5 mbar/)]);
-    expect(session!.pageErrors).toEqual([]);
+    expect(app.session!.pageErrors).toEqual([]);
   });
 });

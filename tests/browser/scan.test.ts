@@ -1,39 +1,20 @@
 // Scan area in a real browser, offline: after the first visit the service worker serves everything; with the
 // server stopped, paste the demo scan, find its peaks, fit one in the worker until the verdict, note a fitted value
 // into the instrument's visit and find it in the visit log.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { PreviewServer } from 'vite';
+import { describe, expect, it } from 'vitest';
 import { DEMO_SCAN_TEXT } from '../../src/spectrum';
-import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session, testPort } from './harness';
+import { appForFile, firstVisit, offlineOnKestrel, openBrowser, screenshot } from './harness';
 
-const PORT = testPort(4371);
-const origin = `http://127.0.0.1:${PORT}`;
-let server: PreviewServer | null = null;
-const profile = freshProfileDir();
-let session: Session | null = null;
-
-beforeAll(async () => {
-  server = await startPreview(distDir, PORT);
-});
-afterAll(async () => {
-  await session?.close().catch(() => undefined);
-  await stopPreview(server).catch(() => undefined);
-  removeDir(profile);
-});
+const app = appForFile(4371);
+const { origin } = app;
 
 describe('Scan area offline', () => {
   it('pastes the demo scan, finds the peaks, fits one to a verdict and notes the result into a visit', async () => {
-    session = await openBrowser(profile, { viewport: { width: 390, height: 844 } });
+    const session = (app.session = await openBrowser(app.profile, { viewport: { width: 390, height: 844 } }));
     const { page } = session;
-    await page.goto(origin + '/');
-    await waitForServiceWorkerControl(page);
-    await page.waitForFunction(() => /\(demo\)/.test(document.querySelector('[data-testid="current-instrument"]')?.textContent ?? ''), undefined, { timeout: 30_000 });
-    await page.locator('.picker select').selectOption('demo-gcms-kestrel');
-
+    await firstVisit(page, origin);
     // Offline from here: network cut and the server stopped.
-    await session.context.setOffline(true);
-    await stopPreview(server);
-    server = null;
+    await offlineOnKestrel(app);
 
     await page.goto(origin + '/scan');
     await expect.poll(() => page.locator('h1').textContent()).toBe('Scan · measured peaks');

@@ -3,27 +3,17 @@
 // notes holding HTML or script show as plain text; a damaged backup changes nothing.
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import type { PreviewServer } from 'vite';
-import { distDir, freshProfileDir, openBrowser, removeDir, screenshot, startPreview, stopPreview, waitForServiceWorkerControl, type Session, testPort } from './harness';
+import { appForFile, freshProfileDir, openBrowser, removeDir, screenshot, waitForServiceWorkerControl } from './harness';
 
-const PORT = testPort(4331);
-const origin = `http://127.0.0.1:${PORT}`;
+const app = appForFile(4331);
+const { origin } = app;
 const hostileNotes = 'Checked <script>window.__rodsidePwned = 1</script> and <b>bold</b> & <img src=x onerror="window.__rodsidePwned=2">';
-let server: PreviewServer | null = null;
-const profile = freshProfileDir();
 const scratch = freshProfileDir();
-let session: Session | null = null;
 let visitPath = '';
 
-beforeAll(async () => {
-  server = await startPreview(distDir, PORT);
-});
-afterAll(async () => {
-  await session?.close().catch(() => undefined);
-  await stopPreview(server).catch(() => undefined);
-  removeDir(profile);
+afterAll(() => {
   removeDir(scratch);
 });
 
@@ -40,17 +30,13 @@ async function download(page: Page, click: () => Promise<void>, name: string): P
 
 describe('visit log offline', () => {
   it('creates a visit and readings with the network cut and the server stopped', async () => {
-    session = await openBrowser(profile);
+    const session = (app.session = await openBrowser(app.profile));
     const { page } = session;
     await page.goto(origin + '/visits');
     await waitForServiceWorkerControl(page);
     await expect.poll(() => page.locator('[data-testid="visit-item"]').count()).toBeGreaterThan(0);
     await session.context.setOffline(true);
-    // Drop the browser's keep-alive sockets at once, or closing the server waits for them to time out.
-    const stopping = stopPreview(server);
-    (server!.httpServer as unknown as { closeAllConnections?: () => void }).closeAllConnections?.();
-    await stopping;
-    server = null;
+    await app.stopServer();
 
     await page.goto(origin + '/visits/new');
     await page.locator('#visit-engineer').fill('Browser-test engineer');
@@ -93,7 +79,7 @@ describe('visit log offline', () => {
   });
 
   it('keeps everything, including the half-typed reading, across a reload', async () => {
-    const { page } = session!;
+    const { page } = app.session!;
     await page.reload();
     await expect.poll(() => rows(page, 'as-found')).toHaveLength(1);
     expect(await rows(page, 'as-left')).toHaveLength(1);
@@ -102,7 +88,7 @@ describe('visit log offline', () => {
   });
 
   it('shows notes with HTML and script as plain text', async () => {
-    const { page } = session!;
+    const { page } = app.session!;
     expect(await page.locator('[data-testid="visit-notes"]').textContent()).toBe(hostileNotes);
     expect(await page.locator('[data-testid="visit-notes"] script, [data-testid="visit-notes"] b, [data-testid="visit-notes"] img').count()).toBe(0);
     expect(await page.evaluate(() => (window as unknown as { __rodsidePwned?: number }).__rodsidePwned)).toBeUndefined();
@@ -112,8 +98,8 @@ describe('visit log offline', () => {
   });
 
   it('renders the visit after a cold restart on the same profile, still offline', async () => {
-    await session!.close();
-    session = await openBrowser(profile);
+    await app.session!.close();
+    const session = (app.session = await openBrowser(app.profile));
     await session.context.setOffline(true);
     const { page } = session;
     await page.goto(origin + visitPath);
@@ -123,7 +109,7 @@ describe('visit log offline', () => {
   });
 
   it('export → erase → restore gives the same data back; a damaged file changes nothing', async () => {
-    const { page } = session!;
+    const { page } = app.session!;
     await page.goto(origin + '/visits');
     await openBackup(page);
     const first = await download(page, () => page.getByRole('button', { name: 'Download backup' }).click(), 'first.json');
@@ -159,8 +145,8 @@ describe('visit log offline', () => {
   });
 
   it('no page errors and no requests off the device', () => {
-    expect(session!.pageErrors).toEqual([]);
-    expect(session!.foreignRequests).toEqual([]);
+    expect(app.session!.pageErrors).toEqual([]);
+    expect(app.session!.foreignRequests).toEqual([]);
   });
 });
 

@@ -1,28 +1,11 @@
 // WebKit (the engine of iPhone and iPad browsers): every area renders with its heading and without the
 // "could not be loaded" notice, the stability chart draws, and the instrument picker in the top bar is legible
 // in both themes. The browser runs under the C locale, where navigator.language is "C", a tag Intl refuses.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { PreviewServer } from 'vite';
-import { distDir, startPreview, stopPreview, testPort } from '../harness';
-import { startDriver, waitFor, WebKitSession, type Driver } from './driver';
+import { describe, expect, it } from 'vitest';
+import { waitFor, WebKitSession, webkitAppForFile } from './driver';
 
-const PORT = testPort(4510);
-const DRIVER_PORT = testPort(4560);
-const origin = `http://127.0.0.1:${PORT}`;
-let server: PreviewServer | null = null;
-let driver: Driver | null = null;
-let session: WebKitSession | null = null;
-
-beforeAll(async () => {
-  server = await startPreview(distDir, PORT);
-  driver = await startDriver(DRIVER_PORT);
-  session = await WebKitSession.open(driver);
-});
-afterAll(async () => {
-  await session?.close().catch(() => undefined);
-  await driver?.stop();
-  await stopPreview(server).catch(() => undefined);
-});
+const app = webkitAppForFile(4510, 4560);
+const { origin } = app;
 
 const screens: [path: string, heading: RegExp][] = [
   ['/', /^Overview$/],
@@ -60,7 +43,7 @@ function inkedPixels(s: WebKitSession, selector: string): Promise<number> {
 
 describe('WebKit: every area', () => {
   it('runs under a language tag that Intl refuses (navigator.language is "C")', async () => {
-    const s = session!;
+    const s = app.session!;
     await s.goto('about:blank');
     const probe = await s.run<{ language: string; refused: boolean }>(
       `let refused = false;
@@ -71,7 +54,7 @@ describe('WebKit: every area', () => {
   });
 
   it.each(screens)('%s renders its heading and no "could not be loaded" notice', async (path, heading) => {
-    const s = session!;
+    const s = app.session!;
     await s.goto(origin + path);
     const state = await waitFor(`${path} to finish loading`, async () => {
       const st = await pageState(s);
@@ -86,7 +69,7 @@ describe('WebKit: every area', () => {
   });
 
   it('draws the stability chart on a canvas', async () => {
-    const s = session!;
+    const s = app.session!;
     await s.goto(origin + '/stability');
     let n = -1;
     const inked = await waitFor('the stability chart to draw', async () => {
@@ -137,29 +120,25 @@ async function pickerLooks(s: WebKitSession) {
 
 describe('WebKit: the instrument picker in the top bar', () => {
   // Contrast: WCAG 2.1, success criterion 1.4.3 (contrast minimum), 4.5:1 for body text.
-  it('is drawn by our CSS (not the native field) with legible text, light theme', async () => {
-    const s = session!;
+  async function legiblePicker(s: WebKitSession, dark: boolean): Promise<void> {
     await s.goto(origin + '/');
     const looks = await pickerLooks(s);
-    await s.screenshot('webkit-picker-light');
-    expect(looks.dark).toBe(false);
+    await s.screenshot(dark ? 'webkit-picker-dark' : 'webkit-picker-light');
+    expect(looks.dark).toBe(dark);
     expect(looks.appearance).toBe('none');
     expect(contrast(looks.color, looks.background)).toBeGreaterThanOrEqual(4.5);
     expect(contrast(looks.optionColor, looks.optionBackground)).toBeGreaterThanOrEqual(4.5);
+  }
+
+  it('is drawn by our CSS (not the native field) with legible text, light theme', async () => {
+    await legiblePicker(app.session!, false);
   });
 
   it('the same in the dark theme', async () => {
     // One session per driver: end the light one, start MiniBrowser again in dark mode.
-    await session?.close();
-    session = null;
-    session = await WebKitSession.open(driver!, { dark: true });
-    const dark = session;
-    await dark.goto(origin + '/');
-    const looks = await pickerLooks(dark);
-    await dark.screenshot('webkit-picker-dark');
-    expect(looks.dark).toBe(true);
-    expect(looks.appearance).toBe('none');
-    expect(contrast(looks.color, looks.background)).toBeGreaterThanOrEqual(4.5);
-    expect(contrast(looks.optionColor, looks.optionBackground)).toBeGreaterThanOrEqual(4.5);
+    await app.session?.close();
+    app.session = null;
+    app.session = await WebKitSession.open(app.driver!, { dark: true });
+    await legiblePicker(app.session, true);
   });
 });

@@ -9,32 +9,18 @@
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { PreviewServer } from 'vite';
-import { distDir, startPreview, stopPreview, testPort } from '../harness';
-import { startDriver, waitFor, WebKitSession, type Driver } from './driver';
+import { afterAll, describe, expect, it } from 'vitest';
+import { waitFor, webkitAppForFile, type WebKitSession } from './driver';
 
-const PORT = testPort(4520);
-const DRIVER_PORT = testPort(4570);
-const origin = `http://127.0.0.1:${PORT}`;
+const app = webkitAppForFile(4520, 4570);
+const { origin } = app;
 const scratch = mkdtempSync(join(tmpdir(), 'rodside-webkit-'));
-let server: PreviewServer | null = null;
-let driver: Driver | null = null;
-let session: WebKitSession | null = null;
 let visitPath = '';
 
 const PROFILE = 'WebKit proof quad';
 const SITE = 'Harrowgate Basin, bay 4';
 
-beforeAll(async () => {
-  server = await startPreview(distDir, PORT);
-  driver = await startDriver(DRIVER_PORT);
-  session = await WebKitSession.open(driver);
-});
-afterAll(async () => {
-  await session?.close().catch(() => undefined);
-  await driver?.stop();
-  await stopPreview(server).catch(() => undefined);
+afterAll(() => {
   rmSync(scratch, { recursive: true, force: true });
 });
 
@@ -73,7 +59,7 @@ async function instrumentNames(s: WebKitSession): Promise<string[]> {
 
 describe('WebKit: data kept on the device', () => {
   it('the service worker takes control on the first visit and the demo loads', async () => {
-    const s = session!;
+    const s = app.session!;
     await s.goto(origin + '/');
     await waitFor('the service worker to control the page', () => s.run<boolean>(`return !!navigator.serviceWorker && !!navigator.serviceWorker.controller;`));
     const current = await waitFor('the demo instruments', async () => {
@@ -85,7 +71,7 @@ describe('WebKit: data kept on the device', () => {
   });
 
   it('creates a profile and a visit through the screens', async () => {
-    const s = session!;
+    const s = app.session!;
     await s.goto(origin + '/instruments/new');
     await s.type(await s.fieldByLabel(/^\s*Name\s*$/), PROFILE);
     await s.type(await s.fieldByLabel(/Field radius r0/), '4,0');
@@ -110,7 +96,7 @@ describe('WebKit: data kept on the device', () => {
   });
 
   it('keeps both across a full reload and in a new tab (read back from IndexedDB)', async () => {
-    const s = session!;
+    const s = app.session!;
     await s.goto(origin + '/instruments');
     await s.reload();
     await waitFor('the profile after a reload', async () => (await instrumentNames(s)).some((t) => t.includes(PROFILE)));
@@ -128,7 +114,7 @@ describe('WebKit: data kept on the device', () => {
   });
 
   it('backup round trip on the Visits screen: export, erase, restore gives identical data', async () => {
-    const s = session!;
+    const s = app.session!;
     // The backup tools sit behind their disclosure; the #backup link opens it, as the backup reminder does.
     await s.goto(origin + '/visits#backup');
     await waitFor('the backup panel', async () => (await s.texts('[data-testid="backup-panel"] button')).some((t) => /Download backup/.test(t)));
@@ -172,14 +158,11 @@ describe('WebKit: data kept on the device', () => {
   });
 
   it('offline: with the server stopped, a reload and deep links still render from the service worker', async () => {
-    const s = session!;
+    const s = app.session!;
     await s.goto(origin + '/');
     await waitFor('the service worker to control the page', () => s.run<boolean>(`return !!navigator.serviceWorker.controller;`));
     await s.appReady();
-    const stopping = stopPreview(server);
-    (server!.httpServer as unknown as { closeAllConnections?: () => void }).closeAllConnections?.();
-    await stopping;
-    server = null;
+    await app.stopServer();
     // The control: the server really is gone.
     await expect(fetch(origin + '/')).rejects.toThrow();
 

@@ -8,7 +8,8 @@
 import { spawn, execFileSync, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { artifactsDir, portIsFree } from '../harness';
+import { afterAll, beforeAll } from 'vitest';
+import { appForFile, artifactsDir, portIsFree, testPort } from '../harness';
 
 /** The locale the WebKit pass runs under: glibc's C locale, which WebKit turns into navigator.language === 'C'. */
 export const WEBKIT_LOCALE = 'C.UTF-8';
@@ -276,3 +277,27 @@ async function rawCommand<T>(base: string, method: string, path: string, body?: 
   }
   return j.value as T;
 }
+
+/** The built app, a WebKit driver and one browser session for the test file that calls this (at the top level). */
+export interface WebKitApp {
+  origin: string;
+  driver: Driver | null;
+  session: WebKitSession | null;
+  /** Stop the server for good: from here on only the service worker serves the app. */
+  stopServer(): Promise<void>;
+}
+
+export function webkitAppForFile(basePort: number, driverBasePort: number): WebKitApp {
+  const app = appForFile(basePort);
+  const wk: WebKitApp = { origin: app.origin, driver: null, session: null, stopServer: app.stopServer };
+  beforeAll(async () => {
+    wk.driver = await startDriver(testPort(driverBasePort));
+    wk.session = await WebKitSession.open(wk.driver);
+  });
+  afterAll(async () => {
+    await wk.session?.close().catch(() => undefined);
+    await wk.driver?.stop();
+  });
+  return wk;
+}
+

@@ -55,6 +55,17 @@ afterEach(() => {
 
 const kept = { mz: '100', resolution: '200', axialVoltage: '20' };
 
+/** A client whose every run gets a new stepped worker, kept in `workers` in the order they were made. */
+function steppedClient(): { client: SimClient; workers: SteppedWorker[] } {
+  const workers: SteppedWorker[] = [];
+  const client = new SimClient(() => {
+    const w = new SteppedWorker();
+    workers.push(w);
+    return w;
+  });
+  return { client, workers };
+}
+
 describe('worker: coarse then refined', () => {
   it('posts a partial coarse profile (bound ≤ 1 % of its peak) before the refined result', () => {
     const k = demo('kestrel');
@@ -75,12 +86,7 @@ describe('worker: coarse then refined', () => {
 
 describe('PeakSimulation: coarse → refined', () => {
   it('labels the coarse profile until the refinement lands, then shows the refined values', async () => {
-    const workers: SteppedWorker[] = [];
-    const client = new SimClient(() => {
-      const w = new SteppedWorker();
-      workers.push(w);
-      return w;
-    });
+    const { client, workers } = steppedClient();
     const k = demo('kestrel');
     h = await mount(<PeakSimulation client={client} curveClient={new SimClient(() => new SteppedWorker())} />, k, { [`inputs:peak:${k.id}`]: kept });
     await waitFor(() => workers.length === 1 && workers[0].outbox.length > 0, 'the first run');
@@ -107,12 +113,7 @@ describe('PeakSimulation: coarse → refined', () => {
   });
 
   it('a slider move lets a computing run land its coarse profile, then starts the newest inputs; a refining run is cancelled', async () => {
-    const workers: SteppedWorker[] = [];
-    const client = new SimClient(() => {
-      const w = new SteppedWorker();
-      workers.push(w);
-      return w;
-    });
+    const { client, workers } = steppedClient();
     const k = demo('kestrel');
     // The hand-over depends on how long ago the run last reported: the test holds the clock still, so a slow
     // machine cannot make the run look stalled.
