@@ -2,6 +2,7 @@ import { defineConfig } from 'vite';
 import preact from '@preact/preset-vite';
 import { VitePWA } from 'vite-plugin-pwa';
 import { readFileSync } from 'node:fs';
+import { lazyUplotIntl } from './scripts/lazyUplotIntl.mjs';
 
 const pkg = JSON.parse(readFileSync(new URL('./package.json', import.meta.url), 'utf8')) as { version: string };
 // RODSIDE_BUILD_LABEL lets a test build a second, distinguishable version of the same source.
@@ -13,6 +14,7 @@ export default defineConfig({
   },
   plugins: [
     preact(),
+    lazyUplotIntl(),
     VitePWA({
       // The user may be half-way through a reading: updates are offered, never forced.
       registerType: 'prompt',

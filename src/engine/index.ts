@@ -18,6 +18,7 @@ export {
   apexRatio,
   rfOnlyEdgeQ,
   firstRegionBoundary,
+  firstRegionBoundarySteps,
   characteristicCurves,
   type FirstRegionBoundary,
   type CharacteristicCurves,

@@ -52,7 +52,21 @@ export interface FirstRegionBoundary {
 
 /** The first stability region's edges at `points` values of q (≥ 3; the apex is always sampled). */
 export function firstRegionBoundary(points = 1000): FirstRegionBoundary {
+  const steps = firstRegionBoundarySteps(points, points);
+  for (;;) {
+    const r = steps.next();
+    if (r.done) return r.value;
+  }
+}
+
+/**
+ * The same edges as firstRegionBoundary, computed `perStep` samples at a time: the generator yields the fraction
+ * done after each step and returns the boundary. A caller on a phone's main thread runs one step per task, so
+ * the whole computation (hundreds of eigenvalue searches) never holds the page still.
+ */
+export function* firstRegionBoundarySteps(points = 1000, perStep = 25): Generator<number, FirstRegionBoundary, void> {
   checkNumber('points', points, { min: 3, max: 1_000_000, integer: true });
+  checkNumber('perStep', perStep, { min: 1, max: 1_000_000, integer: true });
   const apex = firstRegionApex();
   const qEnd = rfOnlyEdgeQ();
   // Left segment [0, apex] and right segment (apex, qEnd], split in proportion to length.
@@ -71,6 +85,7 @@ export function firstRegionBoundary(points = 1000): FirstRegionBoundary {
     xEdge[i] = i === points - 1 ? 0 : b1Unchecked(q[i]);
     upper[i] = i === leftCount - 1 ? apex.a : Math.min(yEdge[i], xEdge[i]);
     lower[i] = -upper[i];
+    if ((i + 1) % perStep === 0 && i + 1 < points) yield (i + 1) / points;
   }
   return { q, yEdge, xEdge, upper, lower, apexIndex: leftCount - 1 };
 }

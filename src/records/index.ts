@@ -15,3 +15,4 @@ export * from './noteRules';
 export { csvCell, toCsv, readingsCsv, CSV_BOM } from './csv';
 export { escapeHtml, REPORT_PRINT_CSS, visitReportHtml, visitReportSection, shownValue, historyLines } from './report';
 export * from './numberEntry';
+export { nextTask, runInSteps } from './nextTask';

@@ -25,9 +25,10 @@ export function parseNumber(text: string): number | null {
 
 /**
  * How a very small or large number is written: 'text' as 1.5e-5 (messages, CSV, reports: plain characters,
- * trailing zeros dropped), 'screen' as 1.500×10⁻⁵ (screens and diagnosis sentences: the significant figures stay).
+ * trailing zeros dropped), 'screen' as 1.500×10⁻⁵ (screens and diagnosis sentences: the significant figures stay),
+ * 'tick' as 1.5×10⁻⁵ (chart axis numbers: screen characters, trailing zeros dropped).
  */
-export type NumberStyle = 'text' | 'screen';
+export type NumberStyle = 'text' | 'screen' | 'tick';
 
 const SUPERSCRIPT: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' };
 
@@ -41,7 +42,7 @@ export function formatNumber(x: number, digits = 4, style: NumberStyle = 'text')
   const a = Math.abs(x);
   if (a < 1e-3 || a >= 1e6) {
     const [m, e] = x.toExponential(digits - 1).split('e');
-    if (style === 'screen') return `${m}×10${[...String(Number(e))].map((c) => SUPERSCRIPT[c] ?? c).join('')}`;
+    if (style !== 'text') return `${style === 'tick' ? String(Number(m)) : m}×10${[...String(Number(e))].map((c) => SUPERSCRIPT[c] ?? c).join('')}`;
     return `${String(Number(m))}e${e.startsWith('+') ? e.slice(1) : e}`;
   }
   return String(Number(x.toPrecision(digits)));

@@ -1,5 +1,5 @@
 // Loading and removing the invented demo scenario (the data itself is in demoData.ts).
-import { assess, catalogue, checkEntry, pickBaselineVisit, type Reading, type Visit } from '../records';
+import { assess, catalogue, checkEntry, nextTask, pickBaselineVisit, type Reading, type Visit } from '../records';
 import type { Store, StoreContext } from './api';
 import { demoInstruments, demoReadings, demoVisits } from './demoData';
 import { guard, StoreError } from './errors';
@@ -24,23 +24,6 @@ function demoReadingsOf(v: Visit, baseline: { visit: Visit; readings: Reading[] 
       origin: 'entered', demo: true,
     };
   });
-}
-
-/** Let the page run between two pieces of work (a new task, not a microtask; not a timer, which tests may fake). */
-function nextTask(): Promise<void> {
-  const scheduler = (globalThis as { scheduler?: { yield?: () => Promise<void> } }).scheduler;
-  if (typeof scheduler?.yield === 'function') return scheduler.yield();
-  if (typeof MessageChannel === 'function') {
-    return new Promise((resolve) => {
-      const channel = new MessageChannel();
-      channel.port1.onmessage = () => {
-        channel.port1.close();
-        resolve();
-      };
-      channel.port2.postMessage(null);
-    });
-  }
-  return new Promise((resolve) => setTimeout(resolve, 0));
 }
 
 /** Every demo visit in date order with its readings, each judged against the baseline known by then. */

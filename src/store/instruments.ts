@@ -4,6 +4,18 @@ import type { Store, StoreContext } from './api';
 import { guard, StoreError } from './errors';
 import { newId, nowIso, stamp } from './ids';
 
+/**
+ * Names in alphabetical order, ignoring case and accents ("Élan" with the E's), then exactly. Not localeCompare:
+ * its first call loads the browser's collation data, a long task on a phone, on every start.
+ */
+export function byName(a: string, b: string): number {
+  const key = (s: string) => s.normalize('NFD').replace(/[\u0300-\u036f]/g, '').toLowerCase();
+  const ka = key(a);
+  const kb = key(b);
+  if (ka !== kb) return ka < kb ? -1 : 1;
+  return a < b ? -1 : a > b ? 1 : 0;
+}
+
 type InstrumentMethods = 'listInstruments' | 'getInstrument' | 'saveInstrument' | 'duplicateInstrument';
 
 export function instrumentMethods({ db }: StoreContext): Pick<Store, InstrumentMethods> {
@@ -11,7 +23,7 @@ export function instrumentMethods({ db }: StoreContext): Pick<Store, InstrumentM
     listInstruments: () =>
       guard('read instrument profiles', async () => {
         const all = await db.getAll('instruments');
-        return all.sort((x, y) => x.name.localeCompare(y.name));
+        return all.sort((x, y) => byName(x.name, y.name));
       }),
 
     getInstrument: (id) => guard('read the instrument profile', () => db.get('instruments', id)),

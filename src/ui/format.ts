@@ -7,6 +7,14 @@ export function formatNumber(value: number, digits = 4): string {
   return formatAny(value, digits, 'screen');
 }
 
+/**
+ * A chart axis number: up to 6 significant figures with trailing zeros dropped, 1.5×10⁻⁵ for very small or large
+ * values. Built without Intl, so a chart never loads the browser's locale data.
+ */
+export function formatTick(value: number): string {
+  return formatAny(value, 6, 'tick');
+}
+
 export function formatSi(value: number, unit: string, digits = 4): string {
   return `${formatNumber(value, digits)} ${unit}`;
 }

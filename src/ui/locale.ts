@@ -7,13 +7,19 @@ export const FALLBACK_LOCALE = 'en-US';
 
 const verdicts = new Map<string, boolean>();
 
-/** True when Intl accepts `tag` as a language tag (asked once per tag: building a formatter is not free). */
+/**
+ * True when Intl accepts `tag` as a language tag (asked once per tag). Every Intl constructor refuses exactly the
+ * tags that Intl.getCanonicalLocales refuses (both canonicalise the locale list first: ECMA-402, 9.2.1
+ * CanonicalizeLocaleList), and that check is a syntax check: it does not load the browser's locale data, whose
+ * first load is a long task on a phone (a formatter is built only where a screen needs one).
+ */
 export function acceptedTag(tag: unknown): tag is string {
   if (typeof tag !== 'string' || tag.trim() === '') return false;
   let ok = verdicts.get(tag);
   if (ok === undefined) {
     try {
-      new Intl.NumberFormat(tag);
+      if (typeof Intl.getCanonicalLocales === 'function') Intl.getCanonicalLocales(tag);
+      else new Intl.NumberFormat(tag);
       ok = true;
     } catch {
       // RangeError: not a well-formed BCP 47 language tag (e.g. 'C', 'x-bogus_tag').

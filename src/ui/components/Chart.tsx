@@ -9,6 +9,7 @@ import '../localeGuard';
 import { FIELD_MODE_EVENT, fieldModeActive } from '../fieldMode';
 import type uPlot from 'uplot';
 import { whenIdle } from '../idle';
+import { formatTick } from '../format';
 
 // uPlot is loaded and evaluated after the screen's first paint, in idle time: its module sets up number and date
 // formatting at load, the first use of the browser's locale data, which is a long task on a phone. The chart keeps
@@ -63,6 +64,10 @@ export function themedOptions(options: ChartOptions, palette: ChartPalette): Cha
     // Field mode: axis numbers and titles big and bold enough to read in glare.
     ...(field ? { font: '600 15px system-ui, sans-serif', labelFont: '700 16px system-ui, sans-serif', labelSize: 24 } : {}),
     ...(i === 0 ? { size: 40 } : {}),
+    // Numbers by our own formatter: uPlot's default builds an Intl.NumberFormat, the browser's first use of its
+    // locale data (a long task on a phone; the build makes uPlot build it only when asked, see vite.config.ts).
+    // A time axis (uPlot's x default) keeps uPlot's date stamps, which do not use Intl.
+    ...(i === 0 && options.scales?.x?.time !== false ? {} : { values: tickValues }),
     ...axis,
     ...(field && typeof axis.size === 'number' ? { size: Math.round(axis.size * 1.3) } : {}),
     stroke: axis.stroke ?? palette.ink,
@@ -70,6 +75,10 @@ export function themedOptions(options: ChartOptions, palette: ChartPalette): Cha
     ticks: { stroke: palette.grid, ...axis.ticks },
   }));
   return { ...options, legend: options.legend ?? { show: false }, axes };
+}
+
+function tickValues(_u: uPlot, splits: number[]): string[] {
+  return splits.map((v) => (v == null || !Number.isFinite(v) ? '' : formatTick(v)));
 }
 
 function darkQuery(): MediaQueryList | null {

@@ -40,6 +40,9 @@ const SETTLE_MS = 40;
  */
 const COARSE_WAIT_MS = 600;
 
+/** Progress is redrawn when it has moved by at least this fraction. */
+const PROGRESS_STEP = 0.05;
+
 interface ActiveRun {
   key: string;
   controller: AbortController;
@@ -72,8 +75,15 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     lastCoarse.current = peak.status === 'coarse';
   }
 
-  const errors: FieldErrors = {};
-  const run = instrument ? buildPeakRun(inputs, instrument, errors) : null;
+  // The operating point (exact stability edges, by root finding) is worked out once per inputs and instrument,
+  // not on each of the many redraws a run's progress brings.
+  const inputsKey = JSON.stringify(inputs);
+  const { run, errors } = useMemo(() => {
+    const found: FieldErrors = {};
+    return { run: instrument ? buildPeakRun(inputs, instrument, found) : null, errors: found };
+    // inputsKey stands for inputs' content.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [inputsKey, instrument]);
   const runKey = run?.key ?? null;
 
   const active = useRef<ActiveRun | null>(null);
@@ -111,7 +121,13 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
         onProgress: (f) => {
           entry.lastProgress = clock();
           if (active.current !== entry) return;
-          setPeak((s) => (s.status === 'coarse' && s.key === entry.key ? { ...s, progress: f } : { status: 'running', progress: f }));
+          // The line shows whole per cent in steps of PROGRESS_STEP: a redraw for every 1 % report would keep
+          // the main thread busy while the worker computes.
+          setPeak((s) => {
+            const shown = s.status === 'running' || (s.status === 'coarse' && s.key === entry.key) ? s.progress : -1;
+            if (shown >= 0 && f < 1 && Math.abs(f - shown) < PROGRESS_STEP) return s;
+            return s.status === 'coarse' && s.key === entry.key ? { ...s, progress: f } : { status: 'running', progress: f };
+          });
         },
         onPartial: (result) => {
           entry.coarseShown = true;

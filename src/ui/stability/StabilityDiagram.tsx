@@ -7,7 +7,7 @@ import {
 } from '../../engine';
 import { HvCaution, isHazardousLive } from '../bench/HvCaution';
 import type { InstrumentProfile } from '../../store';
-import { Chart, type ChartOptions, type ChartPalette, type uPlot } from '../components/Chart';
+import { Chart, ChartReserve, type ChartOptions, type ChartPalette, type uPlot } from '../components/Chart';
 import { NumberField, SelectField } from '../components/Field';
 import { CautionLine, InputsFold } from '../components/Fold';
 import { InstrumentLine, scanLineSummary } from '../components/InstrumentLine';
@@ -19,7 +19,7 @@ import { listHint, parseMzList, parseNumber, usePersistentInputs } from '../benc
 import { Result } from '../bench/NoteButton';
 import { buildScanLine, expectedFor } from '../bench/scanLine';
 import { ScanLineFields } from '../bench/ScanLineFields';
-import { diagramColumns, ISO_BETAS, placeLabels, Q_MAX } from './diagramData';
+import { diagramColumns, ISO_BETAS, placeLabels, Q_MAX, useBoundary } from './diagramData';
 import { DraftProblem } from '../components/DraftProblem';
 import { NeedInstrument } from '../components/NeedInstrument';
 
@@ -57,6 +57,7 @@ export function StabilityDiagram() {
   const selectedRef = useRef<number | null>(null);
   selectedRef.current = selected;
   const options = useMemo(() => (palette: ChartPalette) => chartOptions(palette, pointsRef, selectedRef), []);
+  const boundary = useBoundary();
 
   if (!instrument) return <NeedInstrument key="no-instrument">Pick or add an instrument first: the diagram uses its geometry.</NeedInstrument>;
   const profile = instrument;
@@ -113,7 +114,7 @@ export function StabilityDiagram() {
   const setPoint = points.find((p) => p.set) ?? null;
   const slope = setPoint && setPoint.op.q > 0 ? setPoint.op.a / setPoint.op.q : null;
   const showIso = inputs.isoBeta === 'yes';
-  const data = diagramColumns(slope, showIso) as unknown as uPlot.AlignedData;
+  const data = boundary ? (diagramColumns(slope, showIso) as unknown as uPlot.AlignedData) : null;
   const apex = firstRegionApex();
   const chosen = selected !== null ? points.find((p) => p.mz === selected) ?? null : null;
   const redrawKey = points.map((p) => `${p.mz}:${p.op.q}:${p.op.a}`).join('|') + `#${selected}`;
@@ -171,9 +172,13 @@ export function StabilityDiagram() {
 
       <div class="card">
         <h2 class="card-title">First stability region</h2>
-        <Chart data={data} options={options} height={300} zoomButtons zoomScales={['x', 'y']} view={view} redrawKey={redrawKey}
-          onTap={onTap} testId="stability-chart"
-          label={`Stability diagram, a against q: the first region bounded by the y edge on the left and the x edge on the right, apex at q ${apex.q.toFixed(4)}, a ${apex.a.toFixed(5)}; ${points.length} operating points, listed below.`} />
+        {data ? (
+          <Chart data={data} options={options} height={300} zoomButtons zoomScales={['x', 'y']} view={view} redrawKey={redrawKey}
+            onTap={onTap} testId="stability-chart"
+            label={`Stability diagram, a against q: the first region bounded by the y edge on the left and the x edge on the right, apex at q ${apex.q.toFixed(4)}, a ${apex.a.toFixed(5)}; ${points.length} operating points, listed below.`} />
+        ) : (
+          <ChartReserve height={300} zoomButtons label="The stability diagram is being computed" />
+        )}
         <div class="row" role="group" aria-label="Chart view">
           <button type="button" class="btn btn-small" onClick={() => setView({ key: Date.now(), ranges: { x: WHOLE.x, y: WHOLE.y } })}>Whole region</button>
           <button type="button" class="btn btn-small" data-testid="zoom-apex"

@@ -1,13 +1,43 @@
 // Chart-ready columns for the stability diagram: the first region's two edges, told apart, and the operating
 // line a = 2(U/V)·q on which every m/z sits at the current U and V. The boundary comes from the engine once.
-import { firstRegionBoundary, isoBetaCurve, type FirstRegionBoundary } from '../../engine';
+import { useEffect, useState } from 'preact/hooks';
+import { firstRegionBoundary, firstRegionBoundarySteps, isoBetaCurve, type FirstRegionBoundary } from '../../engine';
+import { runInSteps } from '../../records';
+
+/** Samples of the drawn boundary, and how many are computed per task when it is computed in steps. */
+const BOUNDARY_POINTS = 400;
+const BOUNDARY_STEP = 25;
 
 let boundary: FirstRegionBoundary | null = null;
+let pending: Promise<FirstRegionBoundary> | null = null;
 
-/** The engine's boundary at 400 samples (a few ms), computed once per session. */
+/** The engine's boundary at 400 samples, computed once per session (at once, if no stepped run got there first). */
 export function boundaryOnce(): FirstRegionBoundary {
-  if (!boundary) boundary = firstRegionBoundary(400);
+  if (!boundary) boundary = firstRegionBoundary(BOUNDARY_POINTS);
   return boundary;
+}
+
+/**
+ * The same boundary, computed 25 samples per task (800 eigenvalue searches in all, tens of ms on a phone: in one
+ * piece it would hold the page still while the screen first draws).
+ */
+export function boundaryInSteps(): Promise<FirstRegionBoundary> {
+  if (boundary) return Promise.resolve(boundary);
+  return (pending ??= runInSteps(firstRegionBoundarySteps(BOUNDARY_POINTS, BOUNDARY_STEP)).then((b) => (boundary ??= b)));
+}
+
+/** The boundary once it is there (null meanwhile: the chart keeps its space). */
+export function useBoundary(): FirstRegionBoundary | null {
+  const [ready, setReady] = useState<FirstRegionBoundary | null>(boundary);
+  useEffect(() => {
+    if (ready) return;
+    let live = true;
+    void boundaryInSteps().then((b) => live && setReady(b));
+    return () => {
+      live = false;
+    };
+  }, [ready]);
+  return ready;
 }
 
 /** q beyond the region's a = 0 edge shown on the chart, so points just outside stay visible. */

@@ -40,6 +40,13 @@ const cases: Case[] = [
   },
   { name: 'firstRegionBoundary', call: (p) => engine.firstRegionBoundary(p.points as number), valid: { points: 10 }, bad: { points: [NaN, Infinity, 2, 10.5, -5, '10'] } },
   {
+    // A generator checks its input on the first step.
+    name: 'firstRegionBoundarySteps',
+    call: (p) => engine.firstRegionBoundarySteps(p.points as number, p.perStep as number).next(),
+    valid: { points: 10, perStep: 4 },
+    bad: { points: [NaN, Infinity, 2, 10.5, -5, '10'], perStep: [NaN, 0, 1.5, -1, '4'] },
+  },
+  {
     name: 'characteristicCurves',
     call: (p) => engine.characteristicCurves(p as never),
     valid: { qMax: 5, points: 5, maxOrder: 2 },

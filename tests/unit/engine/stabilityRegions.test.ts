@@ -4,6 +4,7 @@ import {
   characteristicCurves,
   firstRegionApex,
   firstRegionBoundary,
+  firstRegionBoundarySteps,
   mathieuA,
   mathieuB,
   rfOnlyEdgeQ,
@@ -90,6 +91,21 @@ describe('first stability region: boundary arrays', () => {
     expect(max).toBe(firstRegionApex().a);
     for (let i = 1; i <= boundary.apexIndex; i++) expect(boundary.upper[i]).toBeGreaterThanOrEqual(boundary.upper[i - 1]);
     for (let i = boundary.apexIndex + 1; i < 1000; i++) expect(boundary.upper[i]).toBeLessThanOrEqual(boundary.upper[i - 1]);
+  });
+  it('computed in steps, the boundary is the same, bit for bit, and each step reports the fraction done', () => {
+    const steps = firstRegionBoundarySteps(1000, 64);
+    const fractions: number[] = [];
+    let r = steps.next();
+    while (!r.done) {
+      fractions.push(r.value);
+      r = steps.next();
+    }
+    expect(fractions).toHaveLength(15); // 64, 128, … 960 of 1000 samples
+    expect(fractions[0]).toBe(0.064);
+    for (let i = 1; i < fractions.length; i++) expect(fractions[i]).toBeGreaterThan(fractions[i - 1]);
+    for (const key of ['q', 'xEdge', 'yEdge', 'upper', 'lower'] as const) expect(r.value[key]).toEqual(boundary[key]);
+    expect(r.value.apexIndex).toBe(boundary.apexIndex);
+    expect(() => firstRegionBoundarySteps(1000, 0).next()).toThrow(/perStep/);
   });
   it('points just under the upper edge are stable in x and y; just above are not', () => {
     for (let i = 20; i < 990; i += 97) {

@@ -49,6 +49,15 @@ describe('instrument profiles: create, read, update, delete', () => {
     store.close();
   });
 
+  it('lists profiles alphabetically, ignoring case and accents', async () => {
+    const store = await openStore(freshName());
+    const v = validateDraft(goodDraft());
+    if (!v.ok) throw new Error('draft should be valid');
+    for (const name of ['beta line', 'Zeta', 'Élan B', 'alpha', 'Alpha', 'elan A']) await store.saveInstrument({ ...v.fields, name });
+    expect((await store.listInstruments()).map((p) => p.name)).toEqual(['Alpha', 'alpha', 'beta line', 'elan A', 'Élan B', 'Zeta']);
+    store.close();
+  });
+
   it('round-trips a profile through the form draft without float noise', () => {
     const d = draftFromProfile(demoInstruments[0]);
     expect(d.rodFieldRadius).toBe('4.5');
