@@ -26,19 +26,19 @@ function demoReadingsOf(v: Visit, baseline: { visit: Visit; readings: Reading[] 
   });
 }
 
-/** Every demo visit in date order with its readings, each judged against the baseline known by then. */
-async function judgedDemo(engine: StoreContext['engine']): Promise<{ visits: Visit[]; readings: Reading[] }> {
+/**
+ * Every demo visit in date order with its readings, each judged against the baseline known by then: one visit
+ * per step of the generator.
+ */
+function* judgedDemo(engine: StoreContext['engine']): Generator<{ visit: Visit; readings: Reading[] }, void, void> {
   const visits = [...demoVisits].sort((a, b) => (a.startedAt < b.startedAt ? -1 : 1));
   const done = new Map<string, Reading[]>();
-  const readings: Reading[] = [];
-  for (const v of visits) {
-    const baselineVisit = pickBaselineVisit(visits.filter((x) => x.instrumentId === v.instrumentId && x.startedAt <= v.startedAt));
-    const list = demoReadingsOf(v, baselineVisit ? { visit: baselineVisit, readings: done.get(baselineVisit.id) ?? [] } : undefined, engine);
-    done.set(v.id, list);
-    readings.push(...list);
-    await nextTask();
+  for (const visit of visits) {
+    const baselineVisit = pickBaselineVisit(visits.filter((x) => x.instrumentId === visit.instrumentId && x.startedAt <= visit.startedAt));
+    const readings = demoReadingsOf(visit, baselineVisit ? { visit: baselineVisit, readings: done.get(baselineVisit.id) ?? [] } : undefined, engine);
+    done.set(visit.id, readings);
+    yield { visit, readings };
   }
-  return { visits, readings };
 }
 
 export function demoMethods({ db, engine }: StoreContext): Pick<Store, 'loadDemo' | 'removeDemo'> {
@@ -46,27 +46,31 @@ export function demoMethods({ db, engine }: StoreContext): Pick<Store, 'loadDemo
     loadDemo: (force = false) =>
       guard('load the demo instruments', async () => {
         if (!force && (await db.get('settings', 'demoLoaded'))) return false;
-        // Judged before the write, one visit per task: on a phone's first start this runs while the first
-        // screen draws, and one long burst would hold the page still.
-        const { visits, readings } = await judgedDemo(engine);
-        const tx = db.transaction(['instruments', 'settings', 'visits', 'readings'], 'readwrite');
-        if ((await tx.objectStore('settings').get('demoLoaded')) && !force) {
-          await tx.done; // another tab loaded it meanwhile
-          return false;
-        }
         // What is there already stays as it is (a demo record the user edited is not put back): one key list per
-        // store, then only the missing records are written, none of them awaited one by one.
+        // store, then only the missing records are written.
+        const keys = db.transaction(['instruments', 'visits', 'readings']);
         const [haveInstruments, haveVisits, haveReadings] = await Promise.all(
-          (['instruments', 'visits', 'readings'] as const).map(async (n) => new Set(await tx.objectStore(n).getAllKeys())),
+          (['instruments', 'visits', 'readings'] as const).map(async (n) => new Set(await keys.objectStore(n).getAllKeys())),
         );
-        const writes: Promise<unknown>[] = [];
-        for (const p of demoInstruments) if (!haveInstruments.has(p.id)) writes.push(tx.objectStore('instruments').put({ ...p }));
-        for (const v of visits) if (!haveVisits.has(v.id)) writes.push(tx.objectStore('visits').put({ ...v }));
-        for (const r of readings) if (!haveReadings.has(r.id)) writes.push(tx.objectStore('readings').put(r));
-        writes.push(tx.objectStore('settings').put({ key: 'demoLoaded', value: true }));
-        await Promise.all(writes);
-        await tx.done;
-        return true;
+        const first = db.transaction('instruments', 'readwrite');
+        await Promise.all([...demoInstruments.filter((p) => !haveInstruments.has(p.id)).map((p) => first.store.put({ ...p })), first.done]);
+        // Then one visit per task, judged and written in a transaction of its own: on a phone's first start this
+        // runs while the first screen draws, and one long burst (over a hundred readings judged and written)
+        // would hold the page still. A start cut short loads what is still missing next time: the mark that the
+        // demo is loaded is written last.
+        for (const { visit, readings } of judgedDemo(engine)) {
+          const tx = db.transaction(['visits', 'readings'], 'readwrite');
+          const writes: Promise<unknown>[] = [tx.done];
+          if (!haveVisits.has(visit.id)) writes.push(tx.objectStore('visits').put({ ...visit }));
+          for (const r of readings) if (!haveReadings.has(r.id)) writes.push(tx.objectStore('readings').put(r));
+          await Promise.all(writes);
+          await nextTask();
+        }
+        const mark = db.transaction('settings', 'readwrite');
+        const already = !force && (await mark.store.get('demoLoaded'));
+        if (!already) await mark.store.put({ key: 'demoLoaded', value: true });
+        await mark.done;
+        return !already; // another tab may have finished first: then this one only filled in what was missing
       }),
 
     removeDemo: () =>

@@ -8,8 +8,19 @@ import { FieldModeToggle } from './components/FieldModeToggle';
 import { usePath } from './router';
 import { routeFor } from './routes';
 
-/** The store's physics: the engine's scan law, and isotope ratios from ion formulas for the calibrant check. */
-const storeEngine: EngineFunctions = { ...defaultEngine, isotopeM1: (formula) => isotopeRatioM1(formula) };
+/**
+ * The store's physics: the engine's scan law, and isotope ratios from ion formulas for the calibrant check (each
+ * formula's pattern worked out once: judging a visit asks for the same calibrant ions again and again).
+ */
+const isotopeM1Cache = new Map<string, ReturnType<typeof isotopeRatioM1>>();
+const storeEngine: EngineFunctions = {
+  ...defaultEngine,
+  isotopeM1: (formula) => {
+    let known = isotopeM1Cache.get(formula);
+    if (!known) isotopeM1Cache.set(formula, (known = isotopeRatioM1(formula)));
+    return { ...known };
+  },
+};
 
 interface Toast {
   id: number;
