@@ -1,41 +1,44 @@
 // Loading and removing the invented demo scenario (the data itself is in demoData.ts).
 import { assess, catalogue, checkEntry, nextTask, pickBaselineVisit, type Reading, type Visit } from '../records';
 import type { Store, StoreContext } from './api';
-import { demoInstruments, demoReadings, demoVisits } from './demoData';
+import { demoInstruments, demoReadings, demoVisits, type DemoReadingSeed } from './demoData';
 import { guard, StoreError } from './errors';
 import { deleteVisitIn } from './visits';
 
 export * from './demoData';
 
-/** The demo readings of one visit, judged by the same rules as real ones against the baseline known by then. */
-function demoReadingsOf(v: Visit, baseline: { visit: Visit; readings: Reading[] } | undefined, engine: StoreContext['engine']): Reading[] {
+/** One demo reading, judged by the same rules as real ones against the baseline known by then. */
+function judgedSeed(seed: DemoReadingSeed, v: Visit, baseline: { visit: Visit; readings: Reading[] } | undefined, engine: StoreContext['engine']): Reading {
   const instrument = demoInstruments.find((i) => i.id === v.instrumentId);
-  return demoReadings.filter((r) => r.visitId === v.id).map((seed) => {
-    const type = catalogue.find((t) => t.id === seed.typeId)!;
-    const entry = checkEntry(type, seed.text, seed.unitId, seed.context ?? {});
-    if (!entry.ok) throw new StoreError(`Demo data is inconsistent (${Object.values(entry.errors).join(' ')}).`);
-    const unit = type.units.find((u) => u.id === seed.unitId)!;
-    const verdict = assess(type, instrument, v.id, entry.value, entry.context, baseline, engine);
-    return {
-      id: `demo-rdg-${v.id.replace(/^demo-visit-/, '')}-${seed.phase}-${seed.typeId}${seed.context?.mz ? `-${seed.context.mz}` : ''}`,
-      visitId: v.id, instrumentId: v.instrumentId, typeId: type.id, phase: seed.phase, value: entry.value,
-      entered: { text: seed.text, unit: unit.label }, context: entry.context, ...verdict,
-      note: seed.note ?? '', takenAt: seed.takenAt ?? new Date(Date.parse(v.startedAt) + (seed.phase === 'as-left' ? 5 : 1) * 3600_000).toISOString(),
-      origin: 'entered', demo: true,
-    };
-  });
+  const type = catalogue.find((t) => t.id === seed.typeId)!;
+  const entry = checkEntry(type, seed.text, seed.unitId, seed.context ?? {});
+  if (!entry.ok) throw new StoreError(`Demo data is inconsistent (${Object.values(entry.errors).join(' ')}).`);
+  const unit = type.units.find((u) => u.id === seed.unitId)!;
+  const verdict = assess(type, instrument, v.id, entry.value, entry.context, baseline, engine);
+  return {
+    id: `demo-rdg-${v.id.replace(/^demo-visit-/, '')}-${seed.phase}-${seed.typeId}${seed.context?.mz ? `-${seed.context.mz}` : ''}`,
+    visitId: v.id, instrumentId: v.instrumentId, typeId: type.id, phase: seed.phase, value: entry.value,
+    entered: { text: seed.text, unit: unit.label }, context: entry.context, ...verdict,
+    note: seed.note ?? '', takenAt: seed.takenAt ?? new Date(Date.parse(v.startedAt) + (seed.phase === 'as-left' ? 5 : 1) * 3600_000).toISOString(),
+    origin: 'entered', demo: true,
+  };
 }
 
 /**
- * Every demo visit in date order with its readings, each judged against the baseline known by then: one visit
- * per step of the generator.
+ * Every demo visit in date order with its readings, each judged against the baseline known by then. One reading
+ * per step: a step yields null, or a visit with all its readings once its last one is judged.
  */
-function* judgedDemo(engine: StoreContext['engine']): Generator<{ visit: Visit; readings: Reading[] }, void, void> {
+function* judgedDemo(engine: StoreContext['engine']): Generator<{ visit: Visit; readings: Reading[] } | null, void, void> {
   const visits = [...demoVisits].sort((a, b) => (a.startedAt < b.startedAt ? -1 : 1));
   const done = new Map<string, Reading[]>();
   for (const visit of visits) {
     const baselineVisit = pickBaselineVisit(visits.filter((x) => x.instrumentId === visit.instrumentId && x.startedAt <= visit.startedAt));
-    const readings = demoReadingsOf(visit, baselineVisit ? { visit: baselineVisit, readings: done.get(baselineVisit.id) ?? [] } : undefined, engine);
+    const baseline = baselineVisit ? { visit: baselineVisit, readings: done.get(baselineVisit.id) ?? [] } : undefined;
+    const readings: Reading[] = [];
+    for (const seed of demoReadings.filter((r) => r.visitId === visit.id)) {
+      readings.push(judgedSeed(seed, visit, baseline, engine));
+      yield null;
+    }
     done.set(visit.id, readings);
     yield { visit, readings };
   }
@@ -54,17 +57,19 @@ export function demoMethods({ db, engine }: StoreContext): Pick<Store, 'loadDemo
         );
         const first = db.transaction('instruments', 'readwrite');
         await Promise.all([...demoInstruments.filter((p) => !haveInstruments.has(p.id)).map((p) => first.store.put({ ...p })), first.done]);
-        // Then one visit per task, judged and written in a transaction of its own: on a phone's first start this
-        // runs while the first screen draws, and one long burst (over a hundred readings judged and written)
-        // would hold the page still. A start cut short loads what is still missing next time: the mark that the
-        // demo is loaded is written last.
-        for (const { visit, readings } of judgedDemo(engine)) {
+        // Then one reading judged per task, and each visit written in a transaction of its own: on a phone's first
+        // start this runs while the first screen draws, and one long burst (over a hundred readings judged and
+        // written) would hold the page still. A start cut short loads what is still missing next time: the mark
+        // that the demo is loaded is written last.
+        for (const step of judgedDemo(engine)) {
+          await nextTask();
+          if (!step) continue;
+          const { visit, readings } = step;
           const tx = db.transaction(['visits', 'readings'], 'readwrite');
           const writes: Promise<unknown>[] = [tx.done];
           if (!haveVisits.has(visit.id)) writes.push(tx.objectStore('visits').put({ ...visit }));
           for (const r of readings) if (!haveReadings.has(r.id)) writes.push(tx.objectStore('readings').put(r));
           await Promise.all(writes);
-          await nextTask();
         }
         const mark = db.transaction('settings', 'readwrite');
         const already = !force && (await mark.store.get('demoLoaded'));

@@ -112,6 +112,8 @@ describe('Bench and Stability, offline on a phone-sized screen', () => {
     const card69 = page.locator('[data-testid="expected-card"][data-mz="69"]');
     await expect.poll(() => card69.locator('[data-testid="rf-readback"] .result-value').textContent()).toBe('100.91 V 0-p');
     expect(await card69.locator('[data-testid="dc-readback"] .result-value').textContent()).toBe('16.936 V DC');
+    // The caution line's full card is one tap away.
+    await page.locator('[data-testid="hv-short"] summary').click();
     expect(await page.locator('[data-testid="hv-caution"]').textContent()).toMatch(/maker's procedures/);
     // One tap notes the value in the instrument's current visit, offline.
     await card69.locator('[data-testid="rf-readback"] button').click();

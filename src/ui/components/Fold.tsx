@@ -39,22 +39,37 @@ export function InputsFold(props: { id: string; summary: string; invalid?: boole
   );
 }
 
+/**
+ * What a closed disclosure holds is built the first time it opens, and kept from then on (so anything typed in it
+ * stays while it is closed again). A screen's first draw then builds only what is on show: on a phone the closed
+ * cards and tools below the answer were most of the first draw's work.
+ */
+function useShownOnce(open: boolean | undefined): [boolean, (e: Event) => void] {
+  const [shown, setShown] = useState(!!open);
+  const onToggle = (e: Event) => {
+    if ((e.currentTarget as HTMLDetailsElement).open) setShown(true);
+  };
+  return [shown || !!open, onToggle];
+}
+
 /** A one-line caution whose full card is one tap away (for screens that only compute). */
 export function CautionLine(props: { text: ComponentChildren; children: ComponentChildren; testId?: string }) {
+  const [shown, onToggle] = useShownOnce(false);
   return (
-    <details class="caution-line" data-testid={props.testId}>
+    <details class="caution-line" data-testid={props.testId} onToggle={onToggle}>
       <summary><span class="caution-mark" aria-hidden="true">⚠</span><span>{props.text}</span></summary>
-      <div class="caution-line-body">{props.children}</div>
+      <div class="caution-line-body">{shown && props.children}</div>
     </details>
   );
 }
 
 /** Secondary material (assumptions, sources, conventions, further tools) behind a full-height disclosure. */
 export function More(props: { title: ComponentChildren; children: ComponentChildren; testId?: string; open?: boolean; class?: string }) {
+  const [shown, onToggle] = useShownOnce(props.open);
   return (
-    <details class={props.class ? `card more ${props.class}` : 'card more'} data-testid={props.testId} open={props.open}>
+    <details class={props.class ? `card more ${props.class}` : 'card more'} data-testid={props.testId} open={props.open} onToggle={onToggle}>
       <summary><strong>{props.title}</strong></summary>
-      <div class="more-body">{props.children}</div>
+      <div class="more-body">{shown && props.children}</div>
     </details>
   );
 }

@@ -9,7 +9,7 @@ import { buildPeakRun, peakDefaults } from '../../../src/ui/peak/peakInputs';
 import { SimClient, type WorkerLike } from '../../../src/worker/client';
 import { runRequest, type SimRequest, type SimResponse } from '../../../src/worker/simProtocol';
 import { formatNumber } from '../../../src/ui/format';
-import { demo, mount, texts, typeInto, waitFor, type Harness } from '../ui/appHarness';
+import { demo, mount, openDisclosure, texts, typeInto, waitFor, type Harness } from '../ui/appHarness';
 
 // uPlot needs a real canvas; the chart wrapper has its own tests upstream. Here a stand-in records the data.
 vi.mock('../../../src/ui/components/Chart', () => ({
@@ -138,6 +138,7 @@ describe('PeakSimulation', () => {
     await waitFor(() => fieldValue('peak-mz') === '100', 'the kept inputs on screen');
     const first = await pendingRun(workers, 'the first peak run to reach its worker');
     await act(async () => first.flush());
+    await openDisclosure(h.root, 'Transmission against resolution');
     const button = await waitFor(() => [...h!.root.querySelectorAll('button')].find((b) => b.textContent === 'Compute the curve'), 'the “Compute the curve” button');
     await act(async () => button.click());
     expect(h.root.querySelector('[data-testid="peak-curve"] progress')).not.toBeNull();

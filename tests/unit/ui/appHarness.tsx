@@ -88,6 +88,19 @@ export async function typeInto(root: HTMLElement, id: string, text: string): Pro
   });
 }
 
+/**
+ * Open a closed disclosure as a user does, by tapping its summary: `which` is the disclosure's data-testid or
+ * part of its summary text. What a closed disclosure holds is built when it first opens (Fold.tsx).
+ */
+export async function openDisclosure(root: HTMLElement, which: string): Promise<HTMLDetailsElement> {
+  const all = [...root.querySelectorAll<HTMLDetailsElement>('details')];
+  const found = all.find((d) => d.dataset.testid === which) ?? all.find((d) => d.querySelector('summary')?.textContent?.includes(which));
+  if (!found) throw new Error(`no disclosure "${which}"`);
+  if (!found.open) await act(async () => found.querySelector('summary')!.click());
+  await waitFor(() => found.open && (found.lastElementChild?.childNodes.length ?? 0) > 0, `the disclosure "${which}" open with its content`);
+  return found;
+}
+
 export function texts(root: ParentNode, selector: string): string[] {
   return [...root.querySelectorAll(selector)].map((e) => (e.textContent ?? '').replace(/\s+/g, ' ').trim());
 }

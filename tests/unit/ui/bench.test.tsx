@@ -9,7 +9,7 @@ import {
 } from '../../../src/engine';
 import { Voltages } from '../../../src/ui/bench/Voltages';
 import { formatNumber } from '../../../src/ui/format';
-import { demo, mount, texts, typeInto, waitFor, type Harness } from './appHarness';
+import { demo, mount, openDisclosure, texts, typeInto, waitFor, type Harness } from './appHarness';
 
 let h: Harness | null = null;
 afterEach(async () => {
@@ -42,7 +42,8 @@ describe('Bench · expected voltages (Kestrel: r0 4.5 mm, 1 MHz, read-backs 0-p 
     expectWithin(shown(69, 'rf-readback'), 100.91, 5e-4, 'V0p at m/z 69');
     expectWithin(shown(69, 'dc-readback'), 16.94, 5e-4, 'U at m/z 69');
     expectWithin(shown(502, 'rf-readback'), 734.13, 5e-4, 'V0p at m/z 502');
-    // 100.9 V peak on a rod is above IEC 61010-1's 46.7 V peak: the caution card and tags show.
+    // 100.9 V peak on a rod is above IEC 61010-1's 46.7 V peak: the caution line, its card a tap away, and tags show.
+    await openDisclosure(h.root, 'hv-short');
     expect(h.root.querySelector('[data-testid="hv-caution"]')?.textContent).toMatch(/maker's procedures/);
     expect(texts(card(h.root, 69), '.tag-hv')).toEqual(['⚠ hazardous live']);
     // Top of the mass range from the supply's 1600 V.
@@ -106,6 +107,7 @@ describe('Bench · expected voltages (Kestrel: r0 4.5 mm, 1 MHz, read-backs 0-p 
   it('inverse: a measured 201.82 V p-p at m/z 69 set passes m/z from the engine, with error in u and ppm', async () => {
     const k = demo('kestrel');
     h = await mount(<Voltages />, k);
+    await openDisclosure(h.root, 'Which m/z does a measured RF pass?');
     // One tap on the probe convention: peak-to-peak (Kestrel reads back zero-to-peak per rod).
     const pp = [...h.root.querySelectorAll<HTMLButtonElement>('[data-testid="inv-convention"] button')].find((b) => b.textContent === 'peak-to-peak')!;
     await act(async () => { pp.click(); });
@@ -126,6 +128,7 @@ describe('Bench · expected voltages (Kestrel: r0 4.5 mm, 1 MHz, read-backs 0-p 
 
   it('proportionality: read-backs 100.9, 320.3, 734.1 V at 69/219/502 give k and a ✓ within 1 %; 760 V at 502 gives ✗', async () => {
     h = await mount(<Voltages />, demo('kestrel'));
+    await openDisclosure(h.root, 'Proportionality check from read-backs');
     await typeInto(h.root, 'prop-rf-1', '100.9');
     await typeInto(h.root, 'prop-rf-2', '320.3');
     await typeInto(h.root, 'prop-rf-3', '734.1');

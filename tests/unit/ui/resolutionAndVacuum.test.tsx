@@ -7,7 +7,7 @@ import {
 import { ResolutionPlanner } from '../../../src/ui/stability/ResolutionPlanner';
 import { VacuumCheck } from '../../../src/ui/bench/VacuumCheck';
 import { formatNumber, formatSi } from '../../../src/ui/format';
-import { demo, mount, texts, typeInto, waitFor, type Harness } from './appHarness';
+import { demo, mount, openDisclosure, texts, typeInto, waitFor, type Harness } from './appHarness';
 
 let h: Harness | null = null;
 afterEach(async () => {
@@ -42,6 +42,7 @@ describe('Stability · resolution planner (Kestrel: rods 150 mm, 1 MHz, 5 eV)', 
 
   it('reverse: m/Δm 1000 needs U/V 0.167714 by the rule (Miller & Denton, J. Chem. Educ. 63 (1986) 617) and the exact value from the edges', async () => {
     h = await mount(<ResolutionPlanner />, demo('kestrel'));
+    await openDisclosure(h.root, 'reverse-fold');
     const r = ratioForResolution(1000);
     expect(shown(h.root, 'rev-exact')).toBe(formatNumber(r.exact, 7));
     expect(shown(h.root, 'rev-rule')).toBe('0.167714');
@@ -53,6 +54,7 @@ describe('Stability · resolution planner (Kestrel: rods 150 mm, 1 MHz, 5 eV)', 
 
   it('scan planning: 50–550 u in 0.1 u at 2 ms, 4 scans', async () => {
     h = await mount(<ResolutionPlanner />, demo('kestrel'));
+    await openDisclosure(h.root, 'Scan planning');
     const plan = scanPlan({ mzStart: 50, mzEnd: 550, step: 0.1, dwell: 0.002, scans: 4 });
     expect(shown(h.root, 'plan-time-per-scan')).toBe(formatSi(plan.timePerScan, 's', 3));
     expect(shown(h.root, 'plan-total')).toBe(formatSi(plan.totalTime, 's', 3));

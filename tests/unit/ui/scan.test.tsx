@@ -12,7 +12,7 @@ import { NotFoundScreen } from '../../../src/ui/screens/NotFoundScreen';
 import { massAxisTree } from '../../../src/diagnose/trees/massAxis';
 import { SimClient, type WorkerLike } from '../../../src/worker/client';
 import { runRequest, type SimRequest, type SimResponse } from '../../../src/worker/simProtocol';
-import { demo, mount, texts, typeInto, waitFor, type Harness } from './appHarness';
+import { demo, mount, openDisclosure, texts, typeInto, waitFor, type Harness } from './appHarness';
 
 let h: Harness | null = null;
 afterEach(async () => {
@@ -156,6 +156,7 @@ describe('Scan · measured scan and verdict', () => {
     await click(h.root.querySelector('[data-testid="fit-run"]'));
     const verdict = await waitFor(() => h!.root.querySelector('[data-testid="fit-verdict"]')?.textContent, 'the verdict', 120_000);
     expect(verdict).toMatch(/^(Explained by the operating point|Not explained by the operating point): \S/);
+    await openDisclosure(h.root, 'What the model leaves out');
     expect(h.root.querySelector('[data-testid="fit-limits"]')?.textContent).toMatch(/no fringe fields/);
     expect(h.root.textContent).not.toMatch(/NaN/);
     await click(h.root.querySelector('[data-testid="fit-offset"] button'));

@@ -4,7 +4,7 @@ import { act } from 'preact/test-utils';
 import { constantWidthScanLine, operatingPoint, passBandDetail, scanPoint } from '../../../src/engine';
 import { StabilityDiagram } from '../../../src/ui/stability/StabilityDiagram';
 import { formatNumber } from '../../../src/ui/format';
-import { demo, mount, texts, typeInto, waitFor, type Harness } from './appHarness';
+import { demo, mount, openDisclosure, texts, typeInto, waitFor, type Harness } from './appHarness';
 
 let h: Harness | null = null;
 afterEach(async () => {
@@ -26,6 +26,7 @@ describe('Stability · diagram (Kestrel)', () => {
     expect(texts(h.root, '[data-testid="band-ratio"] .result-value')[0]).toBe(formatNumber(sp.dc / sp.rf, 6));
     // 100 V on the rods is hazardous live: a one-line caution sits beside the values, its full card (with the
     // deferral) one tap away.
+    await openDisclosure(h.root, 'hv-short');
     expect(h.root.querySelector('[data-testid="hv-short"] [data-testid="hv-caution"]')?.textContent).toMatch(/maker's procedures/);
     // The band is centred on the set m/z and is 1 u wide at the reference m/z 219 (constant-width line).
     expect(Math.abs((band.low + band.high) / 2 - 69)).toBeLessThan(1e-6);
