@@ -69,6 +69,7 @@ export function* firstRegionBoundarySteps(points = 1000, perStep = 25): Generato
   checkNumber('perStep', perStep, { min: 1, max: 1_000_000, integer: true });
   const apex = firstRegionApex();
   const qEnd = rfOnlyEdgeQ();
+  if (perStep < points) yield 0; // the apex and the a = 0 edge, by root finding, are a step of their own
   // Left segment [0, apex] and right segment (apex, qEnd], split in proportion to length.
   const leftCount = Math.max(2, Math.min(points - 1, Math.round((points - 1) * (apex.q / qEnd)) + 1));
   const rightCount = points - leftCount;

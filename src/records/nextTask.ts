@@ -19,11 +19,11 @@ export function nextTask(): Promise<void> {
   return new Promise((resolve) => setTimeout(resolve, 0));
 }
 
-/** Runs a stepped computation to its end, one step per task, and returns its result. */
+/** Runs a stepped computation to its end, one step per task (the first one too), and returns its result. */
 export async function runInSteps<T>(steps: Generator<unknown, T, void>): Promise<T> {
   for (;;) {
+    await nextTask();
     const r = steps.next();
     if (r.done) return r.value;
-    await nextTask();
   }
 }

@@ -10,6 +10,7 @@ import { FIELD_MODE_EVENT, fieldModeActive } from '../fieldMode';
 import type uPlot from 'uplot';
 import { whenIdle } from '../idle';
 import { formatTick } from '../format';
+import { nextTask } from '../../records';
 
 // uPlot is loaded and evaluated after the screen's first paint, in idle time: its module sets up number and date
 // formatting at load, the first use of the browser's locale data, which is a long task on a phone. The chart keeps
@@ -142,10 +143,15 @@ export function Chart(props: ChartProps) {
     }
     let live = true;
     let teardown: (() => void) | null = null;
+    // Loading the library (its module is evaluated then) and drawing are separate tasks: together they would be
+    // one long one on a phone.
     const cancelIdle = whenIdle(() => {
-      loadUplot().then((UPlot) => {
-        if (live) teardown = draw(UPlot, el);
-      }, () => live && setLoadFailed(true));
+      loadUplot().then(
+        (UPlot) => nextTask().then(() => {
+          if (live) teardown = draw(UPlot, el);
+        }),
+        () => live && setLoadFailed(true),
+      );
     }, 1000);
     return () => {
       live = false;
@@ -262,6 +268,8 @@ function ChartTools(props: { zoom?: (factor: number) => void; reset?: () => void
  * that replaces it: when the data arrives, nothing around it moves.
  */
 export function ChartReserve(props: { height?: number; zoomButtons?: boolean; label: string; testId?: string }) {
+  // The chart library loads meanwhile, in idle time, so the chart is drawn as soon as its data is there.
+  useEffect(() => whenIdle(() => void loadUplot().catch(() => undefined), 1000), []);
   return (
     <figure class="chart-figure" data-testid={props.testId}>
       {props.zoomButtons && <ChartTools />}

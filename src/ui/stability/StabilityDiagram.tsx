@@ -47,20 +47,12 @@ export const HIT_RADIUS = 32;
 
 const WHOLE = { x: [0, Q_MAX] as [number, number], y: [-0.02, 0.32] as [number, number] };
 
-export function StabilityDiagram() {
-  const { instrument } = useApp();
-  const [inputs, update, inputsProblem] = usePersistentInputs<StabilityInputs>('stability', stabilityDefaults);
-  const [selected, setSelected] = useState<number | null>(null);
-  const [view, setView] = useState<{ key: number; ranges: Record<string, [number, number]> } | null>(null);
-  const [tapMiss, setTapMiss] = useState(false);
-  const pointsRef = useRef<PlottedPoint[]>([]);
-  const selectedRef = useRef<number | null>(null);
-  selectedRef.current = selected;
-  const options = useMemo(() => (palette: ChartPalette) => chartOptions(palette, pointsRef, selectedRef), []);
-  const boundary = useBoundary();
-
-  if (!instrument) return <NeedInstrument key="no-instrument">Pick or add an instrument first: the diagram uses its geometry.</NeedInstrument>;
-  const profile = instrument;
+/**
+ * Where the filter is set and where each listed m/z sits: U and V (from the scan line or as measured), the operating
+ * points and the pass band, with the messages for the fields. Root finding on the exact edges: worked out once
+ * per inputs and instrument, not on every redraw.
+ */
+function operatingModel(inputs: StabilityInputs, profile: InstrumentProfile) {
   const r0 = profile.rodFieldRadius;
   const frequency = profile.rfFrequency;
   const errors: FieldErrors = {};
@@ -109,8 +101,31 @@ export function StabilityDiagram() {
       if (op) points.push({ mz, set: mz === setMz.value, op });
     }
   }
-  pointsRef.current = points;
   const band = dc !== null && rf !== null && rf > 0 ? tryEngine(() => passBandDetail({ dc: dc!, rf: rf!, r0, frequency }), { dc: uField, rf: vField }, errors, vField) : null;
+  return { errors, setMz, list, readForm, readDc, dc, rf, lineDescription, measured, points, band };
+}
+
+export function StabilityDiagram() {
+  const { instrument } = useApp();
+  const [inputs, update, inputsProblem] = usePersistentInputs<StabilityInputs>('stability', stabilityDefaults);
+  const [selected, setSelected] = useState<number | null>(null);
+  const [view, setView] = useState<{ key: number; ranges: Record<string, [number, number]> } | null>(null);
+  const [tapMiss, setTapMiss] = useState(false);
+  const pointsRef = useRef<PlottedPoint[]>([]);
+  const selectedRef = useRef<number | null>(null);
+  selectedRef.current = selected;
+  const options = useMemo(() => (palette: ChartPalette) => chartOptions(palette, pointsRef, selectedRef), []);
+  const boundary = useBoundary();
+
+  // inputsKey stands for the inputs' content (the object itself may be rebuilt on a redraw).
+  const inputsKey = JSON.stringify(inputs);
+  // eslint-disable-next-line react-hooks/exhaustive-deps
+  const model = useMemo(() => (instrument ? operatingModel(inputs, instrument) : null), [inputsKey, instrument]);
+
+  if (!instrument || !model) return <NeedInstrument key="no-instrument">Pick or add an instrument first: the diagram uses its geometry.</NeedInstrument>;
+  const profile = instrument;
+  const { errors, setMz, list, readForm, readDc, dc, rf, lineDescription, measured, points, band } = model;
+  pointsRef.current = points;
   const setPoint = points.find((p) => p.set) ?? null;
   const slope = setPoint && setPoint.op.q > 0 ? setPoint.op.a / setPoint.op.q : null;
   const showIso = inputs.isoBeta === 'yes';

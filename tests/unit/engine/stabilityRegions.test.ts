@@ -100,8 +100,9 @@ describe('first stability region: boundary arrays', () => {
       fractions.push(r.value);
       r = steps.next();
     }
-    expect(fractions).toHaveLength(15); // 64, 128, … 960 of 1000 samples
-    expect(fractions[0]).toBe(0.064);
+    expect(fractions).toHaveLength(16); // the apex and the a = 0 edge, then 64, 128, … 960 of 1000 samples
+    expect(fractions[0]).toBe(0);
+    expect(fractions[1]).toBe(0.064);
     for (let i = 1; i < fractions.length; i++) expect(fractions[i]).toBeGreaterThan(fractions[i - 1]);
     for (const key of ['q', 'xEdge', 'yEdge', 'upper', 'lower'] as const) expect(r.value[key]).toEqual(boundary[key]);
     expect(r.value.apexIndex).toBe(boundary.apexIndex);
