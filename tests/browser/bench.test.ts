@@ -64,6 +64,8 @@ describe('Bench and Stability, offline on a phone-sized screen', () => {
   it('the resolution planner gets the transmission cost from the peak worker, offline', async () => {
     const page = app.session!.page;
     await page.goto(origin + '/stability/resolution');
+    // The setting for a target resolution, with its transmission cost, is one tap away.
+    await page.locator('[data-testid="reverse-fold"] summary').click();
     const loss = page.locator('[data-testid="transmission-loss"]');
     await expect.poll(() => loss.textContent(), { timeout: 30_000 }).toMatch(/Resolving to m\/Δm 1000 costs \d+(\.\d+)? % of the ions/);
     const target = Number((await page.locator('[data-testid="transmission-target"] .result-value').textContent())!.replace(' %', ''));
@@ -79,7 +81,10 @@ describe('Bench and Stability, offline on a phone-sized screen', () => {
       await expect.poll(() => page.locator('main h1').first().textContent(), { timeout: 10_000 }).toMatch(/\S/);
       if (path === '/bench') await expect.poll(() => page.locator('[data-testid="expected-card"]').count()).toBeGreaterThan(0);
       if (path === '/stability') await expect.poll(() => canvasInkedPixels('[data-testid="stability-chart"]')).toBeGreaterThan(1000);
-      if (path === '/stability/resolution') await expect.poll(() => page.locator('[data-testid="scan-plan"]').count()).toBe(1);
+      if (path === '/stability/resolution') {
+        await page.locator('summary', { hasText: 'Scan planning' }).click();
+        await expect.poll(() => page.locator('[data-testid="scan-plan"]').count()).toBe(1);
+      }
       await screenshot(page, `bench-suite-${name}`);
       const violations = await axeSeriousOrCritical();
       if (violations.length) problems.push(`${path}: ${violations.join(' | ')}`);

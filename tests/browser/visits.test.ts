@@ -105,6 +105,8 @@ describe('visit log offline', () => {
     await page.goto(origin + visitPath);
     await expect.poll(() => rows(page, 'as-found')).toEqual([expect.stringMatching(/1900 V.*✓ pass/)]);
     await page.goto(origin + '/visits');
+    // The trends are one tap away, and drawn when opened.
+    await page.locator('[data-testid="trend-fold"] summary').click();
     await expect.poll(() => page.locator('[data-testid="trend-panel"]').count()).toBe(1);
   });
 
