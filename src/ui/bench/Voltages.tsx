@@ -3,6 +3,7 @@
 import {
   convertDc, convertRf, DC_FORMS, hazardousLive, massRangeTop, RF_FORMS, type HazardousLiveResult,
 } from '../../engine';
+import { useMemo } from 'preact/hooks';
 import type { InstrumentProfile } from '../../store';
 import { NumberField } from '../components/Field';
 import { CautionLine, InputsFold, More } from '../components/Fold';
@@ -37,18 +38,29 @@ export function benchDefaults(p: InstrumentProfile | null): BenchInputs {
   };
 }
 
-export function Voltages() {
-  const { instrument } = useApp();
-  const [inputs, update, inputsProblem] = usePersistentInputs<BenchInputs>('bench', benchDefaults);
-  // Keyed, so the notice shown while the database opens is never reused (moved) as a notice of the filled screen.
-  if (!instrument) return <NeedInstrument key="no-instrument">Pick or add an instrument first: every expected value comes from its profile.</NeedInstrument>;
-  const profile = instrument;
+/** The scan line, the expected U and V for each listed m/z, and the top of the mass range, with field messages. */
+function expectedModel(inputs: BenchInputs, profile: InstrumentProfile) {
   const errors: FieldErrors = {};
   const list = parseMzList(inputs.mzList);
   if (!list.ok) errors.mz = list.message;
   const built = buildScanLine(inputs, profile, errors);
   const rows = list.ok && built ? list.values.map((mz) => expectedFor(mz, built, profile, errors, 'mz')) : [];
   const top = tryEngine(() => massRangeTop({ maxRf: profile.maxRfAmplitude, r0: profile.rodFieldRadius, frequency: profile.rfFrequency }), { maxRf: 'profile', r0: 'profile', frequency: 'profile' }, errors, 'profile');
+  return { errors, list, built, rows, top };
+}
+
+export function Voltages() {
+  const { instrument } = useApp();
+  const [inputs, update, inputsProblem] = usePersistentInputs<BenchInputs>('bench', benchDefaults);
+  // The scan line and the expected values (root finding on the exact edges for some lines): worked out once per
+  // inputs and instrument, not on every redraw. inputsKey stands for the inputs' content.
+  const inputsKey = JSON.stringify(inputs);
+  // eslint-disable-next-line react-hooks/exhaustive-deps
+  const model = useMemo(() => (instrument ? expectedModel(inputs, instrument) : null), [inputsKey, instrument]);
+  // Keyed, so the notice shown while the database opens is never reused (moved) as a notice of the filled screen.
+  if (!instrument || !model) return <NeedInstrument key="no-instrument">Pick or add an instrument first: every expected value comes from its profile.</NeedInstrument>;
+  const profile = instrument;
+  const { errors, list, built, rows, top } = model;
   const readForm = rfFormOf(profile.readbackConvention);
   const readDc = dcFormOf(profile.readbackConvention);
   // Far beyond any supply (tens of megavolts) there is nothing useful to convert: say so instead.

@@ -40,14 +40,17 @@ const SETTLE_MS = 40;
  */
 const COARSE_WAIT_MS = 600;
 
-/** Progress is redrawn when it has moved by at least this fraction. */
+/** Progress is redrawn when it has moved by at least this fraction, and at most once in this time. */
 const PROGRESS_STEP = 0.05;
+const PROGRESS_EVERY_MS = 250;
 
 interface ActiveRun {
   key: string;
   controller: AbortController;
   /** Date.now() of the last progress message (0: none yet). */
   lastProgress: number;
+  /** Date.now() when progress was last put on screen (0: not yet). */
+  progressShownAt: number;
   /** While a newer input waits for this run's coarse profile: when the wait ends. */
   waitUntil: number | null;
   coarseShown: boolean;
@@ -109,7 +112,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     cancelActive();
     const next = wanted.current;
     if (!next) return;
-    const entry: ActiveRun = { key: next.key, controller: new AbortController(), lastProgress: 0, waitUntil: null, coarseShown: false };
+    const entry: ActiveRun = { key: next.key, controller: new AbortController(), lastProgress: 0, progressShownAt: 0, waitUntil: null, coarseShown: false };
     active.current = entry;
     const handOver = (): void => {
       // A newer input waited for this run's coarse profile: start it now.
@@ -119,8 +122,12 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
       .run('peakProfile', next.params, {
         signal: entry.controller.signal,
         onProgress: (f) => {
-          entry.lastProgress = clock();
+          const now = clock();
+          entry.lastProgress = now;
           if (active.current !== entry) return;
+          // At most a few redraws a second for the progress line: each is a redraw of the whole screen.
+          if (entry.progressShownAt !== 0 && now - entry.progressShownAt < PROGRESS_EVERY_MS && f < 1) return;
+          entry.progressShownAt = now;
           // The line shows whole per cent in steps of PROGRESS_STEP: a redraw for every 1 % report would keep
           // the main thread busy while the worker computes.
           setPeak((s) => {
