@@ -212,6 +212,34 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     return [rows.map((x) => x[0]), rows.map((x) => x[1])] as [number[], number[]];
   }, [curve]);
 
+  // The settings form is drawn again only when the inputs (or the instrument) change: a run's progress and results,
+  // arriving while the worker computes, redraw the result card alone.
+  const form = useMemo(() => instrument && (
+      <InputsFold id="peak-inputs-fold" testId="peak-fold" invalid={Object.keys(errors).some((k) => k !== 'profile')}
+        summary={`m/z ${inputs.mz.trim() || '—'} · m/Δm ${inputs.resolution.trim() || '—'} · ${inputs.axialVoltage.trim() || '—'} eV · beam ${inputs.beamRadiusMm.trim() || '—'} mm · transverse ${inputs.transverseEnergy.trim() || '—'} eV`}>
+        <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="peak-settings-title">
+          <h2 class="card-title" id="peak-settings-title">Settings · {instrument.name}</h2>
+          <div class="pair">
+            <NumberField id="peak-mz" label="m/z" unit="u" value={inputs.mz} error={errors.mz} onInput={(t) => update({ mz: t })} />
+            <NumberField id="peak-resolution" label="Ideal resolution m/Δm" value={inputs.resolution} error={errors.resolution}
+              onInput={(t) => update({ resolution: t })} hint="Sets U/V from the exact stability edges." />
+          </div>
+          <Slider id="peak-axial" label="Ion energy" unit="eV per charge" value={inputs.axialVoltage} range={SLIDERS.axialVoltage}
+            error={errors.axialVoltage} onInput={(t) => update({ axialVoltage: t })} />
+          <Slider id="peak-beam" label="Beam radius" unit="mm" value={inputs.beamRadiusMm} range={SLIDERS.beamRadiusMm}
+            error={errors.beamRadiusMm} onInput={(t) => update({ beamRadiusMm: t })} />
+          <Slider id="peak-transverse" label="Transverse energy" unit="eV" value={inputs.transverseEnergy} range={SLIDERS.transverseEnergy}
+            error={errors.transverseEnergy} onInput={(t) => update({ transverseEnergy: t })} />
+          {run && (
+            <p class="hint" data-testid="peak-operating">
+              U/V {formatNumber(run.ratio, 6)} · V {formatSi(run.rf, 'V 0-p')} and U {formatSi(run.dc, 'V')}, one rod to ground ·
+              ideal band {formatNumber(run.band.low, 6)}–{formatNumber(run.band.high, 6)} u · {formatNumber(run.cycles, 3)} RF cycles in the rods
+            </p>
+          )}
+        </form>
+      </InputsFold>
+  ), [inputsKey, run, errors, instrument]); // eslint-disable-line react-hooks/exhaustive-deps
+
   if (!instrument) return <NeedInstrument>Pick or add an instrument first: the simulation uses its field radius, rod length and frequency.</NeedInstrument>;
 
   function computeCurve() {
@@ -259,29 +287,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     <>
       <InstrumentLine profile={instrument} rods />
       <DraftProblem problem={inputsProblem} />
-      <InputsFold id="peak-inputs-fold" testId="peak-fold" invalid={Object.keys(errors).some((k) => k !== 'profile')}
-        summary={`m/z ${inputs.mz.trim() || '—'} · m/Δm ${inputs.resolution.trim() || '—'} · ${inputs.axialVoltage.trim() || '—'} eV · beam ${inputs.beamRadiusMm.trim() || '—'} mm · transverse ${inputs.transverseEnergy.trim() || '—'} eV`}>
-        <form class="card form" onSubmit={(e) => e.preventDefault()} aria-labelledby="peak-settings-title">
-          <h2 class="card-title" id="peak-settings-title">Settings · {instrument.name}</h2>
-          <div class="pair">
-            <NumberField id="peak-mz" label="m/z" unit="u" value={inputs.mz} error={errors.mz} onInput={(t) => update({ mz: t })} />
-            <NumberField id="peak-resolution" label="Ideal resolution m/Δm" value={inputs.resolution} error={errors.resolution}
-              onInput={(t) => update({ resolution: t })} hint="Sets U/V from the exact stability edges." />
-          </div>
-          <Slider id="peak-axial" label="Ion energy" unit="eV per charge" value={inputs.axialVoltage} range={SLIDERS.axialVoltage}
-            error={errors.axialVoltage} onInput={(t) => update({ axialVoltage: t })} />
-          <Slider id="peak-beam" label="Beam radius" unit="mm" value={inputs.beamRadiusMm} range={SLIDERS.beamRadiusMm}
-            error={errors.beamRadiusMm} onInput={(t) => update({ beamRadiusMm: t })} />
-          <Slider id="peak-transverse" label="Transverse energy" unit="eV" value={inputs.transverseEnergy} range={SLIDERS.transverseEnergy}
-            error={errors.transverseEnergy} onInput={(t) => update({ transverseEnergy: t })} />
-          {run && (
-            <p class="hint" data-testid="peak-operating">
-              U/V {formatNumber(run.ratio, 6)} · V {formatSi(run.rf, 'V 0-p')} and U {formatSi(run.dc, 'V')}, one rod to ground ·
-              ideal band {formatNumber(run.band.low, 6)}–{formatNumber(run.band.high, 6)} u · {formatNumber(run.cycles, 3)} RF cycles in the rods
-            </p>
-          )}
-        </form>
-      </InputsFold>
+      {form}
       {errors.profile && <p class="field-error" role="alert">Profile: {errors.profile}</p>}
 
 
