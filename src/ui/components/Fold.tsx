@@ -2,6 +2,7 @@
 // a one-line caution opens the full card in place; long secondary material waits behind a disclosure.
 import type { ComponentChildren } from 'preact';
 import { useEffect, useRef, useState } from 'preact/hooks';
+import { nextTask } from '../../records';
 
 /**
  * Inputs folded to a one-line summary ("m/z 69 · constant Δm 1 u — change"). The whole line is a button with
@@ -10,6 +11,17 @@ import { useEffect, useRef, useState } from 'preact/hooks';
  */
 export function InputsFold(props: { id: string; summary: string; invalid?: boolean; children: ComponentChildren; testId?: string }) {
   const [open, setOpen] = useState(!!props.invalid);
+  // The folded fields are built a task after the screen's first draw (at once if the fold opens first), so the
+  // answer is drawn without them; from then on they stay in the page.
+  const [built, setBuilt] = useState(!!props.invalid);
+  useEffect(() => {
+    if (built) return;
+    let live = true;
+    void nextTask().then(() => live && setBuilt(true));
+    return () => {
+      live = false;
+    };
+  }, [built]);
   const body = useRef<HTMLDivElement>(null);
   const focusFirst = useRef(false);
   useEffect(() => {
@@ -33,7 +45,7 @@ export function InputsFold(props: { id: string; summary: string; invalid?: boole
         <span class="visually-hidden">{open ? ' — fold the fields' : ' — change'}</span>
       </button>
       <div id={bodyId} ref={body} class="fold-body" hidden={!open}>
-        {props.children}
+        {(built || open) && props.children}
       </div>
     </div>
   );

@@ -80,8 +80,8 @@ export async function mount(children: ComponentChildren, instrument: InstrumentP
 
 /** Type into the field with id `id`, firing an input (or, for a select, change) event. */
 export async function typeInto(root: HTMLElement, id: string, text: string): Promise<void> {
-  const el = root.querySelector<HTMLInputElement | HTMLSelectElement>(`#${CSS.escape(id)}`);
-  if (!el) throw new Error(`no field #${id}`);
+  // Folded fields join the page a task after the first draw (Fold.tsx): wait for the field as a user's eye does.
+  const el = await waitFor(() => root.querySelector<HTMLInputElement | HTMLSelectElement>(`#${CSS.escape(id)}`), `the field #${id}`);
   await act(async () => {
     el.value = text;
     el.dispatchEvent(new Event(el instanceof HTMLSelectElement ? 'change' : 'input', { bubbles: true }));
