@@ -3,7 +3,6 @@
 import {
   convertDc, convertRf, DC_FORMS, hazardousLive, massRangeTop, RF_FORMS, type HazardousLiveResult,
 } from '../../engine';
-import { useMemo } from 'preact/hooks';
 import type { InstrumentProfile } from '../../store';
 import { NumberField } from '../components/Field';
 import { CautionLine, InputsFold, More } from '../components/Fold';
@@ -14,7 +13,7 @@ import { ionListsFor, defaultIons } from './calibrants';
 import { dcAs, dcFormOf, dcFormUnitId, dcFormWords, rfAs, rfFormOf, rfFormUnit, rfFormUnitId, rfFormWords } from './conventions';
 import { tryEngine, type FieldErrors } from './engineErrors';
 import { HvCaution } from './HvCaution';
-import { listHint, parseMzList, usePersistentInputs } from './inputs';
+import { listHint, parseMzList, useFromInputs, usePersistentInputs } from './inputs';
 import { InverseCheck } from './InverseCheck';
 import { Proportionality } from './Proportionality';
 import { Result } from './NoteButton';
@@ -52,11 +51,7 @@ function expectedModel(inputs: BenchInputs, profile: InstrumentProfile) {
 export function Voltages() {
   const { instrument } = useApp();
   const [inputs, update, inputsProblem] = usePersistentInputs<BenchInputs>('bench', benchDefaults);
-  // The scan line and the expected values (root finding on the exact edges for some lines): worked out once per
-  // inputs and instrument, not on every redraw. inputsKey stands for the inputs' content.
-  const inputsKey = JSON.stringify(inputs);
-  // eslint-disable-next-line react-hooks/exhaustive-deps
-  const model = useMemo(() => (instrument ? expectedModel(inputs, instrument) : null), [inputsKey, instrument]);
+  const model = useFromInputs(inputs, instrument, expectedModel);
   // Keyed, so the notice shown while the database opens is never reused (moved) as a notice of the filled screen.
   if (!instrument || !model) return <NeedInstrument key="no-instrument">Pick or add an instrument first: every expected value comes from its profile.</NeedInstrument>;
   const profile = instrument;

@@ -2,6 +2,7 @@
 // profile switch or an update never loses them (through the one draft hook, which says so when the device
 // refuses to keep them). Parsing accepts a decimal comma (gloved thumbs, EU keypads).
 import { LIST_RULE_WORDS, formatNumber as formatListNumber, readNumber, splitNumberList, type InstrumentProfile } from '../../records';
+import { useMemo } from 'preact/hooks';
 import { useApp } from '../context';
 import { useDraft } from '../components/useDraft';
 
@@ -26,6 +27,18 @@ export function usePersistentInputs<T extends Inputs>(screen: string, defaults: 
     accept: (kept) => typeof kept === 'object' && kept !== null,
   });
   return [draft.value ?? defaults(instrument), (patch: Partial<T>) => void draft.update(patch), draft.problem];
+}
+
+/**
+ * What a screen works out from its inputs and the instrument (scan line, exact edges, operating points: root
+ * finding), again only when the inputs' content or the instrument changes, not on every redraw. The inputs object
+ * itself may be rebuilt on a redraw, so its content is the key. Null without an instrument.
+ */
+export function useFromInputs<T extends Inputs, R>(inputs: T, instrument: InstrumentProfile | null, compute: (inputs: T, profile: InstrumentProfile) => R): R | null {
+  const content = JSON.stringify(inputs);
+  // `content` stands for `inputs`; `compute` is a plain function of its arguments.
+  // eslint-disable-next-line react-hooks/exhaustive-deps
+  return useMemo(() => (instrument ? compute(inputs, instrument) : null), [content, instrument]);
 }
 
 export type Parsed = { ok: true; value: number } | { ok: false; message: string };

@@ -10,11 +10,12 @@ import { CautionLine, InputsFold, More } from '../components/Fold';
 import { InstrumentLine } from '../components/InstrumentLine';
 import { useApp } from '../context';
 import { formatNumber, formatSi } from '../format';
-import { usePersistentInputs } from '../bench/inputs';
+import { useFromInputs, usePersistentInputs } from '../bench/inputs';
 import { HvCaution } from '../bench/HvCaution';
 import { Result } from '../bench/NoteButton';
 import type { FieldErrors } from '../bench/engineErrors';
-import { buildPeakRun, peakDefaults, SLIDERS, type PeakInputs } from './peakInputs';
+import { buildPeakRun, peakDefaults, SLIDERS, type PeakInputs, type PeakRun } from './peakInputs';
+import type { InstrumentProfile } from '../../records';
 import { DraftProblem } from '../components/DraftProblem';
 import { NeedInstrument } from '../components/NeedInstrument';
 
@@ -43,6 +44,14 @@ const COARSE_WAIT_MS = 600;
 /** Progress is redrawn when it has moved by at least this fraction, and at most once in this time. */
 const PROGRESS_STEP = 0.05;
 const PROGRESS_EVERY_MS = 250;
+
+const NO_ERRORS: FieldErrors = {};
+
+/** The run for these inputs on this instrument, with the messages for the fields. */
+function operatingRun(inputs: PeakInputs, instrument: InstrumentProfile): { run: PeakRun | null; errors: FieldErrors } {
+  const errors: FieldErrors = {};
+  return { run: buildPeakRun(inputs, instrument, errors), errors };
+}
 
 interface ActiveRun {
   key: string;
@@ -78,15 +87,11 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
     lastCoarse.current = peak.status === 'coarse';
   }
 
-  // The operating point (exact stability edges, by root finding) is worked out once per inputs and instrument,
-  // not on each of the many redraws a run's progress brings.
-  const inputsKey = JSON.stringify(inputs);
-  const { run, errors } = useMemo(() => {
-    const found: FieldErrors = {};
-    return { run: instrument ? buildPeakRun(inputs, instrument, found) : null, errors: found };
-    // inputsKey stands for inputs' content.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [inputsKey, instrument]);
+  // The operating point (exact stability edges) once per inputs and instrument, not on each of the many redraws a
+  // run's progress brings.
+  const model = useFromInputs(inputs, instrument, operatingRun);
+  const run = model?.run ?? null;
+  const errors = model?.errors ?? NO_ERRORS;
   const runKey = run?.key ?? null;
 
   const active = useRef<ActiveRun | null>(null);
@@ -238,7 +243,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
           )}
         </form>
       </InputsFold>
-  ), [inputsKey, run, errors, instrument]); // eslint-disable-line react-hooks/exhaustive-deps
+  ), [model]); // eslint-disable-line react-hooks/exhaustive-deps -- model changes with the inputs' content and the instrument
 
   if (!instrument) return <NeedInstrument>Pick or add an instrument first: the simulation uses its field radius, rod length and frequency.</NeedInstrument>;
 

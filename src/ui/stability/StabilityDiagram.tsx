@@ -15,7 +15,7 @@ import { useApp } from '../context';
 import { formatNumber, formatSi } from '../format';
 import { dcAs, dcFormOf, dcFormUnitId, dcFormWords, rfAs, rfFormOf, rfFormUnit, rfFormUnitId, rfFormWords } from '../bench/conventions';
 import { tryEngine, type FieldErrors } from '../bench/engineErrors';
-import { listHint, parseMzList, parseNumber, usePersistentInputs } from '../bench/inputs';
+import { listHint, parseMzList, parseNumber, useFromInputs, usePersistentInputs } from '../bench/inputs';
 import { Result } from '../bench/NoteButton';
 import { buildScanLine, expectedFor } from '../bench/scanLine';
 import { ScanLineFields } from '../bench/ScanLineFields';
@@ -49,8 +49,7 @@ const WHOLE = { x: [0, Q_MAX] as [number, number], y: [-0.02, 0.32] as [number, 
 
 /**
  * Where the filter is set and where each listed m/z sits: U and V (from the scan line or as measured), the operating
- * points and the pass band, with the messages for the fields. Root finding on the exact edges: worked out once
- * per inputs and instrument, not on every redraw.
+ * points and the pass band, with the messages for the fields (worked out through useFromInputs).
  */
 function operatingModel(inputs: StabilityInputs, profile: InstrumentProfile) {
   const r0 = profile.rodFieldRadius;
@@ -117,10 +116,7 @@ export function StabilityDiagram() {
   const options = useMemo(() => (palette: ChartPalette) => chartOptions(palette, pointsRef, selectedRef), []);
   const boundary = useBoundary();
 
-  // inputsKey stands for the inputs' content (the object itself may be rebuilt on a redraw).
-  const inputsKey = JSON.stringify(inputs);
-  // eslint-disable-next-line react-hooks/exhaustive-deps
-  const model = useMemo(() => (instrument ? operatingModel(inputs, instrument) : null), [inputsKey, instrument]);
+  const model = useFromInputs(inputs, instrument, operatingModel);
 
   if (!instrument || !model) return <NeedInstrument key="no-instrument">Pick or add an instrument first: the diagram uses its geometry.</NeedInstrument>;
   const profile = instrument;
