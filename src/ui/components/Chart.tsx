@@ -245,7 +245,7 @@ export function Chart(props: ChartProps) {
     <figure class="chart-figure" data-testid={props.testId}>
       {props.zoomButtons && <ChartTools zoom={zoom} reset={reset} />}
       <div class="chart" ref={host} role="img" aria-label={props.label} style={noCanvas || loadFailed ? undefined : { minHeight: `${props.height ?? 300}px` }} />
-      {loadFailed && <p class="notice">The chart could not be loaded on this device yet (open Rodside once with a network so it keeps every part); the values below are complete without it.</p>}
+      {loadFailed && <LoadFailed />}
       {noCanvas && <p class="notice">This browser does not allow drawing on a canvas, so the chart cannot be shown; the values below are complete without it.</p>}
     </figure>
   );
@@ -268,14 +268,28 @@ function ChartTools(props: { zoom?: (factor: number) => void; reset?: () => void
  * that replaces it: when the data arrives, nothing around it moves.
  */
 export function ChartReserve(props: { height?: number; zoomButtons?: boolean; label: string; testId?: string }) {
-  // The chart library loads meanwhile, in idle time, so the chart is drawn as soon as its data is there.
-  useEffect(() => whenIdle(() => void loadUplot().catch(() => undefined), 1000), []);
+  // The chart library loads meanwhile, in idle time, so the chart is drawn as soon as its data is there. If it
+  // cannot be loaded, say so here already (the chart that replaces this space tries once more).
+  const [loadFailed, setLoadFailed] = useState(false);
+  useEffect(() => {
+    let live = true;
+    const cancel = whenIdle(() => void loadUplot().catch(() => live && setLoadFailed(true)), 1000);
+    return () => {
+      live = false;
+      cancel();
+    };
+  }, []);
   return (
     <figure class="chart-figure" data-testid={props.testId}>
       {props.zoomButtons && <ChartTools />}
       <div class="chart chart-reserve" role="img" aria-label={props.label} aria-busy="true" style={{ minHeight: `${props.height ?? 300}px` }} />
+      {loadFailed && <LoadFailed />}
     </figure>
   );
+}
+
+function LoadFailed() {
+  return <p class="notice">The chart could not be loaded on this device yet (open Rodside once with a network so it keeps every part); the values below are complete without it.</p>;
 }
 
 export type { uPlot };
