@@ -58,7 +58,11 @@ function VisitList() {
     let stale = false;
     (async () => {
       try {
-        const status = await store.backupStatus().catch(() => null);
+        // Without the backup status the list still shows; the reminder's absence is then said, not silent.
+        const status = await store.backupStatus().catch((err: unknown) => {
+          if (!stale) setProblem(`Whether a backup is due could not be read: ${errorText(err)}`);
+          return null;
+        });
         if (!stale) setReminder(status);
         const list = await store.listVisits(instrument.id);
         const readings = await store.listInstrumentReadings(instrument.id);

@@ -45,6 +45,15 @@ afterEach(async () => {
 });
 
 describe('visit page', () => {
+  it('when whether a backup is due cannot be read, says so and still lists the visits', async () => {
+    const host = await mount('/visits', async (s) => {
+      vi.spyOn(s, 'backupStatus').mockRejectedValue(new Error('the device refused the read'));
+    });
+    const banner = await waitFor(() => host.querySelector('.banner-problem')?.textContent, 'the problem banner');
+    expect(banner).toMatch(/^Whether a backup is due could not be read: /);
+    await waitFor(() => host.querySelectorAll('[data-testid="visit-item"]').length > 0, 'the visit list');
+  });
+
   it('shows notes with a script tag as plain text, and verdicts as a word with a symbol', async () => {
     // The test's own hostile note (the demo's notes are ordinary text).
     const host = await mount('/visits/demo-visit-k6', async (s) => {
