@@ -56,7 +56,7 @@ export function InputsFold(props: { id: string; summary: string; invalid?: boole
  * stays while it is closed again). A screen's first draw then builds only what is on show: on a phone the closed
  * cards and tools below the answer were most of the first draw's work.
  */
-function useShownOnce(open: boolean | undefined): [boolean, (e: Event) => void] {
+export function useShownOnce(open: boolean | undefined): [boolean, (e: Event) => void] {
   const [shown, setShown] = useState(!!open);
   const onToggle = (e: Event) => {
     if ((e.currentTarget as HTMLDetailsElement).open) setShown(true);

@@ -5,7 +5,7 @@ import {
   DEMO_LAB, formatNumber, fromBase, keysInTitle, readingTitle, shownValue, visitReasons, type InstrumentProfile, type Reading, type ReadingType, type Visit,
   type WalkRecord, type BackupReminder,
 } from '../../store';
-import { trees } from '../../diagnose';
+import type { trees as Trees } from '../../diagnose';
 import { More } from '../components/Fold';
 import { useApp } from '../context';
 import { navigate, usePath } from '../router';
@@ -322,26 +322,51 @@ function expectedText(r: Reading, type: ReadingType | undefined): string {
   return `${range} ${unit?.label ?? ''} (${e.basis})`;
 }
 
-/** A walk step by its title, never its internal code. */
-function walkStepText(ref: string): string {
+/**
+ * The diagnosis trees, loaded when a table first shows a reading taken on a walk (most visits have none, and the
+ * trees are the largest part of the app's code: the visit list does not wait for them).
+ */
+type WalkTrees = typeof Trees;
+let walkTrees: WalkTrees | null = null;
+let walkTreesLoading: Promise<WalkTrees> | null = null;
+function useWalkTrees(needed: boolean): WalkTrees | null {
+  const [loaded, setLoaded] = useState<WalkTrees | null>(walkTrees);
+  useEffect(() => {
+    if (!needed || loaded) return;
+    let live = true;
+    walkTreesLoading ??= import('../../diagnose').then((m) => (walkTrees = m.trees)).catch((err: unknown) => {
+      walkTreesLoading = null;
+      throw err;
+    });
+    walkTreesLoading.then((t) => live && setLoaded(t), () => undefined /* the step keeps its plain wording */);
+    return () => {
+      live = false;
+    };
+  }, [needed, loaded]);
+  return loaded;
+}
+
+/** A walk step by its title, never its internal code ("from a diagnosis walk" until the trees are loaded). */
+function walkStepText(ref: string, trees: WalkTrees | null): string {
   const [treeId, nodeId] = ref.split('/');
-  const tree = trees.find((t) => t.id === treeId);
+  const tree = trees?.find((t) => t.id === treeId);
   const node = tree?.nodes.find((n) => n.id === nodeId);
   return node ? `diagnosis walk: ${tree!.title}, “${node.title}”` : 'from a diagnosis walk';
 }
 
-function contextText(r: Reading): string {
+function contextText(r: Reading, trees: WalkTrees | null): string {
   const said = keysInTitle(r.typeId, r.context);
   return Object.entries(r.context ?? {})
     .filter(([k]) => k !== 'convention' && k !== 'label' && k !== 'unit' && !said.includes(k))
     .map(([k, v]) => (k === 'mz' ? `m/z ${v}` : k === 'referenceMz' ? `relative to m/z ${v}` : k === 'gaugeGas' ? `gauge: ${v}` : k === 'setpoint' ? 'set value given'
-      : k === 'argonPercent' ? `m/z 40 = ${v} % of m/z 28` : k === 'formula' ? `formula ${v}` : k === 'walkStep' ? walkStepText(String(v)) : `${k} ${v}`))
+      : k === 'argonPercent' ? `m/z 40 = ${v} % of m/z 28` : k === 'formula' ? `formula ${v}` : k === 'walkStep' ? walkStepText(String(v), trees) : `${k} ${v}`))
     .join(' · ');
 }
 
 function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: string) => ReadingType | undefined; onDelete?: (r: Reading) => void; onEdited?: () => void }) {
   const [editing, setEditing] = useState<string | null>(null);
   const actions = !!props.onDelete;
+  const trees = useWalkTrees(props.readings.some((r) => r.context?.walkStep !== undefined));
   return (
     <div class="card">
       <h2 class="card-title">{props.title}</h2>
@@ -354,7 +379,7 @@ function ReadingTable(props: { title: string; readings: Reading[]; typeOf: (id: 
             <tbody>
               {props.readings.map((r) => {
                 const t = props.typeOf(r.typeId);
-                const ctx = contextText(r);
+                const ctx = contextText(r, trees);
                 const earlier = historyLines(r);
                 const label = t?.label ?? 'reading';
                 return (

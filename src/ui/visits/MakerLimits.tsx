@@ -3,6 +3,7 @@
 import { useEffect, useState } from 'preact/hooks';
 import { formatNumber, fromBase, limitMatchText, type InstrumentProfile, type MakerLimit, type MakerLimitDraft, type ReadingType } from '../../store';
 import { useApp } from '../context';
+import { useShownOnce } from '../components/Fold';
 import { errorText } from './files';
 
 export function MakerLimits(props: { instrument: InstrumentProfile; types: ReadingType[] }) {
@@ -13,6 +14,8 @@ export function MakerLimits(props: { instrument: InstrumentProfile; types: Readi
   const [draft, setDraft] = useState<MakerLimitDraft>({ typeId: types[0]?.id ?? '', unitId: types[0]?.defaultUnit ?? '', low: '', high: '', source: '' });
   const [errors, setErrors] = useState<Partial<Record<keyof MakerLimitDraft, string>>>({});
   const [problem, setProblem] = useState<string | null>(null);
+  // The list and form are built when the card first opens (the summary already gives the count); kept after.
+  const [shown, onToggle] = useShownOnce(false);
 
   const load = () => void store?.listMakerLimits(props.instrument.id).then(setLimits).catch((err) => setProblem(errorText(err)));
   useEffect(load, [store, props.instrument.id]);
@@ -63,8 +66,9 @@ export function MakerLimits(props: { instrument: InstrumentProfile; types: Readi
   );
 
   return (
-    <details class="card" data-testid="maker-limits">
+    <details class="card" data-testid="maker-limits" onToggle={onToggle}>
       <summary>Maker’s limits for {props.instrument.name}: {limits.length === 0 ? 'none entered' : `${limits.length} entered`}</summary>
+      {shown && <>
       <p class="muted">Where the instrument’s maker or your site sets a limit, enter it here with its source. It replaces the generic ranges, and for the background-gas and calibrant checks it replaces the usual check; otherwise a reading outside it fails even when it is close to the baseline. Calibrant limits can be given for one ion pair.</p>
       {limits.length > 0 && (
         <ul>
@@ -100,6 +104,8 @@ export function MakerLimits(props: { instrument: InstrumentProfile; types: Readi
         {problem && <p class="banner banner-problem" role="alert">{problem}</p>}
         <div class="row"><button type="submit" class="btn">Save limit</button></div>
       </form>
+      </>}
+      {!shown && problem && <p class="banner banner-problem" role="alert">{problem}</p>}
     </details>
   );
 }

@@ -2,6 +2,7 @@
 import { useState } from 'preact/hooks';
 import { emptyOwnTypeDraft, type OwnTypeDraft, type ReadingType } from '../../store';
 import { useApp } from '../context';
+import { useShownOnce } from '../components/Fold';
 import { errorText } from './files';
 
 const fields: { key: keyof OwnTypeDraft; label: string; hint?: string; numeric?: boolean }[] = [
@@ -21,6 +22,8 @@ export function OwnTypeForm(props: { onAdded: (t: ReadingType) => void }) {
   const [draft, setDraft] = useState<OwnTypeDraft>(emptyOwnTypeDraft());
   const [errors, setErrors] = useState<Partial<Record<keyof OwnTypeDraft, string>>>({});
   const [problem, setProblem] = useState<string | null>(null);
+  // The form is built when the card first opens (and kept, with what was typed, when it closes again).
+  const [shown, onToggle] = useShownOnce(false);
 
   async function save(e: Event) {
     e.preventDefault();
@@ -40,9 +43,9 @@ export function OwnTypeForm(props: { onAdded: (t: ReadingType) => void }) {
 
   const unitWord = draft.toleranceKind === 'relative' ? '%' : draft.unit || 'units';
   return (
-    <details class="card">
+    <details class="card" data-testid="own-type" onToggle={onToggle}>
       <summary>Add a reading type of your own</summary>
-      <form class="form" onSubmit={save} noValidate>
+      {shown && <form class="form" onSubmit={save} noValidate>
         <p class="muted">Judged against the instrument’s baseline once one exists, otherwise against the expected range below.</p>
         {fields.map((f) => (
           <div key={f.key} class={errors[f.key] ? 'field has-error' : 'field'}>
@@ -70,7 +73,7 @@ export function OwnTypeForm(props: { onAdded: (t: ReadingType) => void }) {
         </div>
         {problem && <p class="banner banner-problem" role="alert">{problem}</p>}
         <div class="row"><button type="submit" class="btn">Add reading type</button></div>
-      </form>
+      </form>}
     </details>
   );
 }

@@ -7,6 +7,7 @@ import { AppContext, type AppContextValue } from '../../../src/ui/context';
 import { VisitsScreen } from '../../../src/ui/screens/VisitsScreen';
 import { demoInstruments, describeStorageError, eraseStore, openStore, type Store } from '../../../src/store';
 import { waitFor } from '../waitFor';
+import { openDisclosure } from './appHarness';
 
 const names: string[] = [];
 let store: Store | null = null;
@@ -130,6 +131,33 @@ describe('visit page', () => {
     const preview = host.querySelector('[data-testid="reading-preview"]')!.textContent!;
     expect(preview).toContain('✗ fail');
     expect(preview).toContain('CRC Handbook of Chemistry and Physics');
+  });
+
+  it('names the walk and step a reading came from, once the diagnosis trees have loaded', async () => {
+    const host = await mount('/visits/demo-visit-k8', async (s) => {
+      await s.addReading({ visitId: 'demo-visit-k8', typeId: 'emission-current', phase: 'as-found', value: 20e-6, entered: { text: '20', unit: 'µA' }, context: { walkStep: 'no-signal/NS3E1' } });
+    });
+    const row = await waitFor(() => [...host.querySelectorAll('[data-testid="reading-row"]')].find((r) => r.textContent?.includes('diagnosis walk: ')), 'the walk reading with its step named');
+    expect(row.textContent).toContain('diagnosis walk: No signal at all, “Is the emission current at its set point?”');
+  });
+
+  it('builds the maker-limit and own-type forms when their cards first open, and a limit saved there is counted', async () => {
+    const host = await mount('/visits');
+    const limits = await waitFor(() => host.querySelector<HTMLDetailsElement>('[data-testid="maker-limits"]'), 'the maker-limits card');
+    expect(limits.querySelector('form')).toBeNull();
+    expect(host.querySelector('[data-testid="own-type"] form')).toBeNull();
+    await openDisclosure(host, 'maker-limits');
+    await waitFor(() => limits.querySelector('#limit-source'), 'the limit form');
+    await act(async () => {
+      type(limits.querySelector('#limit-low'), '1');
+      type(limits.querySelector('#limit-high'), '2');
+      type(limits.querySelector('#limit-source'), 'Site sheet 4, rev. 2');
+    });
+    await act(async () => { limits.querySelector('form')!.dispatchEvent(new Event('submit', { bubbles: true, cancelable: true })); });
+    await waitFor(() => limits.querySelector('summary')?.textContent?.includes('1 entered'), 'the saved limit counted');
+    expect(limits.textContent).toContain('Site sheet 4, rev. 2');
+    await openDisclosure(host, 'own-type');
+    expect(host.querySelector('[data-testid="own-type"] #own-label')).not.toBeNull();
   });
 
   it('says so plainly when a visit does not exist', async () => {
