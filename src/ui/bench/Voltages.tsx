@@ -5,7 +5,7 @@ import {
 } from '../../engine';
 import type { InstrumentProfile } from '../../store';
 import { NumberField } from '../components/Field';
-import { CautionLine, InputsFold, More } from '../components/Fold';
+import { CautionLine, Disclosure, InputsFold, More } from '../components/Fold';
 import { InstrumentLine, scanLineSummary } from '../components/InstrumentLine';
 import { useApp } from '../context';
 import { formatNumber, formatSi } from '../format';
@@ -140,8 +140,7 @@ function ExpectedCard(props: { row: Expected; hazard: HazardousLiveResult; readF
         <Result label="Ideal pass band on this line" value={`${formatNumber(row.band.low, 6)}–${formatNumber(row.band.high, 6)} u (Δm ${formatNumber(row.band.width, 3)} u, m/Δm ${formatNumber(row.band.resolution, 4)})`}
           note={{ label: `Ideal peak width at m/z ${mzText}`, value: row.band.width, unit: 'u', origin: 'calculator', context: ctx }} />
       )}
-      <details class="conventions">
-        <summary>All conventions</summary>
+      <Disclosure class="conventions" summary="All conventions">
         {RF_FORMS.map((form) => {
           const v = convertRf(row.rf, 'zeroToPeakPerRod', form);
           const hot = form.endsWith('PerRod') ? hazard.perRod.hazardous : hazard.betweenPairs.hazardous;
@@ -159,7 +158,7 @@ function ExpectedCard(props: { row: Expected; hazard: HazardousLiveResult; readF
           );
         })}
         <p class="hint">⚠ marks a value above a hazardous-live level.</p>
-      </details>
+      </Disclosure>
     </li>
   );
 }

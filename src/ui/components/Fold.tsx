@@ -85,3 +85,17 @@ export function More(props: { title: ComponentChildren; children: ComponentChild
     </details>
   );
 }
+
+/**
+ * A closed disclosure inside a card (no frame of its own): conventions, legends, further figures. Its body is built
+ * the first time it opens and kept after, as with More.
+ */
+export function Disclosure(props: { class?: string; summary: ComponentChildren; children: ComponentChildren; testId?: string }) {
+  const [shown, onToggle] = useShownOnce(false);
+  return (
+    <details class={props.class} data-testid={props.testId} onToggle={onToggle}>
+      <summary>{props.summary}</summary>
+      {shown && props.children}
+    </details>
+  );
+}

@@ -372,8 +372,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
         )}
       </div></More>
 
-      <details class="card more">
-        <summary><strong>Model and its assumptions</strong></summary>
+      <More title="Model and its assumptions">
         <ul>
           <li>Ideal hyperbolic field over the whole rod length: no fringe fields at the ends, no collisions, no space charge, perfect rods and supplies.</li>
           <li>Singly charged ions, all with the same axial energy (the ion energy above), entering at a random RF phase (uniform over one period).</li>
@@ -383,7 +382,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
           <li>Computed from the linear equations of motion (fundamental solutions, acceptance polygons, exact velocity integrals), checked against direct integration of individual ions.</li>
           <li>Real peaks are wider and lower: fringe fields, rod errors and RF ripple are not modelled.</li>
         </ul>
-      </details>
+      </More>
     </>
   );
 }

@@ -9,7 +9,7 @@ import { HvCaution, isHazardousLive } from '../bench/HvCaution';
 import type { InstrumentProfile } from '../../store';
 import { Chart, ChartReserve, type ChartOptions, type ChartPalette, type uPlot } from '../components/Chart';
 import { NumberField, SelectField } from '../components/Field';
-import { CautionLine, InputsFold } from '../components/Fold';
+import { CautionLine, Disclosure, InputsFold } from '../components/Fold';
 import { InstrumentLine, scanLineSummary } from '../components/InstrumentLine';
 import { useApp } from '../context';
 import { formatNumber, formatSi } from '../format';
@@ -199,8 +199,7 @@ export function StabilityDiagram() {
           <input type="checkbox" checked={showIso} onChange={(e) => update({ isoBeta: (e.target as HTMLInputElement).checked ? 'yes' : 'no' })} />
           Show iso-β lines (β = {ISO_BETAS.join(', ')})
         </label>
-        <details class="legend-fold">
-        <summary>Legend: edges, operating line, markers</summary>
+        <Disclosure class="legend-fold" summary="Legend: edges, operating line, markers">
         <p class="hint">Where each ion sits in the first stability region at the current U and V, and which m/z the filter passes.</p>
         <ul class="legend" aria-label="Legend">
           <li><LineSample dash="" width={3} /> x edge b₁(q), solid: right of the apex, the low-mass cut-off</li>
@@ -212,7 +211,7 @@ export function StabilityDiagram() {
           <li><Marker kind="fail" /> does not pass (open square with a cross)</li>
           <li><Marker kind="apex" /> apex</li>
         </ul>
-        </details>
+        </Disclosure>
         <p class="hint">{tapMiss ? 'No point within reach of that tap: tap closer to a point, or pick one from the list below.' : 'Tap a point (or a list entry below) to read its values. Use the zoom buttons: the chart has no pinch zoom.'}</p>
       </div>
 
@@ -237,8 +236,7 @@ export function StabilityDiagram() {
               <p class="big" data-testid="band-interval">
                 {Number.isFinite(band.high) ? `m/z ${formatNumber(band.low, 6)} – ${formatNumber(band.high, 6)} passes` : `m/z above ${formatNumber(band.low, 6)} passes (RF only)`}
               </p>
-              <details class="band-more">
-                <summary>Edges, width and U/V</summary>
+              <Disclosure class="band-more" summary="Edges, width and U/V">
                 <Result label="U/V (V zero-to-peak, one rod to ground)" value={formatNumber(dc / rf, 6)} testId="band-ratio"
                   note={{ label: 'DC/RF ratio U/V at the current setting', value: dc / rf, unit: '', origin: 'calculator' }} />
               <Result label="Lowest m/z passed (x edge, low-mass cut-off)" value={`${formatNumber(band.low, 6)} u`} testId="band-low"
@@ -255,7 +253,7 @@ export function StabilityDiagram() {
                     note={{ label: 'Ideal resolution of the pass band', value: band.resolution, unit: '', origin: 'calculator', context: { dc, rf } }} />
                 </>
               )}
-              </details>
+              </Disclosure>
             </>
           ) : (
             <>

@@ -55,6 +55,8 @@ describe('Bench · expected voltages (Kestrel: r0 4.5 mm, 1 MHz, read-backs 0-p 
     h = await mount(<Voltages />, p);
     const v = rfForMass({ mz: 219, r0: p.rodFieldRadius, frequency: p.rfFrequency });
     expect(value(card(h.root, 219), 'rf-readback')).toBe(`${formatNumber(2 * v, 5)} V p-p`);
+    // Every convention is one tap away, in the card's "All conventions" disclosure.
+    await openDisclosure(card(h.root, 219) as HTMLElement, 'All conventions');
     const all = texts(card(h.root, 219), '.conventions .result-value');
     expect(all).toContain(`${formatNumber(convertRf(v, 'zeroToPeakPerRod', 'rmsPerRod'), 5)} V rms ⚠`);
     expect(all).toContain(`${formatNumber(4 * v, 5)} V p-p ⚠`);

@@ -21,6 +21,7 @@ describe('Stability · diagram (Kestrel)', () => {
     const sp = scanPoint({ line, mz: 69, ...g })!;
     const band = passBandDetail({ dc: sp.dc, rf: sp.rf, ...g })!;
     expect(texts(h.root, '[data-testid="band-interval"]')[0]).toBe(`m/z ${formatNumber(band.low, 6)} – ${formatNumber(band.high, 6)} passes`);
+    await openDisclosure(h.root, 'Edges, width and U/V');
     expect(texts(h.root, '[data-testid="band-low"] .result-value')[0]).toBe(`${formatNumber(band.low, 6)} u`);
     expect(texts(h.root, '[data-testid="band-high"] .result-value')[0]).toBe(`${formatNumber(band.high, 6)} u`);
     expect(texts(h.root, '[data-testid="band-ratio"] .result-value')[0]).toBe(formatNumber(sp.dc / sp.rf, 6));
