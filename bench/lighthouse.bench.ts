@@ -1,6 +1,7 @@
 // Start-up of the production build, as Lighthouse 12 (mobile preset, performance only) sees it on Debian's Chromium.
 // Budgets (our own): performance ≥ 0.95, CLS ≤ 0.05, TBT ≤ 150 ms on every page listed below.
-// One Lighthouse run varies by about ±0.04, so each page runs twice and the better run is shown.
+// One Lighthouse run varies by up to ±0.07 here, so each page runs twice (RODSIDE_LIGHTHOUSE_RUNS) and the better run is
+// shown, with every run's score and how many runs met all three budgets.
 // Each run starts from a fresh browser profile, so the first-run work (opening the database, loading the demo
 // scenario) is part of what is measured. Figures only, no asserts: `npm run bench -- lighthouse` runs just this.
 //
@@ -25,6 +26,19 @@ interface Figures {
   tbtMs: number;
   lcpMs: number;
   fcpMs: number;
+  /** The browser held the first paint back long after the page had loaded (see `heldPaint`). */
+  heldPaint: boolean;
+}
+
+/**
+ * In some runs Chromium presents no frame for about two seconds after the page has loaded and drawn (its main
+ * thread idle meanwhile): the observed first paint lands near 2.2 s, every task before it counts towards FCP and
+ * LCP, and Speed Index jumps to about 4 s. The page does the same work either way; such a run is marked, so a
+ * change is not judged by which kind of run it happened to get.
+ */
+function heldPaint(metrics: Record<string, number> | undefined): boolean {
+  if (!metrics) return false;
+  return metrics.observedFirstContentfulPaint - metrics.observedLoad > 1000;
 }
 
 function chromePath(): string | null {
@@ -72,7 +86,7 @@ function lighthouseOnce(url: string, chrome: string, reportPath: string): Promis
       try {
         const lhr = JSON.parse(readFileSync(reportPath, 'utf8')) as {
           categories: { performance: { score: number | null } };
-          audits: Record<string, { numericValue?: number }>;
+          audits: Record<string, { numericValue?: number; details?: { items?: Record<string, number>[] } }>;
           runtimeError?: { message: string };
         };
         if (lhr.runtimeError) return rej(new Error(`Lighthouse could not measure ${url}: ${lhr.runtimeError.message}`));
@@ -83,6 +97,7 @@ function lighthouseOnce(url: string, chrome: string, reportPath: string): Promis
           tbtMs: num('total-blocking-time'),
           lcpMs: num('largest-contentful-paint'),
           fcpMs: num('first-contentful-paint'),
+          heldPaint: heldPaint(lhr.audits.metrics?.details?.items?.[0]),
         });
       } catch (e) {
         rej(e as Error);
@@ -92,6 +107,7 @@ function lighthouseOnce(url: string, chrome: string, reportPath: string): Promis
 }
 
 const mark = (ok: boolean) => (ok ? ' ' : '✗');
+const meets = (r: Figures) => r.performance >= budget.performance && r.cls <= budget.cls && r.tbtMs <= budget.tbtMs;
 
 export async function run(): Promise<void> {
   console.log('\nLighthouse 12 (mobile preset, performance only) on the production build');
@@ -142,9 +158,11 @@ export async function run(): Promise<void> {
           `${best.cls.toFixed(3).padStart(6)} ${mark(best.cls <= budget.cls)} ` +
           `${best.tbtMs.toFixed(0).padStart(7)} ${mark(best.tbtMs <= budget.tbtMs)} ` +
           `${(best.lcpMs / 1000).toFixed(2).padStart(6)}  ${(best.fcpMs / 1000).toFixed(2).padStart(6)}  ` +
-          results.map((r) => r.performance.toFixed(2)).join(' / '),
+          results.map((r) => `${r.performance.toFixed(2)}${r.heldPaint ? '*' : ''}`).join(' / ') +
+          `  (${results.filter(meets).length}/${results.length} within all budgets)`,
       );
     }
+    console.log('* first paint held back by the browser after load (see heldPaint in bench/lighthouse.bench.ts)');
     console.log(`load average after: ${loadavg().map((l) => l.toFixed(2)).join(', ')} (on a 2-core machine, above ~1.5 the figures are depressed)`);
   } finally {
     if (server) {
