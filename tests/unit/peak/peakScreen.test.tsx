@@ -115,7 +115,8 @@ describe('PeakSimulation', () => {
     expect(value('peak-r10')).toBe(formatNumber(expected.resolution10, 4));
     expect(value('peak-transmission')).toContain(`${formatNumber(100 * expected.peakTransmission, 3)} %`);
     expect(h.root.querySelector('[data-testid="peak-chart"]')?.getAttribute('data-points')).toBe('101');
-    // Assumptions are on screen.
+    // The model's assumptions are one tap away.
+    await openDisclosure(h.root, 'Model and its assumptions');
     expect(h.root.textContent).toMatch(/no fringe fields/);
     expect(h.root.textContent).toMatch(/random RF phase/);
   });
