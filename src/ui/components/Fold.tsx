@@ -99,3 +99,21 @@ export function Disclosure(props: { class?: string; summary: ComponentChildren; 
     </details>
   );
 }
+
+/**
+ * Sections below a screen's answer join the page one task after it, so the answer's first draw (and its layout)
+ * is not one long task with everything under it. Place it after the answer; what follows it in the page should be
+ * inside it too, so nothing already drawn moves when it arrives. `data-later` marks it until then (tests wait for
+ * it to go).
+ */
+export function Later(props: { children: ComponentChildren }) {
+  const [ready, setReady] = useState(false);
+  useEffect(() => {
+    let live = true;
+    void nextTask().then(() => live && setReady(true));
+    return () => {
+      live = false;
+    };
+  }, []);
+  return ready ? <>{props.children}</> : <div data-later="" />;
+}

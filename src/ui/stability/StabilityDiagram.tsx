@@ -9,7 +9,7 @@ import { HvCaution, isHazardousLive } from '../bench/HvCaution';
 import type { InstrumentProfile } from '../../store';
 import { Chart, ChartReserve, type ChartOptions, type ChartPalette, type uPlot } from '../components/Chart';
 import { NumberField, SelectField } from '../components/Field';
-import { CautionLine, Disclosure, InputsFold } from '../components/Fold';
+import { CautionLine, Disclosure, InputsFold, Later } from '../components/Fold';
 import { InstrumentLine, scanLineSummary } from '../components/InstrumentLine';
 import { useApp } from '../context';
 import { formatNumber, formatSi } from '../format';
@@ -215,6 +215,7 @@ export function StabilityDiagram() {
         <p class="hint">{tapMiss ? 'No point within reach of that tap: tap closer to a point, or pick one from the list below.' : 'Tap a point (or a list entry below) to read its values. Use the zoom buttons: the chart has no pinch zoom.'}</p>
       </div>
 
+      <Later>
       {chosen && <PointPanel point={chosen} />}
 
       {dc !== null && rf !== null && isHazardousLive(dc, rf) && (
@@ -277,6 +278,7 @@ export function StabilityDiagram() {
           ))}
         </ol>
       </div>
+      </Later>
     </>
   );
 }

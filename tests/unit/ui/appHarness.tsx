@@ -59,6 +59,8 @@ export async function mount(children: ComponentChildren, instrument: InstrumentP
   await act(async () => {
     render(<AppContext.Provider value={ctx}>{children}</AppContext.Provider>, root);
   });
+  // Sections below the answer join a task later (Later in Fold.tsx): wait for them as the eye does.
+  await waitFor(() => !root.querySelector('[data-later]'), 'the sections below the answer');
   return {
     root, store, notes, messages,
     setting: <T,>(key: string, check: (value: T | undefined) => boolean = (v) => v !== undefined) =>
