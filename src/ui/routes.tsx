@@ -5,22 +5,18 @@ import type { FunctionComponent } from 'preact';
 import { useEffect, useState } from 'preact/hooks';
 import { HomeScreen } from './screens/HomeScreen';
 import { NotFoundScreen } from './screens/NotFoundScreen';
+import { lazy } from './lazy';
 
 type Loader = () => Promise<FunctionComponent>;
 
 function lazyScreen(name: string, load: Loader): FunctionComponent {
-  let loaded: FunctionComponent | null = null;
-  let pending: Promise<FunctionComponent> | null = null;
-  const start = () => (pending ??= load().then((c) => (loaded = c)).catch((err: unknown) => {
-    pending = null; // let a later visit try again
-    throw err;
-  }));
+  const code = lazy(load); // a failed load is tried again on a later visit
   function LazyScreen() {
-    const [state, setState] = useState<{ screen: FunctionComponent | null; failed: boolean }>({ screen: loaded, failed: false });
+    const [state, setState] = useState<{ screen: FunctionComponent | null; failed: boolean }>({ screen: code.now(), failed: false });
     useEffect(() => {
       if (state.screen) return;
       let live = true;
-      start().then((c) => live && setState({ screen: c, failed: false })).catch(() => live && setState({ screen: null, failed: true }));
+      code.get().then((c) => live && setState({ screen: c, failed: false })).catch(() => live && setState({ screen: null, failed: true }));
       return () => {
         live = false;
       };

@@ -11,17 +11,12 @@ import type uPlot from 'uplot';
 import { whenIdle } from '../idle';
 import { formatTick } from '../format';
 import { nextTask } from '../../records';
+import { lazy } from '../lazy';
 
 // uPlot is loaded and evaluated after the screen's first paint, in idle time: its module sets up number and date
 // formatting at load, the first use of the browser's locale data, which is a long task on a phone. The chart keeps
 // its final height meanwhile, so nothing moves when it is drawn.
-let uplotModule: Promise<typeof uPlot> | null = null;
-function loadUplot(): Promise<typeof uPlot> {
-  return (uplotModule ??= import('uplot').then((m) => m.default).catch((err: unknown) => {
-    uplotModule = null; // a later chart may try again
-    throw err;
-  }));
-}
+const uplotCode = lazy(() => import('uplot').then((m) => m.default)); // a later chart tries again after a failure
 
 export type ChartOptions = Omit<uPlot.Options, 'width' | 'height'>;
 
@@ -146,7 +141,7 @@ export function Chart(props: ChartProps) {
     // Loading the library (its module is evaluated then) and drawing are separate tasks: together they would be
     // one long one on a phone.
     const cancelIdle = whenIdle(() => {
-      loadUplot().then(
+      uplotCode.get().then(
         (UPlot) => nextTask().then(() => {
           if (live) teardown = draw(UPlot, el);
         }),
@@ -273,7 +268,7 @@ export function ChartReserve(props: { height?: number; zoomButtons?: boolean; la
   const [loadFailed, setLoadFailed] = useState(false);
   useEffect(() => {
     let live = true;
-    const cancel = whenIdle(() => void loadUplot().catch(() => live && setLoadFailed(true)), 1000);
+    const cancel = whenIdle(() => void uplotCode.get().catch(() => live && setLoadFailed(true)), 1000);
     return () => {
       live = false;
       cancel();

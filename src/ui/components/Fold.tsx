@@ -13,15 +13,7 @@ export function InputsFold(props: { id: string; summary: string; invalid?: boole
   const [open, setOpen] = useState(!!props.invalid);
   // The folded fields are built a task after the screen's first draw (at once if the fold opens first), so the
   // answer is drawn without them; from then on they stay in the page.
-  const [built, setBuilt] = useState(!!props.invalid);
-  useEffect(() => {
-    if (built) return;
-    let live = true;
-    void nextTask().then(() => live && setBuilt(true));
-    return () => {
-      live = false;
-    };
-  }, [built]);
+  const built = useTaskAfterFirstDraw(!!props.invalid);
   const body = useRef<HTMLDivElement>(null);
   const focusFirst = useRef(false);
   useEffect(() => {
@@ -107,13 +99,19 @@ export function Disclosure(props: { class?: string; summary: ComponentChildren; 
  * it to go).
  */
 export function Later(props: { children: ComponentChildren }) {
-  const [ready, setReady] = useState(false);
+  return useTaskAfterFirstDraw(false) ? <>{props.children}</> : <div data-later="" />;
+}
+
+/** False at the first draw and true from one task later (or true from the start when `atOnce`). */
+function useTaskAfterFirstDraw(atOnce: boolean): boolean {
+  const [ready, setReady] = useState(atOnce);
   useEffect(() => {
+    if (ready) return;
     let live = true;
     void nextTask().then(() => live && setReady(true));
     return () => {
       live = false;
     };
-  }, []);
-  return ready ? <>{props.children}</> : <div data-later="" />;
+  }, [ready]);
+  return ready;
 }

@@ -7,6 +7,7 @@ import {
 } from '../../store';
 import type { trees as Trees } from '../../diagnose';
 import { More } from '../components/Fold';
+import { lazy } from '../lazy';
 import { useApp } from '../context';
 import { navigate, usePath } from '../router';
 import { BackupPanel, BackupReminderNote } from '../visits/BackupPanel';
@@ -327,18 +328,13 @@ function expectedText(r: Reading, type: ReadingType | undefined): string {
  * trees are the largest part of the app's code: the visit list does not wait for them).
  */
 type WalkTrees = typeof Trees;
-let walkTrees: WalkTrees | null = null;
-let walkTreesLoading: Promise<WalkTrees> | null = null;
+const walkTrees = lazy(() => import('../../diagnose').then((m) => m.trees));
 function useWalkTrees(needed: boolean): WalkTrees | null {
-  const [loaded, setLoaded] = useState<WalkTrees | null>(walkTrees);
+  const [loaded, setLoaded] = useState<WalkTrees | null>(walkTrees.now());
   useEffect(() => {
     if (!needed || loaded) return;
     let live = true;
-    walkTreesLoading ??= import('../../diagnose').then((m) => (walkTrees = m.trees)).catch((err: unknown) => {
-      walkTreesLoading = null;
-      throw err;
-    });
-    walkTreesLoading.then((t) => live && setLoaded(t), () => undefined /* the step keeps its plain wording */);
+    walkTrees.get().then((t) => live && setLoaded(t), () => undefined /* the step keeps its plain wording */);
     return () => {
       live = false;
     };

@@ -2,7 +2,7 @@
 import { useState } from 'preact/hooks';
 import { emptyOwnTypeDraft, type OwnTypeDraft, type ReadingType } from '../../store';
 import { useApp } from '../context';
-import { useShownOnce } from '../components/Fold';
+import { Disclosure } from '../components/Fold';
 import { errorText } from './files';
 
 const fields: { key: keyof OwnTypeDraft; label: string; hint?: string; numeric?: boolean }[] = [
@@ -22,8 +22,6 @@ export function OwnTypeForm(props: { onAdded: (t: ReadingType) => void }) {
   const [draft, setDraft] = useState<OwnTypeDraft>(emptyOwnTypeDraft());
   const [errors, setErrors] = useState<Partial<Record<keyof OwnTypeDraft, string>>>({});
   const [problem, setProblem] = useState<string | null>(null);
-  // The form is built when the card first opens (and kept, with what was typed, when it closes again).
-  const [shown, onToggle] = useShownOnce(false);
 
   async function save(e: Event) {
     e.preventDefault();
@@ -42,10 +40,10 @@ export function OwnTypeForm(props: { onAdded: (t: ReadingType) => void }) {
   }
 
   const unitWord = draft.toleranceKind === 'relative' ? '%' : draft.unit || 'units';
+  // The form is built when the card first opens (and kept, with what was typed, when it closes again).
   return (
-    <details class="card" data-testid="own-type" onToggle={onToggle}>
-      <summary>Add a reading type of your own</summary>
-      {shown && <form class="form" onSubmit={save} noValidate>
+    <Disclosure class="card" testId="own-type" summary="Add a reading type of your own">
+      <form class="form" onSubmit={save} noValidate>
         <p class="muted">Judged against the instrument’s baseline once one exists, otherwise against the expected range below.</p>
         {fields.map((f) => (
           <div key={f.key} class={errors[f.key] ? 'field has-error' : 'field'}>
@@ -73,7 +71,7 @@ export function OwnTypeForm(props: { onAdded: (t: ReadingType) => void }) {
         </div>
         {problem && <p class="banner banner-problem" role="alert">{problem}</p>}
         <div class="row"><button type="submit" class="btn">Add reading type</button></div>
-      </form>}
-    </details>
+      </form>
+    </Disclosure>
   );
 }
