@@ -2,7 +2,8 @@ import { render } from 'preact';
 import 'uplot/dist/uPlot.min.css';
 import './ui/styles.css';
 import { App } from './ui/App';
-import { afterLoad, afterStartUp } from './ui/idle';
+import { afterLoad } from './ui/idle';
+import { afterStartUp } from './ui/startUp';
 import { registerServiceWorker, requestPersistence } from './ui/offline';
 import { startRouter } from './ui/router';
 

@@ -6,6 +6,7 @@ import { AppContext, useApp, type AppContextValue } from './context';
 import { UpdateBanner } from './components/UpdateBanner';
 import { FieldModeToggle } from './components/FieldModeToggle';
 import { usePath } from './router';
+import { holdStartUp } from './startUp';
 import { routeFor } from './routes';
 
 /**
@@ -49,6 +50,8 @@ export function App() {
 
   useEffect(() => {
     let cancelled = false;
+    // Work that waits for the first screen (the offline copy of the app) waits for its data.
+    const release = holdStartUp('database');
     (async () => {
       try {
         const s = await openStore(undefined, {
@@ -66,10 +69,13 @@ export function App() {
         setCurrentId(saved && list.some((p) => p.id === saved) ? saved : (list[0]?.id ?? null));
       } catch (err) {
         setStoreProblem((err as { userMessage?: string }).userMessage ?? `The database could not be opened: ${String(err)}`);
+      } finally {
+        release();
       }
     })();
     return () => {
       cancelled = true;
+      release();
     };
   }, [opening]);
 

@@ -13,6 +13,7 @@ import { formatTick } from '../format';
 import { nextTask } from '../../records';
 import { lazy } from '../lazy';
 import { CHART_DRAWN_MARK } from '../marks';
+import { holdStartUp } from '../startUp';
 
 // uPlot is loaded and evaluated after the screen's first paint, in idle time: its module sets up number and date
 // formatting at load, the first use of the browser's locale data, which is a long task on a phone. The chart keeps
@@ -139,18 +140,28 @@ export function Chart(props: ChartProps) {
     }
     let live = true;
     let teardown: (() => void) | null = null;
+    // Work that waits for the first screen (the offline copy of the app) waits for this chart too.
+    const release = holdStartUp('chart');
     // Loading the library (its module is evaluated then) and drawing are separate tasks: together they would be
     // one long one on a phone.
     const cancelIdle = whenIdle(() => {
       uplotCode.get().then(
         (UPlot) => nextTask().then(() => {
-          if (live) teardown = draw(UPlot, el);
+          try {
+            if (live) teardown = draw(UPlot, el);
+          } finally {
+            release();
+          }
         }),
-        () => live && setLoadFailed(true),
+        () => {
+          release();
+          if (live) setLoadFailed(true);
+        },
       );
     }, 1000);
     return () => {
       live = false;
+      release();
       cancelIdle();
       teardown?.();
     };
@@ -271,9 +282,12 @@ export function ChartReserve(props: { height?: number; zoomButtons?: boolean; la
   const [loadFailed, setLoadFailed] = useState(false);
   useEffect(() => {
     let live = true;
+    // A chart waiting for its data: work that waits for the first screen waits for it too.
+    const release = holdStartUp('chart data');
     const cancel = whenIdle(() => void uplotCode.get().catch(() => live && setLoadFailed(true)), 1000);
     return () => {
       live = false;
+      release();
       cancel();
     };
   }, []);
