@@ -80,7 +80,12 @@ export interface Store {
   deletedInstrument(now?: Date): Promise<DeletedInstrument | undefined>;
 
   /** Load the invented demo scenario if it has never been loaded (or was removed and is asked for again). */
-  loadDemo(force?: boolean): Promise<boolean>;
+  /**
+   * Writes the demo instruments, then the demo visits with their readings (each judged in a task of its own);
+   * true when this call loaded it. `onInstruments` is called once the instruments are written, so a first screen
+   * can show them while the visits follow.
+   */
+  loadDemo(force?: boolean, onInstruments?: () => void): Promise<boolean>;
   removeDemo(): Promise<number>;
 
   getSetting<T>(key: string): Promise<T | undefined>;

@@ -46,7 +46,7 @@ function* judgedDemo(engine: StoreContext['engine']): Generator<{ visit: Visit; 
 
 export function demoMethods({ db, engine }: StoreContext): Pick<Store, 'loadDemo' | 'removeDemo'> {
   return {
-    loadDemo: (force = false) =>
+    loadDemo: (force = false, onInstruments?: () => void) =>
       guard('load the demo instruments', async () => {
         if (!force && (await db.get('settings', 'demoLoaded'))) return false;
         // What is there already stays as it is (a demo record the user edited is not put back): one key list per
@@ -57,6 +57,7 @@ export function demoMethods({ db, engine }: StoreContext): Pick<Store, 'loadDemo
         );
         const first = db.transaction('instruments', 'readwrite');
         await Promise.all([...demoInstruments.filter((p) => !haveInstruments.has(p.id)).map((p) => first.store.put({ ...p })), first.done]);
+        onInstruments?.();
         // Then one reading judged per task, and each visit written in a transaction of its own: on a phone's first
         // start this runs while the first screen draws, and one long burst (over a hundred readings judged and
         // written) would hold the page still. A start cut short loads what is still missing next time: the mark

@@ -41,6 +41,8 @@ export function App() {
   const toastTimer = useRef<number | undefined>(undefined);
   // Bumped when the page comes back from the back/forward cache: the database is opened afresh.
   const [opening, setOpening] = useState(0);
+  // True while the demo visits of a first start are still being written (the instruments are there already).
+  const [demoLoading, setDemoLoading] = useState(false);
 
   const notify = useCallback((message: string, action?: Toast['action']) => {
     window.clearTimeout(toastTimer.current);
@@ -61,9 +63,31 @@ export function App() {
             setStoreProblem('A newer version of Rodside opened in another tab. Reload this tab to keep working; anything typed here is kept as a draft.'),
         }, { engine: storeEngine });
         if (cancelled) { s.close(); return; }
-        if (opening === 0) await s.loadDemo();
+        // On a first start the screen waits for the demo instruments only; the demo visits, each reading judged in
+        // a task of its own, follow while it draws (the Visits screen says it is loading them meanwhile).
+        let instrumentsIn: () => void = () => undefined;
+        const written = new Promise<void>((resolve) => { instrumentsIn = resolve; });
+        const demo = opening === 0 ? s.loadDemo(false, instrumentsIn) : null;
+        let demoSettled = !demo;
+        if (demo) {
+          demo.then(() => { demoSettled = true; }, () => { demoSettled = true; });
+          await Promise.race([written, demo]);
+        }
         const list = await s.listInstruments();
         const saved = await s.getSetting<string>(CURRENT_INSTRUMENT_KEY);
+        if (demo && !demoSettled && !cancelled) {
+          setDemoLoading(true);
+          const releaseDemo = holdStartUp('demo visits');
+          demo
+            .catch((err: unknown) => {
+              // A page put away (back/forward cache) has its writes aborted: quiet, the rest loads next time.
+              if (!cancelled && document.visibilityState !== 'hidden') notify(`The demo visits could not all be loaded (${(err as { userMessage?: string }).userMessage ?? String(err)}); the rest is loaded at the next start.`);
+            })
+            .finally(() => {
+              releaseDemo();
+              if (!cancelled) setDemoLoading(false);
+            });
+        }
         setStore(s);
         setInstruments(list);
         setCurrentId(saved && list.some((p) => p.id === saved) ? saved : (list[0]?.id ?? null));
@@ -77,7 +101,7 @@ export function App() {
       cancelled = true;
       release();
     };
-  }, [opening]);
+  }, [opening, notify]);
 
   // A page kept in the back/forward cache must not hold its database: the page that replaces it (or a newer
   // version's upgrade) would wait on it. When the page is hidden the connection is closed and what it still runs
@@ -122,8 +146,9 @@ export function App() {
       selectInstrument,
       reloadInstruments,
       notify,
+      demoLoading,
     }),
-    [store, storeProblem, instruments, currentId, selectInstrument, reloadInstruments, notify],
+    [store, storeProblem, instruments, currentId, selectInstrument, reloadInstruments, notify, demoLoading],
   );
 
   const area = areaForPath(path);

@@ -13,6 +13,8 @@ export interface AppContextValue {
   reloadInstruments(): Promise<void>;
   /** Short message shown for a few seconds, with an optional action (e.g. Undo). */
   notify(message: string, action?: { label: string; run: () => void }): void;
+  /** True while a first start's demo visits are still being written (its instruments are there already). */
+  demoLoading?: boolean;
 }
 
 export const AppContext = createContext<AppContextValue>({

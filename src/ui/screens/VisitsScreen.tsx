@@ -46,7 +46,7 @@ function useReadingTypes(): [ReadingType[], () => void] {
 }
 
 function VisitList() {
-  const { store, storeProblem, instrument } = useApp();
+  const { store, storeProblem, instrument, demoLoading } = useApp();
   const [types, reloadTypes] = useReadingTypes();
   const [visits, setVisits] = useState<Visit[] | null>(null);
   // The backup reminder is read with the visits, so the list and the note above it appear together (no jump).
@@ -55,7 +55,8 @@ function VisitList() {
   const [problem, setProblem] = useState<string | null>(null);
 
   useEffect(() => {
-    if (!store || !instrument) return;
+    // On a first start the demo visits are read once they are all written.
+    if (!store || !instrument || demoLoading) return;
     let stale = false;
     (async () => {
       try {
@@ -80,11 +81,11 @@ function VisitList() {
       }
     })();
     return () => { stale = true; };
-  }, [store, instrument]);
+  }, [store, instrument, demoLoading]);
 
   // Until the database has answered and the list is read, only the heading shows: the rest arrives in one piece
   // below it, so nothing on screen is pushed down while it loads.
-  const loading = (!store && !storeProblem) || (!!instrument && visits === null && !problem);
+  const loading = (!store && !storeProblem) || (!!instrument && (visits === null || demoLoading) && !problem);
   if (loading) {
     return (
       <section class="screen">
