@@ -41,20 +41,21 @@ function fakeBrowser(longTasks = true) {
     t.live = false;
     t.fn();
   };
+  /** Moves the clock to `to` with the main thread free: timers fire on time, in order. */
+  const advance = (to: number) => {
+    for (let t = due(to); t; t = due(to)) {
+      clock = Math.max(clock, t.at);
+      fire(t);
+    }
+    clock = to;
+    timers = timers.filter((t) => t.live);
+  };
   return {
     env,
-    /** Moves the clock to `to` with the main thread free: timers fire on time, in order. */
-    advance(to: number) {
-      for (let t = due(to); t; t = due(to)) {
-        clock = Math.max(clock, t.at);
-        fire(t);
-      }
-      clock = to;
-      timers = timers.filter((t) => t.live);
-    },
+    advance,
     /** The main thread runs a task from `start` for `duration` ms: timers due meanwhile fire at its end. */
     task(start: number, duration: number) {
-      this.advance(start);
+      advance(start);
       clock = start + duration;
       for (let t = due(clock); t; t = due(clock)) fire(t);
       // The browser reports tasks over 50 ms, after they end.
@@ -63,7 +64,7 @@ function fakeBrowser(longTasks = true) {
     hide: () => hiddenListeners.forEach((fn) => fn()),
     hold: (on: boolean) => { held = on; },
     /** The browser becomes idle: queued idle work runs. */
-    idle() {
+    idle: () => {
       const q = idleQueue;
       idleQueue = [];
       q.filter((t) => t.live).forEach((t) => t.fn());
@@ -74,111 +75,81 @@ function fakeBrowser(longTasks = true) {
 }
 
 describe('settleWatch (work that waits for the start-up to settle)', () => {
-  const options = { quietMs: 1000, latestMs: 10_000 };
+  /** A fake browser with the watch started on it; `runsBy(t)` moves the clock to t, lets idle work run, and says
+   * how many times the task has run by then. */
+  function watched(longTasks = true) {
+    const b = fakeBrowser(longTasks);
+    let runs = 0;
+    const cancel = settleWatch(b.env, () => runs++, { quietMs: 1000, latestMs: 10_000 });
+    const runsBy = (t: number) => {
+      b.advance(t);
+      b.idle();
+      return runs;
+    };
+    return { ...b, cancel, runsBy, runs: () => runs };
+  }
 
   it('runs in idle time once the main thread has gone a second without a task over about 10 ms', () => {
-    const b = fakeBrowser();
-    let runs = 0;
-    settleWatch(b.env, () => runs++, options);
+    const b = watched();
     b.task(300, 80); // the first screen's render: a long task
     b.task(1210, 40); // a chart drawn: not a long task to the browser, but busy; ends at 1250
-    b.advance(2200);
-    b.idle();
-    expect(runs).toBe(0); // under a second since the chart
-    b.advance(2300);
-    b.idle();
-    expect(runs).toBe(1);
-    b.advance(20_000);
-    b.idle();
-    expect(runs).toBe(1);
+    expect(b.runsBy(2200)).toBe(0); // under a second since the chart
+    expect(b.runsBy(2300)).toBe(1);
+    expect(b.runsBy(20_000)).toBe(1);
     expect(b.listeners()).toBe(0);
     expect(b.liveTimers()).toBe(0);
   });
 
   it('counts a long task the browser reports even when it barely delayed a look at the clock', () => {
-    const b = fakeBrowser();
-    let runs = 0;
-    settleWatch(b.env, () => runs++, options);
+    const b = watched();
     b.task(400, 55); // the look due at 450 comes 5 ms late; the browser reports the task, ending at 455
-    b.advance(1400);
-    b.idle();
-    expect(runs).toBe(0);
-    b.advance(1500);
-    b.idle();
-    expect(runs).toBe(1);
+    expect(b.runsBy(1400)).toBe(0);
+    expect(b.runsBy(1500)).toBe(1);
   });
 
   it('lets short tasks pass (under about 10 ms)', () => {
-    const b = fakeBrowser();
-    let runs = 0;
-    settleWatch(b.env, () => runs++, options);
+    const b = watched();
     for (let t = 20; t < 1000; t += 100) b.task(t + 45, 8);
-    b.advance(1100);
-    b.idle();
-    expect(runs).toBe(1);
+    expect(b.runsBy(1100)).toBe(1);
   });
 
   it('runs at the latest after latestMs when the page never goes quiet', () => {
-    const b = fakeBrowser();
-    let runs = 0;
-    settleWatch(b.env, () => runs++, options);
+    const b = watched();
     for (let t = 0; t < 12_000; t += 500) b.task(t + 10, 30);
     b.idle();
-    expect(runs).toBe(1);
+    expect(b.runs()).toBe(1);
   });
 
   it('runs at once when the page is hidden first (the app sent to the background)', () => {
-    const b = fakeBrowser();
-    let runs = 0;
-    settleWatch(b.env, () => runs++, options);
+    const b = watched();
     b.task(100, 200);
     b.hide();
-    expect(runs).toBe(1);
+    expect(b.runs()).toBe(1);
     b.hide();
-    b.advance(20_000);
-    b.idle();
-    expect(runs).toBe(1);
+    expect(b.runsBy(20_000)).toBe(1);
   });
 
   it('still sees busy time where the browser reports no long tasks (WebKit)', () => {
-    const b = fakeBrowser(false);
-    let runs = 0;
-    settleWatch(b.env, () => runs++, options);
+    const b = watched(false);
     b.task(500, 120);
-    b.advance(1500);
-    b.idle();
-    expect(runs).toBe(0);
-    b.advance(1700);
-    b.idle();
-    expect(runs).toBe(1);
+    expect(b.runsBy(1500)).toBe(0);
+    expect(b.runsBy(1700)).toBe(1);
   });
 
   it('waits while the first screen holds the start-up (its data on the way), then for a quiet second', () => {
-    const b = fakeBrowser();
-    let runs = 0;
-    settleWatch(b.env, () => runs++, options);
+    const b = watched();
     b.hold(true); // the database opening, the main thread idle meanwhile
-    b.advance(3000);
-    b.idle();
-    expect(runs).toBe(0);
+    expect(b.runsBy(3000)).toBe(0);
     b.hold(false);
-    b.advance(3990);
-    b.idle();
-    expect(runs).toBe(0);
-    b.advance(4100);
-    b.idle();
-    expect(runs).toBe(1);
+    expect(b.runsBy(3990)).toBe(0);
+    expect(b.runsBy(4100)).toBe(1);
   });
 
   it('does nothing once cancelled', () => {
-    const b = fakeBrowser();
-    let runs = 0;
-    const cancel = settleWatch(b.env, () => runs++, options);
-    cancel();
+    const b = watched();
+    b.cancel();
     b.hide();
-    b.advance(20_000);
-    b.idle();
-    expect(runs).toBe(0);
+    expect(b.runsBy(20_000)).toBe(0);
     expect(b.listeners()).toBe(0);
     expect(b.liveTimers()).toBe(0);
   });
