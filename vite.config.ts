@@ -17,7 +17,7 @@ export default defineConfig({
     preact(),
     lazyUplotIntl(),
     // The chart library's functions compiled off the main thread when it loads, not inside the first chart's
-    // drawing (measured: that task 60–100 ms → about 35 ms in Lighthouse's trace of /peak). See the plugin.
+    // drawing (measured in Lighthouse traces of /peak: that task 65–106 ms before, 34–66 ms after). See the plugin.
     compileHints(/^uPlot/),
     VitePWA({
       // The user may be half-way through a reading: updates are offered, never forced.

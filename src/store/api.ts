@@ -79,8 +79,8 @@ export interface Store {
   /** The deleted instrument that can still be restored (and what came with it); expired copies are dropped. */
   deletedInstrument(now?: Date): Promise<DeletedInstrument | undefined>;
 
-  /** Load the invented demo scenario if it has never been loaded (or was removed and is asked for again). */
   /**
+   * Loads the invented demo scenario if it has never been loaded (or was removed and is asked for again, `force`).
    * Writes the demo instruments, then the demo visits with their readings (each judged in a task of its own);
    * true when this call loaded it. `onInstruments` is called once the instruments are written, so a first screen
    * can show them while the visits follow.

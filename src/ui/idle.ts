@@ -20,9 +20,13 @@ export function whenIdle(task: () => void, timeoutMs = 2000): () => void {
   return () => clearTimeout(id);
 }
 
+/** Runs `task` once the page has loaded: at once if it has, else on the load event. */
+export function whenLoaded(task: () => void): void {
+  if (document.readyState === 'complete') task();
+  else window.addEventListener('load', task, { once: true });
+}
+
 /** Runs `task` in idle time after the page has loaded (the first paint is done by then). */
 export function afterLoad(task: () => void, timeoutMs = 4000): void {
-  const start = () => whenIdle(task, timeoutMs);
-  if (document.readyState === 'complete') start();
-  else window.addEventListener('load', start, { once: true });
+  whenLoaded(() => whenIdle(task, timeoutMs));
 }

@@ -1,5 +1,5 @@
 // The start-up: what the first screen still waits for, and work that waits until it has everything.
-import { whenIdle } from './idle';
+import { whenIdle, whenLoaded } from './idle';
 
 /** What the first screen is still waiting for (the database, a chart's data, a chart being drawn). */
 const holds = new Set<symbol>();
@@ -35,7 +35,7 @@ export interface SettleEnv {
 }
 
 export interface SettleOptions {
-  /** How long the main thread must stay free of tasks longer than about `busyMs`. */
+  /** How long nothing may be held and the main thread must run no task over about 10 ms. */
   quietMs: number;
   /** Run at the latest this long after the watch starts, quiet or not. */
   latestMs: number;
@@ -48,9 +48,8 @@ const LATE_MS = 10;
 /**
  * Runs `task` once, when the start-up has settled: `quietMs` in which nothing was held (see `holdStartUp`) and the
  * main thread ran no task longer than about 10 ms, at the latest after `latestMs`, and at once if the page is
- * hidden first. Busy time shows as a look at the
- * clock (every 50 ms) that comes late, and as the browser's long-task reports where it makes them (tasks over
- * 50 ms). Returns a cancel function.
+ * hidden first. Busy time shows as a look at the clock (every 50 ms) that comes late, and as the browser's
+ * long-task reports where it makes them (tasks over 50 ms). Returns a cancel function.
  */
 export function settleWatch(env: SettleEnv, task: () => void, options: SettleOptions): () => void {
   let lastBusy = env.now();
@@ -111,11 +110,9 @@ function browserSettleEnv(): SettleEnv {
 /**
  * Runs `task` after the page has loaded and the first screen has settled (its data read and its charts drawn,
  * then a second in which the main thread ran no task over about 10 ms; at the latest ten seconds after load), or
- * at once when the app goes to the background. For work that competes with the start-up for a phone's few cores but is not needed by it, such as
- * downloading and storing the offline copy of the app.
+ * at once when the app goes to the background. For work that competes with the start-up for a phone's few cores
+ * but is not needed by it, such as downloading and storing the offline copy of the app.
  */
 export function afterStartUp(task: () => void, options: SettleOptions = { quietMs: 1000, latestMs: 10_000 }): void {
-  const start = () => void settleWatch(browserSettleEnv(), task, options);
-  if (document.readyState === 'complete') start();
-  else window.addEventListener('load', start, { once: true });
+  whenLoaded(() => void settleWatch(browserSettleEnv(), task, options));
 }
