@@ -57,10 +57,13 @@ export function themedOptions(options: ChartOptions, palette: ChartPalette): Cha
   // tighter titles and x-axis room give the curve the space, callers still set a y size for wide tick labels.
   const field = fieldModeActive();
   const axes = (options.axes ?? [{}, {}]).map((axis, i) => ({
-    labelSize: 20,
     labelGap: 0,
-    // Field mode: axis numbers and titles big and bold enough to read in glare.
-    ...(field ? { font: '600 15px system-ui, sans-serif', labelFont: '700 16px system-ui, sans-serif', labelSize: 24 } : {}),
+    // The page's own type (uPlot's default names a longer list of families, each one more font to look up), and
+    // fonts known here, so warmChartText can draw them ahead. Field mode: axis numbers and titles big and bold
+    // enough to read in glare.
+    ...(field
+      ? { font: `600 15px ${CHART_FONT_FAMILY}`, labelFont: `700 16px ${CHART_FONT_FAMILY}`, labelSize: 24 }
+      : { font: `12px ${CHART_FONT_FAMILY}`, labelFont: `bold 12px ${CHART_FONT_FAMILY}`, labelSize: 20 }),
     ...(i === 0 ? { size: 40 } : {}),
     // Numbers by our own formatter: uPlot's default builds an Intl.NumberFormat, the browser's first use of its
     // locale data (a long task on a phone; the build makes uPlot build it only when asked, see vite.config.ts).
@@ -75,6 +78,38 @@ export function themedOptions(options: ChartOptions, palette: ChartPalette): Cha
   return { ...options, legend: options.legend ?? { show: false }, axes };
 }
 
+/** The page's font families (styles.css, body), for everything drawn on a chart's canvas. */
+export const CHART_FONT_FAMILY = "system-ui, -apple-system, 'Segoe UI', Roboto, 'Noto Sans', sans-serif";
+
+/** What an axis draws: digits and signs of the tick numbers, and the axis titles. */
+const TICK_CHARACTERS = '0123456789.,−-+eE×%';
+
+/**
+ * Draws the axis fonts of `options` once on a scratch canvas, at the size uPlot draws them (CSS px times the pixel
+ * ratio). A page's first text on a canvas looks its fonts up and renders their glyphs: 5–15 ms measured on the
+ * 2-core machine, which is then a short task of its own instead of part of the chart's first drawing.
+ */
+export function warmChartText(options: ChartOptions, ratio: number = globalThis.devicePixelRatio || 1): void {
+  const canvas = document.createElement('canvas');
+  canvas.width = 48;
+  canvas.height = 48;
+  const ctx = canvas.getContext('2d');
+  if (!ctx) return;
+  const fonts = new Set<string>();
+  let characters = TICK_CHARACTERS;
+  for (const axis of options.axes ?? []) {
+    for (const font of [axis.font, axis.labelFont]) {
+      if (typeof font === 'string') fonts.add(font.replace(/(\d+)px/, (_m, size: string) => `${Math.round(Number(size) * ratio)}px`));
+    }
+    if (typeof axis.label === 'string') characters += axis.label;
+  }
+  // One glyph at a time inside the canvas: text beyond its edge may be skipped rather than rendered.
+  for (const font of fonts) {
+    ctx.font = font;
+    for (const ch of new Set(characters)) ctx.fillText(ch, 4, 36);
+  }
+}
+
 function tickValues(_u: uPlot, splits: number[]): string[] {
   return splits.map((v) => (v == null || !Number.isFinite(v) ? '' : formatTick(v)));
 }
@@ -84,8 +119,11 @@ function darkQuery(): MediaQueryList | null {
 }
 
 export interface ChartProps {
-  /** Columnar data: [xs, ys1, ys2, …]; null marks a gap. */
-  data: uPlot.AlignedData;
+  /**
+   * Columnar data: [xs, ys1, ys2, …]; null marks a gap. Null for data still being computed: the chart holds its
+   * place (marked busy, tools disabled) and builds its frame meanwhile, so drawing the data is short.
+   */
+  data: uPlot.AlignedData | null;
   /** Options, or a function of the palette so series colours follow the theme. */
   options: ChartOptions | ((palette: ChartPalette) => ChartOptions);
   height?: number;
@@ -105,16 +143,37 @@ export interface ChartProps {
   testId?: string;
 }
 
+/** Empty columns for every series of `options`: a chart built before its data draws its frame only. */
+function noData(options: ChartOptions): uPlot.AlignedData {
+  return Array.from({ length: Math.max(2, options.series?.length ?? 2) }, () => []) as unknown as uPlot.AlignedData;
+}
+
+/** The caller's draw hooks, run only once there is data (without it, scales have no range to place things by). */
+function withDataHooks(options: ChartOptions): ChartOptions {
+  const draw = options.hooks?.draw;
+  if (!draw) return options;
+  const hooks = (Array.isArray(draw) ? draw : [draw]).map((hook) => (u: uPlot) => {
+    if (hook && u.data[0]?.length) hook(u);
+  });
+  return { ...options, hooks: { ...options.hooks, draw: hooks } };
+}
+
 export function Chart(props: ChartProps) {
   const host = useRef<HTMLDivElement>(null);
   const plot = useRef<uPlot | null>(null);
   const resolved = useRef<ChartOptions | null>(null);
+  /** Whether the chart on screen shows data (not only its frame). */
+  const shown = useRef(false);
+  /** Ends this chart's hold on the work that waits for the first screen. */
+  const releaseHold = useRef<(() => void) | null>(null);
   const latest = useRef(props);
   latest.current = props;
 
   // Canvas can be missing (blocked by a privacy setting, or a DOM without 2D canvas): say so, keep the page.
   const [noCanvas, setNoCanvas] = useState(false);
   const [loadFailed, setLoadFailed] = useState(false);
+  // The zoom tools act once data is drawn.
+  const [hasData, setHasData] = useState(false);
   // Light or dark: a change draws the chart again in the other palette.
   const [dark, setDark] = useState(() => darkQuery()?.matches ?? false);
   useEffect(() => {
@@ -140,18 +199,27 @@ export function Chart(props: ChartProps) {
     }
     let live = true;
     let teardown: (() => void) | null = null;
-    // Work that waits for the first screen (the offline copy of the app) waits for this chart too.
+    // Work that waits for the first screen (the offline copy of the app) waits until this chart shows its data.
+    releaseHold.current?.();
     const release = holdStartUp('chart');
-    // Loading the library (its module is evaluated then) and drawing are separate tasks: together they would be
-    // one long one on a phone.
+    releaseHold.current = release;
+    shown.current = false;
+    // A chart's first drawing is the longest single piece of work on its screen. It is done in steps, each a task
+    // of its own, most of them while the data is still computed: the fonts (warmChartText); loading the library
+    // (its module is evaluated then); the frame without data (elements, the canvas's memory); then the data.
     const cancelIdle = whenIdle(() => {
+      if (!live) return;
+      const options = resolveOptions();
+      warmChartText(options);
       uplotCode.get().then(
         (UPlot) => nextTask().then(() => {
-          try {
-            if (live) teardown = draw(UPlot, el);
-          } finally {
-            release();
-          }
+          if (!live) return;
+          teardown = build(UPlot, el, options);
+          return nextTask().then(() => {
+            const u = plot.current;
+            const data = latest.current.data;
+            if (live && u && data && !shown.current) show(u, data);
+          });
         }),
         () => {
           release();
@@ -168,23 +236,21 @@ export function Chart(props: ChartProps) {
     // Options are read once per theme and mode: a new series layout needs a new key on the component.
   }, [dark, fieldMode]);
 
-  function draw(UPlot: typeof uPlot, el: HTMLDivElement): () => void {
-    const width = Math.max(240, el.clientWidth || 320);
+  function resolveOptions(): ChartOptions {
     const given = latest.current.options;
-    const options = themedOptions(typeof given === 'function' ? given(chartPalette()) : given, chartPalette());
+    const palette = chartPalette();
+    return themedOptions(typeof given === 'function' ? given(palette) : given, palette);
+  }
+
+  /** The chart's frame, without data: shown once data is given (show). */
+  function build(UPlot: typeof uPlot, el: HTMLDivElement, options: ChartOptions): () => void {
+    const width = Math.max(240, el.clientWidth || 320);
     resolved.current = options;
-    const u = new UPlot({ ...options, width, height: latest.current.height ?? 300 }, latest.current.data, el);
+    const u = new UPlot({ ...withDataHooks(options), width, height: latest.current.height ?? 300 }, noData(options), el);
     plot.current = u;
-    // For start-up measurements (npm run bench -- lighthouse): a page with a chart is complete once it is drawn.
-    performance.mark?.(CHART_DRAWN_MARK, { detail: latest.current.testId ?? null });
-    // A view asked for before the chart was drawn applies now.
-    const view = latest.current.view;
-    if (view) u.batch(() => {
-      for (const [scale, [min, max]] of Object.entries(view.ranges)) u.setScale(scale, { min, max });
-    });
     const onClick = (ev: MouseEvent) => {
       const cb = latest.current.onTap;
-      if (!cb) return;
+      if (!cb || !shown.current) return;
       const rect = u.over.getBoundingClientRect();
       const left = ev.clientX - rect.left;
       const top = ev.clientY - rect.top;
@@ -203,16 +269,34 @@ export function Chart(props: ChartProps) {
       u.over.removeEventListener('click', onClick);
       u.destroy();
       plot.current = null;
+      shown.current = false;
     };
   }
 
+  /** Data on the chart; the first time, with a view asked for before it was drawn. */
+  function show(u: uPlot, data: uPlot.AlignedData): void {
+    const first = !shown.current;
+    shown.current = true;
+    const view = first ? latest.current.view : null;
+    u.batch(() => {
+      u.setData(data);
+      if (view) for (const [scale, [min, max]] of Object.entries(view.ranges)) u.setScale(scale, { min, max });
+    });
+    if (!first) return;
+    // For start-up measurements (npm run bench -- lighthouse): a page with a chart is complete once it is drawn.
+    performance.mark?.(CHART_DRAWN_MARK, { detail: latest.current.testId ?? null });
+    releaseHold.current?.();
+    setHasData(true);
+  }
+
   useEffect(() => {
-    plot.current?.setData(props.data);
+    const u = plot.current;
+    if (u && props.data) show(u, props.data);
   }, [props.data]);
 
   useEffect(() => {
     const u = plot.current;
-    if (!u || !props.view) return;
+    if (!u || !props.view || !shown.current) return;
     u.batch(() => {
       for (const [scale, [min, max]] of Object.entries(props.view!.ranges)) u.setScale(scale, { min, max });
     });
@@ -221,12 +305,12 @@ export function Chart(props: ChartProps) {
   }, [props.view?.key]);
 
   useEffect(() => {
-    plot.current?.redraw(false);
+    if (shown.current) plot.current?.redraw(false);
   }, [props.redrawKey]);
 
   function zoom(factor: number) {
     const u = plot.current;
-    if (!u) return;
+    if (!u || !shown.current) return;
     u.batch(() => {
       for (const scale of props.zoomScales ?? ['x']) {
         const min = u.scales[scale].min!;
@@ -239,9 +323,10 @@ export function Chart(props: ChartProps) {
   }
   function reset() {
     const u = plot.current;
-    if (!u) return;
+    const data = latest.current.data;
+    if (!u || !data || !shown.current) return;
     u.batch(() => {
-      u.setData(latest.current.data, true);
+      u.setData(data, true);
       // Scales with a fixed range are not auto-ranged by setData: put them back explicitly.
       for (const [key, scale] of Object.entries(resolved.current?.scales ?? {})) {
         const range = scale?.range;
@@ -250,10 +335,12 @@ export function Chart(props: ChartProps) {
     });
   }
 
+  const ready = hasData && props.data !== null;
+  const broken = noCanvas || loadFailed;
   return (
-    <figure class="chart-figure" data-testid={props.testId}>
-      {props.zoomButtons && <ChartTools zoom={zoom} reset={reset} />}
-      <div class="chart" ref={host} role="img" aria-label={props.label} style={noCanvas || loadFailed ? undefined : { minHeight: `${props.height ?? 300}px` }} />
+    <figure class="chart-figure" data-testid={props.testId} aria-busy={props.data === null ? 'true' : undefined}>
+      {props.zoomButtons && <ChartTools zoom={ready ? zoom : undefined} reset={ready ? reset : undefined} />}
+      <div class="chart" ref={host} role="img" aria-label={props.label} style={broken ? undefined : { minHeight: `${props.height ?? 300}px` }} />
       {loadFailed && <LoadFailed />}
       {noCanvas && <p class="notice">This browser does not allow drawing on a canvas, so the chart cannot be shown; the values below are complete without it.</p>}
     </figure>
@@ -269,34 +356,6 @@ function ChartTools(props: { zoom?: (factor: number) => void; reset?: () => void
       <button type="button" class="btn btn-small" disabled={!zoom} onClick={() => zoom?.(2)}>Zoom out</button>
       <button type="button" class="btn btn-small" disabled={!reset} onClick={reset} aria-label="Reset the chart view">Reset</button>
     </div>
-  );
-}
-
-/**
- * The space of a chart that has no data yet, with the same frame (and the zoom buttons, disabled) as the chart
- * that replaces it: when the data arrives, nothing around it moves.
- */
-export function ChartReserve(props: { height?: number; zoomButtons?: boolean; label: string; testId?: string }) {
-  // The chart library loads meanwhile, in idle time, so the chart is drawn as soon as its data is there. If it
-  // cannot be loaded, say so here already (the chart that replaces this space tries once more).
-  const [loadFailed, setLoadFailed] = useState(false);
-  useEffect(() => {
-    let live = true;
-    // A chart waiting for its data: work that waits for the first screen waits for it too.
-    const release = holdStartUp('chart data');
-    const cancel = whenIdle(() => void uplotCode.get().catch(() => live && setLoadFailed(true)), 1000);
-    return () => {
-      live = false;
-      release();
-      cancel();
-    };
-  }, []);
-  return (
-    <figure class="chart-figure" data-testid={props.testId}>
-      {props.zoomButtons && <ChartTools />}
-      <div class="chart chart-reserve" role="img" aria-label={props.label} aria-busy="true" style={{ minHeight: `${props.height ?? 300}px` }} />
-      {loadFailed && <LoadFailed />}
-    </figure>
   );
 }
 

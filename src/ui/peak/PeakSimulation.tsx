@@ -4,7 +4,7 @@
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { apexRatio, hazardousLive, type PeakProfile, type TransmissionVsResolution } from '../../engine';
 import { isAbortError, simClient, SimClient } from '../../worker/client';
-import { Chart, ChartReserve } from '../components/Chart';
+import { Chart } from '../components/Chart';
 import { NumberField } from '../components/Field';
 import { CautionLine, InputsFold, More } from '../components/Fold';
 import { InstrumentLine } from '../components/InstrumentLine';
@@ -200,11 +200,13 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
   }, [instrument?.id, inputs.mz, inputs.axialVoltage, inputs.beamRadiusMm, inputs.transverseEnergy]);
   useEffect(() => () => curveController.current?.abort(), []);
 
+  // The peak on screen (the last finished or coarse one), kept while a newer run computes.
+  const shownPeak = lastDone.current;
   const peakData = useMemo(() => {
-    if (peak.status !== 'done' && peak.status !== 'coarse') return null;
-    const percent = Float64Array.from(peak.result.transmission, (t) => 100 * t);
-    return [Array.from(peak.result.mz), Array.from(percent)] as [number[], number[]];
-  }, [peak]);
+    if (!shownPeak) return null;
+    const percent = Float64Array.from(shownPeak.transmission, (t) => 100 * t);
+    return [Array.from(shownPeak.mz), Array.from(percent)] as [number[], number[]];
+  }, [shownPeak]);
 
   const curveData = useMemo(() => {
     if (curve.status !== 'done') return null;
@@ -310,20 +312,18 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
           )}
         </p>
         {peak.status === 'failed' && <p class="field-error" role="alert">The simulation stopped: {peak.message}</p>}
-        {!(result && peakData) && <ChartReserve height={260} zoomButtons label="The simulated peak is being computed" />}
+        <Chart key="peak" data={peakData} height={260} zoomButtons testId="peak-chart"
+          label={result && peakData
+            ? `Simulated transmission against m/z from ${formatNumber(peakData[0][0], 6)} to ${formatNumber(peakData[0][peakData[0].length - 1], 6)}; peak ${formatNumber(100 * result.peakTransmission, 3)} %`
+            : 'The simulated peak is being computed'}
+          options={({ teal }) => ({
+            scales: { x: { time: false } },
+            series: [{ label: 'm/z' }, { label: 'Transmission (%)', stroke: teal, width: 2 }],
+            axes: [{ label: 'm/z' }, { label: 'Transmission (%)' }],
+          })} />
         {!result && <div class="peak-results" aria-hidden="true" />}
         {result && (
-          <>
-            {peakData && (
-              <Chart key="peak" data={peakData} height={260} zoomButtons testId="peak-chart"
-                label={`Simulated transmission against m/z from ${formatNumber(peakData[0][0], 6)} to ${formatNumber(peakData[0][peakData[0].length - 1], 6)}; peak ${formatNumber(100 * result.peakTransmission, 3)} %`}
-                options={({ teal }) => ({
-                  scales: { x: { time: false } },
-                  series: [{ label: 'm/z' }, { label: 'Transmission (%)', stroke: teal, width: 2 }],
-                  axes: [{ label: 'm/z' }, { label: 'Transmission (%)' }],
-                })} />
-            )}
-            <div class="peak-results">
+          <div class="peak-results">
             <Result label="Peak transmission" value={`${formatNumber(100 * result.peakTransmission, 3)} % at m/z ${formatNumber(result.peakMz, 6)}`} testId="peak-transmission"
               note={{ label: `Simulated peak transmission at m/z ${mzText}`, value: 100 * result.peakTransmission, unit: '%', origin: 'calculator', context: ctx }} />
             <Result label="Resolution m/Δm at 50 % height" value={result.resolution50 > 0 ? formatNumber(result.resolution50, 4) : 'no measurable width in this range'} testId="peak-r50"
@@ -338,8 +338,7 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
               </p>
             )}
             <p class="hint">Numerical error of each point ≤ {coarse ? '1' : '0.1'} % of the peak height (deterministic: no counting noise).</p>
-            </div>
-          </>
+          </div>
         )}
       </div>
 

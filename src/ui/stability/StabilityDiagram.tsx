@@ -7,7 +7,7 @@ import {
 } from '../../engine';
 import { HvCaution, isHazardousLive } from '../bench/HvCaution';
 import type { InstrumentProfile } from '../../store';
-import { Chart, ChartReserve, type ChartOptions, type ChartPalette, type uPlot } from '../components/Chart';
+import { Chart, CHART_FONT_FAMILY, type ChartOptions, type ChartPalette, type uPlot } from '../components/Chart';
 import { NumberField, SelectField } from '../components/Field';
 import { CautionLine, Disclosure, InputsFold, Later } from '../components/Fold';
 import { InstrumentLine, scanLineSummary } from '../components/InstrumentLine';
@@ -183,13 +183,11 @@ export function StabilityDiagram() {
 
       <div class="card">
         <h2 class="card-title">First stability region</h2>
-        {data ? (
-          <Chart data={data} options={options} height={300} zoomButtons zoomScales={['x', 'y']} view={view} redrawKey={redrawKey}
-            onTap={onTap} testId="stability-chart"
-            label={`Stability diagram, a against q: the first region bounded by the y edge on the left and the x edge on the right, apex at q ${apex.q.toFixed(4)}, a ${apex.a.toFixed(5)}; ${points.length} operating points, listed below.`} />
-        ) : (
-          <ChartReserve height={300} zoomButtons label="The stability diagram is being computed" />
-        )}
+        <Chart data={data} options={options} height={300} zoomButtons zoomScales={['x', 'y']} view={view} redrawKey={redrawKey}
+          onTap={onTap} testId="stability-chart"
+          label={data
+            ? `Stability diagram, a against q: the first region bounded by the y edge on the left and the x edge on the right, apex at q ${apex.q.toFixed(4)}, a ${apex.a.toFixed(5)}; ${points.length} operating points, listed below.`
+            : 'The stability diagram is being computed'} />
         <div class="row" role="group" aria-label="Chart view">
           <button type="button" class="btn btn-small" onClick={() => setView({ key: Date.now(), ranges: { x: WHOLE.x, y: WHOLE.y } })}>Whole region</button>
           <button type="button" class="btn btn-small" data-testid="zoom-apex"
@@ -370,7 +368,8 @@ function chartOptions(palette: ChartPalette, pointsRef: { current: PlottedPoint[
           ctx.moveTo(ax, ay - s); ctx.lineTo(ax + s, ay); ctx.lineTo(ax, ay + s); ctx.lineTo(ax - s, ay); ctx.closePath();
           ctx.stroke();
           ctx.fillStyle = ink;
-          ctx.font = `${12 * dpr}px system-ui, sans-serif`;
+          // The axis numbers' font and size (uPlot rounds the size the same way), drawn ahead by warmChartText.
+          ctx.font = `${Math.round(12 * dpr)}px ${CHART_FONT_FAMILY}`;
           ctx.fillText('apex', ax + s + 3 * dpr, ay - s);
           // Point labels never overlap each other or the apex label (tightly packed ions in the whole-region view).
           const lineHeight = 12 * dpr;

@@ -15,10 +15,10 @@ import { demo, mount, texts, type Harness } from '../ui/appHarness';
 import { waitFor } from '../waitFor';
 
 vi.mock('../../../src/ui/components/Chart', () => ({
-  Chart: (props: { data: number[][]; testId?: string; label: string }) => (
-    <figure data-testid={props.testId} data-points={props.data[0].length} data-first={props.data[1][50]} aria-label={props.label} />
+  // A chart whose data is still computed (null) shows no points.
+  Chart: (props: { data: number[][] | null; testId?: string; label: string }) => (
+    <figure data-testid={props.testId} data-points={props.data?.[0].length ?? 0} data-first={props.data?.[1][50]} aria-label={props.label} aria-busy={props.data ? undefined : 'true'} />
   ),
-  ChartReserve: (props: { label: string }) => <figure data-testid="chart-reserve" aria-label={props.label} />,
 }));
 
 /** Computes each request with the real protocol but hands its messages over one at a time, on request. */
@@ -135,7 +135,7 @@ describe('PeakSimulation: coarse → refined', () => {
     await waitFor(() => workers[0].terminated, 'the older run to end once its coarse profile landed');
     // Coarse drawn, and the newer inputs start at once (the old run's refinement is dropped).
     expect(workers[0].terminated).toBe(true);
-    expect(h.root.querySelector('[data-testid="peak-chart"]')).not.toBeNull();
+    expect(h.root.querySelector('[data-testid="peak-chart"]')?.getAttribute('data-points')).toBe('101');
     await waitFor(() => workers.length === 2 && workers[1].requests.length === 1, 'the newer run');
     const run = buildPeakRun({ ...peakDefaults(k), ...kept, beamRadiusMm: '0.3' }, k, {})!;
     expect(workers[1].requests[0].params).toEqual(run.params);

@@ -13,10 +13,10 @@ import { demo, mount, openDisclosure, texts, typeInto, waitFor, type Harness } f
 
 // uPlot needs a real canvas; the chart wrapper has its own tests upstream. Here a stand-in records the data.
 vi.mock('../../../src/ui/components/Chart', () => ({
-  Chart: (props: { data: number[][]; testId?: string; label: string }) => (
-    <figure data-testid={props.testId} data-points={props.data[0].length} aria-label={props.label} />
+  // A chart whose data is still computed (null) shows no points.
+  Chart: (props: { data: number[][] | null; testId?: string; label: string }) => (
+    <figure data-testid={props.testId} data-points={props.data?.[0].length ?? 0} aria-label={props.label} aria-busy={props.data ? undefined : 'true'} />
   ),
-  ChartReserve: (props: { label: string }) => <figure data-testid="chart-reserve" aria-label={props.label} />,
 }));
 
 class ManualWorker implements WorkerLike {
@@ -114,6 +114,13 @@ describe('PeakSimulation', () => {
     expect(value('peak-r50')).toBe(formatNumber(expected.resolution50, 4));
     expect(value('peak-r10')).toBe(formatNumber(expected.resolution10, 4));
     expect(value('peak-transmission')).toContain(`${formatNumber(100 * expected.peakTransmission, 3)} %`);
+    expect(h.root.querySelector('[data-testid="peak-chart"]')?.getAttribute('data-points')).toBe('101');
+    // A newer run computing keeps the last peak on the chart (the result card is marked busy meanwhile).
+    await act(async () => {
+      slider.value = '0.4';
+      slider.dispatchEvent(new Event('input', { bubbles: true }));
+    });
+    await waitFor(() => h!.root.querySelector('[data-testid="peak-result"][aria-busy="true"]'), 'the result card marked busy');
     expect(h.root.querySelector('[data-testid="peak-chart"]')?.getAttribute('data-points')).toBe('101');
     // The model's assumptions are one tap away.
     await openDisclosure(h.root, 'Model and its assumptions');
