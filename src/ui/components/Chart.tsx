@@ -84,17 +84,9 @@ export const CHART_FONT_FAMILY = "system-ui, -apple-system, 'Segoe UI', Roboto, 
 /** What an axis draws: digits and signs of the tick numbers, and the axis titles. */
 const TICK_CHARACTERS = '0123456789.,−-+eE×%';
 
-/**
- * Draws the axis fonts of `options` once on a scratch canvas, at the size uPlot draws them (CSS px times the pixel
- * ratio). A page's first text on a canvas looks its fonts up and renders their glyphs: 5–15 ms measured on the
- * 2-core machine, which is then a short task of its own instead of part of the chart's first drawing.
- */
-export function warmChartText(options: ChartOptions, ratio: number = globalThis.devicePixelRatio || 1): void {
-  const canvas = document.createElement('canvas');
-  canvas.width = 48;
-  canvas.height = 48;
-  const ctx = canvas.getContext('2d');
-  if (!ctx) return;
+/** The fonts the axes of `options` draw with, at the size uPlot draws them (CSS px times the pixel ratio), and the
+ * characters they draw. */
+export function chartTextFonts(options: ChartOptions, ratio: number = globalThis.devicePixelRatio || 1): { fonts: string[]; characters: string } {
   const fonts = new Set<string>();
   let characters = TICK_CHARACTERS;
   for (const axis of options.axes ?? []) {
@@ -103,11 +95,29 @@ export function warmChartText(options: ChartOptions, ratio: number = globalThis.
     }
     if (typeof axis.label === 'string') characters += axis.label;
   }
+  return { fonts: [...fonts], characters: [...new Set(characters)].join('') };
+}
+
+/**
+ * Draws `characters` in `font` once on a scratch canvas. A page's first text on a canvas in a font looks the font
+ * up and renders its glyphs (5–15 ms measured on the 2-core machine for a chart's two fonts): done ahead, in a
+ * short task of its own, that is not part of the chart's first drawing.
+ */
+export function warmCanvasFont(font: string, characters: string): void {
+  const canvas = document.createElement('canvas');
+  canvas.width = 48;
+  canvas.height = 48;
+  const ctx = canvas.getContext('2d');
+  if (!ctx) return;
+  ctx.font = font;
   // One glyph at a time inside the canvas: text beyond its edge may be skipped rather than rendered.
-  for (const font of fonts) {
-    ctx.font = font;
-    for (const ch of new Set(characters)) ctx.fillText(ch, 4, 36);
-  }
+  for (const ch of characters) ctx.fillText(ch, 4, 36);
+}
+
+/** Every axis font of `options`, drawn ahead (warmCanvasFont). */
+export function warmChartText(options: ChartOptions, ratio?: number): void {
+  const { fonts, characters } = chartTextFonts(options, ratio);
+  for (const font of fonts) warmCanvasFont(font, characters);
 }
 
 function tickValues(_u: uPlot, splits: number[]): string[] {
@@ -193,10 +203,6 @@ export function Chart(props: ChartProps) {
 
   useEffect(() => {
     const el = host.current!;
-    if (!document.createElement('canvas').getContext('2d')) {
-      setNoCanvas(true);
-      return;
-    }
     let live = true;
     let teardown: (() => void) | null = null;
     // Work that waits for the first screen (the offline copy of the app) waits until this chart shows its data.
@@ -205,28 +211,43 @@ export function Chart(props: ChartProps) {
     releaseHold.current = release;
     shown.current = false;
     // A chart's first drawing is the longest single piece of work on its screen. It is done in steps, each a task
-    // of its own, most of them while the data is still computed: the fonts (warmChartText); loading the library
-    // (its module is evaluated then); the frame without data (elements, the canvas's memory); then the data.
-    const cancelIdle = whenIdle(() => {
+    // of its own, most of them while the data is still computed: each axis font (warmCanvasFont); asking for the
+    // library (its module is evaluated in a task of its own); the frame without data (elements, the canvas's
+    // memory); then the data.
+    const cancelIdle = whenIdle(() => void (async () => {
+      // The page's first canvas (here, or the first font's below) sets up the browser's drawing: not in the same
+      // task as the screen's effects.
+      if (!document.createElement('canvas').getContext('2d')) {
+        release();
+        if (live) setNoCanvas(true);
+        return;
+      }
+      await nextTask();
       if (!live) return;
       const options = resolveOptions();
-      warmChartText(options);
-      uplotCode.get().then(
-        (UPlot) => nextTask().then(() => {
-          if (!live) return;
-          teardown = build(UPlot, el, options);
-          return nextTask().then(() => {
-            const u = plot.current;
-            const data = latest.current.data;
-            if (live && u && data && !shown.current) show(u, data);
-          });
-        }),
-        () => {
-          release();
-          if (live) setLoadFailed(true);
-        },
-      );
-    }, 1000);
+      await nextTask();
+      const { fonts, characters } = chartTextFonts(options);
+      for (const font of fonts) {
+        if (!live) return;
+        warmCanvasFont(font, characters);
+        await nextTask();
+      }
+      let UPlot: typeof uPlot;
+      try {
+        UPlot = await uplotCode.get();
+      } catch {
+        release();
+        if (live) setLoadFailed(true);
+        return;
+      }
+      await nextTask();
+      if (!live) return;
+      teardown = build(UPlot, el, options);
+      await nextTask();
+      const u = plot.current;
+      const data = latest.current.data;
+      if (live && u && data && !shown.current) show(u, data);
+    })(), 1000);
     return () => {
       live = false;
       release();
