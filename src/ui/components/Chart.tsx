@@ -59,7 +59,7 @@ export function themedOptions(options: ChartOptions, palette: ChartPalette): Cha
   const axes = (options.axes ?? [{}, {}]).map((axis, i) => ({
     labelGap: 0,
     // The page's own type (uPlot's default names a longer list of families, each one more font to look up), and
-    // fonts known here, so warmChartText can draw them ahead. Field mode: axis numbers and titles big and bold
+    // fonts known here, so they can be drawn ahead (warmCanvasFont). Field mode: axis numbers and titles big and bold
     // enough to read in glare.
     ...(field
       ? { font: `600 15px ${CHART_FONT_FAMILY}`, labelFont: `700 16px ${CHART_FONT_FAMILY}`, labelSize: 24 }
@@ -112,12 +112,6 @@ export function warmCanvasFont(font: string, characters: string): void {
   ctx.font = font;
   // One glyph at a time inside the canvas: text beyond its edge may be skipped rather than rendered.
   for (const ch of characters) ctx.fillText(ch, 4, 36);
-}
-
-/** Every axis font of `options`, drawn ahead (warmCanvasFont). */
-export function warmChartText(options: ChartOptions, ratio?: number): void {
-  const { fonts, characters } = chartTextFonts(options, ratio);
-  for (const font of fonts) warmCanvasFont(font, characters);
 }
 
 function tickValues(_u: uPlot, splits: number[]): string[] {

@@ -368,7 +368,7 @@ function chartOptions(palette: ChartPalette, pointsRef: { current: PlottedPoint[
           ctx.moveTo(ax, ay - s); ctx.lineTo(ax + s, ay); ctx.lineTo(ax, ay + s); ctx.lineTo(ax - s, ay); ctx.closePath();
           ctx.stroke();
           ctx.fillStyle = ink;
-          // The axis numbers' font and size (uPlot rounds the size the same way), drawn ahead by warmChartText.
+          // The axis numbers' font and size (uPlot rounds the size the same way), drawn ahead (warmCanvasFont).
           ctx.font = `${Math.round(12 * dpr)}px ${CHART_FONT_FAMILY}`;
           ctx.fillText('apex', ax + s + 3 * dpr, ay - s);
           // Point labels never overlap each other or the apex label (tightly packed ions in the whole-region view).

@@ -145,15 +145,15 @@ describe('a chart whose data is still computed', () => {
   });
 
   it('draws the axis fonts ahead on a scratch canvas, at the size the chart draws them', async () => {
-    const { warmChartText, themedOptions, chartPalette, CHART_FONT_FAMILY } = await import('../../../src/ui/components/Chart');
+    const { chartTextFonts, warmCanvasFont, themedOptions, chartPalette, CHART_FONT_FAMILY } = await import('../../../src/ui/components/Chart');
     const options = themedOptions({ series: [{}, {}], axes: [{ label: 'q' }, { label: 'a' }] }, chartPalette());
-    warmChartText(options, 1.75);
-    const fonts = new Set(drawnText.map((d) => d.font));
-    // 12 px × 1.75 = 21 px, as uPlot scales its fonts by the pixel ratio.
-    expect(fonts).toEqual(new Set([`21px ${CHART_FONT_FAMILY}`, `bold 21px ${CHART_FONT_FAMILY}`]));
-    for (const font of fonts) {
-      const chars = drawnText.filter((d) => d.font === font).map((d) => d.text);
-      for (const ch of ['0', '9', '.', '−', 'q', 'a']) expect(chars).toContain(ch);
-    }
+    const { fonts, characters } = chartTextFonts(options, 1.75);
+    // 12 px × 1.75 = 21 px, as uPlot scales its fonts by the pixel ratio; numbers plain, titles bold.
+    expect(fonts).toEqual([`21px ${CHART_FONT_FAMILY}`, `bold 21px ${CHART_FONT_FAMILY}`]);
+    for (const ch of ['0', '9', '.', '−', 'q', 'a']) expect(characters).toContain(ch);
+    expect(new Set(characters).size).toBe(characters.length);
+    warmCanvasFont(fonts[1], characters);
+    expect(drawnText.map((d) => d.text).join('')).toBe(characters);
+    expect(new Set(drawnText.map((d) => d.font))).toEqual(new Set([fonts[1]]));
   });
 });
