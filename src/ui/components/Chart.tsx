@@ -166,8 +166,9 @@ export function Chart(props: ChartProps) {
   const host = useRef<HTMLDivElement>(null);
   const plot = useRef<uPlot | null>(null);
   const resolved = useRef<ChartOptions | null>(null);
-  /** Whether the chart on screen shows data (not only its frame). */
+  /** Whether the chart on screen shows data (not only its frame), and which. */
   const shown = useRef(false);
+  const drawnData = useRef<uPlot.AlignedData | null>(null);
   /** Ends this chart's hold on the work that waits for the first screen. */
   const releaseHold = useRef<(() => void) | null>(null);
   const latest = useRef(props);
@@ -236,7 +237,18 @@ export function Chart(props: ChartProps) {
       }
       await nextTask();
       if (!live) return;
-      teardown = build(UPlot, el, options);
+      // The frame in two steps: the instance (options, elements), then, in the page, its size and first drawing
+      // without data (where the canvas gets its memory).
+      let init: () => void = () => undefined;
+      const frame = new UPlot(frameOptions(options, Math.max(240, el.clientWidth || 320)), noData(options), (_self, start) => {
+        init = start as () => void;
+      });
+      teardown = () => frame.destroy();
+      await nextTask();
+      if (!live) return;
+      el.appendChild(frame.root);
+      init();
+      teardown = attach(frame, el);
       await nextTask();
       const u = plot.current;
       const data = latest.current.data;
@@ -257,11 +269,17 @@ export function Chart(props: ChartProps) {
     return themedOptions(typeof given === 'function' ? given(palette) : given, palette);
   }
 
-  /** The chart's frame, without data: shown once data is given (show). */
-  function build(UPlot: typeof uPlot, el: HTMLDivElement, options: ChartOptions): () => void {
-    const width = Math.max(240, el.clientWidth || 320);
+  /** uPlot's options for the frame: the caller's, at this width and height. */
+  function frameOptions(options: ChartOptions, width: number): uPlot.Options {
     resolved.current = options;
-    const u = new UPlot({ ...withDataHooks(options), width, height: latest.current.height ?? 300 }, noData(options), el);
+    // uPlot reads its date templates as it starts (a few ms on a first run); an x axis that is not time never
+    // shows a date.
+    const noDates = options.scales?.x?.time === false && !options.fmtDate ? { fmtDate: () => () => '' } : {};
+    return { ...withDataHooks(options), ...noDates, width, height: latest.current.height ?? 300 };
+  }
+
+  /** The drawn frame in use: taps, resizing; shown data comes with show(). Returns its teardown. */
+  function attach(u: uPlot, el: HTMLDivElement): () => void {
     plot.current = u;
     const onClick = (ev: MouseEvent) => {
       const cb = latest.current.onTap;
@@ -290,6 +308,9 @@ export function Chart(props: ChartProps) {
 
   /** Data on the chart; the first time, with a view asked for before it was drawn. */
   function show(u: uPlot, data: uPlot.AlignedData): void {
+    // The same data again (the build's last step and a data change can both come to it): nothing to draw.
+    if (shown.current && drawnData.current === data) return;
+    drawnData.current = data;
     const first = !shown.current;
     shown.current = true;
     const view = first ? latest.current.view : null;
@@ -301,12 +322,22 @@ export function Chart(props: ChartProps) {
     // For start-up measurements (npm run bench -- lighthouse): a page with a chart is complete once it is drawn.
     performance.mark?.(CHART_DRAWN_MARK, { detail: latest.current.testId ?? null });
     releaseHold.current?.();
-    setHasData(true);
+    // The tools' redraw a task later, not with the drawing.
+    void nextTask().then(() => setHasData(true));
   }
 
   useEffect(() => {
-    const u = plot.current;
-    if (u && props.data) show(u, props.data);
+    if (!props.data) return;
+    let live = true;
+    // Drawn in a task of its own, not with every other effect of the redraw that brought the data.
+    void nextTask().then(() => {
+      const u = plot.current;
+      const data = latest.current.data;
+      if (live && u && data) show(u, data);
+    });
+    return () => {
+      live = false;
+    };
   }, [props.data]);
 
   useEffect(() => {

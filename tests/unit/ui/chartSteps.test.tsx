@@ -14,17 +14,27 @@ const calls: Array<{ kind: string; rows?: number; scale?: string }> = [];
 vi.mock('uplot', () => {
   class FakePlot {
     data: unknown[][];
+    root = document.createElement('div');
     over = document.createElement('div');
     width: number;
     scales: Record<string, { min: number; max: number }> = { x: { min: 0, max: 10 }, y: { min: 0, max: 1 } };
     hooks: Array<(u: FakePlot) => void>;
-    constructor(options: { width: number; hooks?: { draw?: Array<(u: FakePlot) => void> } }, data: unknown[][], el: HTMLElement) {
+    constructor(options: { width: number; hooks?: { draw?: Array<(u: FakePlot) => void> } }, data: unknown[][], target: HTMLElement | ((self: FakePlot, init: () => void) => void)) {
       this.width = options.width;
       this.data = data;
       this.hooks = options.hooks?.draw ?? [];
-      el.appendChild(this.over);
-      calls.push({ kind: 'build', rows: data[0].length });
-      this.drawn();
+      this.root.appendChild(this.over);
+      // As uPlot: with a function, the caller attaches the root and starts the first drawing when it chooses.
+      const init = () => {
+        if (!this.root.isConnected) throw new Error('started before the chart was in the page');
+        calls.push({ kind: 'build', rows: data[0].length });
+        this.drawn();
+      };
+      if (typeof target === 'function') target(this, init);
+      else {
+        target.appendChild(this.root);
+        init();
+      }
     }
     drawn() {
       for (const hook of this.hooks) hook(this);
