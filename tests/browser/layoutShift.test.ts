@@ -6,11 +6,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import type { PreviewServer } from 'vite';
+import { CHART_DRAWN_MARK } from '../../src/ui/marks';
 import { distDir, freshProfileDir, openBrowser, removeDir, startPreview, stopPreview, testPort } from './harness';
 
 const PORT = testPort(4381);
 const origin = `http://127.0.0.1:${PORT}`;
 const BUDGET = 0.05;
+/** What the pages reach today (0.000 to 0.001): a change that moves something drawn shows up long before the budget. */
+const KEPT = 0.01;
 let server: PreviewServer | null = null;
 
 beforeAll(async () => {
@@ -20,12 +23,12 @@ afterAll(async () => {
   await stopPreview(server).catch(() => undefined);
 });
 
-/** Each page and what shows that its answer has arrived. */
+/** Each page and what shows that its answer has arrived (a chart: its data drawn, not only its frame). */
 const pages: [path: string, answer: string][] = [
   ['/', '[data-testid="current-instrument"]'],
   ['/bench', '[data-testid="expected-card"]'],
-  ['/stability', '[data-testid="stability-chart"] canvas'],
-  ['/peak', '[data-testid="peak-chart"] canvas'],
+  ['/stability', '[data-testid="stability-chart"]:not([aria-busy]) canvas'],
+  ['/peak', '[data-testid="peak-chart"]:not([aria-busy]) canvas'],
   ['/diagnose', 'main h1'],
   ['/visits', 'main a[href="/visits/new"]'],
 ];
@@ -58,6 +61,7 @@ async function shiftsOfFirstVisit(path: string, answer: string): Promise<Shift[]
     });
     await page.goto(origin + path);
     await page.locator(answer).first().waitFor({ timeout: 120_000 });
+    if (answer.includes('-chart')) await page.waitForFunction((mark) => performance.getEntriesByName(mark).length > 0, CHART_DRAWN_MARK, { timeout: 120_000 });
     // Everything that arrives after the answer (late rows, a chart drawn in idle time) has its turn too: wait until
     // the page has been still for a while, as seen by the browser (no new entries and the network idle).
     await page.waitForLoadState('networkidle');
@@ -70,9 +74,10 @@ async function shiftsOfFirstVisit(path: string, answer: string): Promise<Shift[]
 }
 
 describe('first start: layout shift on each measured page', () => {
-  it.each(pages)(`%s shifts by at most ${BUDGET}`, async (path, answer) => {
+  it.each(pages)(`%s shifts by at most ${BUDGET} (and in fact under ${KEPT})`, async (path, answer) => {
     const shifts = await shiftsOfFirstVisit(path, answer);
     const total = shifts.reduce((a, s) => a + s.value, 0);
     expect(total, `${path}: ${JSON.stringify(shifts)}`).toBeLessThanOrEqual(BUDGET);
+    expect(total, `${path}: ${JSON.stringify(shifts)}`).toBeLessThanOrEqual(KEPT);
   }, 180_000);
 });

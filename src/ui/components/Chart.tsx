@@ -246,6 +246,9 @@ export function Chart(props: ChartProps) {
       teardown = () => frame.destroy();
       await nextTask();
       if (!live) return;
+      // Without data the frame has no axes, so its plot area is the whole chart: hidden until the data comes (then
+      // the axes take their room, which would otherwise count as a layout shift).
+      frame.root.style.visibility = 'hidden';
       el.appendChild(frame.root);
       init();
       teardown = attach(frame, el);
@@ -319,6 +322,7 @@ export function Chart(props: ChartProps) {
       if (view) for (const [scale, [min, max]] of Object.entries(view.ranges)) u.setScale(scale, { min, max });
     });
     if (!first) return;
+    u.root.style.visibility = '';
     // For start-up measurements (npm run bench -- lighthouse): a page with a chart is complete once it is drawn.
     performance.mark?.(CHART_DRAWN_MARK, { detail: latest.current.testId ?? null });
     releaseHold.current?.();

@@ -109,8 +109,12 @@ describe('a chart whose data is still computed', () => {
     const c = await mountChart({ data: null });
     await waitFor(() => calls.some((k) => k.kind === 'build'), 'the frame');
     expect(performance.getEntriesByName(CHART_DRAWN_MARK)).toHaveLength(0);
+    // The frame without axes is hidden: its plot area shrinks when the axes come with the data (a layout shift).
+    const frame = c.root.querySelector<HTMLElement>('.chart > div')!;
+    expect(frame.style.visibility).toBe('hidden');
     await c.update({ data: [[1, 2, 3], [0.1, 0.5, 0.2]] });
     await waitFor(() => calls.some((k) => k.kind === 'setData'), 'the data drawn');
+    expect(frame.style.visibility).toBe('');
     expect(calls.filter((k) => k.kind === 'build')).toHaveLength(1);
     expect(calls.find((k) => k.kind === 'setData')!.rows).toBe(3);
     await waitFor(() => ![...c.root.querySelectorAll('button')].some((b) => b.disabled), 'the tools enabled');
