@@ -206,9 +206,9 @@ export function Chart(props: ChartProps) {
     releaseHold.current = release;
     shown.current = false;
     // A chart's first drawing is the longest single piece of work on its screen. It is done in steps, each a task
-    // of its own, most of them while the data is still computed: each axis font (warmCanvasFont); asking for the
-    // library (its module is evaluated in a task of its own); the frame without data (elements, the canvas's
-    // memory); then the data.
+    // of its own, most of them while the data is still computed: the canvas check; the options; each axis font
+    // (warmCanvasFont); asking for the library (its module is evaluated in a task of its own); the frame without
+    // data, in two steps; then the data.
     const cancelIdle = whenIdle(() => void (async () => {
       // The page's first canvas (here, or the first font's below) sets up the browser's drawing: not in the same
       // task as the screen's effects.
