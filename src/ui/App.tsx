@@ -8,6 +8,7 @@ import { FieldModeToggle } from './components/FieldModeToggle';
 import { usePath } from './router';
 import { holdStartUp } from './startUp';
 import { routeFor } from './routes';
+import { errorText } from './errorText';
 
 /**
  * The store's physics: the engine's scan law, and isotope ratios from ion formulas for the calibrant check (each
@@ -81,7 +82,7 @@ export function App() {
           demo
             .catch((err: unknown) => {
               // A page put away (back/forward cache) has its writes aborted: quiet, the rest loads next time.
-              if (!cancelled && document.visibilityState !== 'hidden') notify(`The demo visits could not all be loaded (${(err as { userMessage?: string }).userMessage ?? String(err)}); the rest is loaded at the next start.`);
+              if (!cancelled && document.visibilityState !== 'hidden') notify(`The demo visits could not all be loaded (${errorText(err)}); the rest is loaded at the next start.`);
             })
             .finally(() => {
               releaseDemo();
@@ -132,7 +133,7 @@ export function App() {
       setCurrentId(id);
       // The choice holds for this session either way; if it cannot be kept, say that a reload will forget it.
       void store?.setSetting(CURRENT_INSTRUMENT_KEY, id).catch((err: unknown) =>
-        notify(`This profile is chosen for now, but the choice could not be kept on this device: ${(err as { userMessage?: string }).userMessage ?? String(err)}`));
+        notify(`This profile is chosen for now, but the choice could not be kept on this device: ${errorText(err)}`));
     },
     [store, notify],
   );

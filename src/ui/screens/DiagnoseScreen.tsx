@@ -15,6 +15,7 @@ import { LeakCheckPanel, type LeakTyped } from './diagnose/LeakCheckPanel';
 import { NodeView, TREE_TITLE, type Typed } from './diagnose/NodeView';
 import { VerdictWord } from './diagnose/VerdictWord';
 import { ConfirmAction } from '../components/ConfirmAction';
+import { errorText } from '../errorText';
 
 /** Walks live in the store's walks records; this older draft key is only read once to carry a walk over. */
 export const WALK_DRAFT_KEY = 'diagnose:walk';
@@ -140,7 +141,7 @@ function Walk() {
           // once (it would be offered again after a reload), the walk itself is kept either way.
           legacyDraft.current = false;
           await store.clearDraft(WALK_DRAFT_KEY).catch((err: unknown) =>
-            notify(`The walk is kept, but its older copy could not be removed: ${(err as { userMessage?: string }).userMessage ?? String(err)}`));
+            notify(`The walk is kept, but its older copy could not be removed: ${errorText(err)}`));
         }
       } catch (err) {
         ok = false;
@@ -201,7 +202,7 @@ function Walk() {
       return (await store.currentVisit(instrumentId))?.id ?? null;
     } catch (err) {
       // The walk is still kept, only without its visit: say so, so the engineer can add it to a visit by hand.
-      notify(`The walk is kept, but the open visit could not be read to link it: ${(err as { userMessage?: string }).userMessage ?? String(err)}`);
+      notify(`The walk is kept, but the open visit could not be read to link it: ${errorText(err)}`);
       return null;
     }
   }

@@ -9,6 +9,7 @@ import { subscribeOffline, type OfflineState } from '../offline';
 import { More } from '../components/Fold';
 import { StorageStatus } from '../components/StorageStatus';
 import { showDate } from '../visits/files';
+import { errorText } from '../errorText';
 
 /** Title of a walk's tree. The trees load only when a walk is open, so the overview stays small at start-up (only the
  * trees, not the whole diagnose module: the Bench and Stability cautions share its small safety module instead). */
@@ -38,7 +39,7 @@ export function HomeScreen() {
     store.listVisits(instrument.id).then((v) => live && setLatestVisit(v[0] ?? null), (err: unknown) => {
       if (!live) return;
       setLatestVisit(undefined);
-      setWalkProblem(`Could not read the latest visit: ${(err as { userMessage?: string }).userMessage ?? String(err)}`);
+      setWalkProblem(`Could not read the latest visit: ${errorText(err)}`);
     });
     store.latestInProgressWalk()
       .then(async (w) => {
@@ -47,7 +48,7 @@ export function HomeScreen() {
       })
       .catch((err: unknown) => {
         // The start page stays usable; the Diagnose screen reads the walk again and reports there too.
-        if (live) setWalkProblem(`Could not check for a walk in progress: ${(err as { userMessage?: string }).userMessage ?? String(err)}`);
+        if (live) setWalkProblem(`Could not check for a walk in progress: ${errorText(err)}`);
       });
     return () => { live = false; };
     // Read again when another instrument is chosen, not when the same profile object is rebuilt.

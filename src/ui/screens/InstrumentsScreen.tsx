@@ -10,6 +10,7 @@ import { useDraft } from '../components/useDraft';
 import { navigate, usePath } from '../router';
 import { formatConvention, formatSi } from '../format';
 import { ConfirmAction } from '../components/ConfirmAction';
+import { errorText } from '../errorText';
 
 export function InstrumentsScreen() {
   const path = usePath();
@@ -28,7 +29,7 @@ function InstrumentList() {
   // If the kept copy cannot be read, no restore is offered, and the user is told why.
   const checkDeleted = () => void store?.deletedInstrument().then(setDeleted).catch((err: unknown) => {
     setDeleted(undefined);
-    notify(`A deleted profile that could still be restored could not be read: ${(err as { userMessage?: string }).userMessage ?? String(err)}`);
+    notify(`A deleted profile that could still be restored could not be read: ${errorText(err)}`);
   });
   useEffect(checkDeleted, [store, notify]);
 
@@ -39,7 +40,7 @@ function InstrumentList() {
       await reloadInstruments();
       notify(`Restored “${profile.name}”.`);
     } catch (err) {
-      notify((err as { userMessage?: string }).userMessage ?? String(err));
+      notify(errorText(err));
     }
     checkDeleted();
   }
@@ -52,7 +53,7 @@ function InstrumentList() {
       checkDeleted();
       if (removed) notify(`Deleted “${removed.name}”.`, { label: 'Undo', run: () => void restore(removed) });
     } catch (err) {
-      notify((err as { userMessage?: string }).userMessage ?? String(err));
+      notify(errorText(err));
     }
   }
 
@@ -63,7 +64,7 @@ function InstrumentList() {
       await reloadInstruments();
       navigate(`/instruments/${encodeURIComponent(copy.id)}`);
     } catch (err) {
-      notify((err as { userMessage?: string }).userMessage ?? String(err));
+      notify(errorText(err));
     }
   }
 
@@ -80,7 +81,7 @@ function InstrumentList() {
       }
       await reloadInstruments();
     } catch (err) {
-      notify((err as { userMessage?: string }).userMessage ?? String(err));
+      notify(errorText(err));
     } finally {
       setBusy(false);
     }

@@ -2,7 +2,8 @@
 import { useEffect, useState } from 'preact/hooks';
 import type { BackupReminder, ImportResult } from '../../store';
 import { useApp } from '../context';
-import { canShareFiles, errorText, shareOrDownload, stamp } from './files';
+import { canShareFiles, shareOrDownload, stamp } from './files';
+import { errorText } from '../errorText';
 import { ConfirmAction } from '../components/ConfirmAction';
 
 /** Fired on window after a backup was saved or shared, so every reminder on screen updates. */

@@ -4,7 +4,7 @@ import { useEffect, useState } from 'preact/hooks';
 import { formatNumber, fromBase, limitMatchText, type InstrumentProfile, type MakerLimit, type MakerLimitDraft, type ReadingType } from '../../store';
 import { useApp } from '../context';
 import { useShownOnce } from '../components/Fold';
-import { errorText } from './files';
+import { errorText } from '../errorText';
 
 export function MakerLimits(props: { instrument: InstrumentProfile; types: ReadingType[] }) {
   const { store, notify } = useApp();

@@ -3,7 +3,7 @@ import { useState } from 'preact/hooks';
 import { emptyOwnTypeDraft, type OwnTypeDraft, type ReadingType } from '../../store';
 import { useApp } from '../context';
 import { Disclosure } from '../components/Fold';
-import { errorText } from './files';
+import { errorText } from '../errorText';
 
 const fields: { key: keyof OwnTypeDraft; label: string; hint?: string; numeric?: boolean }[] = [
   { key: 'label', label: 'Name', hint: 'For example “Chiller water flow”.' },

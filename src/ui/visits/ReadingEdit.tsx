@@ -3,7 +3,7 @@ import { useState } from 'preact/hooks';
 import { checkTyped, toBase, typeSpec, type Reading, type ReadingType } from '../../records';
 import { NumberEntry } from '../components/NumberEntry';
 import { useApp } from '../context';
-import { errorText } from './files';
+import { errorText } from '../errorText';
 
 export function ReadingEdit(props: { reading: Reading; type: ReadingType; onDone: (saved: boolean) => void }) {
   const { store, notify } = useApp();

@@ -11,7 +11,7 @@ import { RF_FORMS } from '../../engine';
 import { useApp } from '../context';
 import { DraftProblem } from '../components/DraftProblem';
 import { useDraft } from '../components/useDraft';
-import { errorText } from './files';
+import { errorText } from '../errorText';
 
 const RF_FORM_BY_UNIT = new Map(RF_FORMS.map((f) => [rfUnitId(f), f]));
 

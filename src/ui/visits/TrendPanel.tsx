@@ -5,7 +5,7 @@ import { useEffect, useMemo, useState } from 'preact/hooks';
 import { formatNumber, fromBase, SECONDS_PER_MONTH, type ReadingContext, type ReadingType, type TrendData } from '../../store';
 import { Chart, type ChartOptions, type ChartPalette, type uPlot } from '../components/Chart';
 import { useApp } from '../context';
-import { errorText } from './files';
+import { errorText } from '../errorText';
 
 const FIVE_YEARS_MS = 5 * 365.2425 * 86400_000;
 

@@ -6,7 +6,8 @@ import { SelectField } from '../components/Field';
 import { DraftProblem } from '../components/DraftProblem';
 import { useDraft } from '../components/useDraft';
 import { navigate } from '../router';
-import { errorText, toLocalInput } from './files';
+import { toLocalInput } from './files';
+import { errorText } from '../errorText';
 
 type Errors = Partial<Record<keyof VisitDraft, string>>;
 

@@ -65,6 +65,3 @@ export function showDate(iso: string): string {
   return `${d.getDate()} ${MONTHS[d.getMonth()]} ${d.getFullYear()}, ${pad(d.getHours())}:${pad(d.getMinutes())}`;
 }
 
-export function errorText(err: unknown): string {
-  return (err as { userMessage?: string }).userMessage ?? (err instanceof Error ? err.message : String(err));
-}
