@@ -147,6 +147,11 @@ export interface ChartProps {
   testId?: string;
 }
 
+/** A view's ranges on the chart's scales. */
+function setRanges(u: uPlot, ranges: Record<string, [number, number]>): void {
+  for (const [scale, [min, max]] of Object.entries(ranges)) u.setScale(scale, { min, max });
+}
+
 /** Empty columns for every series of `options`: a chart built before its data draws its frame only. */
 function noData(options: ChartOptions): uPlot.AlignedData {
   return Array.from({ length: Math.max(2, options.series?.length ?? 2) }, () => []) as unknown as uPlot.AlignedData;
@@ -166,8 +171,7 @@ export function Chart(props: ChartProps) {
   const host = useRef<HTMLDivElement>(null);
   const plot = useRef<uPlot | null>(null);
   const resolved = useRef<ChartOptions | null>(null);
-  /** Whether the chart on screen shows data (not only its frame), and which. */
-  const shown = useRef(false);
+  /** The data the chart on screen shows (null: only its frame, or no chart yet). */
   const drawnData = useRef<uPlot.AlignedData | null>(null);
   /** Ends this chart's hold on the work that waits for the first screen. */
   const releaseHold = useRef<(() => void) | null>(null);
@@ -201,10 +205,9 @@ export function Chart(props: ChartProps) {
     let live = true;
     let teardown: (() => void) | null = null;
     // Work that waits for the first screen (the offline copy of the app) waits until this chart shows its data.
-    releaseHold.current?.();
     const release = holdStartUp('chart');
     releaseHold.current = release;
-    shown.current = false;
+    drawnData.current = null;
     // A chart's first drawing is the longest single piece of work on its screen. It is done in steps, each a task
     // of its own, most of them while the data is still computed: the canvas check; the options; each axis font
     // (warmCanvasFont); asking for the library (its module is evaluated in a task of its own); the frame without
@@ -255,7 +258,7 @@ export function Chart(props: ChartProps) {
       await nextTask();
       const u = plot.current;
       const data = latest.current.data;
-      if (live && u && data && !shown.current) show(u, data);
+      if (live && u && data && !drawnData.current) show(u, data);
     })(), 1000);
     return () => {
       live = false;
@@ -286,7 +289,7 @@ export function Chart(props: ChartProps) {
     plot.current = u;
     const onClick = (ev: MouseEvent) => {
       const cb = latest.current.onTap;
-      if (!cb || !shown.current) return;
+      if (!cb || !drawnData.current) return;
       const rect = u.over.getBoundingClientRect();
       const left = ev.clientX - rect.left;
       const top = ev.clientY - rect.top;
@@ -305,21 +308,20 @@ export function Chart(props: ChartProps) {
       u.over.removeEventListener('click', onClick);
       u.destroy();
       plot.current = null;
-      shown.current = false;
+      drawnData.current = null;
     };
   }
 
   /** Data on the chart; the first time, with a view asked for before it was drawn. */
   function show(u: uPlot, data: uPlot.AlignedData): void {
     // The same data again (the build's last step and a data change can both come to it): nothing to draw.
-    if (shown.current && drawnData.current === data) return;
+    if (drawnData.current === data) return;
+    const first = !drawnData.current;
     drawnData.current = data;
-    const first = !shown.current;
-    shown.current = true;
     const view = first ? latest.current.view : null;
     u.batch(() => {
       u.setData(data);
-      if (view) for (const [scale, [min, max]] of Object.entries(view.ranges)) u.setScale(scale, { min, max });
+      if (view) setRanges(u, view.ranges);
     });
     if (!first) return;
     u.root.style.visibility = '';
@@ -346,21 +348,20 @@ export function Chart(props: ChartProps) {
 
   useEffect(() => {
     const u = plot.current;
-    if (!u || !props.view || !shown.current) return;
-    u.batch(() => {
-      for (const [scale, [min, max]] of Object.entries(props.view!.ranges)) u.setScale(scale, { min, max });
-    });
+    if (!u || !props.view || !drawnData.current) return;
+    const { ranges } = props.view;
+    u.batch(() => setRanges(u, ranges));
     // A view is applied when its key changes, not each time the caller builds the same view object again.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [props.view?.key]);
 
   useEffect(() => {
-    if (shown.current) plot.current?.redraw(false);
+    if (drawnData.current) plot.current?.redraw(false);
   }, [props.redrawKey]);
 
   function zoom(factor: number) {
     const u = plot.current;
-    if (!u || !shown.current) return;
+    if (!u || !drawnData.current) return;
     u.batch(() => {
       for (const scale of props.zoomScales ?? ['x']) {
         const min = u.scales[scale].min!;
@@ -374,7 +375,7 @@ export function Chart(props: ChartProps) {
   function reset() {
     const u = plot.current;
     const data = latest.current.data;
-    if (!u || !data || !shown.current) return;
+    if (!u || !data || !drawnData.current) return;
     u.batch(() => {
       u.setData(data, true);
       // Scales with a fixed range are not auto-ranged by setData: put them back explicitly.

@@ -201,12 +201,12 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
   useEffect(() => () => curveController.current?.abort(), []);
 
   // The peak on screen (the last finished or coarse one), kept while a newer run computes.
-  const shownPeak = lastDone.current;
+  const result = lastDone.current;
   const peakData = useMemo(() => {
-    if (!shownPeak) return null;
-    const percent = Float64Array.from(shownPeak.transmission, (t) => 100 * t);
-    return [Array.from(shownPeak.mz), Array.from(percent)] as [number[], number[]];
-  }, [shownPeak]);
+    if (!result) return null;
+    const percent = Float64Array.from(result.transmission, (t) => 100 * t);
+    return [Array.from(result.mz), Array.from(percent)] as [number[], number[]];
+  }, [result]);
 
   const curveData = useMemo(() => {
     if (curve.status !== 'done') return null;
@@ -282,7 +282,6 @@ export function PeakSimulation(props: { client?: SimClient; curveClient?: SimCli
   }
 
   const hazard = run ? hazardousLive({ dc: run.dc, rf: run.rf }) : null;
-  const result = lastDone.current;
   const stale = peak.status === 'running' || peak.status === 'coarse';
   const coarse = result !== null && lastCoarse.current;
   const mzText = inputs.mz.trim();

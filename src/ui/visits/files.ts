@@ -64,4 +64,3 @@ export function showDate(iso: string): string {
   const pad = (n: number) => String(n).padStart(2, '0');
   return `${d.getDate()} ${MONTHS[d.getMonth()]} ${d.getFullYear()}, ${pad(d.getHours())}:${pad(d.getMinutes())}`;
 }
-
