@@ -9,9 +9,6 @@ import { startRouter } from './ui/router';
 
 startRouter();
 render(<App />, document.getElementById('app')!);
-// The bar index.html draws before the scripts run (a phone shows it while they load); the app's own replaces it,
-// in the same task, so no frame shows both.
-document.getElementById('boot')?.remove();
 // None of this is needed for the first screen: it waits until the page has loaded and the browser is idle,
 // each in its own task. The offline copy of the app (some 46 files) is fetched and stored by the service worker on
 // the first visit: on a phone's few cores that competes with the first screen, so it waits until that has settled.

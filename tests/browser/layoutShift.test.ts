@@ -1,4 +1,4 @@
-// No jumps on the first start (and a bar drawn before the scripts run): on each page Lighthouse measures, a first visit on a fresh profile (the database
+// No jumps on the first start: on each page Lighthouse measures, a first visit on a fresh profile (the database
 // opened and the demo scenario loaded while the page draws) shifts the layout by at most 0.05 in all, the "good"
 // threshold of the cumulative layout shift metric (Google, web.dev "Cumulative Layout Shift (CLS)", 2023). The CPU
 // runs four times slower, like a mid-range phone, so what arrives late arrives late here too. Shifts are read from
@@ -79,37 +79,5 @@ describe('first start: layout shift on each measured page', () => {
     const total = shifts.reduce((a, s) => a + s.value, 0);
     expect(total, `${path}: ${JSON.stringify(shifts)}`).toBeLessThanOrEqual(BUDGET);
     expect(total, `${path}: ${JSON.stringify(shifts)}`).toBeLessThanOrEqual(KEPT);
-  }, 180_000);
-});
-
-describe('the bar drawn before the scripts run', () => {
-  it('shows the app’s bar with its name before any script has run, and is replaced by the app’s own', async () => {
-    const profile = freshProfileDir();
-    const session = await openBrowser(profile, { viewport: { width: 390, height: 844 } });
-    try {
-      const page: Page = session.page;
-      // Scripts that never arrive: what the page shows meanwhile.
-      await page.route('**/*.js', (route) => route.abort());
-      await page.goto(origin + '/peak');
-      const boot = page.locator('#boot');
-      await expect.poll(() => boot.isVisible()).toBe(true);
-      expect(await boot.innerText()).toBe('Rodside');
-      const box = (await boot.boundingBox())!;
-      expect(box.y).toBe(0);
-      expect(box.width).toBe(390);
-      // With its scripts, the app's own bar replaces it: one bar, the instrument picker in it.
-      await page.unroute('**/*.js');
-      await page.goto(origin + '/peak');
-      await page.locator('header.topbar select, header.topbar .picker-empty').first().waitFor({ timeout: 60_000 });
-      expect(await page.locator('#boot').count()).toBe(0);
-      expect(await page.locator('header.topbar').count()).toBe(1);
-      const appBar = (await page.locator('header.topbar').boundingBox())!;
-      // The same place and, give or take a pixel, the same height: nothing jumps when the app takes over.
-      expect(appBar.y).toBe(0);
-      expect(Math.abs(appBar.height - box.height)).toBeLessThanOrEqual(1);
-    } finally {
-      await session.close().catch(() => undefined);
-      removeDir(profile);
-    }
   }, 180_000);
 });
