@@ -54,7 +54,7 @@ function heldPaint(metrics: Record<string, number> | undefined): boolean {
  * the browser's own default, as on a phone). With it switched off, Chromium 156 here draws no frame at all for the
  * new page in about a third of runs until about 1 or 2 s after navigation (the traces show no main frame and no
  * `pagereveal` until then, the page's thread idle; the runs marked `*`), on every page alike. With the browser's
- * default, 8 runs of /diagnose in a row showed no hold. So the runs keep the launcher's list minus RenderDocument;
+ * default, none of 62 runs held (26 of /diagnose and /bench alone, 36 in two full passes). So the runs keep the launcher's list minus RenderDocument;
  * RODSIDE_LIGHTHOUSE_LAUNCHER_FEATURES=1 keeps the launcher's list as it is, to compare.
  */
 export function chromeFlags(keepLauncherFeatures: boolean): string[] {
