@@ -3,6 +3,7 @@
 // height) before the refined one; the screen shows it labelled "coarse — refining…" until the refinement lands.
 // A run that is already computing is let finish its coarse profile when a slider moves; a run that is refining
 // is cancelled at once.
+import { isDeepStrictEqual } from 'node:util';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { act } from 'preact/test-utils';
 import { COARSE_PROFILE_OPTIONS, peakProfile, profileWithin, type PeakProfile } from '../../../src/engine';
@@ -66,6 +67,14 @@ function steppedClient(): { client: SimClient; workers: SteppedWorker[] } {
   return { client, workers };
 }
 
+/**
+ * The live run of `params`. The screen shows the default inputs until the kept ones are read from the store; on a
+ * busy machine a run of the defaults can start first and is cancelled when the kept inputs arrive.
+ */
+function liveRunOf(workers: SteppedWorker[], params: unknown): SteppedWorker | null {
+  return workers.find((w) => !w.terminated && w.outbox.length > 0 && isDeepStrictEqual(w.requests[0]?.params, params)) ?? null;
+}
+
 describe('worker: coarse then refined', () => {
   it('posts a partial coarse profile (bound ≤ 1 % of its peak) before the refined result', () => {
     const k = demo('kestrel');
@@ -89,8 +98,8 @@ describe('PeakSimulation: coarse → refined', () => {
     const { client, workers } = steppedClient();
     const k = demo('kestrel');
     h = await mount(<PeakSimulation client={client} curveClient={new SimClient(() => new SteppedWorker())} />, k, { [`inputs:peak:${k.id}`]: kept });
-    await waitFor(() => workers.length === 1 && workers[0].outbox.length > 0, 'the first run');
-    const worker = workers[0];
+    const keptRun = buildPeakRun({ ...peakDefaults(k), ...kept }, k, {})!;
+    const worker = await waitFor(() => liveRunOf(workers, keptRun.params), 'the run of the kept inputs');
     const partial = worker.deliverThrough('partial') as Extract<SimResponse, { type: 'partial' }>;
     await waitFor(() => h!.root.querySelector('[data-testid="peak-coarse"]'), 'the coarse label');
     const coarse = partial.result as PeakProfile;
@@ -119,9 +128,10 @@ describe('PeakSimulation: coarse → refined', () => {
     // machine cannot make the run look stalled.
     const clock = () => 1_000_000;
     h = await mount(<PeakSimulation client={client} curveClient={new SimClient(() => new SteppedWorker())} clock={clock} />, k, { [`inputs:peak:${k.id}`]: kept });
-    await waitFor(() => workers.length === 1 && workers[0].outbox.length > 0, 'the first run');
+    const keptRun = buildPeakRun({ ...peakDefaults(k), ...kept }, k, {})!;
+    const first = await waitFor(() => liveRunOf(workers, keptRun.params), 'the run of the kept inputs');
     // The run has started reporting progress …
-    workers[0].deliverThrough('progress');
+    first.deliverThrough('progress');
     await waitFor(() => h!.root.querySelector('progress[aria-label="Simulation progress"]'), 'the run’s progress on screen');
     // … so a slider move does not kill it before its coarse profile.
     const slider = h.root.querySelector<HTMLInputElement>('#peak-beam-slider')!;
@@ -130,23 +140,23 @@ describe('PeakSimulation: coarse → refined', () => {
       slider.dispatchEvent(new Event('input', { bubbles: true }));
     });
     await waitFor(() => /beam 0\.3 mm/.test(h!.root.textContent ?? ''), 'the moved slider in the settings line');
-    expect(workers[0].terminated).toBe(false);
-    workers[0].deliverThrough('partial');
-    await waitFor(() => workers[0].terminated, 'the older run to end once its coarse profile landed');
+    expect(first.terminated).toBe(false);
+    first.deliverThrough('partial');
+    await waitFor(() => first.terminated, 'the older run to end once its coarse profile landed');
     // Coarse drawn, and the newer inputs start at once (the old run's refinement is dropped).
-    expect(workers[0].terminated).toBe(true);
+    expect(first.terminated).toBe(true);
     expect(h.root.querySelector('[data-testid="peak-chart"]')?.getAttribute('data-points')).toBe('101');
-    await waitFor(() => workers.length === 2 && workers[1].requests.length === 1, 'the newer run');
     const run = buildPeakRun({ ...peakDefaults(k), ...kept, beamRadiusMm: '0.3' }, k, {})!;
-    expect(workers[1].requests[0].params).toEqual(run.params);
+    const newer = await waitFor(() => liveRunOf(workers, run.params), 'the newer run');
+    expect(newer.requests).toHaveLength(1);
     // While refining, a move cancels at once.
-    workers[1].deliverThrough('partial');
+    newer.deliverThrough('partial');
     await waitFor(() => h!.root.querySelector('[data-testid="peak-coarse"]'), 'the newer run’s coarse profile');
     await act(async () => {
       slider.value = '0.32';
       slider.dispatchEvent(new Event('input', { bubbles: true }));
     });
-    await waitFor(() => workers[1].terminated, 'the refining run to be cancelled');
-    expect(workers[1].terminated).toBe(true);
+    await waitFor(() => newer.terminated, 'the refining run to be cancelled');
+    expect(newer.terminated).toBe(true);
   });
 });
