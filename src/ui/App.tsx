@@ -8,7 +8,7 @@ import { FieldModeToggle } from './components/FieldModeToggle';
 import { usePath } from './router';
 import { holdStartUp } from './startUp';
 import { routeFor } from './routes';
-import { errorText } from './errorText';
+import { errorText, storeSentence } from './errorText';
 
 /**
  * The store's physics: the engine's scan law, and isotope ratios from ion formulas for the calibrant check (each
@@ -93,7 +93,7 @@ export function App() {
         setInstruments(list);
         setCurrentId(saved && list.some((p) => p.id === saved) ? saved : (list[0]?.id ?? null));
       } catch (err) {
-        setStoreProblem((err as { userMessage?: string }).userMessage ?? `The database could not be opened: ${String(err)}`);
+        setStoreProblem(storeSentence(err) ?? `The database could not be opened: ${String(err)}`);
       } finally {
         release();
       }

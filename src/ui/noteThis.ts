@@ -1,6 +1,7 @@
 // "Note this": records a computed or measured value in the instrument's current visit.
 // Screens call only this function; how a visit is found or opened is the visit log's business (Store.noteReading).
 import type { InstrumentProfile, NoteInput, Store } from '../store';
+import { storeSentence } from './errorText';
 
 export type { NoteInput };
 
@@ -17,6 +18,6 @@ export async function noteThis(store: Store | null, instrument: InstrumentProfil
     const r = await store.noteReading(instrument, note);
     return { ok: true, message: `Noted in ${r.visitLabel}.` };
   } catch (err) {
-    return { ok: false, message: (err as { userMessage?: string }).userMessage ?? `Could not note the value: ${String(err)}` };
+    return { ok: false, message: storeSentence(err) ?? `Could not note the value: ${String(err)}` };
   }
 }

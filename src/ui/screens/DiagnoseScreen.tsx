@@ -15,7 +15,7 @@ import { LeakCheckPanel, type LeakTyped } from './diagnose/LeakCheckPanel';
 import { NodeView, TREE_TITLE, type Typed } from './diagnose/NodeView';
 import { VerdictWord } from './diagnose/VerdictWord';
 import { ConfirmAction } from '../components/ConfirmAction';
-import { errorText } from '../errorText';
+import { errorText, storeSentence } from '../errorText';
 
 /** Walks live in the store's walks records; this older draft key is only read once to carry a walk over. */
 export const WALK_DRAFT_KEY = 'diagnose:walk';
@@ -102,7 +102,7 @@ function Walk() {
           setUnreadable(true);
         }
       } catch (err) {
-        notify((err as { userMessage?: string }).userMessage ?? `The last walk could not be read: ${String(err)}`);
+        notify(storeSentence(err) ?? `The last walk could not be read: ${String(err)}`);
       } finally {
         setLoaded(true);
       }
@@ -145,7 +145,7 @@ function Walk() {
         }
       } catch (err) {
         ok = false;
-        notify((err as { userMessage?: string }).userMessage ?? `The walk could not be kept on this device: ${String(err)}`);
+        notify(storeSentence(err) ?? `The walk could not be kept on this device: ${String(err)}`);
       } finally {
         pending.current -= 1;
         if (!ok) setSaveState('failed');

@@ -10,7 +10,7 @@ import { useDraft } from '../components/useDraft';
 import { navigate, usePath } from '../router';
 import { formatConvention, formatSi } from '../format';
 import { ConfirmAction } from '../components/ConfirmAction';
-import { errorText } from '../errorText';
+import { errorText, storeSentence } from '../errorText';
 
 export function InstrumentsScreen() {
   const path = usePath();
@@ -209,7 +209,7 @@ function InstrumentForm(props: { id: string | null }) {
       notify(existing ? `Saved “${saved.name}”.` : `Created “${saved.name}”.`);
       navigate('/instruments');
     } catch (err) {
-      setSaveProblem((err as { userMessage?: string }).userMessage ?? `Could not save: ${String(err)}. Your input stays here.`);
+      setSaveProblem(storeSentence(err) ?? `Could not save: ${String(err)}. Your input stays here.`);
     }
   }
 
