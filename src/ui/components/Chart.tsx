@@ -147,6 +147,9 @@ export interface ChartProps {
   testId?: string;
 }
 
+/** A chart's height in CSS px when its caller gives none. */
+const CHART_HEIGHT = 300;
+
 /** A view's ranges on the chart's scales. */
 function setRanges(u: uPlot, ranges: Record<string, [number, number]>): void {
   for (const [scale, [min, max]] of Object.entries(ranges)) u.setScale(scale, { min, max });
@@ -281,7 +284,7 @@ export function Chart(props: ChartProps) {
     // uPlot reads its date templates as it starts (a few ms on a first run); an x axis that is not time never
     // shows a date.
     const noDates = options.scales?.x?.time === false && !options.fmtDate ? { fmtDate: () => () => '' } : {};
-    return { ...withDataHooks(options), ...noDates, width, height: latest.current.height ?? 300 };
+    return { ...withDataHooks(options), ...noDates, width, height: latest.current.height ?? CHART_HEIGHT };
   }
 
   /** The drawn frame in use: taps, resizing; shown data comes with show(). Returns its teardown. */
@@ -299,7 +302,7 @@ export function Chart(props: ChartProps) {
     const ro = typeof ResizeObserver !== 'undefined'
       ? new ResizeObserver(() => {
           const w = Math.max(240, el.clientWidth);
-          if (w !== u.width) u.setSize({ width: w, height: latest.current.height ?? 300 });
+          if (w !== u.width) u.setSize({ width: w, height: latest.current.height ?? CHART_HEIGHT });
         })
       : null;
     ro?.observe(el);
@@ -391,7 +394,7 @@ export function Chart(props: ChartProps) {
   return (
     <figure class="chart-figure" data-testid={props.testId} aria-busy={props.data === null ? 'true' : undefined}>
       {props.zoomButtons && <ChartTools zoom={ready ? zoom : undefined} reset={ready ? reset : undefined} />}
-      <div class="chart" ref={host} role="img" aria-label={props.label} style={broken ? undefined : { minHeight: `${props.height ?? 300}px` }} />
+      <div class="chart" ref={host} role="img" aria-label={props.label} style={broken ? undefined : { minHeight: `${props.height ?? CHART_HEIGHT}px` }} />
       {loadFailed && <LoadFailed />}
       {noCanvas && <p class="notice">This browser does not allow drawing on a canvas, so the chart cannot be shown; the values below are complete without it.</p>}
     </figure>
