@@ -1,5 +1,6 @@
 // Phone first, at 390 × 844 CSS px, offline: on every area the answer the engineer came for sits in the first
 // screen, and no page runs past 2.5 screens with its disclosures closed — in the ordinary look and in field mode.
+// In the ordinary look each page's text uses at most 6 fonts (size × weight × style) of the type scale.
 // Field mode also gets 56 px touch targets, results at 20 px or more, text at 7:1 contrast or better, and no serious
 // or critical axe-core finding. Screenshots of every area in both modes go to test-artifacts/.
 // Contrast: WCAG 2.1 relative luminance and contrast ratio (W3C, Web Content Accessibility Guidelines 2.1, 2018,
@@ -14,6 +15,8 @@ const app = appForFile(4361);
 const { origin } = app;
 const SCREEN = { width: 390, height: 844 };
 const MAX_HEIGHT = 2110; // 2.5 screens of 844 px
+/** Sizes × weights × styles of visible text per page in the ordinary look: the type scale's 4 sizes, 2 weights. */
+const MAX_FONTS = 6;
 const heights: Record<string, Record<string, number>> = { normal: {}, field: {} };
 
 interface Area {
@@ -145,6 +148,29 @@ async function smallTargets(page: Page): Promise<string[]> {
   });
 }
 
+/**
+ * The fonts a page's visible text is drawn in: each size × weight × style is a font the browser looks up and
+ * prepares on first use, inside a layout (DEVELOPERS.md, "Few sizes of type"). Returns one line per font, with a
+ * few of the elements that use it.
+ */
+async function fontsDrawn(page: Page): Promise<string[]> {
+  return page.evaluate(() => {
+    const fonts = new Map<string, string[]>();
+    const walk = document.createTreeWalker(document.body, NodeFilter.SHOW_TEXT);
+    for (let n = walk.nextNode(); n; n = walk.nextNode()) {
+      const el = n.parentElement;
+      if (!el || !n.textContent?.trim() || el.getClientRects().length === 0) continue;
+      const cs = getComputedStyle(el);
+      if (cs.visibility === 'hidden') continue;
+      const key = `${cs.fontSize} ${cs.fontWeight} ${cs.fontStyle}`;
+      const users = fonts.get(key) ?? [];
+      if (users.length < 3) users.push(`${el.tagName.toLowerCase()}${el.className ? '.' + String(el.className).split(' ')[0] : ''}`);
+      fonts.set(key, users);
+    }
+    return [...fonts.entries()].map(([k, users]) => `${k} (${users.join(', ')})`);
+  });
+}
+
 /** Result figures (values, verdicts, the big answer lines) set smaller than 20 px. */
 async function smallResults(page: Page): Promise<{ count: number; small: string[] }> {
   return page.evaluate(() => {
@@ -242,6 +268,10 @@ describe('phone first at 390 × 844, offline', () => {
           if (answerBottom === null) problems.push(`${area.path}: no answer element ${area.answer}`);
           else if (answerBottom > SCREEN.height) problems.push(`${area.path}: answer ends at ${answerBottom.toFixed(0)} px, below the first screen`);
           else if (answerBottom > visibleBottom) problems.push(`${area.path}: answer ends at ${answerBottom.toFixed(0)} px, under the bottom bar (from ${visibleBottom.toFixed(0)} px)`);
+        }
+        if (mode === 'normal') {
+          const fonts = await fontsDrawn(page);
+          if (fonts.length > MAX_FONTS) problems.push(`${area.path}: text in ${fonts.length} fonts, above ${MAX_FONTS}: ${fonts.join('; ')}`);
         }
         await shoot(page, `phone-${mode}-${area.name}`);
         expect(await page.locator('body').textContent()).not.toMatch(/NaN/);
